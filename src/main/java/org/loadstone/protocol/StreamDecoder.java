@@ -1,0 +1,407 @@
+package org.loadstone.protocol;
+
+import java.nio.charset.StandardCharsets;
+import java.util.Optional;
+import org.loadstone.units.Precondition;
+
+/**
+ * Incremental decoder for wire protocol v1, both encodings at once (firmware-protocol/PROTOCOL.md,
+ * "Decoder behaviour"). Feed it byte chunks of any size as they arrive; it calls the listener for
+ * each record, counts checksum errors, resyncs, sequence gaps and unknown records, and never throws
+ * on bad bytes. Not thread-safe: one feeding thread. Decoding a sample allocates nothing.
+ */
+public final class StreamDecoder {
+  /** Longest candidate record considered, in bytes; older bytes are discarded. */
+  public static final int MAX_CANDIDATE = 512;
+
+  private static final int MAX_TEXT_BODY = 200;
+
+  private final DecodeListener listener;
+  private final byte[] buf = new byte[4 * MAX_CANDIDATE];
+  private final byte[] frame = new byte[MAX_CANDIDATE];
+  private int len;
+  private int lineStart;
+  private int frameStart;
+  private boolean lineOverflow;
+  private boolean frameOverflow;
+  private Encoding following;
+  private Encoding pendingSwitch;
+
+  private int lastSeq = -1;
+  private long samples;
+  private long messages;
+  private long checksumErrors;
+  private long resyncs;
+  private long dropped;
+  private long unknown;
+  private long bytes;
+
+  /**
+   * @param listener receives records; not null
+   * @param start the encoding followed until the first valid record (a device starts in text)
+   */
+  public StreamDecoder(DecodeListener listener, Encoding start) {
+    this.listener = Precondition.notNull(listener, "listener");
+    this.following = Precondition.notNull(start, "start");
+  }
+
+  /** A decoder that starts following text, as a device does after power-up. */
+  public StreamDecoder(DecodeListener listener) {
+    this(listener, Encoding.TEXT);
+  }
+
+  /** @return the encoding of the last valid record (or the start encoding) */
+  public Encoding following() {
+    return following;
+  }
+
+  /** @return a snapshot of the counters */
+  public DecoderCounters counters() {
+    return new DecoderCounters(samples, messages, checksumErrors, resyncs, dropped, unknown, bytes);
+  }
+
+  /** Forgets the previous sample so the next one does not count as a gap (e.g. after STOP/START). */
+  public void resetSequence() {
+    lastSeq = -1;
+  }
+
+  /** Feeds a whole array. */
+  public void feed(byte[] data) {
+    feed(data, 0, data.length);
+  }
+
+  /**
+   * Feeds {@code n} bytes from {@code data} at {@code off}.
+   *
+   * @throws IndexOutOfBoundsException when the range is outside the array (a caller mistake)
+   */
+  public void feed(byte[] data, int off, int n) {
+    java.util.Objects.checkFromIndexSize(off, n, data.length);
+    bytes += n;
+    for (int i = off, end = off + n; i < end; i++) {
+      if (len == buf.length) {
+        compact();
+      }
+      byte b = data[i];
+      buf[len++] = b;
+      if (b == '\n') {
+        endOfLine();
+      } else if (b == 0) {
+        endOfFrame();
+      } else {
+        capCandidates();
+      }
+    }
+  }
+
+  private void capCandidates() {
+    if (len - lineStart > MAX_CANDIDATE) {
+      lineStart = len - MAX_CANDIDATE / 2;
+      if (!lineOverflow && following == Encoding.TEXT) {
+        resyncs++;
+      }
+      lineOverflow = true;
+    }
+    if (len - frameStart > MAX_CANDIDATE) {
+      frameStart = len - MAX_CANDIDATE / 2;
+      if (!frameOverflow && following == Encoding.BINARY) {
+        resyncs++;
+      }
+      frameOverflow = true;
+    }
+  }
+
+  private void compact() {
+    int base = Math.min(lineStart, frameStart);
+    System.arraycopy(buf, base, buf, 0, len - base);
+    len -= base;
+    lineStart -= base;
+    frameStart -= base;
+  }
+
+  // ---------------------------------------------------------------- text
+
+  private void endOfLine() {
+    int s = lineStart;
+    int e = len - 1; // exclude LF
+    if (e > s && buf[e - 1] == '\r') {
+      e--;
+    }
+    boolean overflowed = lineOverflow;
+    lineOverflow = false;
+    lineStart = len;
+    if (e <= s) {
+      return; // empty line
+    }
+    int r = parseLine(s, e);
+    if (r == OK) {
+      accepted(Encoding.TEXT);
+      return;
+    }
+    for (int p = s + 1; p < e; p++) {
+      if (isUpper(buf[p]) && parseLine(p, e) == OK) {
+        if (following == Encoding.TEXT && !overflowed) {
+          resyncs++;
+        }
+        accepted(Encoding.TEXT);
+        return;
+      }
+    }
+    if (following == Encoding.TEXT && !overflowed) {
+      if (r == BAD_CRC) {
+        checksumErrors++;
+      } else {
+        resyncs++;
+      }
+    }
+  }
+
+  private static boolean isUpper(byte b) {
+    return b >= 'A' && b <= 'Z';
+  }
+
+  private static final int OK = 0;
+  private static final int MALFORMED = 1;
+  private static final int BAD_CRC = 2;
+
+  /** Parses and delivers one text line [s, e) without its line end. */
+  private int parseLine(int s, int e) {
+    // body " ~" 4 hex
+    if (e - s < 8 || e - s > MAX_TEXT_BODY) {
+      return MALFORMED;
+    }
+    int tilde = e - 5;
+    if (buf[tilde] != '~' || buf[tilde - 1] != ' ') {
+      return MALFORMED;
+    }
+    int crc = 0;
+    for (int k = tilde + 1; k < e; k++) {
+      int h = hex(buf[k]);
+      if (h < 0) {
+        return MALFORMED;
+      }
+      crc = (crc << 4) | h;
+    }
+    int bodyEnd = tilde - 1;
+    int t = s;
+    while (t < bodyEnd && isUpper(buf[t])) {
+      t++;
+    }
+    int tagLen = t - s;
+    if (tagLen < 1 || tagLen > 3 || (t < bodyEnd && buf[t] != ' ')) {
+      return MALFORMED;
+    }
+    for (int k = s; k < bodyEnd; k++) {
+      if (buf[k] < 0x20 || buf[k] > 0x7E) {
+        return MALFORMED;
+      }
+    }
+    if (Crc16.compute(buf, s, bodyEnd - s) != crc) {
+      return BAD_CRC;
+    }
+    if (tagLen == 1 && buf[s] == 'S') {
+      return textSample(s + 1, bodyEnd) ? OK : MALFORMED;
+    }
+    return textMessage(s, bodyEnd) ? OK : MALFORMED;
+  }
+
+  private static int hex(byte b) {
+    if (b >= '0' && b <= '9') {
+      return b - '0';
+    }
+    if (b >= 'A' && b <= 'F') {
+      return b - 'A' + 10;
+    }
+    if (b >= 'a' && b <= 'f') {
+      return b - 'a' + 10;
+    }
+    return -1;
+  }
+
+  private final long[] fields = new long[4];
+
+  /** Parses " seq us load [pos]" from [p, e). */
+  private boolean textSample(int p, int e) {
+    int n = 0;
+    while (p < e) {
+      if (buf[p] != ' ' || n == 4) {
+        return false;
+      }
+      p++;
+      int q = p;
+      boolean neg = false;
+      if (q < e && buf[q] == '-') {
+        neg = true;
+        q++;
+      }
+      int digitsStart = q;
+      long v = 0;
+      while (q < e && buf[q] >= '0' && buf[q] <= '9') {
+        v = v * 10 + (buf[q] - '0');
+        if (v > 0x1_0000_0000L) {
+          return false;
+        }
+        q++;
+      }
+      if (q == digitsStart || (q < e && buf[q] != ' ')) {
+        return false;
+      }
+      fields[n++] = neg ? -v : v;
+      p = q;
+    }
+    if (n < 3) {
+      return false;
+    }
+    long seq = fields[0];
+    long us = fields[1];
+    if (seq < 0 || seq > RawSample.SEQ_MAX || us < 0 || us > RawSample.TIME_MAX_US) {
+      return false;
+    }
+    if (!fitsInt(fields[2]) || (n == 4 && !fitsInt(fields[3]))) {
+      return false;
+    }
+    deliverSample((int) seq, us, (int) fields[2], n == 4, n == 4 ? (int) fields[3] : 0);
+    return true;
+  }
+
+  private static boolean fitsInt(long v) {
+    return v >= Integer.MIN_VALUE && v <= Integer.MAX_VALUE;
+  }
+
+  private boolean textMessage(int s, int e) {
+    String body = new String(buf, s, e - s, StandardCharsets.US_ASCII);
+    int sp = body.indexOf(' ');
+    String tag = sp < 0 ? body : body.substring(0, sp);
+    if (!DeviceMessage.isKnownTag(tag)) {
+      unknown++;
+      return true;
+    }
+    Optional<DeviceMessage> m = DeviceMessage.parse(body);
+    if (m.isEmpty()) {
+      return false;
+    }
+    deliverMessage(m.get());
+    return true;
+  }
+
+  // ---------------------------------------------------------------- binary
+
+  private void endOfFrame() {
+    int s = frameStart;
+    int e = len - 1; // exclude the 0x00
+    boolean overflowed = frameOverflow;
+    frameOverflow = false;
+    frameStart = len;
+    if (e <= s) {
+      return; // empty frame: a leading delimiter
+    }
+    int r = parseFrame(s, e);
+    if (r == OK) {
+      accepted(Encoding.BINARY);
+      return;
+    }
+    for (int p = s + 1; p < e; p++) {
+      if (parseFrame(p, e) == OK) {
+        if (following == Encoding.BINARY && !overflowed) {
+          resyncs++;
+        }
+        accepted(Encoding.BINARY);
+        return;
+      }
+    }
+    if (following == Encoding.BINARY && !overflowed) {
+      if (r == BAD_CRC) {
+        checksumErrors++;
+      } else {
+        resyncs++;
+      }
+    }
+  }
+
+  private int parseFrame(int s, int e) {
+    int n = Cobs.decode(buf, s, e - s, frame);
+    if (n < 3) {
+      return MALFORMED;
+    }
+    int type = frame[0] & 0xFF;
+    int bodyLen = n - 3;
+    boolean knownShape =
+        (type == 0x01 && bodyLen == 10) || (type == 0x02 && bodyLen == 14) || (type == 0x10);
+    int crc = ((frame[n - 2] & 0xFF) << 8) | (frame[n - 1] & 0xFF);
+    if (Crc16.compute(frame, 0, n - 2) != crc) {
+      return knownShape ? BAD_CRC : MALFORMED;
+    }
+    if (type == 0x01 || type == 0x02) {
+      if (!knownShape) {
+        return MALFORMED;
+      }
+      int seq = (frame[1] & 0xFF) | ((frame[2] & 0xFF) << 8);
+      long us = le32(3) & 0xFFFF_FFFFL;
+      int load = le32(7);
+      boolean pos = type == 0x02;
+      deliverSample(seq, us, load, pos, pos ? le32(11) : 0);
+      return OK;
+    }
+    if (type == 0x10) {
+      for (int k = 1; k < n - 2; k++) {
+        if (frame[k] < 0x20 || frame[k] > 0x7E) {
+          return MALFORMED;
+        }
+      }
+      String body = new String(frame, 1, bodyLen, StandardCharsets.US_ASCII);
+      int sp = body.indexOf(' ');
+      String tag = sp < 0 ? body : body.substring(0, sp);
+      if (tag.equals("S") || !DeviceMessage.isKnownTag(tag)) {
+        unknown++;
+        return OK;
+      }
+      Optional<DeviceMessage> m = DeviceMessage.parse(body);
+      if (m.isEmpty()) {
+        return MALFORMED;
+      }
+      deliverMessage(m.get());
+      return OK;
+    }
+    unknown++;
+    return OK;
+  }
+
+  private int le32(int at) {
+    return (frame[at] & 0xFF)
+        | ((frame[at + 1] & 0xFF) << 8)
+        | ((frame[at + 2] & 0xFF) << 16)
+        | ((frame[at + 3] & 0xFF) << 24);
+  }
+
+  // ---------------------------------------------------------------- delivery
+
+  private void accepted(Encoding e) {
+    following = pendingSwitch != null ? pendingSwitch : e;
+    pendingSwitch = null;
+    lineStart = len;
+    frameStart = len;
+    lineOverflow = false;
+    frameOverflow = false;
+  }
+
+  private void deliverSample(int seq, long us, int load, boolean hasPos, int pos) {
+    if (lastSeq >= 0) {
+      dropped += (seq - lastSeq - 1) & 0xFFFF;
+    }
+    lastSeq = seq;
+    samples++;
+    listener.onSample(seq, us, load, hasPos, pos);
+  }
+
+  private void deliverMessage(DeviceMessage m) {
+    if (m instanceof DeviceMessage.Identity) {
+      lastSeq = -1;
+    }
+    if (m instanceof DeviceMessage.Ack a && a.command().equals("MODE")) {
+      // Everything after this acknowledgement comes in the new encoding.
+      pendingSwitch = a.detail().equals("binary") ? Encoding.BINARY : Encoding.TEXT;
+    }
+    messages++;
+    listener.onMessage(m);
+  }
+}
