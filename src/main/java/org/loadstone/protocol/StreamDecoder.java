@@ -25,7 +25,6 @@ public final class StreamDecoder {
   private boolean lineOverflow;
   private boolean frameOverflow;
   private Encoding following;
-  private Encoding pendingSwitch;
 
   private int lastSeq = -1;
   private long samples;
@@ -38,21 +37,25 @@ public final class StreamDecoder {
 
   /**
    * @param listener receives records; not null
-   * @param start the encoding followed until the first valid record (a device starts in text)
+   * @param start the encoding followed until the first valid record, or null to follow none
+   *     until then (failures before the first valid record are not counted)
    */
   public StreamDecoder(DecodeListener listener, Encoding start) {
     this.listener = Precondition.notNull(listener, "listener");
-    this.following = Precondition.notNull(start, "start");
+    this.following = start;
   }
 
-  /** A decoder that starts following text, as a device does after power-up. */
+  /**
+   * A decoder in automatic mode: it follows no encoding until the first valid record, so the noise
+   * of a board booting or a port opening mid-record is not counted.
+   */
   public StreamDecoder(DecodeListener listener) {
-    this(listener, Encoding.TEXT);
+    this(listener, null);
   }
 
-  /** @return the encoding of the last valid record (or the start encoding) */
-  public Encoding following() {
-    return following;
+  /** @return the encoding of the last valid record (or the start encoding); empty in auto mode before the first record */
+  public java.util.Optional<Encoding> following() {
+    return java.util.Optional.ofNullable(following);
   }
 
   /** @return a snapshot of the counters */
@@ -127,7 +130,6 @@ public final class StreamDecoder {
     if (e > s && buf[e - 1] == '\r') {
       e--;
     }
-    boolean overflowed = lineOverflow;
     lineOverflow = false;
     lineStart = len;
     if (e <= s) {
@@ -140,14 +142,11 @@ public final class StreamDecoder {
     }
     for (int p = s + 1; p < e; p++) {
       if (isUpper(buf[p]) && parseLine(p, e) == OK) {
-        if (following == Encoding.TEXT && !overflowed) {
-          resyncs++;
-        }
         accepted(Encoding.TEXT);
         return;
       }
     }
-    if (following == Encoding.TEXT && !overflowed) {
+    if (following == Encoding.TEXT) {
       if (r == BAD_CRC) {
         checksumErrors++;
       } else {
@@ -246,6 +245,9 @@ public final class StreamDecoder {
       if (q == digitsStart || (q < e && buf[q] != ' ')) {
         return false;
       }
+      if (buf[digitsStart] == '0' && (q - digitsStart > 1 || neg)) {
+        return false; // no leading zeros, no "-0"
+      }
       fields[n++] = neg ? -v : v;
       p = q;
     }
@@ -289,7 +291,6 @@ public final class StreamDecoder {
   private void endOfFrame() {
     int s = frameStart;
     int e = len - 1; // exclude the 0x00
-    boolean overflowed = frameOverflow;
     frameOverflow = false;
     frameStart = len;
     if (e <= s) {
@@ -302,14 +303,11 @@ public final class StreamDecoder {
     }
     for (int p = s + 1; p < e; p++) {
       if (parseFrame(p, e) == OK) {
-        if (following == Encoding.BINARY && !overflowed) {
-          resyncs++;
-        }
         accepted(Encoding.BINARY);
         return;
       }
     }
-    if (following == Encoding.BINARY && !overflowed) {
+    if (following == Encoding.BINARY) {
       if (r == BAD_CRC) {
         checksumErrors++;
       } else {
@@ -376,8 +374,7 @@ public final class StreamDecoder {
   // ---------------------------------------------------------------- delivery
 
   private void accepted(Encoding e) {
-    following = pendingSwitch != null ? pendingSwitch : e;
-    pendingSwitch = null;
+    following = e;
     lineStart = len;
     frameStart = len;
     lineOverflow = false;
@@ -396,10 +393,6 @@ public final class StreamDecoder {
   private void deliverMessage(DeviceMessage m) {
     if (m instanceof DeviceMessage.Identity) {
       lastSeq = -1;
-    }
-    if (m instanceof DeviceMessage.Ack a && a.command().equals("MODE")) {
-      // Everything after this acknowledgement comes in the new encoding.
-      pendingSwitch = a.detail().equals("binary") ? Encoding.BINARY : Encoding.TEXT;
     }
     messages++;
     listener.onMessage(m);

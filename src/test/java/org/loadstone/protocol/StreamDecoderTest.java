@@ -8,7 +8,7 @@ import org.junit.jupiter.api.Test;
 
 class StreamDecoderTest {
   private final CollectingListener out = new CollectingListener();
-  private final StreamDecoder d = new StreamDecoder(out);
+  private final StreamDecoder d = new StreamDecoder(out, Encoding.TEXT);
 
   private static byte[] text(String body) {
     return new WireEncoder(Encoding.TEXT).body(body);
@@ -49,10 +49,20 @@ class StreamDecoderTest {
   }
 
   @Test
-  void garbagePrefixOnTheSameLineCostsNothingButAResync() {
+  void garbagePrefixOnTheSameLineIsDroppedWithoutCost() {
+    // PROTOCOL.md: only a candidate with nothing valid in it counts as a resync
     d.feed("#%$xyz".getBytes(StandardCharsets.US_ASCII));
     d.feed(text("S 5 6 7"));
     assertThat(out.samples).hasSize(1);
+    assertThat(d.counters().resyncs()).isZero();
+    d.feed("noise\n".getBytes(StandardCharsets.US_ASCII));
+    assertThat(d.counters().resyncs()).isEqualTo(1);
+  }
+
+  @Test
+  void leadingZerosAreNotASample() {
+    d.feed(text("S 2 007 2"));
+    assertThat(out.samples).isEmpty();
     assertThat(d.counters().resyncs()).isEqualTo(1);
   }
 
@@ -77,7 +87,7 @@ class StreamDecoderTest {
     byte[] buf = new byte[64];
     int n = new WireEncoder(Encoding.BINARY).sample(buf, 0, 7, 99, -3, false, 0);
     d.feed(buf, 0, n);
-    assertThat(d.following()).isEqualTo(Encoding.BINARY);
+    assertThat(d.following()).contains(Encoding.BINARY);
     assertThat(out.samples).containsExactly(new RawSample(7, 99, -3, false, 0));
   }
 
