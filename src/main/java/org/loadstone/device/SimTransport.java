@@ -89,7 +89,7 @@ public final class SimTransport implements Transport {
         return n;
       }
       if (!streaming) {
-        waitMs = Math.min(readTimeoutMs, 20);
+        waitMs = Math.min(readTimeoutMs, 2);
       } else if (dueSamples() > emitted) {
         return generate(buf, off, len);
       } else {

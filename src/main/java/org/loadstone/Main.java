@@ -1,0 +1,16 @@
+package org.loadstone;
+
+import org.loadstone.cli.LoadstoneCommand;
+
+/** Entry point: with no arguments the console window opens; otherwise a command runs. */
+public final class Main {
+  private Main() {}
+
+  public static void main(String[] args) {
+    if (args.length == 0) {
+      org.loadstone.ui.ConsoleLauncher.launch(args);
+      return;
+    }
+    System.exit(LoadstoneCommand.run(args));
+  }
+}

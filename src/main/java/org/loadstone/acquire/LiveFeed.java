@@ -1,0 +1,136 @@
+package org.loadstone.acquire;
+
+import org.loadstone.protocol.DecoderCounters;
+import org.loadstone.units.Precondition;
+
+/**
+ * The live view of one device for a display: current force, peak, position and a decimated
+ * force–time trace, updated each time {@link #poll()} is called (by the GUI's frame timer or a
+ * terminal status line). It reads the sample ring through its own cursor, so a slow display loses
+ * display points, never recorded samples. One polling thread.
+ */
+public final class LiveFeed {
+  private final DeviceReader reader;
+  private final SampleRing.Cursor cursor;
+  private final DisplayTrace trace;
+  private volatile ForceScale scale;
+  private volatile double countsPerMm;
+  private double zeroCounts;
+  private int tareRemaining;
+  private int tareTotal;
+  private double tareSum;
+  private double force_N = Double.NaN;
+  private double position_mm = Double.NaN;
+  private double peak_N = Double.NEGATIVE_INFINITY;
+  private double time_s;
+  private long firstTimeUs = -1;
+  private long lastCounts;
+
+  /**
+   * @param reader the device reader feeding the ring
+   * @param scale counts to force
+   * @param window_s seconds of trace to keep
+   */
+  public LiveFeed(DeviceReader reader, ForceScale scale, double window_s) {
+    this.reader = Precondition.notNull(reader, "reader");
+    this.scale = Precondition.notNull(scale, "scale");
+    this.cursor = reader.ring().cursorAtOldest();
+    this.trace = new DisplayTrace(window_s, 1200);
+  }
+
+  /** @param s the new counts → force scale (e.g. after a calibration is chosen) */
+  public void setScale(ForceScale s) {
+    scale = Precondition.notNull(s, "scale");
+  }
+
+  /** @param v position counts per mm, 0 for none */
+  public void setCountsPerMm(double v) {
+    countsPerMm = v;
+  }
+
+  /**
+   * Zeroes the force on the mean of the next {@code samples} samples (host-side tare).
+   *
+   * @param samples 1 or more
+   */
+  public void tare(int samples) {
+    if (samples < 1) {
+      throw new IllegalArgumentException("tare needs at least 1 sample, was " + samples);
+    }
+    tareRemaining = samples;
+    tareTotal = samples;
+    tareSum = 0;
+  }
+
+  /** @return whether a tare is still collecting samples */
+  public boolean taring() {
+    return tareRemaining > 0;
+  }
+
+  /** Forgets the peak. */
+  public void resetPeak() {
+    peak_N = Double.NEGATIVE_INFINITY;
+  }
+
+  /** @return the zero offset in counts */
+  public double zeroCounts() {
+    return zeroCounts;
+  }
+
+  /** Takes in everything new and returns what to show. */
+  public Snapshot poll() {
+    ForceScale sc = scale;
+    double cpm = countsPerMm;
+    cursor.drain((i, seq, dev, tUs, counts, hasPos, pos) -> {
+      if (firstTimeUs < 0) {
+        firstTimeUs = tUs;
+      }
+      lastCounts = counts;
+      if (tareRemaining > 0) {
+        tareSum += counts;
+        if (--tareRemaining == 0) {
+          zeroCounts = tareSum / tareTotal;
+          peak_N = Double.NEGATIVE_INFINITY;
+        }
+      }
+      time_s = (tUs - firstTimeUs) / 1e6;
+      force_N = sc.force_N(counts - zeroCounts);
+      if (force_N > peak_N) {
+        peak_N = force_N;
+      }
+      position_mm = hasPos && cpm > 0 ? pos / cpm : Double.NaN;
+      trace.add(time_s, force_N);
+    }, Integer.MAX_VALUE);
+    int n = trace.size();
+    double[] t = new double[n];
+    double[] f = new double[n];
+    int m = trace.copyTo(t, f);
+    return new Snapshot(force_N, peak_N == Double.NEGATIVE_INFINITY ? Double.NaN : peak_N,
+        position_mm, time_s, lastCounts, t, f, m, reader.measuredRateHz(), reader.samplesAccepted(),
+        reader.counters(), cursor.lost(), reader.lostReason().orElse(null), taring());
+  }
+
+  /**
+   * What a display shows at one moment.
+   *
+   * @param force_N latest force, NaN before the first sample
+   * @param peak_N highest force since the last reset, NaN before the first sample
+   * @param position_mm latest crosshead position, NaN without a position channel
+   * @param time_s time of the latest sample since the stream began
+   * @param counts latest raw counts
+   * @param traceTime_s decimated trace times (first {@code traceLength} valid)
+   * @param traceForce_N decimated trace forces
+   * @param traceLength valid points in the trace arrays
+   * @param rateHz measured sample rate
+   * @param samples samples received
+   * @param counters decoder counters
+   * @param displayLost samples this display skipped because it fell behind (none are lost from
+   *     recording)
+   * @param deviceLost why the device was lost, or null
+   * @param taring whether a tare is in progress
+   */
+  public record Snapshot(double force_N, double peak_N, double position_mm, double time_s,
+      long counts, double[] traceTime_s, double[] traceForce_N, int traceLength, double rateHz,
+      long samples, DecoderCounters counters, long displayLost, String deviceLost,
+      boolean taring) {}
+}

@@ -1,0 +1,70 @@
+package org.loadstone.cli;
+
+import org.loadstone.device.DeviceOpener;
+import org.loadstone.device.SimSetup;
+import org.loadstone.device.SerialSettings;
+import org.loadstone.device.Transport;
+import picocli.CommandLine.Option;
+
+/** Options that choose and open a device, shared by the commands that talk to one. */
+public final class DeviceOptions {
+  @Option(
+      names = "--port",
+      defaultValue = "sim",
+      paramLabel = "PORT",
+      description = "Serial port name or path, or 'sim' for the built-in simulated frame "
+          + "(default: ${DEFAULT-VALUE}). 'loadstone ports' lists them.")
+  String port;
+
+  @Option(names = "--baud", defaultValue = "115200", description = "Serial speed (default: ${DEFAULT-VALUE}).")
+  int baud;
+
+  @Option(
+      names = "--reset-wait-ms",
+      defaultValue = "0",
+      description = "Wait this long after opening, for boards that reset on open (try 2000).")
+  int resetWaitMs;
+
+  @Option(
+      names = "--scenario",
+      defaultValue = "panel-foam",
+      description = "Simulator: what is on the simulated frame (default: ${DEFAULT-VALUE}); "
+          + "'loadstone simulate --help' lists the scenarios.")
+  String scenario;
+
+  @Option(names = "--seed", defaultValue = "1", description = "Simulator: random seed (default: ${DEFAULT-VALUE}).")
+  long seed;
+
+  @Option(
+      names = "--rate",
+      defaultValue = "80",
+      description = "Simulator: samples per second: 10 or 80 (bridge amplifier) or 100…50000 "
+          + "(fast converter) (default: ${DEFAULT-VALUE}).")
+  double rateHz;
+
+  @Option(names = "--hand", description = "Simulator: a hand-operated press (uneven strokes, pauses) instead of a constant crosshead rate.")
+  boolean hand;
+
+  @Option(
+      names = "--sim-speed",
+      defaultValue = "1",
+      description = "Simulator: run the simulated clock this many times faster than real time (default: ${DEFAULT-VALUE}).")
+  double simSpeed;
+
+  /** @return whether the chosen port is the simulated frame */
+  public boolean simulated() {
+    return DeviceOpener.SIM.equalsIgnoreCase(port.trim());
+  }
+
+  /** @return the simulator settings these options describe */
+  public SimSetup simSetup() {
+    return new SimSetup(scenario, seed, rateHz, hand, simSpeed);
+  }
+
+  /** Opens the device. */
+  public Transport open() {
+    SerialSettings serial =
+        SerialSettings.builder().baud(baud).resetWaitMs(resetWaitMs).build();
+    return DeviceOpener.open(port, serial, () -> simSetup().openTransport());
+  }
+}

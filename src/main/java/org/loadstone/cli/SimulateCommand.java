@@ -1,0 +1,138 @@
+package org.loadstone.cli;
+
+import java.io.FileOutputStream;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.loadstone.device.FrameSampleSource;
+import org.loadstone.device.SampleSource;
+import org.loadstone.device.SimSetup;
+import org.loadstone.device.sim.Scenario;
+import org.loadstone.protocol.Encoding;
+import org.loadstone.protocol.WireEncoder;
+import org.loadstone.units.LoadstoneException;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+
+/** {@code loadstone simulate}: writes the simulated frame's protocol bytes to a file or a port. */
+@Command(
+    name = "simulate",
+    description = {
+      "Write the built-in simulated frame's wire bytes (exactly what the firmware sends) to a",
+      "file, to standard output (-) or to a serial device path such as one end of a",
+      "pseudo-terminal pair. Output is paced in real time at --rate.",
+      "",
+      "Scenarios: brittle, ductile, crush, over-range, rigid-block, panel-foam, panel-balsa,",
+      "panel-board, dead-weight."
+    })
+public final class SimulateCommand implements Callable<Integer> {
+  @Option(names = "--scenario", defaultValue = "brittle", description = "What is on the simulated frame (default: ${DEFAULT-VALUE}).")
+  String scenario;
+
+  @Option(names = "--rate", defaultValue = "80", description = "Samples per second (default: ${DEFAULT-VALUE}).")
+  double rateHz;
+
+  @Option(names = "--seconds", defaultValue = "10", description = "Simulated duration (default: ${DEFAULT-VALUE}).")
+  double seconds;
+
+  @Option(names = "--seed", defaultValue = "1", description = "Random seed; the same seed gives the same bytes (default: ${DEFAULT-VALUE}).")
+  long seed;
+
+  @Option(names = "--binary", description = "Use the binary encoding instead of text.")
+  boolean binary;
+
+  @Option(names = "--hand", description = "A hand-operated press instead of a constant crosshead rate.")
+  boolean hand;
+
+  @Option(names = "--unpaced", description = "Write as fast as possible instead of in real time.")
+  boolean unpaced;
+
+  @Option(names = "--out", required = true, paramLabel = "FILE|-|DEVICE", description = "Where the bytes go: a new file, - for standard output, or a device path.")
+  String out;
+
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
+
+  @Override
+  public Integer call() throws IOException {
+    if (!(seconds > 0)) {
+      throw new LoadstoneException("--seconds must be greater than 0, was " + seconds);
+    }
+    Scenario.parse(scenario);
+    SimSetup setup = new SimSetup(scenario, seed, rateHz, hand, 1);
+    SampleSource source = new FrameSampleSource(setup.buildFrame());
+    long total = Math.round(seconds * rateHz);
+    WireEncoder enc = new WireEncoder(binary ? Encoding.BINARY : Encoding.TEXT);
+    PrintWriter err = spec.commandLine().getErr();
+    long started = System.nanoTime();
+    try (OutputStream os = openOut()) {
+      String id = "I proto=1 fw=sim-1 adc=" + source.adcKind() + " rate=" + Math.round(rateHz)
+          + " ch=" + (source.hasPosition() ? 2 : 1)
+          + (source.hasPosition() ? " cpm=" + Math.round(source.countsPerMm()) : "")
+          + " motor=1 name=loadstone-sim";
+      os.write(enc.body(id));
+      byte[] buf = new byte[256 * 1024];
+      SampleSource.SampleSlot slot = new SampleSource.SampleSlot();
+      long written = 0;
+      while (written < total) {
+        long due = unpaced ? total
+            : Math.min(total, (long) ((System.nanoTime() - started) / 1e9 * rateHz) + 1);
+        int w = 0;
+        while (written < due && buf.length - w >= WireEncoder.MAX_SAMPLE_BYTES) {
+          source.next(slot);
+          w += enc.sample(buf, w, slot.seq, slot.deviceUs, slot.counts, source.hasPosition(),
+              slot.positionCounts);
+          written++;
+        }
+        if (w > 0) {
+          os.write(buf, 0, w);
+          os.flush();
+        } else {
+          sleepQuietly(Math.max(1, Math.min(10, (long) (1000 / rateHz))));
+        }
+      }
+    } catch (IOException e) {
+      throw new LoadstoneException("writing to " + out + " failed: " + e.getMessage()
+          + " (was the other end closed?)", e);
+    }
+    double elapsed = (System.nanoTime() - started) / 1e9;
+    err.printf(Locale.ROOT, "simulate: %d samples of %s in %.2f s (%.0f samples/s)%n", total,
+        scenario, elapsed, total / Math.max(elapsed, 1e-9));
+    err.flush();
+    return 0;
+  }
+
+  private OutputStream openOut() throws IOException {
+    if (out.equals("-")) {
+      return new java.io.FilterOutputStream(System.out) {
+        @Override
+        public void close() throws IOException {
+          flush();
+        }
+      };
+    }
+    Path p = Path.of(out);
+    boolean device = out.startsWith("/dev/") || (Files.exists(p) && !Files.isRegularFile(p));
+    if (!device && Files.exists(p)) {
+      throw new LoadstoneException("output file " + out + " already exists: choose a new name "
+          + "(simulate never overwrites a file)");
+    }
+    if (device && !Files.isWritable(p)) {
+      throw new LoadstoneException("cannot write to device " + out + ": check the path and, on "
+          + "Linux, membership of the dialout group");
+    }
+    return new FileOutputStream(p.toFile());
+  }
+
+  private static void sleepQuietly(long ms) {
+    try {
+      Thread.sleep(ms);
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+    }
+  }
+}

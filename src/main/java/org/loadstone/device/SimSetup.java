@@ -1,0 +1,52 @@
+package org.loadstone.device;
+
+import org.loadstone.device.sim.Scenario;
+import org.loadstone.device.sim.SimulatedFrame;
+import org.loadstone.device.sim.SimulatedFrameBuilder;
+import org.loadstone.units.LoadstoneException;
+
+/**
+ * How to set up the built-in simulated frame from user options.
+ *
+ * @param scenario scenario name as the command line takes it, e.g. {@code panel-foam}
+ * @param seed random seed; the same seed gives the same bytes
+ * @param rateHz samples per second: 10 or 80 (bridge amplifier) or 100…50 000 (fast converter)
+ * @param hand whether the press is pumped by hand (uneven strokes, pauses) instead of a constant
+ *     crosshead rate
+ * @param speed how many times faster than real time the simulated clock runs (at least 1)
+ */
+public record SimSetup(String scenario, long seed, double rateHz, boolean hand, double speed) {
+  /** The console's default: a foam-core shelf panel at 80 samples/s, real time. */
+  public static final SimSetup DEFAULT = new SimSetup("panel-foam", 1, 80, false, 1);
+
+  public SimSetup {
+    Scenario.parse(scenario);
+    if (!SimulatedFrame.isSupportedRate(rateHz)) {
+      throw new LoadstoneException("the simulated converter cannot run at " + rateHz
+          + " samples/s: use 10 or 80 (bridge amplifier) or 100…50000 (fast converter)");
+    }
+    if (!(speed >= 1) || Double.isNaN(speed)) {
+      throw new LoadstoneException("--sim-speed must be 1 or more, was " + speed);
+    }
+  }
+
+  /** @return the physical model these settings describe */
+  public SimulatedFrame buildFrame() {
+    SimulatedFrameBuilder b =
+        SimulatedFrame.builder().scenario(Scenario.parse(scenario)).seed(seed).rateHz(rateHz);
+    if (hand) {
+      b.handPumped(2.0);
+    }
+    return b.build();
+  }
+
+  /** @return a simulated device streaming this model */
+  public SimTransport openTransport() {
+    return new SimTransport(new FrameSampleSource(buildFrame()), speed, 100);
+  }
+
+  /** @return the simulated cell's nominal sensitivity in counts per N (its data-sheet value) */
+  public double nominalCountsPerN() {
+    return buildFrame().truth().loadCell().countsPerN();
+  }
+}

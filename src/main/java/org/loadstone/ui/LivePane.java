@@ -1,0 +1,244 @@
+package org.loadstone.ui;
+
+import java.util.Locale;
+import javafx.animation.AnimationTimer;
+import javafx.geometry.Insets;
+import javafx.geometry.Pos;
+import javafx.scene.Parent;
+import javafx.scene.Scene;
+import javafx.scene.control.Button;
+import javafx.scene.control.Label;
+import javafx.scene.input.KeyCode;
+import javafx.scene.layout.BorderPane;
+import javafx.scene.layout.HBox;
+import javafx.scene.layout.Priority;
+import javafx.scene.layout.Region;
+import javafx.scene.layout.VBox;
+import org.loadstone.acquire.DeviceReader;
+import org.loadstone.acquire.LiveFeed;
+import org.loadstone.acquire.SampleRing;
+import org.loadstone.device.Transport;
+import org.loadstone.protocol.DecoderCounters;
+import org.loadstone.units.LoadstoneException;
+
+/**
+ * The live pane: a large force readout for reading from across the bench, peak and crosshead
+ * position, a live force–time chart, and the stream's health. Thin: all figures come from {@link
+ * LiveFeed}.
+ */
+final class LivePane {
+  private static final double WINDOW_S = 30;
+
+  private final ConsoleConfig config;
+  private final BorderPane root = new BorderPane();
+  private final Label force = label("force-value", "—");
+  private final Label peak = label("peak-value", "peak —");
+  private final Label position = label("position-value", "crosshead —");
+  private final Label raw = label("raw-value", "raw —");
+  private final Label device = label("device-line", "");
+  private final Label health = label("health-line", "");
+  private final Label state = label("state-chip", "connecting");
+  private final Button reconnect = new Button("Reconnect");
+  private final ForceChart chart = new ForceChart("time (s)");
+  private DeviceReader reader;
+  private LiveFeed feed;
+  private AnimationTimer timer;
+  private long lastChartNanos;
+
+  LivePane(ConsoleConfig config) {
+    this.config = config;
+    build();
+  }
+
+  Parent root() {
+    return root;
+  }
+
+  private static Label label(String id, String text) {
+    Label l = new Label(text);
+    l.setId(id);
+    return l;
+  }
+
+  private void build() {
+    root.getStyleClass().add("console");
+
+    Label mark = label("wordmark", "LOADSTONE");
+    Region grow = new Region();
+    HBox.setHgrow(grow, Priority.ALWAYS);
+    device.setText(config.deviceLabel());
+    HBox top = new HBox(16, mark, device, grow, state);
+    top.getStyleClass().add("top-bar");
+    top.setAlignment(Pos.CENTER_LEFT);
+
+    VBox header = new VBox(top);
+    SafetyNotice notice = new SafetyNotice(config.home());
+    if (notice.needed()) {
+      header.getChildren().add(safetyBanner(notice, header));
+    }
+    root.setTop(header);
+
+    Label forceCaption = label("force-caption", "FORCE  ·  N");
+    Button tare = new Button("Zero  [Z]");
+    tare.setId("tare-button");
+    tare.setOnAction(e -> tare());
+    Button clearPeak = new Button("Clear peak  [P]");
+    clearPeak.setId("clear-peak-button");
+    clearPeak.setOnAction(e -> clearPeak());
+    tare.setMaxWidth(Double.MAX_VALUE);
+    clearPeak.setMaxWidth(Double.MAX_VALUE);
+    reconnect.setId("reconnect-button");
+    reconnect.setMaxWidth(Double.MAX_VALUE);
+    reconnect.setVisible(false);
+    reconnect.setManaged(false);
+    reconnect.setOnAction(e -> connect());
+    VBox readout = new VBox(6, forceCaption, force, peak, position, raw, spacer(), tare, clearPeak,
+        reconnect);
+    readout.getStyleClass().add("readout");
+    readout.setPrefWidth(380);
+    root.setLeft(readout);
+
+    BorderPane chartBox = new BorderPane(chart.node());
+    chartBox.getStyleClass().add("chart-box");
+    BorderPane.setMargin(chartBox, new Insets(12, 12, 0, 0));
+    root.setCenter(chartBox);
+
+    HBox bottom = new HBox(health);
+    bottom.getStyleClass().add("bottom-bar");
+    root.setBottom(bottom);
+  }
+
+  private static Region spacer() {
+    Region r = new Region();
+    VBox.setVgrow(r, Priority.ALWAYS);
+    return r;
+  }
+
+  private Parent safetyBanner(SafetyNotice notice, VBox header) {
+    Label text = label("safety-text", "Safety.  " + SafetyNotice.TEXT);
+    text.setWrapText(true);
+    HBox.setHgrow(text, Priority.ALWAYS);
+    Button ok = new Button("I understand");
+    ok.setId("safety-ack");
+    HBox banner = new HBox(14, text, ok);
+    banner.setId("safety-banner");
+    banner.getStyleClass().add("safety-banner");
+    banner.setAlignment(Pos.CENTER_LEFT);
+    ok.setOnAction(e -> {
+      notice.acknowledge();
+      header.getChildren().remove(banner);
+    });
+    return banner;
+  }
+
+  void installKeys(Scene scene) {
+    scene.setOnKeyPressed(e -> {
+      if (e.getCode() == KeyCode.Z) {
+        tare();
+      } else if (e.getCode() == KeyCode.P) {
+        clearPeak();
+      }
+    });
+  }
+
+  private void tare() {
+    if (feed != null) {
+      feed.tare(20);
+    }
+  }
+
+  private void clearPeak() {
+    if (feed != null) {
+      feed.resetPeak();
+    }
+  }
+
+  /** Opens the device and starts the display timer. */
+  void connect() {
+    disconnect();
+    Transport t;
+    try {
+      t = config.connect().get();
+    } catch (LoadstoneException e) {
+      showLost(e.getMessage());
+      return;
+    }
+    reader = new DeviceReader(t, new SampleRing(1 << 20));
+    reader.addListener(new DeviceReader.Listener() {
+      @Override
+      public void onMessage(org.loadstone.protocol.DeviceMessage m) {
+        if (m instanceof org.loadstone.protocol.DeviceMessage.Identity id && feed != null) {
+          feed.setCountsPerMm(id.countsPerMm());
+        }
+      }
+    });
+    feed = new LiveFeed(reader, config.scale(), WINDOW_S);
+    feed.tare(20); // zero on connect, as the specimen is not yet loaded
+    reader.start();
+    reconnect.setVisible(false);
+    reconnect.setManaged(false);
+    setState("live", "state-live");
+    timer = new AnimationTimer() {
+      @Override
+      public void handle(long now) {
+        refresh(now);
+      }
+    };
+    timer.start();
+  }
+
+  void disconnect() {
+    if (timer != null) {
+      timer.stop();
+    }
+    if (reader != null) {
+      reader.close();
+      reader = null;
+    }
+  }
+
+  private void refresh(long now) {
+    LiveFeed.Snapshot s = feed.poll();
+    force.setText(Double.isNaN(s.force_N()) ? "—" : fmt(s.force_N()));
+    peak.setText("peak " + (Double.isNaN(s.peak_N()) ? "—" : fmt(s.peak_N()) + " N"));
+    position.setText("crosshead " + (Double.isNaN(s.position_mm()) ? "—"
+        : String.format(Locale.ROOT, "%.3f mm", s.position_mm())));
+    raw.setText("raw " + s.counts() + " counts" + (s.taring() ? "  · zeroing…" : ""));
+    DecoderCounters c = s.counters();
+    health.setText(String.format(Locale.ROOT,
+        "%.1f samples/s   ·   %d samples   ·   dropped %d   ·   checksum errors %d   ·   "
+            + "resyncs %d%s",
+        s.rateHz(), s.samples(), c.dropped(), c.checksumErrors(), c.resyncs(),
+        s.displayLost() > 0 ? "   ·   display skipped " + s.displayLost() : ""));
+    if (now - lastChartNanos > 100_000_000L) {
+      lastChartNanos = now;
+      chart.show(s.traceTime_s(), s.traceForce_N(), s.traceLength());
+    }
+    if (s.deviceLost() != null) {
+      timer.stop();
+      showLost(s.deviceLost());
+    }
+  }
+
+  private void showLost(String why) {
+    setState("device lost", "state-lost");
+    health.setText(why);
+    reconnect.setVisible(true);
+    reconnect.setManaged(true);
+  }
+
+  private void setState(String text, String styleClass) {
+    state.setText(text);
+    state.getStyleClass().removeAll("state-live", "state-lost");
+    state.getStyleClass().add(styleClass);
+  }
+
+  private static String fmt(double v_N) {
+    double a = Math.abs(v_N);
+    return String.format(Locale.ROOT, a >= 1000 ? "%.0f" : a >= 100 ? "%.1f" : "%.2f", v_N);
+  }
+
+  ForceChart chart() {
+    return chart;
+  }
+}
