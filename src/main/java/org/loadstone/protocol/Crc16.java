@@ -5,7 +5,7 @@ package org.loadstone.protocol;
  * The ASCII bytes {@code 123456789} give 0x29B1.
  */
 public final class Crc16 {
-  private static final int[] TABLE = new int[256];
+  static final int[] TABLE = new int[256];
 
   static {
     for (int i = 0; i < 256; i++) {

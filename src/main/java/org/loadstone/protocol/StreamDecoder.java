@@ -17,9 +17,10 @@ public final class StreamDecoder {
   private static final int MAX_TEXT_BODY = 200;
 
   private final DecodeListener listener;
-  private final byte[] buf = new byte[4 * MAX_CANDIDATE];
+  private final byte[] buf = new byte[64 * 1024];
   private final byte[] frame = new byte[MAX_CANDIDATE];
   private int len;
+  private int end; // just past the terminator being handled
   private int lineStart;
   private int frameStart;
   private boolean lineOverflow;
@@ -81,32 +82,54 @@ public final class StreamDecoder {
   public void feed(byte[] data, int off, int n) {
     java.util.Objects.checkFromIndexSize(off, n, data.length);
     bytes += n;
-    for (int i = off, end = off + n; i < end; i++) {
+    int i = off;
+    int stop = off + n;
+    while (i < stop) {
       if (len == buf.length) {
         compact();
       }
-      byte b = data[i];
-      buf[len++] = b;
-      if (b == '\n') {
-        endOfLine();
-      } else if (b == 0) {
-        endOfFrame();
-      } else {
-        capCandidates();
-      }
+      int k = Math.min(stop - i, buf.length - len);
+      System.arraycopy(data, i, buf, len, k);
+      int from = len;
+      len += k;
+      i += k;
+      scan(from);
     }
   }
 
-  private void capCandidates() {
-    if (len - lineStart > MAX_CANDIDATE) {
-      lineStart = len - MAX_CANDIDATE / 2;
+  /** Looks for record boundaries in buf[from, len). */
+  private void scan(int from) {
+    byte[] b = buf;
+    for (int p = from, n = len; p < n; p++) {
+      byte c = b[p];
+      if (c == '\n') {
+        end = p + 1;
+        capLine(p);
+        endOfLine();
+      } else if (c == 0) {
+        end = p + 1;
+        capFrame(p);
+        endOfFrame();
+      }
+    }
+    capLine(len);
+    capFrame(len);
+  }
+
+  /** Keeps a text candidate ending at {@code at} (exclusive) to the newest MAX_CANDIDATE bytes. */
+  private void capLine(int at) {
+    if (at - lineStart > MAX_CANDIDATE) {
+      lineStart = at - MAX_CANDIDATE;
       if (!lineOverflow && following == Encoding.TEXT) {
         resyncs++;
       }
       lineOverflow = true;
     }
-    if (len - frameStart > MAX_CANDIDATE) {
-      frameStart = len - MAX_CANDIDATE / 2;
+  }
+
+  private void capFrame(int at) {
+    if (at - frameStart > MAX_CANDIDATE) {
+      frameStart = at - MAX_CANDIDATE;
       if (!frameOverflow && following == Encoding.BINARY) {
         resyncs++;
       }
@@ -126,12 +149,12 @@ public final class StreamDecoder {
 
   private void endOfLine() {
     int s = lineStart;
-    int e = len - 1; // exclude LF
+    int e = end - 1; // exclude LF
     if (e > s && buf[e - 1] == '\r') {
       e--;
     }
     lineOverflow = false;
-    lineStart = len;
+    lineStart = end;
     if (e <= s) {
       return; // empty line
     }
@@ -165,6 +188,9 @@ public final class StreamDecoder {
 
   /** Parses and delivers one text line [s, e) without its line end. */
   private int parseLine(int s, int e) {
+    if (buf[s] == 'S' && e - s >= 12 && buf[s + 1] == ' ' && fastTextSample(s, e)) {
+      return OK;
+    }
     // body " ~" 4 hex
     if (e - s < 8 || e - s > MAX_TEXT_BODY) {
       return MALFORMED;
@@ -202,6 +228,75 @@ public final class StreamDecoder {
       return textSample(s + 1, bodyEnd) ? OK : MALFORMED;
     }
     return textMessage(s, bodyEnd) ? OK : MALFORMED;
+  }
+
+  /**
+   * The hot path: one pass over a well-formed sample line, checksum computed while parsing. Any
+   * deviation returns false and the general parser classifies the line.
+   */
+  private boolean fastTextSample(int s, int e) {
+    final byte[] b = buf;
+    final int[] table = Crc16.TABLE;
+    int crc = ((0xFFFF << 8) ^ table[((0xFFFF >>> 8) ^ 'S') & 0xFF]) & 0xFFFF;
+    int p = s + 1;
+    int bodyEnd = e - 6;
+    if (b[bodyEnd] != ' ' || b[bodyEnd + 1] != '~') {
+      return false;
+    }
+    int n = 0;
+    long[] f = fields;
+    while (p < bodyEnd) {
+      if (b[p] != ' ' || n == 4) {
+        return false;
+      }
+      crc = ((crc << 8) ^ table[((crc >>> 8) ^ ' ') & 0xFF]) & 0xFFFF;
+      p++;
+      boolean neg = false;
+      if (b[p] == '-') {
+        neg = true;
+        crc = ((crc << 8) ^ table[((crc >>> 8) ^ '-') & 0xFF]) & 0xFFFF;
+        p++;
+      }
+      int d0 = p;
+      long v = 0;
+      while (p < bodyEnd) {
+        int c = b[p];
+        int d = c - '0';
+        if (d < 0 || d > 9) {
+          break;
+        }
+        v = v * 10 + d;
+        crc = ((crc << 8) ^ table[((crc >>> 8) ^ c) & 0xFF]) & 0xFFFF;
+        p++;
+      }
+      int digits = p - d0;
+      if (digits == 0 || digits > 10 || (b[d0] == '0' && (digits > 1 || neg))) {
+        return false;
+      }
+      f[n++] = neg ? -v : v;
+    }
+    if (n < 3) {
+      return false;
+    }
+    int sent = 0;
+    for (int k = bodyEnd + 2; k < e; k++) {
+      int h = hex(b[k]);
+      if (h < 0) {
+        return false;
+      }
+      sent = (sent << 4) | h;
+    }
+    if (sent != crc) {
+      return false;
+    }
+    long seq = f[0];
+    long us = f[1];
+    if (seq < 0 || seq > RawSample.SEQ_MAX || us < 0 || us > RawSample.TIME_MAX_US
+        || !fitsInt(f[2]) || (n == 4 && !fitsInt(f[3]))) {
+      return false;
+    }
+    deliverSample((int) seq, us, (int) f[2], n == 4, n == 4 ? (int) f[3] : 0);
+    return true;
   }
 
   private static int hex(byte b) {
@@ -290,9 +385,9 @@ public final class StreamDecoder {
 
   private void endOfFrame() {
     int s = frameStart;
-    int e = len - 1; // exclude the 0x00
+    int e = end - 1; // exclude the 0x00
     frameOverflow = false;
-    frameStart = len;
+    frameStart = end;
     if (e <= s) {
       return; // empty frame: a leading delimiter
     }
@@ -375,8 +470,8 @@ public final class StreamDecoder {
 
   private void accepted(Encoding e) {
     following = e;
-    lineStart = len;
-    frameStart = len;
+    lineStart = end;
+    frameStart = end;
     lineOverflow = false;
     frameOverflow = false;
   }

@@ -241,4 +241,8 @@ final class LivePane {
   ForceChart chart() {
     return chart;
   }
+
+  LiveFeed feed() {
+    return feed;
+  }
 }

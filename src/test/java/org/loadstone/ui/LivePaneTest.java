@@ -1,0 +1,81 @@
+package org.loadstone.ui;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.TimeUnit;
+import javafx.scene.Scene;
+import javafx.scene.control.Label;
+import javafx.stage.Stage;
+import org.junit.jupiter.api.AfterEach;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.extension.ExtendWith;
+import org.loadstone.acquire.ForceScale;
+import org.loadstone.device.SimSetup;
+import org.testfx.api.FxRobot;
+import org.testfx.framework.junit5.ApplicationExtension;
+import org.testfx.framework.junit5.Start;
+import org.testfx.util.WaitForAsyncUtils;
+
+/** The live window in a real JavaFX scene (headless Monocle), on the simulated frame. */
+@ExtendWith(ApplicationExtension.class)
+class LivePaneTest {
+  private LivePane pane;
+  private Path home;
+
+  @Start
+  void start(Stage stage) throws Exception {
+    home = Files.createTempDirectory("loadstone-home");
+    SimSetup sim = new SimSetup("brittle", 3, 80, false, 4);
+    ConsoleConfig config = new ConsoleConfig("simulated frame · brittle", sim::openTransport,
+        ForceScale.linear(sim.nominalCountsPerN(), "test"), home);
+    pane = new LivePane(config);
+    Scene scene = new Scene(pane.root(), 1100, 700);
+    scene.getStylesheets().add(
+        LivePane.class.getResource("/org/loadstone/ui/console.css").toExternalForm());
+    pane.installKeys(scene);
+    stage.setScene(scene);
+    stage.show();
+    pane.connect();
+  }
+
+  @AfterEach
+  void stop() throws Exception {
+    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(5, TimeUnit.SECONDS);
+  }
+
+  @Test
+  void showsLiveForceAndDrawsTheCurve(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> pane.chart().pointCount() > 20);
+    Label force = robot.lookup("#force-value").queryAs(Label.class);
+    assertThat(force.getText()).matches("-?[0-9]+(\\.[0-9]+)?");
+    Label health = robot.lookup("#health-line").queryAs(Label.class);
+    assertThat(health.getText()).contains("dropped 0").contains("checksum errors 0");
+    Label peak = robot.lookup("#peak-value").queryAs(Label.class);
+    assertThat(peak.getText()).startsWith("peak ").endsWith(" N");
+  }
+
+  @Test
+  void safetyNoticeShownUntilAcknowledged(FxRobot robot) {
+    assertThat(robot.lookup("#safety-banner").tryQuery()).isPresent();
+    assertThat(robot.lookup("#safety-text").queryAs(Label.class).getText())
+        .contains("eye protection").contains("rated capacity");
+    robot.clickOn("#safety-ack");
+    WaitForAsyncUtils.waitForFxEvents();
+    assertThat(robot.lookup("#safety-banner").tryQuery()).isEmpty();
+    assertThat(new SafetyNotice(home).needed()).isFalse();
+  }
+
+  @Test
+  void zeroOnConnectFindsTheCellsZeroOffset(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> pane.chart().pointCount() > 5);
+    // before the crosshead closes the gap the cell is unloaded, so the tare is its zero offset
+    double expected = new SimSetup("brittle", 3, 80, false, 4).buildFrame().truth().loadCell()
+        .zeroOffset_counts();
+    WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS, () -> !pane.feed().taring());
+    assertThat(pane.feed().zeroCounts()).isCloseTo(expected, org.assertj.core.data.Offset.offset(50.0));
+    robot.type(javafx.scene.input.KeyCode.Z);
+    WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS, () -> !pane.feed().taring());
+  }
+}
