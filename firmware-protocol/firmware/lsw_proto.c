@@ -710,7 +710,7 @@ static int classify_binary(const uint8_t *s, size_t n, lsw_record *r)
     if (!lsw_cobs_decode(s, n, p, sizeof p, &pn) || pn < 3) return CLS_MALFORMED;
     type = p[0];
     body_n = pn - 3;
-    crc_ok = lsw_crc16(p, pn - 2) == (uint16_t)((p[pn - 2] << 8) | p[pn - 1]);
+    crc_ok = lsw_crc16(p, pn - 2) == (uint16_t)(((uint16_t)p[pn - 2] << 8) | p[pn - 1]);
     shaped = (type == LSW_TYPE_SAMPLE && body_n == 10) || (type == LSW_TYPE_SAMPLE_POS && body_n == 14) ||
              (type == LSW_TYPE_MESSAGE && lsw_body_valid((const char *)p + 1, body_n));
     r->encoding = LSW_BINARY;
