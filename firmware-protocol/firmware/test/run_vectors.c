@@ -477,6 +477,11 @@ static void run_vector(const char *dir, const char *file)
     }
     if (fgets(buf, sizeof buf, fp) == NULL || buf[0] != '#') err = "does not start with a # comment";
     while (err == NULL) {
+        size_t bl = strlen(buf);
+        if (bl == sizeof buf - 1 && buf[bl - 1] != '\n') {
+            err = "line longer than 4094 characters";
+            break;
+        }
         err = parse_directive(&v, buf);
         if (err == NULL && fgets(buf, sizeof buf, fp) == NULL) break;
     }
