@@ -463,10 +463,26 @@ size_t lsw_put_refusal(uint8_t *out, size_t cap, lsw_encoding enc, const char *c
     return lsw_put_message(out, cap, enc, body);
 }
 
+/* ---- converter and encoder helpers ------------------------------------- */
+
+int32_t lsw_sign_extend24(uint32_t raw)
+{
+    raw &= 0xFFFFFFul;
+    return (int32_t)(raw ^ 0x800000ul) - (int32_t)0x800000l;
+}
+
+int8_t lsw_quad_step(uint8_t prev_ab, uint8_t now_ab)
+{
+    /* index previous AB << 2 | current AB; forward is 00 -> 01 -> 11 -> 10 -> 00 */
+    static const int8_t step[16] = {0, 1, -1, 0, -1, 0, 0, 1, 1, 0, 0, -1, 0, -1, 1, 0};
+    return step[((prev_ab & 3u) << 2) | (now_ab & 3u)];
+}
+
 /* ---- decimal parsing ---------------------------------------------------- */
 
 /* Canonical decimal: "0" or [1-9][0-9]*, optional leading '-' when neg_ok
- * (but never "-0"). Result in [lo, hi] given as magnitude limits. */
+ * (but never "-0"). The magnitude may not exceed pos_max, or neg_max when
+ * negative. */
 static int parse_dec(const uint8_t *s, size_t n, int neg_ok, uint32_t pos_max, uint32_t neg_max,
                      int *neg, uint32_t *mag)
 {

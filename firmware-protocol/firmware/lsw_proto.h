@@ -100,6 +100,16 @@ size_t lsw_put_ack(uint8_t *out, size_t cap, lsw_encoding enc, const char *comma
 size_t lsw_put_refusal(uint8_t *out, size_t cap, lsw_encoding enc, const char *command,
                        const char *reason, const char *text);
 
+/* ---- converter and encoder helpers ------------------------------------ */
+
+/* 24-bit two's complement converter word (HX711-class, MSB first) to counts:
+ * 0x800000 -> -8388608, 0x7FFFFF -> 8388607. Bits above 23 are ignored. */
+int32_t lsw_sign_extend24(uint32_t raw);
+/* 4x quadrature decoding step for channel levels AB (bit 1 = A, bit 0 = B):
+ * +1 forward (00 -> 01 -> 11 -> 10 -> 00), -1 backward, 0 for no change or a
+ * skipped state (both channels changed: the step cannot be known). */
+int8_t lsw_quad_step(uint8_t prev_ab, uint8_t now_ab);
+
 /* ---- host commands (parsed on the device) ----------------------------- */
 
 typedef enum {

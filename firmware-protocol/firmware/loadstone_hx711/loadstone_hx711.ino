@@ -50,15 +50,10 @@ static uint8_t tx[LSW_FRAME_MAX + 8];
 static volatile int32_t encoder_count = 0;
 static volatile uint8_t encoder_state = 0;
 
-/* 4x quadrature decoding: index = previous AB << 2 | current AB. Forward is
- * 00 -> 01 -> 11 -> 10 -> 00; a jump over a state (both bits changed) is not
- * countable and adds nothing. */
-static const int8_t QUAD_STEP[16] = {0, 1, -1, 0, -1, 0, 0, 1, 1, 0, 0, -1, 0, -1, 1, 0};
-
 static void encoder_isr()
 {
     uint8_t now = (uint8_t)((digitalRead(PIN_ENC_A) << 1) | digitalRead(PIN_ENC_B));
-    encoder_count += QUAD_STEP[(encoder_state << 2) | now];
+    encoder_count += lsw_quad_step(encoder_state, now); /* 4x decoding */
     encoder_state = now;
 }
 
@@ -157,8 +152,7 @@ static int32_t hx_read()
         raw = (raw << 1) | hx_pulse();
     }
     (void)hx_pulse();
-    /* sign-extend 24-bit two's complement without relying on shifts of negatives */
-    return (int32_t)(raw ^ 0x800000ul) - (int32_t)0x800000l;
+    return lsw_sign_extend24(raw);
 }
 
 static void set_rate(uint32_t hz)

@@ -218,6 +218,37 @@ static void unit_encoders(void)
               strcmp(body, "N RATE unsupported") == 0, "encoder: refusal body");
 }
 
+static void unit_converter(void)
+{
+    /* HX711 datasheet: output is 24-bit two's complement, 800000h at minimum
+     * and 7FFFFFh at maximum input. */
+    check(lsw_sign_extend24(0x800000ul) == -8388607l - 1, "sign-extend: 800000h -> -8388608");
+    check(lsw_sign_extend24(0x7FFFFFul) == 8388607l, "sign-extend: 7FFFFFh -> 8388607");
+    check(lsw_sign_extend24(0xFFFFFFul) == -1, "sign-extend: FFFFFFh -> -1");
+    check(lsw_sign_extend24(0x000000ul) == 0, "sign-extend: 0 -> 0");
+    check(lsw_sign_extend24(0x1000001ul) == 1, "sign-extend: bits above 23 ignored");
+}
+
+static void unit_quadrature(void)
+{
+    /* 4x decoding of a Gray-code quadrature signal (common practice): one full
+     * forward cycle 00 01 11 10 00 is +4, the reverse -4; a skipped state
+     * (both channels changed) and no change count 0. */
+    static const uint8_t fwd[5] = {0, 1, 3, 2, 0};
+    int i, sum_f = 0, sum_b = 0, skipped = 0, still = 0;
+    for (i = 0; i < 4; i++) {
+        sum_f += lsw_quad_step(fwd[i], fwd[i + 1]);
+        sum_b += lsw_quad_step(fwd[i + 1], fwd[i]);
+    }
+    for (i = 0; i < 4; i++) {
+        skipped += lsw_quad_step((uint8_t)i, (uint8_t)(i ^ 3)) != 0;
+        still += lsw_quad_step((uint8_t)i, (uint8_t)i) != 0;
+    }
+    check(sum_f == 4, "quadrature: forward cycle counts +4");
+    check(sum_b == -4, "quadrature: backward cycle counts -4");
+    check(skipped == 0 && still == 0, "quadrature: skipped states and no change count 0");
+}
+
 /* Decoder robustness: seeded random bytes never break it, and a valid record
  * after the noise is still delivered. */
 typedef struct {
@@ -559,6 +590,8 @@ int main(int argc, char **argv)
     unit_cobs();
     unit_parser();
     unit_encoders();
+    unit_converter();
+    unit_quadrature();
     unit_robust();
 
     dir = opendir(argv[1]);
