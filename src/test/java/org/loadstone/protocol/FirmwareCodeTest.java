@@ -72,6 +72,41 @@ class FirmwareCodeTest {
         assertThat(Integer.parseInt(count.group(1))).as("number of golden vectors run").isGreaterThanOrEqualTo(16);
     }
 
+    /**
+     * Runs the real sketch {@code loadstone_hx711.ino} on the host against a simulated HX711-class
+     * converter (datasheet timing: DOUT low when ready, 25 clock pulses, 10/80 samples/s by RATE),
+     * encoder and serial port, decoding everything it sends with the C host decoder. Needs g++; skipped
+     * without it (also on CI, where only the C compiler is required).
+     */
+    @Test
+    void referenceSketchBehavesAgainstSimulatedConverter() throws Exception {
+        Optional<Path> gcc = findOnPath("gcc");
+        Optional<Path> gxx = findOnPath("g++");
+        Assumptions.assumeTrue(gcc.isPresent() && gxx.isPresent(),
+                "gcc or g++ not found on PATH: skipping the simulated run of the reference sketch");
+
+        Path project = Paths.get(System.getProperty("loadstone.projectDir", ".")).toAbsolutePath().normalize();
+        Path firmware = project.resolve("firmware-protocol/firmware");
+        Path outDir = project.resolve("target/fw-test");
+        Files.createDirectories(outDir);
+        Path object = outDir.resolve("lsw_proto_sim.o");
+        Path binary = outDir.resolve(isWindows() ? "sketch_sim.exe" : "sketch_sim");
+
+        Result lib = run(project, List.of(gcc.get().toString(), "-std=c99", "-Wall", "-Wextra", "-Werror", "-O2",
+                "-I", firmware.toString(), "-c", "-o", object.toString(), firmware.resolve("lsw_proto.c").toString()));
+        assertThat(lib.exitCode).as("gcc build of lsw_proto.o; output:%n%s", lib.output).isZero();
+        Result build = run(project, List.of(gxx.get().toString(), "-std=c++11", "-Wall", "-Wextra", "-Werror", "-O2",
+                "-I", firmware.toString(), "-o", binary.toString(),
+                firmware.resolve("test/sketch_sim.cpp").toString(), object.toString()));
+        assertThat(build.exitCode).as("g++ build of sketch_sim; output:%n%s", build.output).isZero();
+
+        Result sim = run(project, List.of(binary.toString()));
+        assertThat(sim.exitCode).as("sketch_sim exit code; output:%n%s", sim.output).isZero();
+        Matcher summary = SUMMARY.matcher(sim.output);
+        assertThat(summary.find()).as("summary line in output:%n%s", sim.output).isTrue();
+        assertThat(Integer.parseInt(summary.group(1))).as("checks run").isGreaterThanOrEqualTo(20);
+    }
+
     private record Result(int exitCode, String output) {
     }
 
