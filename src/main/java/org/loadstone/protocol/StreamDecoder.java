@@ -14,7 +14,10 @@ public final class StreamDecoder {
   /** Longest candidate record considered, in bytes; older bytes are discarded. */
   public static final int MAX_CANDIDATE = 512;
 
+  /** Longest text line without its line end, body and checksum included. */
   private static final int MAX_TEXT_BODY = 200;
+  /** Longest record body (a 200-byte line less " ~XXXX"). */
+  private static final int MAX_BODY = 194;
 
   private final DecodeListener listener;
   private final byte[] buf = new byte[64 * 1024];
@@ -436,6 +439,9 @@ public final class StreamDecoder {
       return OK;
     }
     if (type == 0x10) {
+      if (bodyLen < 1 || bodyLen > MAX_BODY) {
+        return MALFORMED;
+      }
       for (int k = 1; k < n - 2; k++) {
         if (frame[k] < 0x20 || frame[k] > 0x7E) {
           return MALFORMED;

@@ -64,12 +64,12 @@ public final class WireEncoder {
   /**
    * Encodes an arbitrary text body (tag and fields) as one record.
    *
-   * @param body printable ASCII, at most 190 bytes
+   * @param body printable ASCII, at most 194 bytes
    */
   public byte[] body(String body) {
     byte[] b = body.getBytes(StandardCharsets.US_ASCII);
-    if (b.length > 190) {
-      throw new IllegalArgumentException("record body longer than 190 bytes: " + body);
+    if (b.length > 194) {
+      throw new IllegalArgumentException("record body longer than 194 bytes: " + body);
     }
     if (encoding == Encoding.TEXT) {
       byte[] out = new byte[b.length + 7];
