@@ -450,7 +450,10 @@ public final class StreamDecoder {
       String body = new String(frame, 1, bodyLen, StandardCharsets.US_ASCII);
       int sp = body.indexOf(' ');
       String tag = sp < 0 ? body : body.substring(0, sp);
-      if (tag.equals("S") || !DeviceMessage.isKnownTag(tag)) {
+      if (tag.equals("S")) {
+        return MALFORMED; // samples travel in 0x01/0x02 frames only
+      }
+      if (!DeviceMessage.isKnownTag(tag)) {
         unknown++;
         return OK;
       }
