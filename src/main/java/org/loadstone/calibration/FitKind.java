@@ -1,5 +1,7 @@
 package org.loadstone.calibration;
 
+import com.fasterxml.jackson.annotation.JsonCreator;
+import com.fasterxml.jackson.annotation.JsonValue;
 import java.util.Locale;
 import org.loadstone.units.LoadstoneException;
 
@@ -38,6 +40,7 @@ public enum FitKind {
   }
 
   /** @return lower-case name with dashes, as in files: "linear-through-zero", "cubic" */
+  @JsonValue
   public String label() {
     return name().toLowerCase(Locale.ROOT).replace('_', '-');
   }
@@ -46,6 +49,7 @@ public enum FitKind {
    * @param text a label as from {@link #label()}, any case
    * @throws LoadstoneException naming the text and the accepted labels
    */
+  @JsonCreator
   public static FitKind parse(String text) {
     String t = text == null ? "" : text.trim().toLowerCase(Locale.ROOT).replace('_', '-');
     for (FitKind k : values()) {

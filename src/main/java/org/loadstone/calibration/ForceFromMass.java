@@ -1,5 +1,6 @@
 package org.loadstone.calibration;
 
+import com.fasterxml.jackson.annotation.JsonProperty;
 import org.loadstone.units.LoadstoneException;
 
 /**
@@ -16,7 +17,10 @@ import org.loadstone.units.LoadstoneException;
  * @param weightDensity_kg_per_m3 1000 to 25000 kg/m³
  */
 public record ForceFromMass(
-    double g_m_per_s2, String gSource, double airDensity_kg_per_m3, double weightDensity_kg_per_m3) {
+    @JsonProperty("g_m_per_s2") double g_m_per_s2,
+    @JsonProperty("g_source") String gSource,
+    @JsonProperty("air_density_kg_per_m3") double airDensity_kg_per_m3,
+    @JsonProperty("weight_density_kg_per_m3") double weightDensity_kg_per_m3) {
 
   /** Conventional density of air, OIML R 111-1, kg/m³. */
   public static final double CONVENTIONAL_AIR_KG_PER_M3 = 1.2;
