@@ -1,5 +1,6 @@
 package org.loadstone.calibration;
 
+import com.fasterxml.jackson.annotation.JsonIgnore;
 import com.fasterxml.jackson.annotation.JsonProperty;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
@@ -67,6 +68,7 @@ public record CalibrationPoint(
   }
 
   /** @return whether this is a no-load point */
+  @JsonIgnore
   public boolean isZero() {
     return force_N == 0;
   }
