@@ -22,6 +22,7 @@ import org.loadstone.units.Precondition;
  * @param operator who calibrated, not blank
  * @param cellId the {@link LoadCellProfile#id} of the cell
  * @param validUntil last day the calibration may be used, ISO yyyy-mm-dd, not before date
+ * @param description free text (where, with which weights, remarks); not null, may be empty
  * @param forceModel g and densities used to turn masses into forces
  * @param fullScale_N reference of the % FS figures
  * @param zeroCounts zero reading of each series
@@ -38,6 +39,7 @@ public record CalibrationDocument(
     @JsonProperty("operator") String operator,
     @JsonProperty("cell_id") String cellId,
     @JsonProperty("valid_until") String validUntil,
+    @JsonProperty("description") String description,
     @JsonProperty("force_model") ForceFromMass forceModel,
     @JsonProperty("full_scale_N") double fullScale_N,
     @JsonProperty("zero_counts") List<SeriesZero> zeroCounts,
@@ -132,6 +134,9 @@ public record CalibrationDocument(
       throw new LoadstoneException("field 'valid_until' (" + validUntil + ") is before 'date' ("
           + date + "): give a later expiry date");
     }
+    if (description == null) {
+      throw new LoadstoneException("field 'description' is missing: give a remark, or \"\"");
+    }
     if (forceModel == null) {
       throw new LoadstoneException("field 'force_model' is missing: give g and the densities");
     }
@@ -160,10 +165,12 @@ public record CalibrationDocument(
   /**
    * Builds the document of a report; {@link #contentSha256} is filled in.
    *
+   * @param description free text, e.g. the site and the weights used; not null
+   *
    * @throws LoadstoneException on an invalid id, date, operator or cell id
    */
   public static CalibrationDocument of(CalibrationReport report, String id, LocalDate date,
-      String operator, String cellId, LocalDate validUntil) {
+      String operator, String cellId, LocalDate validUntil, String description) {
     Precondition.notNull(report, "report");
     Precondition.notNull(date, "date");
     Precondition.notNull(validUntil, "validUntil");
@@ -177,8 +184,8 @@ public record CalibrationDocument(
         f.countsOfForce().coefficientList(), f.degreesOfFreedom(), f.residualSd_N(),
         f.residualSd_counts(), f.maxError_pct_fs())).toList();
     CalibrationDocument d = new CalibrationDocument(FORMAT, id, date.toString(), operator, cellId,
-        validUntil.toString(), report.settings().forceModel(), report.fullScale_N(), zeros,
-        report.points(), fit, fits, CalibrationService.summary(report), null);
+        validUntil.toString(), description, report.settings().forceModel(), report.fullScale_N(),
+        zeros, report.points(), fit, fits, CalibrationService.summary(report), null);
     return d.withHash();
   }
 
@@ -189,20 +196,20 @@ public record CalibrationDocument(
 
   /** @return a copy with {@code hash} as content hash (for tests and tools) */
   public CalibrationDocument withContentSha256(String hash) {
-    return new CalibrationDocument(format, id, date, operator, cellId, validUntil, forceModel,
-        fullScale_N, zeroCounts, points, fit, fits, summary, hash);
+    return new CalibrationDocument(format, id, date, operator, cellId, validUntil, description,
+        forceModel, fullScale_N, zeroCounts, points, fit, fits, summary, hash);
   }
 
   /** @return a copy with another adopted fit (e.g. a corrected coefficient); hash not updated */
   public CalibrationDocument withFit(AdoptedFit newFit) {
-    return new CalibrationDocument(format, id, date, operator, cellId, validUntil, forceModel,
-        fullScale_N, zeroCounts, points, newFit, fits, summary, contentSha256);
+    return new CalibrationDocument(format, id, date, operator, cellId, validUntil, description,
+        forceModel, fullScale_N, zeroCounts, points, newFit, fits, summary, contentSha256);
   }
 
   /** @return a copy with another id, for saving a recalculation beside the original */
   public CalibrationDocument withId(String newId) {
-    return new CalibrationDocument(format, newId, date, operator, cellId, validUntil, forceModel,
-        fullScale_N, zeroCounts, points, fit, fits, summary, null).withHash();
+    return new CalibrationDocument(format, newId, date, operator, cellId, validUntil, description,
+        forceModel, fullScale_N, zeroCounts, points, fit, fits, summary, null).withHash();
   }
 
   /** @return the calibration date */

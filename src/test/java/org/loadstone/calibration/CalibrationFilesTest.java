@@ -24,7 +24,7 @@ class CalibrationFilesTest {
     CalibrationReport r = CalibrationService.fitFromPoints(CalibrationServiceTest.isoSet(),
         CalibrationSettings.defaults().withFullScale_N(1000));
     return CalibrationDocument.of(r, id, LocalDate.of(2026, 12, 2), "A. Tester", "shelf-rig-500N",
-        LocalDate.of(2027, 12, 1));
+        LocalDate.of(2027, 12, 1), "constructed test points");
   }
 
   @Test
