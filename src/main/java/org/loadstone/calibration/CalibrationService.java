@@ -118,7 +118,8 @@ public final class CalibrationService {
    * {@code sensitivity_counts_per_N}, {@code residual_sd_N}, {@code nonlinearity_pct_fs},
    * {@code hysteresis_pct_fs} and {@code repeatability_pct_fs} (null when not assessed),
    * {@code full_scale_N}, {@code llf_N}, {@code class_a_lower_limit_N},
-   * {@code class_aa_lower_limit_N}, {@code iso7500_class}, {@code note}.
+   * {@code class_aa_lower_limit_N}, {@code iso7500_class}, {@code gravity_correction_relative}
+   * ((g − 9.80665)/9.80665), {@code buoyancy_correction_relative} (−ρ_air/ρ_weight), {@code note}.
    */
   public static Map<String, Object> summary(CalibrationReport report) {
     Precondition.notNull(report, "report");
@@ -137,6 +138,9 @@ public final class CalibrationService {
     m.put("class_a_lower_limit_N", report.astm().classALowerLimit_N());
     m.put("class_aa_lower_limit_N", report.astm().classAALowerLimit_N());
     m.put("iso7500_class", report.iso().systemClass());
+    ForceFromMass.Corrections c = report.settings().forceModel().corrections(1.0);
+    m.put("gravity_correction_relative", c.gravityRelative());
+    m.put("buoyancy_correction_relative", c.buoyancyRelative());
     m.put("note", STANDARDS_NOTE);
     return m;
   }
@@ -149,6 +153,24 @@ public final class CalibrationService {
     } catch (JsonProcessingException e) {
       throw new IllegalStateException("summary cannot be written as JSON", e);
     }
+  }
+
+  /**
+   * Builds the calibration document of {@code report} and saves it as {@code <dir>/<id>.json};
+   * never overwrites.
+   *
+   * @return the saved document (with its content hash); its file is
+   *     {@link CalibrationFiles#fileFor}(dir, id)
+   * @throws LoadstoneException on invalid metadata, an existing file (with a free id suggested),
+   *     or a write failure
+   */
+  public static CalibrationDocument save(Path dir, CalibrationReport report, String id,
+      java.time.LocalDate date, String operator, String cellId, java.time.LocalDate validUntil,
+      String description) {
+    CalibrationDocument d =
+        CalibrationDocument.of(report, id, date, operator, cellId, validUntil, description);
+    CalibrationFiles.saveCalibration(dir, d);
+    return d;
   }
 
   /** @return the plain-text fit table of {@link FitTable#format} */

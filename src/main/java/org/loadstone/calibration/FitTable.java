@@ -17,9 +17,21 @@ public final class FitTable {
     sb.append(String.format(Locale.ROOT, "Full scale %.6g N, largest load %.6g N, %d points%n",
         report.fullScale_N(), report.maxForce_N(), report.points().size()));
     sb.append(String.format(Locale.ROOT,
-        "Sensitivity %.6g counts/N   non-linearity %.4f %%FS   hysteresis %s   repeatability %s%n%n",
+        "Sensitivity %.6g counts/N   non-linearity %.4f %%FS   hysteresis %s   repeatability %s%n",
         lin.sensitivity_counts_per_N(), lin.nonlinearity_pct_fs(), pct(lin.hysteresis_pct_fs()),
         pct(lin.repeatability_pct_fs())));
+    ForceFromMass fm = report.settings().forceModel();
+    double heaviest = report.points().stream().filter(p -> p.mass_kg() != null)
+        .mapToDouble(CalibrationPoint::mass_kg).max().orElse(0);
+    sb.append(String.format(Locale.ROOT, "g %.7f m/s² (%s), air %.3g kg/m³, weights %.0f kg/m³%n",
+        fm.g_m_per_s2(), fm.gSource(), fm.airDensity_kg_per_m3(), fm.weightDensity_kg_per_m3()));
+    if (heaviest > 0) {
+      ForceFromMass.Corrections c = fm.corrections(heaviest);
+      sb.append(String.format(Locale.ROOT, "Corrections at %.6g kg: gravity %+.5g N (%+.4f %%),"
+          + " buoyancy %+.5g N (%+.4f %%)%n", heaviest, c.gravityCorrection_N(),
+          100 * c.gravityRelative(), c.buoyancyCorrection_N(), 100 * c.buoyancyRelative()));
+    }
+    sb.append(System.lineSeparator());
     sb.append(String.format(Locale.ROOT, "%-20s %4s %12s %14s %12s  %s%n",
         "fit", "dof", "resid SD N", "resid SD cnt", "max err %FS", "coefficients (counts, N)"));
     for (FitResult f : report.fits()) {
