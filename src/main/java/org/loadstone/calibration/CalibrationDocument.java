@@ -56,7 +56,8 @@ public record CalibrationDocument(
    * @param series series number
    * @param counts its ascending zero reading
    */
-  public record SeriesZero(@JsonProperty("series") int series, @JsonProperty("counts") double counts) {}
+  public record SeriesZero(
+      @JsonProperty("series") int series, @JsonProperty("counts") double counts) {}
 
   /**
    * The adopted curve: net counts = polynomial(force).

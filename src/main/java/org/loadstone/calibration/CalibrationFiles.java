@@ -45,7 +45,7 @@ public final class CalibrationFiles {
   static final ObjectMapper COMPACT_LINE = new ObjectMapper();
   private static final String HASH_FIELD = "content_sha256";
   private static final Pattern MISSING =
-      Pattern.compile("Missing required creator property '([^']+)'");
+      Pattern.compile("Missing (?:required )?creator property '([^']+)'");
 
   private CalibrationFiles() {}
 
@@ -137,8 +137,14 @@ public final class CalibrationFiles {
     try {
       return MAPPER.readValue(bytes, type);
     } catch (JsonMappingException e) {
-      throw new LoadstoneException(what + " " + file + ": field '" + field(e) + "': "
-          + reason(e) + ": correct the file or recalibrate", e);
+      String f = field(e);
+      String r = reason(e);
+      String where = f.isEmpty() ? "" : "field '" + f + "': ";
+      if (f.isEmpty() && !r.startsWith("field")) {
+        where = "field '(top level)': ";
+      }
+      throw new LoadstoneException(what + " " + file + ": " + where + r
+          + "; correct the file or recalibrate", e);
     } catch (IOException e) {
       String loc = e instanceof JsonProcessingException j && j.getLocation() != null
           ? " at line " + j.getLocation().getLineNr() + ", column " + j.getLocation().getColumnNr()
@@ -158,10 +164,10 @@ public final class CalibrationFiles {
       }
     }
     Matcher m = MISSING.matcher(String.valueOf(e.getOriginalMessage()));
-    if (m.find()) {
+    if (m.find() && !sb.toString().endsWith(m.group(1))) {
       sb.append(sb.length() == 0 ? "" : ".").append(m.group(1));
     }
-    return sb.length() == 0 ? "(top level)" : sb.toString();
+    return sb.toString();
   }
 
   private static String reason(JsonMappingException e) {
@@ -171,7 +177,7 @@ public final class CalibrationFiles {
     }
     String m = String.valueOf(e.getOriginalMessage());
     if (MISSING.matcher(m).find()) {
-      return "missing";
+      return "missing: add the field";
     }
     int cut = m.indexOf(" (");
     return cut > 0 ? m.substring(0, cut) : m;

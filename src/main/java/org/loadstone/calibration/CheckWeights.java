@@ -99,7 +99,8 @@ public final class CheckWeights {
         }
       }
     } catch (IOException e) {
-      throw new LoadstoneException("cannot read check-weight log " + log + ": " + e.getMessage(), e);
+      throw new LoadstoneException(
+          "cannot read check-weight log " + log + ": " + e.getMessage(), e);
     }
     return out;
   }

@@ -25,7 +25,10 @@ public final class LeastSquares {
    *     is 0)
    */
   public record Result(
-      Polynomial polynomial, double residualSumOfSquares, int degreesOfFreedom, double residualSd) {}
+      Polynomial polynomial,
+      double residualSumOfSquares,
+      int degreesOfFreedom,
+      double residualSd) {}
 
   /**
    * Fits {@code y ≈ Σ b_k x^k} for k = 0 (or 1 without an intercept) up to {@code degree}.
@@ -41,7 +44,8 @@ public final class LeastSquares {
     Precondition.notNull(x, "x");
     Precondition.notNull(y, "y");
     if (x.length != y.length) {
-      throw new IllegalArgumentException("x and y differ in length: " + x.length + " vs " + y.length);
+      throw new IllegalArgumentException(
+          "x and y differ in length: " + x.length + " vs " + y.length);
     }
     if (degree < 1) {
       throw new IllegalArgumentException("degree must be 1 or more, was " + degree);

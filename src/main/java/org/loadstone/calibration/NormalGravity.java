@@ -37,7 +37,8 @@ public final class NormalGravity {
   public static double onEllipsoid_m_per_s2(double latitude_deg) {
     if (!(latitude_deg >= -90 && latitude_deg <= 90)) {
       throw new LoadstoneException(
-          "latitude " + latitude_deg + "° is out of range: enter −90 to 90 degrees (north positive)");
+          "latitude " + latitude_deg
+              + "° is out of range: enter −90 to 90 degrees (north positive)");
     }
     double s = Math.sin(Math.toRadians(latitude_deg));
     double s2 = s * s;
@@ -53,7 +54,8 @@ public final class NormalGravity {
   public static double at_m_per_s2(double latitude_deg, double elevation_m) {
     if (!(elevation_m >= -500 && elevation_m <= 9000)) {
       throw new LoadstoneException(
-          "elevation " + elevation_m + " m is out of range: enter metres above sea level, −500 to 9000");
+          "elevation " + elevation_m
+              + " m is out of range: enter metres above sea level, −500 to 9000");
     }
     return onEllipsoid_m_per_s2(latitude_deg) + FREE_AIR_GRADIENT_PER_S2 * elevation_m;
   }

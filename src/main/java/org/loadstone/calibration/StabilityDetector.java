@@ -85,7 +85,8 @@ public final class StabilityDetector {
       return State.FILLING;
     }
     judge();
-    if (lastSd <= settings.maxSd_counts() && Math.abs(lastDrift) <= settings.maxDrift_counts_per_s()) {
+    if (lastSd <= settings.maxSd_counts()
+        && Math.abs(lastDrift) <= settings.maxDrift_counts_per_s()) {
       return State.STABLE;
     }
     checkTimeout();
@@ -97,7 +98,8 @@ public final class StabilityDetector {
       double seconds = settings.timeoutSamples() / settings.sampleRate_Hz();
       String seen = count < ring.length
           ? "the window of " + ring.length + " samples never filled"
-          : String.format(Locale.ROOT, "sd=%.3g counts (limit %.3g), drift=%.3g counts/s (limit %.3g)",
+          : String.format(Locale.ROOT,
+              "sd=%.3g counts (limit %.3g), drift=%.3g counts/s (limit %.3g)",
               lastSd, settings.maxSd_counts(), lastDrift, settings.maxDrift_counts_per_s());
       throw new LoadstoneException(String.format(Locale.ROOT,
           "reading did not settle within %.1f s: %s; check for vibration, a touching cable or a"
@@ -133,7 +135,8 @@ public final class StabilityDetector {
    */
   public CapturedReading reading() {
     if (count < ring.length) {
-      throw new IllegalStateException("the window is not full yet: " + count + " of " + ring.length);
+      throw new IllegalStateException(
+          "the window is not full yet: " + count + " of " + ring.length);
     }
     judge();
     int n = ring.length;

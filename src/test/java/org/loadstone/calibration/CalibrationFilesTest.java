@@ -124,6 +124,12 @@ class CalibrationFilesTest {
     Files.writeString(badG, text.replaceFirst("\"g_m_per_s2\" : [0-9.]+", "\"g_m_per_s2\" : 1.0"));
     assertThatThrownBy(() -> CalibrationFiles.readCalibration(badG))
         .hasMessageContaining("field 'force_model'").hasMessageContaining("9.7 to 9.9");
+    Path profile = dir.resolve("cell.json");
+    Files.writeString(profile, "{\"id\":\"c\",\"description\":\"\",\"rated_capacity_N\":-5,"
+        + "\"serial_number\":\"\",\"nominal_counts_per_N\":100}");
+    assertThatThrownBy(() -> CalibrationFiles.readProfile(profile))
+        .hasMessageContaining("load-cell profile " + profile)
+        .hasMessageContaining("'rated_capacity_N'");
     Path notJson = dir.resolve("not-json.json");
     Files.writeString(notJson, "{ \"id\": ");
     assertThatThrownBy(() -> CalibrationFiles.readCalibration(notJson))
