@@ -1,0 +1,180 @@
+package org.loadstone.calibration;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
+import java.util.stream.Collectors;
+import org.loadstone.units.LoadstoneException;
+
+/** The computations behind {@link CalibrationService#fitFromPoints}; package-private. */
+final class CurveFitting {
+  /** A higher degree must cut the residual SD (in N) to this fraction of the lower one's. */
+  static final double SD_RATIO = 0.7;
+
+  private CurveFitting() {}
+
+  /**
+   * Zero reading of each series: the ascending zero point. Counts are taken relative to it
+   * ("deflection" in ASTM E74 terms), so that zero drift between series is not read as force.
+   */
+  static Map<Integer, Double> zeroCounts(List<CalibrationPoint> points) {
+    Map<Integer, Double> zero = new TreeMap<>();
+    for (CalibrationPoint p : points) {
+      if (p.isZero() && p.direction() == Direction.UP) {
+        if (zero.putIfAbsent(p.series(), p.counts_mean()) != null) {
+          throw new LoadstoneException("series " + p.series() + " has two ascending zero points:"
+              + " keep one zero (no load) reading per series and direction");
+        }
+      }
+    }
+    for (CalibrationPoint p : points) {
+      if (!zero.containsKey(p.series())) {
+        throw new LoadstoneException("series " + p.series() + " has no ascending zero point:"
+            + " start each series with a reading at no load (0 g, direction up)");
+      }
+    }
+    return zero;
+  }
+
+  static FitResult fit(FitKind kind, List<CalibrationPoint> points, double[] net, double fs_N) {
+    double[] x = points.stream().mapToDouble(CalibrationPoint::force_N).toArray();
+    LeastSquares.Result ls = LeastSquares.polynomial(x, net, kind.degree(), kind.hasOffset());
+    double max = points.stream().mapToDouble(CalibrationPoint::force_N).max().orElseThrow();
+    double min = points.stream().mapToDouble(CalibrationPoint::force_N).min().orElseThrow();
+    CountsToForce inv = new CountsToForce(ls.polynomial(), min, max);
+    List<PointResidual> res = new ArrayList<>();
+    double ss = 0;
+    double worst = 0;
+    for (int i = 0; i < x.length; i++) {
+      double ind = inv.force_N(net[i]);
+      double err = ind - x[i];
+      ss += err * err;
+      double pctFs = 100 * err / fs_N;
+      worst = Math.max(worst, Math.abs(pctFs));
+      res.add(new PointResidual(points.get(i), net[i], ind, err,
+          x[i] == 0 ? null : 100 * err / x[i], pctFs));
+    }
+    int dof = ls.degreesOfFreedom();
+    return new FitResult(kind, ls.polynomial(), inv, dof, ls.residualSd(),
+        dof > 0 ? Math.sqrt(ss / dof) : Double.NaN, worst, res);
+  }
+
+  static LinearityMetrics linearity(List<CalibrationPoint> points, double[] net, double fs_N) {
+    List<Integer> upIdx = new ArrayList<>();
+    for (int i = 0; i < points.size(); i++) {
+      if (points.get(i).direction() == Direction.UP) {
+        upIdx.add(i);
+      }
+    }
+    double[] x = upIdx.stream().mapToDouble(i -> points.get(i).force_N()).toArray();
+    double[] y = upIdx.stream().mapToDouble(i -> net[i]).toArray();
+    Polynomial line = LeastSquares.polynomial(x, y, 1, true).polynomial();
+    double slope = line.coefficient(1);
+    Map<Double, double[]> meanByLoad = new TreeMap<>();
+    for (int k = 0; k < x.length; k++) {
+      double[] acc = meanByLoad.computeIfAbsent(x[k], f -> new double[2]);
+      acc[0] += y[k];
+      acc[1]++;
+    }
+    double nonlin = 0;
+    for (Map.Entry<Double, double[]> e : meanByLoad.entrySet()) {
+      double mean = e.getValue()[0] / e.getValue()[1];
+      nonlin = Math.max(nonlin, Math.abs(mean - line.value(e.getKey())) / Math.abs(slope));
+    }
+    Map<String, Double> upAt = new HashMap<>();
+    Map<String, List<Double>> bySeries = new HashMap<>();
+    for (int i = 0; i < points.size(); i++) {
+      CalibrationPoint p = points.get(i);
+      if (p.direction() == Direction.UP) {
+        upAt.put(p.series() + "@" + p.force_N(), net[i]);
+      }
+      bySeries.computeIfAbsent(p.direction() + "@" + p.force_N(), k -> new ArrayList<>())
+          .add(net[i]);
+    }
+    Double hyst = null;
+    for (int i = 0; i < points.size(); i++) {
+      CalibrationPoint p = points.get(i);
+      Double u = upAt.get(p.series() + "@" + p.force_N());
+      if (p.direction() == Direction.DOWN && !p.isZero() && u != null) {
+        double h = Math.abs(net[i] - u) / Math.abs(slope);
+        hyst = hyst == null ? h : Math.max(hyst, h);
+      }
+    }
+    long series = points.stream().mapToInt(CalibrationPoint::series).distinct().count();
+    Double rep = null;
+    if (series > 1) {
+      rep = 0.0;
+      for (List<Double> v : bySeries.values()) {
+        if (v.size() > 1) {
+          double spread = v.stream().mapToDouble(d -> d).max().orElseThrow()
+              - v.stream().mapToDouble(d -> d).min().orElseThrow();
+          rep = Math.max(rep, spread / Math.abs(slope));
+        }
+      }
+    }
+    return new LinearityMetrics(slope, 100 * nonlin / fs_N,
+        hyst == null ? null : 100 * hyst / fs_N, rep == null ? null : 100 * rep / fs_N);
+  }
+
+  /**
+   * The rule: start from the straight line with offset. Step up one degree (to quadratic, then
+   * cubic) only while all of these hold: (1) there are at least degree + 2 distinct loads for the
+   * higher degree, so that it keeps one distinct load more than it has coefficients; (2) the
+   * higher-degree fit exists and is monotonic over the range; (3) the current fit's residual SD
+   * in N is larger than one count expressed in N — below that, a higher degree fits noise; (4) the
+   * higher degree cuts the residual SD (with n − p degrees of freedom, in N) to at most 0.7 of
+   * the current one. With 10 or so degrees of freedom, (4) is stricter than an F-test at 95 %
+   * for one added coefficient, which by itself would accept a cut to about 0.8.
+   */
+  static FitRecommendation recommend(
+      Map<FitKind, FitResult> fits, long distinctLoads, double sensitivity_counts_per_N) {
+    FitResult best = fits.get(FitKind.LINEAR);
+    double oneCount_N = 1 / Math.abs(sensitivity_counts_per_N);
+    String why = "linear with offset is the starting point";
+    for (FitKind next : List.of(FitKind.QUADRATIC, FitKind.CUBIC)) {
+      FitResult cand = fits.get(next);
+      if (distinctLoads < next.degree() + 2L) {
+        why += String.format(Locale.ROOT, "; %s not considered: it needs at least %d distinct"
+            + " loads, there are %d", next.label(), next.degree() + 2, distinctLoads);
+        break;
+      }
+      if (cand == null) {
+        why += "; " + next.label() + " not available (not monotonic over the range or rank"
+            + " deficient)";
+        break;
+      }
+      if (best.residualSd_N() <= oneCount_N) {
+        why += String.format(Locale.ROOT, "; %s residual SD %.3g N is already within one count"
+            + " (%.3g N), a higher degree would fit noise", best.kind().label(),
+            best.residualSd_N(), oneCount_N);
+        break;
+      }
+      double ratio = cand.residualSd_N() / best.residualSd_N();
+      if (ratio > SD_RATIO) {
+        why += String.format(Locale.ROOT, "; %s cuts the residual SD only to %.2f of %s's"
+            + " (needs ≤ %.2f)", next.label(), ratio, best.kind().label(), SD_RATIO);
+        break;
+      }
+      why += String.format(Locale.ROOT, "; %s cuts the residual SD to %.2f of %s's",
+          next.label(), ratio, best.kind().label());
+      best = cand;
+    }
+    return new FitRecommendation(best.kind(), "recommended " + best.kind().label() + ": " + why);
+  }
+
+  static long distinctLoads(List<CalibrationPoint> points) {
+    return points.stream().map(CalibrationPoint::force_N).distinct().count();
+  }
+
+  static List<CalibrationPoint> sorted(List<CalibrationPoint> points) {
+    return points.stream()
+        .sorted(Comparator.comparingInt(CalibrationPoint::series)
+            .thenComparing(CalibrationPoint::direction)
+            .thenComparing(p -> p.direction() == Direction.UP ? p.force_N() : -p.force_N()))
+        .collect(Collectors.toList());
+  }
+}

@@ -1,0 +1,201 @@
+package org.loadstone.calibration;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.assertj.core.api.Assertions.within;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import org.loadstone.units.LoadstoneException;
+
+class CalibrationServiceTest {
+  static final double ZERO = 81234; // raw counts at no load; every test tares against it
+
+  static CalibrationPoint pt(double f, Direction d, int series, double netCounts) {
+    return new CalibrationPoint(f, null, d, series, ZERO + netCounts, 0, 1);
+  }
+
+  /**
+   * One ascending series, 0…500 N in 100 N steps, 10 counts/N, with deviations
+   * e = [0, +1, −1, −1, +1, 0] counts. Σe = 0 and Σ e·i = 1 − 2 − 3 + 4 = 0, so e is orthogonal
+   * to both columns of the straight-line design: the least-squares line is exactly 10·F.
+   */
+  static List<CalibrationPoint> astmSet() {
+    double[] e = {0, 1, -1, -1, 1, 0};
+    List<CalibrationPoint> pts = new ArrayList<>();
+    for (int i = 0; i <= 5; i++) {
+      pts.add(pt(100.0 * i, Direction.UP, 1, 10 * 100.0 * i + e[i]));
+    }
+    return pts;
+  }
+
+  @Test
+  void astmE74LowerLimitFactorOfAConstructedSet() {
+    CalibrationReport r = CalibrationService.fitFromPoints(astmSet(),
+        CalibrationSettings.defaults().withChosenFit(FitKind.LINEAR));
+    FitResult lin = r.chosenFit();
+    assertThat(lin.countsOfForce().coefficient(0)).isCloseTo(0, within(1e-9));
+    assertThat(lin.countsOfForce().coefficient(1)).isCloseTo(10, within(1e-12));
+    // By hand: residuals in N are e/10 = [0, .1, −.1, −.1, .1, 0]; SSE = 0.04 N²; n − p = 6 − 2 = 4;
+    // s = sqrt(0.04/4) = 0.1 N. ASTM E74: LLF = 2.4 s = 0.24 N; Class A lower limit 400 LLF =
+    // 96 N; Class AA 2000 LLF = 480 N.
+    assertThat(lin.residualSd_N()).isCloseTo(0.1, within(1e-10));
+    assertThat(r.astm().llf_N()).isCloseTo(0.24, within(1e-10));
+    assertThat(r.astm().classALowerLimit_N()).isCloseTo(96, within(1e-8));
+    assertThat(r.astm().classAALowerLimit_N()).isCloseTo(480, within(1e-8));
+    assertThat(r.astm().note()).contains("not a substitute for an accredited calibration");
+    // best straight line = 10·F: largest deviation 1 count = 0.1 N = 0.02 % of 500 N
+    assertThat(r.linearity().nonlinearity_pct_fs()).isCloseTo(0.02, within(1e-10));
+    assertThat(r.linearity().hysteresis_pct_fs()).isNull();
+    assertThat(r.linearity().repeatability_pct_fs()).isNull();
+    // one series: ISO 7500-1 repeatability cannot be assessed, so no class
+    assertThat(r.iso().systemClass()).isEqualTo("none");
+    // residual SD 0.1 N = one count at 10 counts/N: the rule stops at the straight line
+    assertThat(r.recommendation().kind()).isEqualTo(FitKind.LINEAR);
+    assertThat(r.recommendation().reason()).contains("within one count");
+
+    Map<String, Object> s = CalibrationService.summary(r);
+    assertThat(s).containsKeys("degree", "coefficients", "sensitivity_counts_per_N",
+        "residual_sd_N", "nonlinearity_pct_fs", "llf_N", "class_a_lower_limit_N",
+        "iso7500_class");
+    assertThat((double) s.get("llf_N")).isCloseTo(0.24, within(1e-10));
+    assertThat(CalibrationService.summaryJson(r)).contains("\"iso7500_class\" : \"none\"");
+  }
+
+  /**
+   * Three series up and down, 0…1000 N in 200 N steps, exactly 100 counts/N apart from chosen
+   * deviations (counts). At each load the up and down deviations of all series sum to zero, so
+   * the straight line through all points is exactly 100·F and the indicated force of a point is
+   * F + deviation/100.
+   *
+   * <pre>
+   * load   up s1  up s2  up s3   down s1 down s2 down s3
+   * 0         0      0      0      +20    −10    −10
+   * 200     +20    −20      0      +30    −10    −20
+   * 400    +240      0   +120     −120   −120   −120
+   * 600…1000  0      0      0        0      0      0
+   * </pre>
+   */
+  static List<CalibrationPoint> isoSet() {
+    double[][] up = {{0, 0, 0}, {20, -20, 0}, {240, 0, 120}, {0, 0, 0}, {0, 0, 0}, {0, 0, 0}};
+    double[][] down = {{20, -10, -10}, {30, -10, -20}, {-120, -120, -120}, {0, 0, 0}, {0, 0, 0},
+        {0, 0, 0}};
+    List<CalibrationPoint> pts = new ArrayList<>();
+    for (int s = 1; s <= 3; s++) {
+      for (int i = 0; i <= 5; i++) {
+        pts.add(pt(200.0 * i, Direction.UP, s, 100 * 200.0 * i + up[i][s - 1]));
+      }
+      for (int i = 5; i >= 0; i--) {
+        pts.add(pt(200.0 * i, Direction.DOWN, s, 100 * 200.0 * i + down[i][s - 1]));
+      }
+    }
+    return pts;
+  }
+
+  @Test
+  void iso7500FiguresAndClassOfAConstructedSet() {
+    CalibrationReport r = CalibrationService.fitFromPoints(isoSet(),
+        CalibrationSettings.defaults().withChosenFit(FitKind.LINEAR));
+    assertThat(r.chosenFit().countsOfForce().coefficient(1)).isCloseTo(100, within(1e-11));
+    Iso7500Result iso = r.iso();
+    assertThat(iso.points()).hasSize(5);
+    Iso7500Result.Point p200 = iso.points().get(0);
+    Iso7500Result.Point p400 = iso.points().get(1);
+    // By hand, ISO 7500-1 definitions: q = (F̄i − F)/F, b = (Fi,max − Fi,min)/F̄i,
+    // v = (Fi,down − Fi,up)/F (largest magnitude over the series), all × 100.
+    // 200 N: indicated 200.2, 199.8, 200.0 → q = 0; b = 0.4/200 = 0.2 %;
+    //        v = (0.3−0.2)/200, (−0.1+0.2)/200, (−0.2−0)/200 → −0.1 %
+    assertThat(p200.q_pct()).isCloseTo(0, within(1e-9));
+    assertThat(p200.b_pct()).isCloseTo(0.2, within(1e-9));
+    assertThat(p200.v_pct()).isCloseTo(-0.1, within(1e-9));
+    assertThat(p200.pointClass()).isEqualTo("0.5");
+    // 400 N: indicated 402.4, 400.0, 401.2 → mean 401.2; q = 1.2/400 = 0.3 %;
+    //        b = 2.4/401.2 = 0.598205 %; v = (398.8 − 402.4)/400 = −0.9 %
+    //        → b > 0.5 and |v| > 0.75 (class 0.5 limits) but within class 1 (1.0, 1.5)
+    assertThat(p400.q_pct()).isCloseTo(0.3, within(1e-9));
+    assertThat(p400.b_pct()).isCloseTo(100 * 2.4 / 401.2, within(1e-9));
+    assertThat(p400.v_pct()).isCloseTo(-0.9, within(1e-9));
+    assertThat(p400.pointClass()).isEqualTo("1");
+    // resolution: SD 0 → one count = 0.01 N; at 200 N a = 0.005 %
+    assertThat(p200.a_pct()).isCloseTo(100 * 0.01 / 200 * (100 / r.linearity()
+        .sensitivity_counts_per_N()), within(1e-9));
+    // zero after unloading: 0.2, −0.1, −0.1 N → f0 = 0.2/1000 = 0.02 % (class 0.5 limit 0.05)
+    assertThat(iso.f0_pct()).isCloseTo(0.02, within(1e-9));
+    assertThat(iso.systemClass()).isEqualTo("1");
+
+    // Linearity figures use the best straight line through the ascending points only. Mean up
+    // deviations per load: [0, 0, 120, 0, 0, 0]. Slope of their least-squares line:
+    // Σ(x − 500)·dev / Σ(x − 500)² = (−100·120)/700000 = −0.0171428… counts/N, so the
+    // sensitivity is 100 − 0.0171428… ; intercept 20 + 0.0171428…·500 = 28.5714…
+    double slope = 100 - 12000.0 / 700000;
+    double icept = 20 + 12000.0 / 700000 * 500;
+    assertThat(r.linearity().sensitivity_counts_per_N()).isCloseTo(slope, within(1e-9));
+    // non-linearity: largest |dev − line| is at 400 N: 120 − (icept + (slope − 100)·400)
+    double nl = 120 - (icept - 12000.0 / 700000 * 400);
+    assertThat(r.linearity().nonlinearity_pct_fs()).isCloseTo(100 * nl / slope / 1000,
+        within(1e-9));
+    // hysteresis: largest |down − up| in one series is 360 counts (400 N, series 1)
+    assertThat(r.linearity().hysteresis_pct_fs()).isCloseTo(100 * 360 / slope / 1000,
+        within(1e-9));
+    // repeatability: largest spread is 240 counts (400 N, up)
+    assertThat(r.linearity().repeatability_pct_fs()).isCloseTo(100 * 240 / slope / 1000,
+        within(1e-9));
+  }
+
+  @Test
+  void recommendsTheQuadraticForACurvedCellAndExplainsWhy() {
+    // counts = 10·F + 0.002·F² with ±1 count alternating noise, 11 loads 0…500 N
+    List<CalibrationPoint> pts = new ArrayList<>();
+    for (int i = 0; i <= 10; i++) {
+      double f = 50.0 * i;
+      pts.add(pt(f, Direction.UP, 1, 10 * f + 0.002 * f * f + (i == 0 ? 0 : i % 2 == 0 ? 1 : -1)));
+    }
+    CalibrationReport r = CalibrationService.fitFromPoints(pts, CalibrationSettings.defaults());
+    assertThat(r.recommendation().kind()).isEqualTo(FitKind.QUADRATIC);
+    assertThat(r.chosen()).isEqualTo(FitKind.QUADRATIC);
+    assertThat(r.recommendation().reason()).contains("quadratic cuts the residual SD")
+        .contains("cubic");
+    assertThat(r.chosenFit().countsOfForce().coefficient(2)).isCloseTo(0.002, within(2e-5));
+    // the straight line leaves the bow: 0.002·F² over 0…500 N deviates by 0.002·250²/2 ≈ 62
+    // counts at mid-range from the chord, about 1 % FS; the quadratic's errors are ~0.1 N
+    assertThat(r.fit(FitKind.LINEAR).maxError_pct_fs()).isGreaterThan(0.5);
+    assertThat(r.chosenFit().maxError_pct_fs()).isLessThan(0.05);
+    assertThat(FitTable.format(r)).contains("quadratic").contains("<- adopted")
+        .doesNotContain("\u001b");
+  }
+
+  @Test
+  void clearMessagesForPointSetsThatCannotBeFitted() {
+    List<CalibrationPoint> two = List.of(pt(0, Direction.UP, 1, 0), pt(100, Direction.UP, 1, 1000));
+    assertThatThrownBy(() -> CalibrationService.fitFromPoints(two, CalibrationSettings.defaults()))
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("fewer points than the fit"
+            + " needs");
+    List<CalibrationPoint> noZero = new ArrayList<>(astmSet());
+    noZero.add(pt(100, Direction.UP, 2, 1000));
+    assertThatThrownBy(() -> CalibrationService.fitFromPoints(noZero,
+        CalibrationSettings.defaults())).isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("series 2 has no ascending zero point");
+    List<CalibrationPoint> dup = new ArrayList<>(astmSet());
+    dup.add(pt(200, Direction.UP, 1, 2000));
+    assertThatThrownBy(() -> CalibrationService.fitFromPoints(dup,
+        CalibrationSettings.defaults())).isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("appears twice in series 1");
+  }
+
+  @Test
+  void aChosenFitThatTurnsOverIsRefused() {
+    // counts rise then fall: 0, 1000, 1500, 1600, 1500 at 0…400 N — a quadratic turns over
+    double[] c = {0, 1000, 1500, 1600, 1500};
+    List<CalibrationPoint> pts = new ArrayList<>();
+    for (int i = 0; i < c.length; i++) {
+      pts.add(pt(100.0 * i, Direction.UP, 1, c[i]));
+    }
+    assertThatThrownBy(() -> CalibrationService.fitFromPoints(pts,
+        CalibrationSettings.defaults().withChosenFit(FitKind.QUADRATIC)))
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("quadratic could not be made")
+        .hasMessageContaining("not monotonic");
+  }
+}
