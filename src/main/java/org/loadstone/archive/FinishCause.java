@@ -1,0 +1,38 @@
+package org.loadstone.archive;
+
+import java.util.Locale;
+import org.loadstone.units.LoadstoneException;
+
+/** Why a run ended. Stored with every run as its {@link #wireName()}. */
+public enum FinishCause {
+  /** the load dropped: the specimen broke */
+  BREAK,
+  /** force reached the stop level of the cell's rated capacity */
+  OVERLOAD,
+  /** the operator stopped it */
+  MANUAL,
+  /** the run reached its longest allowed duration */
+  TIME_LIMIT,
+  /** the device stopped answering (cable pulled, board reset) */
+  DEVICE_LOST,
+  /** the program ended during the run; the run was rebuilt from its journal at the next start */
+  RECOVERED,
+  /** the run was imported from another program's file */
+  IMPORTED;
+
+  /** @return the stored name: {@code break}, {@code overload}, {@code time-limit}, … */
+  public String wireName() {
+    return name().toLowerCase(Locale.ROOT).replace('_', '-');
+  }
+
+  /** @throws LoadstoneException naming the text and the accepted names */
+  public static FinishCause parse(String text) {
+    for (FinishCause c : values()) {
+      if (c.wireName().equalsIgnoreCase(text == null ? "" : text.trim())) {
+        return c;
+      }
+    }
+    throw new LoadstoneException("unknown finish cause '" + text + "': expected one of "
+        + "break, overload, manual, time-limit, device-lost, recovered, imported");
+  }
+}

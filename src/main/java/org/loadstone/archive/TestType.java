@@ -1,0 +1,35 @@
+package org.loadstone.archive;
+
+import java.util.Locale;
+import org.loadstone.units.LoadstoneException;
+
+/** The kind of test a run is. */
+public enum TestType {
+  THREE_POINT_BEND("three-point"),
+  FOUR_POINT_BEND("four-point"),
+  COMPRESSION("compression"),
+  TENSION("tension");
+
+  private final String wireName;
+
+  TestType(String wireName) {
+    this.wireName = wireName;
+  }
+
+  /** @return the stored and command-line name, e.g. {@code three-point} */
+  public String wireName() {
+    return wireName;
+  }
+
+  /** @throws LoadstoneException naming the text and the accepted names */
+  public static TestType parse(String text) {
+    String t = text == null ? "" : text.trim().toLowerCase(Locale.ROOT);
+    for (TestType x : values()) {
+      if (x.wireName.equals(t) || x.name().toLowerCase(Locale.ROOT).replace('_', '-').equals(t)) {
+        return x;
+      }
+    }
+    throw new LoadstoneException("unknown test type '" + text
+        + "': use three-point, four-point, compression or tension");
+  }
+}
