@@ -1,0 +1,139 @@
+package org.loadstone.analysis;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.loadstone.analysis.AnalysisSettings.StiffnessBounds;
+import org.loadstone.units.LoadstoneException;
+
+/**
+ * Finds the initial linear region of the rise (samples 0..peak) of a force–displacement curve.
+ *
+ * <p>Automatic search: window lengths grow geometrically (factor 1.2) from max(3, rise/50)
+ * samples to the whole rise, and every start index is tried, so about n·k windows for k ≈ 22
+ * lengths, each fitted in O(1) from prefix sums ({@link LinearWindows}). A window qualifies when
+ * its R² reaches the criterion, its slope is positive and its force span is at least the given
+ * fraction of the rise. Among qualifying windows, the steepest sets the reference slope s*; the
+ * chosen window is the longest qualifying one whose slope is within two standard errors of s*
+ * (the steepest window's own standard error, at least 1e-9·s*). Taking the longest of the
+ * near-steepest windows keeps the toe and the bend-over at the peak out while averaging the noise,
+ * where the single steepest short window would be biased high by noise.
+ */
+final class StiffnessSearch {
+  private StiffnessSearch() {}
+
+  /**
+   * @param x displacement, mm
+   * @param y force, N
+   * @param peakIndex last sample of the rise
+   * @return the fit, or {@code null} when no window meets the criterion
+   */
+  static StiffnessFit automatic(
+      double[] x, double[] y, int peakIndex, double minR2, double minFractionOfRise) {
+    int count = peakIndex + 1;
+    if (count < 3) {
+      return null;
+    }
+    LinearWindows sums = new LinearWindows(x, y, count);
+    double minSpan = minFractionOfRise * (y[peakIndex] - y[0]);
+    List<Integer> lengths = new ArrayList<>();
+    int len = Math.max(3, count / 50);
+    while (len < count) {
+      lengths.add(len);
+      len = Math.max(len + 1, (int) Math.ceil(len * 1.2));
+    }
+    lengths.add(count);
+
+    LinearWindows.Line steepest = null;
+    for (int length : lengths) {
+      for (int i = 0; i + length <= count; i++) {
+        LinearWindows.Line line = qualifying(sums, y, i, i + length - 1, minR2, minSpan);
+        if (line != null && (steepest == null || line.slope() > steepest.slope())) {
+          steepest = line;
+        }
+      }
+    }
+    if (steepest == null) {
+      return null;
+    }
+    double floor =
+        steepest.slope() - Math.max(2 * steepest.slopeSe(), 1e-9 * steepest.slope());
+    LinearWindows.Line chosen = steepest;
+    for (int k = lengths.size() - 1; k >= 0; k--) {
+      int length = lengths.get(k);
+      if (length < chosen.length()) {
+        break;
+      }
+      for (int i = 0; i + length <= count; i++) {
+        LinearWindows.Line line = qualifying(sums, y, i, i + length - 1, minR2, minSpan);
+        if (line != null
+            && line.slope() >= floor
+            && (line.length() > chosen.length()
+                || (line.length() == chosen.length() && line.slope() > chosen.slope()))) {
+          chosen = line;
+        }
+      }
+    }
+    return toFit(chosen, y, StiffnessFit.Method.AUTOMATIC);
+  }
+
+  private static LinearWindows.Line qualifying(
+      LinearWindows sums, double[] y, int from, int to, double minR2, double minSpan) {
+    if (y[to] - y[from] < minSpan) {
+      return null;
+    }
+    LinearWindows.Line line = sums.fit(from, to);
+    if (line == null || line.slope() <= 0 || line.rSquared() < minR2) {
+      return null;
+    }
+    return line;
+  }
+
+  /**
+   * The fit over the first contiguous run of rise samples whose force (or displacement) lies in
+   * the bounds.
+   *
+   * @throws LoadstoneException when fewer than 3 rise samples lie in the bounds
+   */
+  static StiffnessFit manual(double[] x, double[] y, int peakIndex, StiffnessBounds bounds) {
+    double[] basis = bounds.basis() == AnalysisSettings.Basis.FORCE_N ? y : x;
+    String unit = bounds.basis() == AnalysisSettings.Basis.FORCE_N ? " N" : " mm";
+    int from = -1;
+    int to = -1;
+    for (int i = 0; i <= peakIndex; i++) {
+      boolean inside = basis[i] >= bounds.low() && basis[i] <= bounds.high();
+      if (inside && from < 0) {
+        from = i;
+      }
+      if (from >= 0) {
+        if (!inside) {
+          break;
+        }
+        to = i;
+      }
+    }
+    if (from < 0 || to - from + 1 < 3) {
+      throw new LoadstoneException(
+          "Stiffness bounds [" + bounds.low() + ", " + bounds.high() + "]" + unit + " hold "
+              + (from < 0 ? 0 : to - from + 1) + " consecutive samples before the peak; a fit "
+              + "needs at least 3. Widen the bounds or move them onto the rising part.");
+    }
+    LinearWindows.Line line = new LinearWindows(x, y, peakIndex + 1).fit(from, to);
+    if (line == null) {
+      throw new LoadstoneException(
+          "Stiffness bounds [" + bounds.low() + ", " + bounds.high() + "]" + unit + " select "
+              + "samples " + from + " to " + to + " over which displacement does not change; "
+              + "choose bounds where the specimen deflects.");
+    }
+    StiffnessFit.Method method =
+        bounds.basis() == AnalysisSettings.Basis.FORCE_N
+            ? StiffnessFit.Method.FORCE_BOUNDS
+            : StiffnessFit.Method.DISPLACEMENT_BOUNDS;
+    return toFit(line, y, method);
+  }
+
+  private static StiffnessFit toFit(LinearWindows.Line line, double[] y, StiffnessFit.Method m) {
+    return new StiffnessFit(
+        line.from(), line.to(), y[line.from()], y[line.to()], line.slope(), line.intercept(),
+        line.rSquared(), m);
+  }
+}
