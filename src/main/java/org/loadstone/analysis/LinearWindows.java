@@ -15,7 +15,14 @@ final class LinearWindows {
   private final double my;
 
   /** One fitted window, see {@link #fit(int, int)}. */
-  record Line(int from, int to, double slope, double intercept, double rSquared, double slopeSe) {
+  record Line(
+      int from,
+      int to,
+      double slope,
+      double intercept,
+      double rSquared,
+      double slopeSe,
+      double residualSd) {
     int length() {
       return to - from + 1;
     }
@@ -47,6 +54,14 @@ final class LinearWindows {
     }
   }
 
+  /** Mean of y − (slope·x + intercept) over samples {@code from..to} inclusive. */
+  double meanResidual(int from, int to, double slope, double intercept) {
+    int n = to - from + 1;
+    double sumX = sx[to + 1] - sx[from] + n * mx;
+    double sumY = sy[to + 1] - sy[from] + n * my;
+    return (sumY - slope * sumX - n * intercept) / n;
+  }
+
   /**
    * Fits samples {@code from..to} inclusive (at least 2).
    *
@@ -68,7 +83,7 @@ final class LinearWindows {
     double intercept = (my + meanV) - slope * (mx + meanU);
     double r2 = cyy > 0 ? Math.min(1.0, cxy * cxy / (cxx * cyy)) : 1.0;
     double sse = Math.max(0.0, cyy - slope * cxy);
-    double se = n > 2 ? Math.sqrt(sse / (n - 2) / cxx) : 0.0;
-    return new Line(from, to, slope, intercept, r2, se);
+    double resSd = n > 2 ? Math.sqrt(sse / (n - 2)) : 0.0;
+    return new Line(from, to, slope, intercept, r2, resSd / Math.sqrt(cxx), resSd);
   }
 }

@@ -12,11 +12,13 @@ import org.loadstone.units.LoadstoneException;
  * samples to the whole rise, and every start index is tried, so about n·k windows for k ≈ 22
  * lengths, each fitted in O(1) from prefix sums ({@link LinearWindows}). A window qualifies when
  * its R² reaches the criterion, its slope is positive and its force span is at least the given
- * fraction of the rise. Among qualifying windows, the steepest sets the reference slope s*; the
- * chosen window is the longest qualifying one whose slope is within two standard errors of s*
- * (the steepest window's own standard error, at least 1e-9·s*). Taking the longest of the
- * near-steepest windows keeps the toe and the bend-over at the peak out while averaging the noise,
- * where the single steepest short window would be biased high by noise.
+ * fraction of the rise. The steepest qualifying window — steepest by slope less two standard
+ * errors, so that a short window cannot win on noise alone — is the seed. The seed is then grown
+ * to the whole straight region: blocks of samples on either side are added while their mean
+ * residual from the current line stays within three residual standard deviations (scaled by
+ * √block); the line is refitted as it grows (O(n log n) in all). Growing keeps the toe and the
+ * bend-over before the peak out, and averages the noise over the longest straight stretch, where
+ * the single steepest short window would be biased high by noise.
  */
 final class StiffnessSearch {
   private StiffnessSearch() {}
@@ -43,37 +45,62 @@ final class StiffnessSearch {
     }
     lengths.add(count);
 
-    LinearWindows.Line steepest = null;
+    LinearWindows.Line seed = null;
     for (int length : lengths) {
       for (int i = 0; i + length <= count; i++) {
         LinearWindows.Line line = qualifying(sums, y, i, i + length - 1, minR2, minSpan);
-        if (line != null && (steepest == null || line.slope() > steepest.slope())) {
-          steepest = line;
+        if (line != null && (seed == null || score(line) > score(seed))) {
+          seed = line;
         }
       }
     }
-    if (steepest == null) {
+    if (seed == null) {
       return null;
     }
-    double floor =
-        steepest.slope() - Math.max(2 * steepest.slopeSe(), 1e-9 * steepest.slope());
-    LinearWindows.Line chosen = steepest;
-    for (int k = lengths.size() - 1; k >= 0; k--) {
-      int length = lengths.get(k);
-      if (length < chosen.length()) {
-        break;
-      }
-      for (int i = 0; i + length <= count; i++) {
-        LinearWindows.Line line = qualifying(sums, y, i, i + length - 1, minR2, minSpan);
-        if (line != null
-            && line.slope() >= floor
-            && (line.length() > chosen.length()
-                || (line.length() == chosen.length() && line.slope() > chosen.slope()))) {
-          chosen = line;
+    LinearWindows.Line chosen = grow(sums, seed, count, y[peakIndex] - y[0]);
+    if (chosen.rSquared() < minR2) {
+      chosen = seed;
+    }
+    return toFit(chosen, y, StiffnessFit.Method.AUTOMATIC);
+  }
+
+  /** Steepness that a short, noisy window cannot win by chance: slope − 2 standard errors. */
+  private static double score(LinearWindows.Line line) {
+    return line.slope() - 2 * line.slopeSe();
+  }
+
+  /**
+   * Extends the window left, then right, in blocks while each block's mean residual from the
+   * current line stays within 3 residual SDs / √(block length); a rejected block is halved down
+   * to one sample. The line is refitted after every accepted block.
+   */
+  private static LinearWindows.Line grow(
+      LinearWindows sums, LinearWindows.Line seed, int count, double rise) {
+    double floor = 1e-9 * Math.abs(rise);
+    LinearWindows.Line cur = seed;
+    for (int side = 0; side < 2; side++) {
+      int block = Math.max(1, cur.length() / 10);
+      while (block >= 1) {
+        int from = side == 0 ? cur.from() - block : cur.to() + 1;
+        int to = side == 0 ? cur.from() - 1 : cur.to() + block;
+        if (from < 0 || to >= count) {
+          block /= 2;
+          continue;
+        }
+        double limit = 3 * Math.max(cur.residualSd(), floor) / Math.sqrt(block);
+        double r = sums.meanResidual(from, to, cur.slope(), cur.intercept());
+        LinearWindows.Line next =
+            Math.abs(r) <= limit
+                ? sums.fit(Math.min(from, cur.from()), Math.max(to, cur.to()))
+                : null;
+        if (next != null && next.slope() > 0) {
+          cur = next;
+        } else {
+          block /= 2;
         }
       }
     }
-    return toFit(chosen, y, StiffnessFit.Method.AUTOMATIC);
+    return cur;
   }
 
   private static LinearWindows.Line qualifying(

@@ -61,7 +61,7 @@ class RunAnalyzerTest {
 
   @Test
   void beamModulusFromAutomaticStiffnessWithinHalfPercent() {
-    RunResult r = RunAnalyzer.analyze(beamCurve(0.05, 42L));
+    RunResult r = RunAnalyzer.analyze(beamCurve(0.2, 42L)); // noise 0.2 N on a ~190 N peak
     double m = r.stiffness_N_per_mm().orElseThrow();
     double e = Flexure.threePointModulus_MPa(m, SPAN, WIDTH, DEPTH);
     // E back from k = 48EI/L³ and E = L³m/(4bd³) (ASTM D790): must equal the E used, within 0.5 %.
@@ -69,9 +69,13 @@ class RunAnalyzerTest {
     StiffnessFit fit = r.stiffness().orElseThrow();
     assertThat(fit.rSquared()).isGreaterThanOrEqualTo(0.995);
     assertThat(fit.method()).isEqualTo(StiffnessFit.Method.AUTOMATIC);
-    // the window must stay off the toe (first 50 samples) and off the bend-over (from sample 625)
-    assertThat(fit.fromIndex()).isGreaterThanOrEqualTo(45);
-    assertThat(fit.toIndex()).isLessThanOrEqualTo(640);
+    // The toe covers samples 0–50 and the bend-over starts at sample 625. The window may reach a
+    // few samples into either where they deviate by less than the noise, but not where the local
+    // slope is below half the beam stiffness: before sample 25 (toe) or after 656 (bend-over).
+    assertThat(fit.fromIndex()).isGreaterThanOrEqualTo(25);
+    assertThat(fit.toIndex()).isLessThanOrEqualTo(656);
+    // and it must cover most of the straight part, not a short piece of it
+    assertThat(fit.toIndex() - fit.fromIndex()).isGreaterThan(500);
   }
 
   @Test
@@ -272,7 +276,7 @@ class RunAnalyzerTest {
 
   @Test
   void searchOnALongCurveIsFast() {
-    // 200 000 samples: the prefix-sum search must stay well under a second per pass.
+    // 200 000 samples: the prefix-sum search is O(n·k); a quadratic one would not finish in time.
     int n = 200_000;
     double[] t = new double[n];
     double[] f = new double[n];
@@ -286,6 +290,6 @@ class RunAnalyzerTest {
     RunResult r = RunAnalyzer.analyze(new Curve(t, f, x));
     long ms = (System.nanoTime() - start) / 1_000_000;
     assertThat(r.stiffness_N_per_mm().orElseThrow()).isCloseTo(50, within(1e-6));
-    assertThat(ms).isLessThan(3000);
+    assertThat(ms).isLessThan(10_000); // a quadratic search would take minutes here
   }
 }
