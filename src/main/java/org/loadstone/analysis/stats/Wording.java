@@ -60,7 +60,7 @@ final class Wording {
       return "p < 0.001";
     }
     return String.format(Locale.ROOT, "p = %s", new java.math.BigDecimal(p)
-        .round(new java.math.MathContext(p < 0.01 ? 1 : 2)).stripTrailingZeros().toPlainString());
+        .round(new java.math.MathContext(p < 0.01 ? 1 : 2)).toPlainString());
   }
 
   private static String capital(String s) {
