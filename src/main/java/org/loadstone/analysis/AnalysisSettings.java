@@ -88,12 +88,14 @@ public record AnalysisSettings(
     /** bounds are forces in newtons */
     FORCE_N,
     /** bounds are displacements from the first sample, in millimetres */
-    DISPLACEMENT_MM
+    DISPLACEMENT_MM,
+    /** bounds are raw position-channel values, in millimetres */
+    POSITION_MM
   }
 
   /**
-   * A manual stiffness window: the samples of the rise (first sample to peak) whose force, or
-   * displacement, lies within {@code [low, high]}.
+   * A manual stiffness window: the first unbroken run of samples of the rise (first sample to
+   * peak) whose force, displacement or position lies within {@code [low, high]}.
    *
    * @param basis what the bounds measure
    * @param low lower bound, finite
@@ -115,6 +117,11 @@ public record AnalysisSettings(
     /** @return bounds on force, newtons */
     public static StiffnessBounds force_N(double low, double high) {
       return new StiffnessBounds(Basis.FORCE_N, low, high);
+    }
+
+    /** @return bounds on the raw position channel, millimetres */
+    public static StiffnessBounds position_mm(double low, double high) {
+      return new StiffnessBounds(Basis.POSITION_MM, low, high);
     }
 
     /** @return bounds on displacement from the first sample, millimetres */

@@ -83,7 +83,7 @@ public final class RunAnalyzer {
     }
     StiffnessFit fit =
         settings.stiffnessBounds() != null
-            ? StiffnessSearch.manual(x, f, peak, settings.stiffnessBounds())
+            ? StiffnessSearch.manual(x, f, peak, settings.stiffnessBounds(), pos[0])
             : StiffnessSearch.automatic(
                 x, f, peak, settings.minRSquared(), settings.minWindowFractionOfRise());
     if (fit == null) {

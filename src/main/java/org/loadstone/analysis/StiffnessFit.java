@@ -32,7 +32,9 @@ public record StiffnessFit(
     /** the user's force bounds */
     FORCE_BOUNDS,
     /** the user's displacement bounds */
-    DISPLACEMENT_BOUNDS
+    DISPLACEMENT_BOUNDS,
+    /** the user's position-channel bounds */
+    POSITION_BOUNDS
   }
 
   /** Checks the fit. */

@@ -121,13 +121,15 @@ final class StiffnessSearch {
    *
    * @throws LoadstoneException when fewer than 3 rise samples lie in the bounds
    */
-  static StiffnessFit manual(double[] x, double[] y, int peakIndex, StiffnessBounds bounds) {
+  static StiffnessFit manual(
+      double[] x, double[] y, int peakIndex, StiffnessBounds bounds, double position0_mm) {
     double[] basis = bounds.basis() == AnalysisSettings.Basis.FORCE_N ? y : x;
+    double shift = bounds.basis() == AnalysisSettings.Basis.POSITION_MM ? position0_mm : 0;
     String unit = bounds.basis() == AnalysisSettings.Basis.FORCE_N ? " N" : " mm";
     int from = -1;
     int to = -1;
     for (int i = 0; i <= peakIndex; i++) {
-      boolean inside = basis[i] >= bounds.low() && basis[i] <= bounds.high();
+      boolean inside = basis[i] + shift >= bounds.low() && basis[i] + shift <= bounds.high();
       if (inside && from < 0) {
         from = i;
       }
@@ -152,9 +154,11 @@ final class StiffnessSearch {
               + "choose bounds where the specimen deflects.");
     }
     StiffnessFit.Method method =
-        bounds.basis() == AnalysisSettings.Basis.FORCE_N
-            ? StiffnessFit.Method.FORCE_BOUNDS
-            : StiffnessFit.Method.DISPLACEMENT_BOUNDS;
+        switch (bounds.basis()) {
+          case FORCE_N -> StiffnessFit.Method.FORCE_BOUNDS;
+          case DISPLACEMENT_MM -> StiffnessFit.Method.DISPLACEMENT_BOUNDS;
+          case POSITION_MM -> StiffnessFit.Method.POSITION_BOUNDS;
+        };
     return toFit(line, y, method);
   }
 

@@ -193,6 +193,15 @@ class RunAnalyzerTest {
         RunAnalyzer.analyze(
             c, AnalysisSettings.DEFAULTS.withStiffnessBounds(StiffnessBounds.displacement_mm(0, 0.1)));
     assertThat(toe.stiffness_N_per_mm().orElseThrow()).isLessThan(0.5 * k);
+    // position bounds use the raw channel, which starts at 1.5 mm in beamCurve
+    RunResult byPosition =
+        RunAnalyzer.analyze(
+            c, AnalysisSettings.DEFAULTS.withStiffnessBounds(StiffnessBounds.position_mm(2.0, 3.0)));
+    StiffnessFit pf = byPosition.stiffness().orElseThrow();
+    assertThat(pf.method()).isEqualTo(StiffnessFit.Method.POSITION_BOUNDS);
+    assertThat(pf.fromIndex()).isEqualTo(125); // 1.5 + 125 × 0.004 = 2.0 mm
+    assertThat(pf.toIndex()).isEqualTo(375);
+    assertThat(pf.slope_N_per_mm()).isCloseTo(k, within(1e-6));
     assertThatThrownBy(
             () ->
                 RunAnalyzer.analyze(
