@@ -16,7 +16,7 @@ import org.loadstone.units.LoadstoneException;
  * errors, so that a short window cannot win on noise alone — is the seed. The seed is then grown
  * to the whole straight region: blocks of samples on either side are added while their mean
  * residual from the current line stays within three residual standard deviations (scaled by
- * √block); the line is refitted as it grows (O(n log n) in all). Growing keeps the toe and the
+ * √block); the line is refitted as it grows (O(n) more). Growing keeps the toe and the
  * bend-over before the peak out, and averages the noise over the longest straight stretch, where
  * the single steepest short window would be biased high by noise.
  */
