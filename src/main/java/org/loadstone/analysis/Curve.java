@@ -1,0 +1,125 @@
+package org.loadstone.analysis;
+
+import java.util.Arrays;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
+
+/**
+ * A read-only force record of one run, the input to {@link RunAnalyzer}.
+ *
+ * <p>Force is positive in the loading direction (a bend or compression load presses with a
+ * positive force). Position is the crosshead or specimen position in millimetres, increasing in
+ * the loading direction; it may be absent ({@code null}), in which case stiffness, energy and
+ * displacements are absent from the analysis instead of being guessed.
+ *
+ * <p>The arrays are copied on construction and on every accessor call, so a curve never changes.
+ *
+ * @param time_s sample times in seconds, strictly increasing, finite
+ * @param force_N force in newtons, finite, same length as {@code time_s}
+ * @param position_mm position in millimetres, finite, same length, or {@code null} when unknown
+ * @throws LoadstoneException when the arrays differ in length, hold fewer than 2 samples, hold a
+ *     non-finite value (the message names the column and sample index) or time does not increase
+ * @throws IllegalArgumentException when {@code time_s} or {@code force_N} is null
+ */
+public record Curve(double[] time_s, double[] force_N, double[] position_mm) {
+
+  /** Validates and copies the arrays. */
+  public Curve {
+    Precondition.notNull(time_s, "time_s");
+    Precondition.notNull(force_N, "force_N");
+    time_s = time_s.clone();
+    force_N = force_N.clone();
+    position_mm = position_mm == null ? null : position_mm.clone();
+    if (time_s.length < 2) {
+      throw new LoadstoneException(
+          "Run curve has " + time_s.length + " sample(s); analysis needs at least 2. "
+              + "Record a longer run.");
+    }
+    if (force_N.length != time_s.length) {
+      throw new LoadstoneException(
+          "Run curve columns differ in length: time_s has " + time_s.length + " samples, force_N "
+              + force_N.length + ". Supply one force value per time stamp.");
+    }
+    if (position_mm != null && position_mm.length != time_s.length) {
+      throw new LoadstoneException(
+          "Run curve columns differ in length: time_s has " + time_s.length
+              + " samples, position_mm " + position_mm.length
+              + ". Supply one position per time stamp, or none.");
+    }
+    requireFinite(time_s, "time_s");
+    requireFinite(force_N, "force_N");
+    if (position_mm != null) {
+      requireFinite(position_mm, "position_mm");
+    }
+    for (int i = 1; i < time_s.length; i++) {
+      if (!(time_s[i] > time_s[i - 1])) {
+        throw new LoadstoneException(
+            "Run curve time_s does not increase at sample " + i + " (" + time_s[i - 1] + " s then "
+                + time_s[i] + " s). Time stamps must strictly increase; remove repeated or "
+                + "out-of-order samples.");
+      }
+    }
+  }
+
+  /** A curve without a position channel. */
+  public static Curve withoutPosition(double[] time_s, double[] force_N) {
+    return new Curve(time_s, force_N, null);
+  }
+
+  static void requireFinite(double[] values, String column) {
+    for (int i = 0; i < values.length; i++) {
+      if (!Double.isFinite(values[i])) {
+        throw new LoadstoneException(
+            "Run curve column " + column + " holds " + values[i] + " at sample " + i
+                + ". Every value must be a finite number; remove or repair that sample.");
+      }
+    }
+  }
+
+  /** @return a copy of the sample times, seconds */
+  @Override
+  public double[] time_s() {
+    return time_s.clone();
+  }
+
+  /** @return a copy of the forces, newtons */
+  @Override
+  public double[] force_N() {
+    return force_N.clone();
+  }
+
+  /** @return a copy of the positions in millimetres, or {@code null} when there is no position */
+  @Override
+  public double[] position_mm() {
+    return position_mm == null ? null : position_mm.clone();
+  }
+
+  /** @return the number of samples, at least 2 */
+  public int size() {
+    return time_s.length;
+  }
+
+  /** @return whether the curve has a position channel */
+  public boolean hasPosition() {
+    return position_mm != null;
+  }
+
+  @Override
+  public boolean equals(Object o) {
+    return o instanceof Curve c
+        && Arrays.equals(time_s, c.time_s)
+        && Arrays.equals(force_N, c.force_N)
+        && Arrays.equals(position_mm, c.position_mm);
+  }
+
+  @Override
+  public int hashCode() {
+    return 31 * (31 * Arrays.hashCode(time_s) + Arrays.hashCode(force_N))
+        + Arrays.hashCode(position_mm);
+  }
+
+  @Override
+  public String toString() {
+    return "Curve[" + size() + " samples, " + (hasPosition() ? "with" : "without") + " position]";
+  }
+}

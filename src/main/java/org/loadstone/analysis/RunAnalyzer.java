@@ -1,0 +1,212 @@
+package org.loadstone.analysis;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import org.loadstone.analysis.AnalysisSettings.CrushWindow;
+import org.loadstone.analysis.RunResult.BreakPoint;
+import org.loadstone.analysis.RunResult.CrushResult;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
+
+/** Peak, break, stiffness, toe compensation, energy and crush figures of one run. */
+public final class RunAnalyzer {
+  private RunAnalyzer() {}
+
+  /**
+   * Analyses one run.
+   *
+   * <ul>
+   *   <li>Peak: the first sample of highest force.
+   *   <li>Break: {@link AnalysisSettings#breakIndex()} when given, else the first sample after the
+   *       peak whose force is at most {@code peak − breakDropFraction·|peak|}.
+   *   <li>Stiffness: slope of force against displacement over the initial linear region, found
+   *       automatically (steepest straight window, see the settings) or over manual bounds.
+   *   <li>Toe compensation: the fitted line meets zero force at the toe offset; corrected
+   *       displacement = displacement − toe offset (ASTM D790 annex A1, ISO 178).
+   *   <li>Energy: trapezoidal area under force–displacement, N·mm / 1000 = J.
+   *   <li>Crush: area over the stroke window divided by its length; efficiency = mean / peak.
+   * </ul>
+   *
+   * <p>A run has "no rise" when the peak is the first sample, or the rise (peak − first force) is
+   * at most 1 % of the largest absolute force, or (from 20 samples on) the rise is under four
+   * times the median absolute sample-to-sample change, i.e. within the noise.
+   *
+   * @param curve the run, not null
+   * @param settings how to read it, not null
+   * @return the figures; position-based ones are empty when the curve has no position
+   * @throws LoadstoneException when the run has no rise, the given break index is outside the run
+   *     or before the peak, manual stiffness bounds are given without position or select too few
+   *     samples, or the crush window lies outside the run's displacement
+   */
+  public static RunResult analyze(Curve curve, AnalysisSettings settings) {
+    Precondition.notNull(curve, "curve");
+    Precondition.notNull(settings, "settings");
+    double[] t = curve.time_s();
+    double[] f = curve.force_N();
+    double[] pos = curve.position_mm();
+    int n = f.length;
+    List<String> notes = new ArrayList<>();
+
+    int peak = 0;
+    double maxAbs = 0;
+    for (int i = 0; i < n; i++) {
+      if (f[i] > f[peak]) {
+        peak = i;
+      }
+      maxAbs = Math.max(maxAbs, Math.abs(f[i]));
+    }
+    requireRise(f, peak, maxAbs);
+
+    Optional<BreakPoint> brk = findBreak(t, f, peak, settings, notes);
+
+    if (pos == null) {
+      if (settings.stiffnessBounds() != null || settings.crushWindow() != null) {
+        throw new LoadstoneException(
+            "The analysis settings ask for "
+                + (settings.stiffnessBounds() != null ? "manual stiffness bounds" : "a crush window")
+                + " but the run has no position channel. Add a position source (encoder, "
+                + "crosshead rate or imported table) or clear that setting.");
+      }
+      notes.add("No position channel: displacement, stiffness, toe offset and energy are absent.");
+      return new RunResult(
+          n, f[0], peak, f[peak], t[peak], OptionalDouble.empty(), brk, OptionalDouble.empty(),
+          OptionalDouble.empty(), Optional.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
+          OptionalDouble.empty(), OptionalDouble.empty(), Optional.empty(), notes);
+    }
+
+    double[] x = new double[n];
+    for (int i = 0; i < n; i++) {
+      x[i] = pos[i] - pos[0];
+    }
+    StiffnessFit fit =
+        settings.stiffnessBounds() != null
+            ? StiffnessSearch.manual(x, f, peak, settings.stiffnessBounds(), pos[0])
+            : StiffnessSearch.automatic(
+                x, f, peak, settings.minRSquared(), settings.minWindowFractionOfRise());
+    if (fit == null) {
+      notes.add(
+          "No window before the peak is straight enough (R² ≥ " + settings.minRSquared()
+              + " over " + Math.round(settings.minWindowFractionOfRise() * 100)
+              + " % of the rise): stiffness and toe offset are absent. Set manual bounds to force "
+              + "a fit.");
+    }
+    OptionalDouble toe = fit == null ? OptionalDouble.empty() : OptionalDouble.of(fit.toeOffset_mm());
+
+    OptionalDouble dispBreak = OptionalDouble.empty();
+    OptionalDouble corrBreak = OptionalDouble.empty();
+    OptionalDouble energyBreak = OptionalDouble.empty();
+    if (brk.isPresent()) {
+      int b = brk.get().index();
+      dispBreak = OptionalDouble.of(x[b]);
+      energyBreak = OptionalDouble.of(area_Nmm(x, f, b) / 1000.0);
+      if (toe.isPresent()) {
+        corrBreak = OptionalDouble.of(x[b] - toe.getAsDouble());
+      }
+    }
+    OptionalDouble corrPeak =
+        toe.isPresent() ? OptionalDouble.of(x[peak] - toe.getAsDouble()) : OptionalDouble.empty();
+    Optional<CrushResult> crush =
+        settings.crushWindow() == null
+            ? Optional.empty()
+            : Optional.of(crush(x, f, settings.crushWindow(), f[peak]));
+
+    return new RunResult(
+        n, f[0], peak, f[peak], t[peak], OptionalDouble.of(pos[peak]), brk,
+        OptionalDouble.of(x[peak]), dispBreak, Optional.ofNullable(fit), corrPeak, corrBreak,
+        OptionalDouble.of(area_Nmm(x, f, peak) / 1000.0), energyBreak, crush, notes);
+  }
+
+  /** Analyses with {@link AnalysisSettings#DEFAULTS}. */
+  public static RunResult analyze(Curve curve) {
+    return analyze(curve, AnalysisSettings.DEFAULTS);
+  }
+
+  private static void requireRise(double[] f, int peak, double maxAbs) {
+    double rise = f[peak] - f[0];
+    boolean flat = peak == 0 || !(rise > 0.01 * maxAbs);
+    if (!flat && f.length >= 20) {
+      double[] steps = new double[f.length - 1];
+      for (int i = 1; i < f.length; i++) {
+        steps[i - 1] = Math.abs(f[i] - f[i - 1]);
+      }
+      Arrays.sort(steps);
+      double median = steps[steps.length / 2];
+      flat = rise < 4 * median;
+    }
+    if (flat) {
+      throw new LoadstoneException(
+          String.format(
+              "Run has no rise: the peak force %.6g N (sample %d) is hardly above the start force "
+                  + "%.6g N. Check that the specimen was loaded, the load cell is connected and "
+                  + "the force sign is positive in the loading direction.",
+              f[peak], peak, f[0]));
+    }
+  }
+
+  private static Optional<BreakPoint> findBreak(
+      double[] t, double[] f, int peak, AnalysisSettings s, List<String> notes) {
+    if (s.breakIndex() != null) {
+      int b = s.breakIndex();
+      if (b >= f.length || b < peak) {
+        throw new LoadstoneException(
+            "Break index " + b + " is outside the run after the peak (peak at sample " + peak
+                + ", last sample " + (f.length - 1) + "). Give an index from " + peak + " to "
+                + (f.length - 1) + ", or leave it empty to detect the break.");
+      }
+      return Optional.of(new BreakPoint(b, t[b], f[b], false));
+    }
+    double threshold = f[peak] - s.breakDropFraction() * Math.abs(f[peak]);
+    for (int i = peak + 1; i < f.length; i++) {
+      if (f[i] <= threshold) {
+        return Optional.of(new BreakPoint(i, t[i], f[i], true));
+      }
+    }
+    notes.add(
+        "No break: force never fell by " + Math.round(s.breakDropFraction() * 100)
+            + " % of the peak after the peak; break values are absent.");
+    return Optional.empty();
+  }
+
+  /** Trapezoidal area under force over displacement, samples 0..last, N·mm. */
+  static double area_Nmm(double[] x, double[] f, int last) {
+    double sum = 0;
+    for (int i = 1; i <= last; i++) {
+      sum += 0.5 * (f[i] + f[i - 1]) * (x[i] - x[i - 1]);
+    }
+    return sum;
+  }
+
+  private static CrushResult crush(double[] x, double[] f, CrushWindow w, double peak_N) {
+    double a = w.from_mm();
+    double b = w.to_mm();
+    double max = Arrays.stream(x).max().orElseThrow();
+    if (b > max) {
+      throw new LoadstoneException(
+          String.format(
+              "Crush window %.4g to %.4g mm reaches past the largest displacement of the run, "
+                  + "%.4g mm. End the window at or before %.4g mm.",
+              a, b, max, max));
+    }
+    double area = 0;
+    for (int i = 1; i < x.length; i++) {
+      double x0 = x[i - 1];
+      double x1 = x[i];
+      if (x1 <= x0) {
+        continue; // only forward stroke contributes; rebound or pauses are skipped
+      }
+      double lo = Math.max(x0, a);
+      double hi = Math.min(x1, b);
+      if (hi <= lo) {
+        continue;
+      }
+      double flo = f[i - 1] + (f[i] - f[i - 1]) * (lo - x0) / (x1 - x0);
+      double fhi = f[i - 1] + (f[i] - f[i - 1]) * (hi - x0) / (x1 - x0);
+      area += 0.5 * (flo + fhi) * (hi - lo);
+    }
+    double mean = area / (b - a);
+    return new CrushResult(a, b, mean, mean / peak_N);
+  }
+}
