@@ -1,0 +1,192 @@
+package org.loadstone.acquire;
+
+import java.util.Locale;
+import org.loadstone.units.LoadstoneException;
+
+/**
+ * When a run starts and stops by itself. Immutable; build with {@link #builder()} or start from a
+ * preset. All forces in N, times in s.
+ *
+ * @param startThreshold_N recording starts when force reaches this (auto start)
+ * @param pretrigger_s history kept before the start so the toe of the curve is not lost
+ * @param breakDropPct break when force has fallen by at least this % of the running peak (0…100)
+ * @param armingLevel_N the peak must have exceeded this before a break can be declared
+ * @param debounce_s the drop must last at least this long
+ * @param absoluteStop_N alternatively, break when force falls back below this after arming; 0 = off
+ * @param postBreak_s tail recorded after the break
+ * @param ratedCapacity_N the load cell's rated capacity
+ * @param overloadWarnPct warn at this % of rated capacity
+ * @param overloadStopPct stop (cause overload) at this % of rated capacity
+ * @param maxSeconds longest run, from the start threshold; 0 = no limit
+ */
+public record RunSettings(double startThreshold_N, double pretrigger_s, double breakDropPct,
+    double armingLevel_N, double debounce_s, double absoluteStop_N, double postBreak_s,
+    double ratedCapacity_N, double overloadWarnPct, double overloadStopPct, double maxSeconds) {
+
+  /** Defaults for a 500 N cell: start at 5 N, 1 s history, break at a 40 % drop, 0.5 s tail. */
+  public static final RunSettings DEFAULTS =
+      new RunSettings(5, 1.0, 40, 10, 0.01, 0, 0.5, 500, 80, 100, 0);
+
+  public RunSettings {
+    positive(startThreshold_N, "start threshold", "--start-at-N");
+    nonNegative(pretrigger_s, "pre-trigger history", "--pretrigger-s");
+    if (!(breakDropPct > 0 && breakDropPct < 100)) {
+      throw new LoadstoneException(String.format(Locale.ROOT,
+          "break drop must be between 0 and 100 %% of the peak, was %s: use e.g. "
+              + "--stop-drop-pct 40", num(breakDropPct)));
+    }
+    nonNegative(armingLevel_N, "arming level", "--arm-at-N");
+    nonNegative(debounce_s, "debounce time", "--debounce-s");
+    nonNegative(absoluteStop_N, "absolute stop level", "--stop-below-N");
+    nonNegative(postBreak_s, "post-break tail", "--tail-s");
+    positive(ratedCapacity_N, "rated capacity", "--capacity-N");
+    positive(overloadWarnPct, "overload warning level", "--warn-pct");
+    positive(overloadStopPct, "overload stop level", "--overload-pct");
+    if (overloadWarnPct > overloadStopPct) {
+      throw new LoadstoneException("the overload warning (" + num(overloadWarnPct)
+          + " %) must not be above the overload stop (" + num(overloadStopPct) + " %)");
+    }
+    if (overloadStopPct > 150) {
+      throw new LoadstoneException("an overload stop above 150 % of rated capacity ("
+          + num(overloadStopPct) + " %) is refused: cells are damaged beyond their safe overload");
+    }
+    nonNegative(maxSeconds, "time limit", "--max-seconds");
+    if (startThreshold_N >= ratedCapacity_N * overloadStopPct / 100) {
+      throw new LoadstoneException("the start threshold (" + num(startThreshold_N)
+          + " N) is at or above the overload stop (" + num(ratedCapacity_N * overloadStopPct / 100)
+          + " N): lower --start-at-N or check --capacity-N");
+    }
+  }
+
+  private static String num(double v) {
+    return String.format(Locale.ROOT, "%.6g", v).replaceAll("\\.?0+($|e)", "$1");
+  }
+
+  private static void positive(double v, String what, String option) {
+    if (!(Double.isFinite(v) && v > 0)) {
+      throw new LoadstoneException(what + " must be greater than 0, was " + num(v)
+          + ": set " + option + " to a positive value");
+    }
+  }
+
+  private static void nonNegative(double v, String what, String option) {
+    if (!(Double.isFinite(v) && v >= 0)) {
+      throw new LoadstoneException(what + " must be 0 or more, was " + num(v)
+          + ": set " + option + " to 0 or a positive value");
+    }
+  }
+
+  /** @return force at which an overload warning is given, N */
+  public double overloadWarn_N() {
+    return ratedCapacity_N * overloadWarnPct / 100;
+  }
+
+  /** @return force at which the run stops for overload, N */
+  public double overloadStop_N() {
+    return ratedCapacity_N * overloadStopPct / 100;
+  }
+
+  /** @return a builder starting from {@link #DEFAULTS} */
+  public static Builder builder() {
+    return new Builder(DEFAULTS);
+  }
+
+  /** @return a builder starting from these settings */
+  public Builder toBuilder() {
+    return new Builder(this);
+  }
+
+  /** Builder; {@link #build()} validates. */
+  public static final class Builder {
+    private double startThreshold_N;
+    private double pretrigger_s;
+    private double breakDropPct;
+    private double armingLevel_N;
+    private double debounce_s;
+    private double absoluteStop_N;
+    private double postBreak_s;
+    private double ratedCapacity_N;
+    private double overloadWarnPct;
+    private double overloadStopPct;
+    private double maxSeconds;
+    private boolean armingSet;
+
+    private Builder(RunSettings s) {
+      startThreshold_N = s.startThreshold_N;
+      pretrigger_s = s.pretrigger_s;
+      breakDropPct = s.breakDropPct;
+      armingLevel_N = s.armingLevel_N;
+      debounce_s = s.debounce_s;
+      absoluteStop_N = s.absoluteStop_N;
+      postBreak_s = s.postBreak_s;
+      ratedCapacity_N = s.ratedCapacity_N;
+      overloadWarnPct = s.overloadWarnPct;
+      overloadStopPct = s.overloadStopPct;
+      maxSeconds = s.maxSeconds;
+    }
+
+    public Builder startThreshold_N(double v) {
+      startThreshold_N = v;
+      return this;
+    }
+
+    public Builder pretrigger_s(double v) {
+      pretrigger_s = v;
+      return this;
+    }
+
+    public Builder breakDropPct(double v) {
+      breakDropPct = v;
+      return this;
+    }
+
+    /** Unless set, the arming level is twice the start threshold. */
+    public Builder armingLevel_N(double v) {
+      armingLevel_N = v;
+      armingSet = true;
+      return this;
+    }
+
+    public Builder debounce_s(double v) {
+      debounce_s = v;
+      return this;
+    }
+
+    public Builder absoluteStop_N(double v) {
+      absoluteStop_N = v;
+      return this;
+    }
+
+    public Builder postBreak_s(double v) {
+      postBreak_s = v;
+      return this;
+    }
+
+    public Builder ratedCapacity_N(double v) {
+      ratedCapacity_N = v;
+      return this;
+    }
+
+    public Builder overloadWarnPct(double v) {
+      overloadWarnPct = v;
+      return this;
+    }
+
+    public Builder overloadStopPct(double v) {
+      overloadStopPct = v;
+      return this;
+    }
+
+    public Builder maxSeconds(double v) {
+      maxSeconds = v;
+      return this;
+    }
+
+    public RunSettings build() {
+      double arm = armingSet ? armingLevel_N : 2 * startThreshold_N;
+      return new RunSettings(startThreshold_N, pretrigger_s, breakDropPct, arm, debounce_s,
+          absoluteStop_N, postBreak_s, ratedCapacity_N, overloadWarnPct, overloadStopPct,
+          maxSeconds);
+    }
+  }
+}
