@@ -15,6 +15,13 @@ import org.loadstone.units.Precondition;
  *   SimTruth truth = frame.truth();
  * </pre>
  *
+ * <p>Load counts: a fast converter (100…50 000 samples/s) reports the force at the instant the
+ * conversion finishes. An HX711-class converter (10 or 80 samples/s) integrates its input, so by
+ * default its counts are the mean of the noise-free output over the conversion period just ended
+ * (a first-order stand-in for its digital filter): a fracture lasting a few milliseconds shows as
+ * one or two lowered samples, as on a real slow converter. The per-sample truth ({@link
+ * SimSample#force_N()}, {@link #lastForce_N()}) is always the instantaneous force.
+ *
  * <p>Not thread-safe: one caller drives a frame. Producing a sample allocates nothing.
  */
 public final class SimulatedFrame {
@@ -35,6 +42,7 @@ public final class SimulatedFrame {
   private final SpecimenSummary specimen;
   private final double driveRate_mm_per_s;
   private final double contactGap_mm;
+  private final boolean averagingConverter;
   private double rateHz;
   private double halt_s = Double.POSITIVE_INFINITY;
 
@@ -54,6 +62,7 @@ public final class SimulatedFrame {
   SimulatedFrame(SimulatedFrameBuilder b, Presets.Setup setup, LoadCell cell, CrossheadDrive drive,
       boolean motorised, double driveRate_mm_per_s) {
     this.driveRate_mm_per_s = driveRate_mm_per_s;
+    this.averagingConverter = b.averaging;
     this.contactGap_mm = setup == null ? Double.NaN : setup.gap_mm();
     this.scenario = b.scenario;
     this.seed = b.seed;
@@ -93,18 +102,31 @@ public final class SimulatedFrame {
   private void produce() {
     double t = clock.next_s();
     double force;
+    double converted_counts;
     if (mechanics != null) {
       double t0 = mechanics.time_s();
       int n = Math.max(1, (int) Math.ceil((t - t0) / MAX_STEP_S - 1e-9));
+      boolean averaging = averagingConverter && (rateHz == 10 || rateHz == 80);
+      double previous = averaging ? cell.idealCounts(mechanics.force_N()) : 0;
+      double area = 0;
+      double tPrevious = t0;
       for (int i = 1; i <= n; i++) {
         double ti = i == n ? t : t0 + (t - t0) * i / n;
         mechanics.step(drive.position_mm(Math.min(ti, halt_s)), ti);
+        if (averaging) {
+          double c = cell.idealCounts(mechanics.force_N());
+          area += 0.5 * (previous + c) * (ti - tPrevious);
+          previous = c;
+          tPrevious = ti;
+        }
       }
       force = mechanics.force_N();
+      converted_counts = averaging ? area / (t - t0) : cell.idealCounts(force);
       lastCrosshead_mm = mechanics.crosshead_mm();
       lastDeflection_mm = mechanics.deflection_mm();
     } else {
       force = rig.force_N(t);
+      converted_counts = cell.idealCounts(force);
       lastCrosshead_mm = 0;
       lastDeflection_mm = 0;
       if (force > deadWeightPeak_N) {
@@ -112,7 +134,7 @@ public final class SimulatedFrame {
         deadWeightPeak_s = t;
       }
     }
-    long counts = Math.round(cell.idealCounts(force) + cell.noiseRms_counts() * noise.nextGaussian());
+    long counts = Math.round(converted_counts + cell.noiseRms_counts() * noise.nextGaussian());
     lastSaturated = counts > LoadCell.MAX_COUNTS || counts < LoadCell.MIN_COUNTS;
     if (lastSaturated) {
       saturatedCount++;

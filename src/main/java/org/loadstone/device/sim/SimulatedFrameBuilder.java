@@ -26,6 +26,7 @@ public final class SimulatedFrameBuilder {
   double rateError_pct;
   double gravity_m_per_s2 = 9.80665;
   double settling_s = 0.2;
+  boolean averaging = true;
 
   SimulatedFrameBuilder() {}
 
@@ -141,6 +142,16 @@ public final class SimulatedFrameBuilder {
   /** @param s settling time constant after a dead-weight change, s, &gt; 0 (default 0.2) */
   public SimulatedFrameBuilder deadWeightSettling_s(double s) {
     this.settling_s = s;
+    return this;
+  }
+
+  /**
+   * @param on whether an HX711-class converter (10 or 80 /s) reports the mean over its conversion
+   *     period (default true) or the force at the end of it; fast converters always sample the
+   *     instant
+   */
+  public SimulatedFrameBuilder converterAveraging(boolean on) {
+    this.averaging = on;
     return this;
   }
 
