@@ -135,6 +135,22 @@ class SpecimenBehaviourTest {
       }
     }
     assertThat(backOffs).isGreaterThan(50);
+    // uneven strokes: lengths of the forward runs vary by more than 10 % (CV)
+    org.apache.commons.math3.stat.descriptive.DescriptiveStatistics strokes =
+        new org.apache.commons.math3.stat.descriptive.DescriptiveStatistics();
+    double run = 0;
+    for (int i = 1; i < b.size(); i++) {
+      double dx = b.crosshead_mm(i) - b.crosshead_mm(i - 1);
+      if (dx > 0) {
+        run += dx;
+      } else if (run > 0) {
+        strokes.addValue(run);
+        run = 0;
+      }
+    }
+    assertThat(strokes.getN()).isGreaterThan(10);
+    assertThat(strokes.getStandardDeviation() / strokes.getMean()).isGreaterThan(0.10);
+    assertThat(strokes.getMean()).isBetween(0.2, 0.4); // mean stroke set to 0.3 mm
     assertThat(pauseSamples).isGreaterThan(b.size() / 5);
     // net progress is less than the forward travel (the back-offs)
     assertThat(b.crosshead_mm(b.size() - 1)).isLessThan(advance * 0.98);
