@@ -60,14 +60,14 @@ final class FrameMechanics {
       double b = a + dir * h;
       double gb = residual(b, x, t);
       int guard = 0;
-      while ((gb < 0) == (ga < 0) && gb != 0 && guard++ < 200) {
+      while ((gb < 0) == (ga < 0) && Math.abs(gb) > TOLERANCE_MM && guard++ < 200) {
         a = b;
         ga = gb;
         h *= 2;
         b = a + dir * h;
         gb = residual(b, x, t);
       }
-      solved = illinois(a, ga, b, gb, x, t);
+      solved = Math.abs(gb) <= TOLERANCE_MM ? b : illinois(a, ga, b, gb, x, t);
     }
     double newForce = specimen.commit(solved, t);
     double meanForce = 0.5 * (force_N + newForce);
@@ -97,6 +97,10 @@ final class FrameMechanics {
     for (int i = 0; i < 200; i++) {
       double c = (a * gb - b * ga) / (gb - ga);
       if (!(c > Math.min(a, b) && c < Math.max(a, b))) {
+        // rounding put the secant on an end: that end is as close as doubles resolve
+        if (Math.abs(ga) <= Math.abs(gb) ? Math.abs(ga) < 1e-9 : Math.abs(gb) < 1e-9) {
+          return Math.abs(ga) <= Math.abs(gb) ? a : b;
+        }
         c = 0.5 * (a + b);
       }
       double gc = residual(c, x, t);

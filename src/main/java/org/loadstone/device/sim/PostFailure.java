@@ -72,8 +72,9 @@ abstract class PostFailure {
 
   /**
    * Progressive crushing: the force falls by {@code dropFraction} within {@code drop_s}, rises
-   * again with {@code reloadStiffness} to the next tooth peak, falls again, and so on. Tooth
-   * peaks are the failure force times {@code plateauRatio}·{@code decay}^i, each scattered with
+   * again with {@code reloadStiffness} to the next tooth peak, falls again, and so on. Tooth i
+   * peaks at the failure force times floor + (plateauRatio − floor)·decay^i (a progressive
+   * collapse towards {@code floorRatio}; with decay 1 a steady plateau), each scattered with
    * {@code cv} from the seed.
    */
   static final class SawTooth extends PostFailure {
@@ -82,6 +83,7 @@ abstract class PostFailure {
     private final double reloadStiffness_N_per_mm;
     private final double plateauRatio;
     private final double decay;
+    private final double floorRatio;
     private final double cv;
     private final SimRandom random;
     private boolean dropping;
@@ -91,7 +93,7 @@ abstract class PostFailure {
     private double base_mm;
     private double nextPeak_N;
     private double firstPeak_N;
-    private int tooth;
+    private double decayFactor = 1;
 
     SawTooth(
         double dropFraction,
@@ -99,6 +101,7 @@ abstract class PostFailure {
         double reloadStiffness_N_per_mm,
         double plateauRatio,
         double decay,
+        double floorRatio,
         double cv,
         SimRandom random) {
       this.dropFraction = dropFraction;
@@ -106,6 +109,7 @@ abstract class PostFailure {
       this.reloadStiffness_N_per_mm = reloadStiffness_N_per_mm;
       this.plateauRatio = plateauRatio;
       this.decay = decay;
+      this.floorRatio = floorRatio;
       this.cv = cv;
       this.random = random;
     }
@@ -121,8 +125,9 @@ abstract class PostFailure {
       high_N = force_N;
       low_N = force_N * (1 - dropFraction);
       dropStart_s = time_s;
-      tooth++;
-      double peak = firstPeak_N * plateauRatio * StrictMath.pow(decay, tooth) * random.scatter(cv);
+      decayFactor *= decay; // a running product: StrictMath.pow allocates until compiled
+      double ratio = floorRatio + (plateauRatio - floorRatio) * decayFactor;
+      double peak = firstPeak_N * ratio * random.scatter(cv);
       // a tooth must rise above where the drop ends, or the crushing would stall
       nextPeak_N = Math.max(peak, low_N * 1.05);
     }

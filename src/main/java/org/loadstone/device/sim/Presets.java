@@ -81,7 +81,7 @@ final class Presets {
     SpecimenModel m =
         new HistorySpecimen(
             new PreCurve.Elastic(k, toe, first),
-            new PostFailure.SawTooth(0.35, 0.004, 0.7 * k, 0.85, 1.0, 0.08, failure));
+            new PostFailure.SawTooth(0.35, 0.004, 0.7 * k, 0.85, 1.0, 0.85, 0.08, failure));
     return new Setup(
         m, new SpecimenSummary("crushing specimen", k, first, toe, 0.008, null, null),
         0.5, 500, 0.3);
@@ -168,7 +168,7 @@ final class Presets {
     } else if (core == SandwichPanel.Core.BALSA) {
       post = new PostFailure.SuddenDrop(0.18, 0.003);
     } else {
-      post = new PostFailure.SawTooth(0.3, 0.006, 0.5 * k, 0.9, 0.94, 0.08, failure);
+      post = new PostFailure.SawTooth(0.3, 0.006, 0.5 * k, 0.9, 0.94, 0.35, 0.08, failure);
     }
     SpecimenModel m = new HistorySpecimen(new PreCurve.Elastic(k, toe, fail), post);
     return new Setup(

@@ -3,26 +3,30 @@ package org.loadstone.device.sim;
 /**
  * Conversion instants, sequence numbers and the device's microsecond clock. Conversion n (n ≥ 1
  * since the last rate change) finishes at base + n·T plus an optional Gaussian jitter (cut at ±3σ
- * and at ±0.4·T, so samples stay in order); the jitter does not accumulate.
+ * and at ±0.4·T, so samples stay in order); the jitter does not accumulate. T is the nominal
+ * period times (1 + rate error): a converter running off its own oscillator converts slightly
+ * faster or slower than nominal, while the device clock keeps true time.
  */
 final class SampleClock {
   private final SimRandom random;
   private final double jitter_s;
   private final int firstSequence;
   private final long clockStart_us;
+  private final double periodScale;
   private double period_s;
   private double base_s;
   private long index;
   private long count;
   private double next_s;
 
-  SampleClock(double rateHz, double jitter_us, int firstSequence, long clockStart_us,
-      SimRandom random) {
+  SampleClock(double rateHz, double jitter_us, double rateError_pct, int firstSequence,
+      long clockStart_us, SimRandom random) {
     this.random = random;
     this.jitter_s = jitter_us * 1e-6;
     this.firstSequence = firstSequence;
     this.clockStart_us = clockStart_us;
-    this.period_s = 1 / rateHz;
+    this.periodScale = 1 / (1 + rateError_pct / 100);
+    this.period_s = periodScale / rateHz;
     this.next_s = draw();
   }
 
@@ -58,7 +62,7 @@ final class SampleClock {
   void setRate(double rateHz) {
     base_s = base_s + index * period_s;
     index = 0;
-    period_s = 1 / rateHz;
+    period_s = periodScale / rateHz;
     next_s = draw();
   }
 

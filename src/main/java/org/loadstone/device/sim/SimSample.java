@@ -11,7 +11,8 @@ package org.loadstone.device.sim;
  * @param time_s true time since the start, s
  * @param crosshead_mm true crosshead displacement, mm
  * @param deflection_mm true specimen deflection from first contact, mm (0 before contact)
- * @param force_N true force on the cell, N
+ * @param force_N true force on the cell at {@code time_s}, N (instantaneous; an HX711-class
+ *     converter's counts are the mean over its conversion period, see {@link SimulatedFrame})
  * @param saturated whether the converter clipped this sample at a 24-bit limit
  */
 public record SimSample(

@@ -11,7 +11,11 @@ package org.loadstone.device.sim;
  * @param loadCell the cell: capacity, sensitivity, zero offset, noise, non-linearity
  * @param positionCountsPerMm encoder resolution, counts/mm
  * @param gravity_m_per_s2 gravity used for dead weights, m/s²
- * @param frameStiffness_N_per_mm stiffness of the load frame, N/mm
+ * @param crossheadRate_mm_per_s constant crosshead rate, mm/s; NaN when hand-pumped or in the
+ *     dead-weight mode
+ * @param contactGap_mm crosshead travel before it touches the specimen, mm; NaN in the
+ *     dead-weight mode
+ * @param frameStiffness_N_per_mm stiffness of the load frame, N/mm; NaN in the dead-weight mode
  * @param specimen the specimen, or null in the dead-weight mode
  * @param systemStiffness_N_per_mm specimen and frame in series, 1/(1/k_s + 1/k_f), N/mm; NaN in
  *     the dead-weight mode
@@ -35,6 +39,8 @@ public record SimTruth(
     LoadCell loadCell,
     double positionCountsPerMm,
     double gravity_m_per_s2,
+    double crossheadRate_mm_per_s,
+    double contactGap_mm,
     double frameStiffness_N_per_mm,
     SpecimenSummary specimen,
     double systemStiffness_N_per_mm,

@@ -15,6 +15,13 @@ import org.loadstone.units.Precondition;
  *   SimTruth truth = frame.truth();
  * </pre>
  *
+ * <p>Load counts: a fast converter (100…50 000 samples/s) reports the force at the instant the
+ * conversion finishes. An HX711-class converter (10 or 80 samples/s) integrates its input, so by
+ * default its counts are the mean of the noise-free output over the conversion period just ended
+ * (a first-order stand-in for its digital filter): a fracture lasting a few milliseconds shows as
+ * one or two lowered samples, as on a real slow converter. The per-sample truth ({@link
+ * SimSample#force_N()}, {@link #lastForce_N()}) is always the instantaneous force.
+ *
  * <p>Not thread-safe: one caller drives a frame. Producing a sample allocates nothing.
  */
 public final class SimulatedFrame {
@@ -33,6 +40,9 @@ public final class SimulatedFrame {
   private final boolean motorised;
   private final DeadWeightRig rig;
   private final SpecimenSummary specimen;
+  private final double driveRate_mm_per_s;
+  private final double contactGap_mm;
+  private final boolean averagingConverter;
   private double rateHz;
   private double halt_s = Double.POSITIVE_INFINITY;
 
@@ -50,15 +60,18 @@ public final class SimulatedFrame {
   private double deadWeightPeak_s = Double.NaN;
 
   SimulatedFrame(SimulatedFrameBuilder b, Presets.Setup setup, LoadCell cell, CrossheadDrive drive,
-      boolean motorised) {
+      boolean motorised, double driveRate_mm_per_s) {
+    this.driveRate_mm_per_s = driveRate_mm_per_s;
+    this.averagingConverter = b.averaging;
+    this.contactGap_mm = setup == null ? Double.NaN : setup.gap_mm();
     this.scenario = b.scenario;
     this.seed = b.seed;
     this.cell = cell;
     this.positionCountsPerMm = b.positionCountsPerMm;
     this.gravity_m_per_s2 = b.gravity_m_per_s2;
     this.rateHz = b.rateHz;
-    this.clock = new SampleClock(b.rateHz, b.jitter_us, b.firstSequence, b.clockStart_us,
-        SimRandom.stream(b.seed, SimRandom.TIMING));
+    this.clock = new SampleClock(b.rateHz, b.jitter_us, b.rateError_pct, b.firstSequence,
+        b.clockStart_us, SimRandom.stream(b.seed, SimRandom.TIMING));
     this.noise = SimRandom.stream(b.seed, SimRandom.NOISE);
     this.drive = drive;
     this.motorised = motorised;
@@ -89,18 +102,31 @@ public final class SimulatedFrame {
   private void produce() {
     double t = clock.next_s();
     double force;
+    double converted_counts;
     if (mechanics != null) {
       double t0 = mechanics.time_s();
       int n = Math.max(1, (int) Math.ceil((t - t0) / MAX_STEP_S - 1e-9));
+      boolean averaging = averagingConverter && (rateHz == 10 || rateHz == 80);
+      double previous = averaging ? cell.idealCounts(mechanics.force_N()) : 0;
+      double area = 0;
+      double tPrevious = t0;
       for (int i = 1; i <= n; i++) {
         double ti = i == n ? t : t0 + (t - t0) * i / n;
         mechanics.step(drive.position_mm(Math.min(ti, halt_s)), ti);
+        if (averaging) {
+          double c = cell.idealCounts(mechanics.force_N());
+          area += 0.5 * (previous + c) * (ti - tPrevious);
+          previous = c;
+          tPrevious = ti;
+        }
       }
       force = mechanics.force_N();
+      converted_counts = averaging ? area / (t - t0) : cell.idealCounts(force);
       lastCrosshead_mm = mechanics.crosshead_mm();
       lastDeflection_mm = mechanics.deflection_mm();
     } else {
       force = rig.force_N(t);
+      converted_counts = cell.idealCounts(force);
       lastCrosshead_mm = 0;
       lastDeflection_mm = 0;
       if (force > deadWeightPeak_N) {
@@ -108,7 +134,7 @@ public final class SimulatedFrame {
         deadWeightPeak_s = t;
       }
     }
-    long counts = Math.round(cell.idealCounts(force) + cell.noiseRms_counts() * noise.nextGaussian());
+    long counts = Math.round(converted_counts + cell.noiseRms_counts() * noise.nextGaussian());
     lastSaturated = counts > LoadCell.MAX_COUNTS || counts < LoadCell.MIN_COUNTS;
     if (lastSaturated) {
       saturatedCount++;
@@ -161,6 +187,40 @@ public final class SimulatedFrame {
           lastCrosshead_mm, lastDeflection_mm, lastForce_N, lastSaturated);
     }
     block.setSize(max);
+    return max;
+  }
+
+  /**
+   * Writes the next samples into caller-owned arrays (raw values only; truth through a {@link
+   * SampleBlock}).
+   *
+   * @param seq sequence numbers, not null
+   * @param deviceTime_us device times, µs, not null
+   * @param loadCounts load counts, not null
+   * @param positionCounts position counts, not null
+   * @param offset first index written, ≥ 0
+   * @param max how many samples, ≥ 0, fitting every array from {@code offset}
+   * @return the number written (= max)
+   */
+  public int fill(int[] seq, long[] deviceTime_us, int[] loadCounts, int[] positionCounts,
+      int offset, int max) {
+    Precondition.notNull(seq, "seq");
+    Precondition.notNull(deviceTime_us, "deviceTime_us");
+    Precondition.notNull(loadCounts, "loadCounts");
+    Precondition.notNull(positionCounts, "positionCounts");
+    int room = Math.min(Math.min(seq.length, deviceTime_us.length),
+        Math.min(loadCounts.length, positionCounts.length));
+    if (offset < 0 || max < 0 || offset > room - max) {
+      throw new IllegalArgumentException("'offset' " + offset + " and 'max' " + max
+          + " do not fit arrays of length " + room);
+    }
+    for (int i = offset; i < offset + max; i++) {
+      produce();
+      seq[i] = lastSeq;
+      deviceTime_us[i] = lastDeviceTime_us;
+      loadCounts[i] = lastLoad;
+      positionCounts[i] = lastPosition;
+    }
     return max;
   }
 
@@ -240,6 +300,23 @@ public final class SimulatedFrame {
     requireRig().setMass(rig.mass_kg() + mass_kg, lastTime_s);
   }
 
+  /**
+   * Takes a mass off the cell (dead-weight mode) at the time of the last sample.
+   *
+   * @param mass_kg mass removed, kg, &gt; 0, at most the mass on the cell
+   * @throws IllegalArgumentException when more is removed than is on the cell
+   * @throws IllegalStateException when the scenario is not {@link Scenario#DEAD_WEIGHT}
+   */
+  public void removeMass(double mass_kg) {
+    Precondition.positive(mass_kg, "mass_kg");
+    DeadWeightRig r = requireRig();
+    if (mass_kg > r.mass_kg() * (1 + 1e-12)) {
+      throw new IllegalArgumentException(
+          "cannot remove " + mass_kg + " kg: only " + r.mass_kg() + " kg is on the cell");
+    }
+    r.setMass(Math.max(0, r.mass_kg() - mass_kg), lastTime_s);
+  }
+
   /** Removes all masses (dead-weight mode). @throws IllegalStateException if not dead-weight */
   public void removeAll() {
     requireRig().setMass(0, lastTime_s);
@@ -268,13 +345,14 @@ public final class SimulatedFrame {
   public SimTruth truth() {
     if (mechanics == null) {
       return new SimTruth(scenario, seed, rateHz, cell, positionCountsPerMm, gravity_m_per_s2,
-          Double.NaN, null, Double.NaN, deadWeightPeak_N, deadWeightPeak_s, Double.NaN, Double.NaN,
+          driveRate_mm_per_s, contactGap_mm, Double.NaN, null, Double.NaN, deadWeightPeak_N, deadWeightPeak_s, Double.NaN, Double.NaN,
           Double.NaN, Double.NaN, Double.NaN, Double.NaN, clock.count(), saturatedCount,
           rig.mass_kg());
     }
     double kf = mechanics.frameStiffness_N_per_mm();
     double ks = specimen.stiffness_N_per_mm();
-    return new SimTruth(scenario, seed, rateHz, cell, positionCountsPerMm, gravity_m_per_s2, kf,
+    return new SimTruth(scenario, seed, rateHz, cell, positionCountsPerMm, gravity_m_per_s2,
+        driveRate_mm_per_s, contactGap_mm, kf,
         specimen, 1 / (1 / ks + 1 / kf), mechanics.peak_N(), mechanics.peak_s(),
         mechanics.break_s(), mechanics.breakForce_N(), mechanics.energyToPeak_J(),
         mechanics.energyToBreak_J(), mechanics.crossheadEnergyToPeak_J(),

@@ -23,8 +23,10 @@ public final class SimulatedFrameBuilder {
   int firstSequence;
   long clockStart_us;
   double jitter_us;
+  double rateError_pct;
   double gravity_m_per_s2 = 9.80665;
   double settling_s = 0.2;
+  boolean averaging = true;
 
   SimulatedFrameBuilder() {}
 
@@ -113,9 +115,21 @@ public final class SimulatedFrameBuilder {
     return this;
   }
 
-  /** @param us standard deviation of conversion-time jitter, µs, ≥ 0 (default 0 = none) */
+  /**
+   * @param us standard deviation of conversion-time jitter, µs, 0…10 000 (default 0 = none; an
+   *     HX711 polled by a microcontroller shows some tens of µs, illustrative)
+   */
   public SimulatedFrameBuilder conversionJitter_us(double us) {
     this.jitter_us = us;
+    return this;
+  }
+
+  /**
+   * @param pct how much faster (+) or slower (−) than nominal the converter runs, %, −10…10
+   *     (default 0; a converter on its internal oscillator is off by a few %, illustrative)
+   */
+  public SimulatedFrameBuilder conversionRateError_pct(double pct) {
+    this.rateError_pct = pct;
     return this;
   }
 
@@ -128,6 +142,16 @@ public final class SimulatedFrameBuilder {
   /** @param s settling time constant after a dead-weight change, s, &gt; 0 (default 0.2) */
   public SimulatedFrameBuilder deadWeightSettling_s(double s) {
     this.settling_s = s;
+    return this;
+  }
+
+  /**
+   * @param on whether an HX711-class converter (10 or 80 /s) reports the mean over its conversion
+   *     period (default true) or the force at the end of it; fast converters always sample the
+   *     instant
+   */
+  public SimulatedFrameBuilder converterAveraging(boolean on) {
+    this.averaging = on;
     return this;
   }
 
@@ -168,8 +192,10 @@ public final class SimulatedFrameBuilder {
         "0…65535");
     check(clockStart_us >= 0 && clockStart_us <= 0xFFFF_FFFFL, "device clock start",
         clockStart_us, "0…4294967295 µs");
-    check(Double.isFinite(jitter_us) && jitter_us >= 0, "conversion jitter", jitter_us,
-        "a value >= 0 µs");
+    check(Double.isFinite(jitter_us) && jitter_us >= 0 && jitter_us <= 10_000, "conversion jitter",
+        jitter_us, "0…10000 µs");
+    check(Double.isFinite(rateError_pct) && Math.abs(rateError_pct) <= 10, "conversion rate error",
+        rateError_pct, "-10…10 %");
     check(gravity_m_per_s2 >= 9.7 && gravity_m_per_s2 <= 9.9, "gravity", gravity_m_per_s2,
         "9.7…9.9 m/s²");
     check(Double.isFinite(settling_s) && settling_s > 0, "dead-weight settling", settling_s,
@@ -192,6 +218,7 @@ public final class SimulatedFrameBuilder {
     }
     CrossheadDrive drive = null;
     boolean motorised = false;
+    double driveRate = Double.NaN;
     if (setup != null) {
       if (hand) {
         drive = new CrossheadDrive.HandPump(handStroke_mm, SimRandom.stream(seed, SimRandom.DRIVE));
@@ -200,8 +227,9 @@ public final class SimulatedFrameBuilder {
             ? setup.crossheadRate_mm_per_s() : crossheadRate_mm_per_s;
         drive = new CrossheadDrive.ConstantRate(v);
         motorised = true;
+        driveRate = v;
       }
     }
-    return new SimulatedFrame(this, setup, cell, drive, motorised);
+    return new SimulatedFrame(this, setup, cell, drive, motorised, driveRate);
   }
 }

@@ -7,9 +7,11 @@ import org.loadstone.units.LoadstoneException;
  *
  * @param kind short description, e.g. "sandwich panel, FOAM core"
  * @param stiffness_N_per_mm elastic stiffness of the specimen alone, after the toe region, &gt; 0
- * @param failureLoad_N designed failure load, N; infinite if it never fails
+ * @param failureLoad_N designed failure load, N; infinite if the specimen fails by deflection
+ *     (the ductile one ruptures at a set deflection) or never fails
+ * @param mass_kg specimen mass, kg, ≥ 0: from geometry and density for beams and panels, an
+ *     illustrative fixed value for the others
  * @param toe_mm length of the toe region, mm, ≥ 0
- * @param mass_kg specimen mass, kg, ≥ 0
  * @param beam the beam, or null when the specimen is not a solid beam
  * @param panel the panel, or null when the specimen is not a sandwich panel
  */
