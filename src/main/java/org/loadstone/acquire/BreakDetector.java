@@ -4,7 +4,8 @@ import org.loadstone.units.Precondition;
 
 /**
  * Declares the break from the force signal alone: once the running peak has exceeded the arming
- * level, a break is force at or below {@code (1 − drop) × peak} (or below the absolute stop level)
+ * level, a break is force at or below {@code (1 − drop) × peak} (or back below the absolute stop
+ * level after having risen above it)
  * held for at least the debounce time. The break sample is the first sample of that held drop, so a
  * brittle fracture is placed at the first sample that meets the criterion. Pure; one thread.
  */
@@ -63,7 +64,8 @@ public final class BreakDetector {
     }
     boolean armed = peak_N >= arming_N;
     boolean dropped = armed
-        && (force_N <= (1 - dropFraction) * peak_N || (absolute_N > 0 && force_N < absolute_N));
+        && (force_N <= (1 - dropFraction) * peak_N
+            || (absolute_N > 0 && peak_N > absolute_N && force_N < absolute_N));
     if (!dropped) {
       candidateIndex = -1;
       return null;

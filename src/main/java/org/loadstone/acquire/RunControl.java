@@ -1,0 +1,221 @@
+package org.loadstone.acquire;
+
+import org.loadstone.archive.FinishCause;
+import org.loadstone.units.Precondition;
+
+/**
+ * The run state machine: idle → armed → recording → finished. Pure and single-threaded: the
+ * caller feeds every sample (ring index, time, force) in order and acts on the returned events.
+ * Auto start at the start threshold keeps a pre-trigger history; the break detector declares the
+ * break and a post-break tail is recorded; overload stops at once; a time limit, a manual stop and
+ * loss of the device finish the run with their own cause.
+ */
+public final class RunControl {
+  /** The states. */
+  public enum State { IDLE, ARMED, RECORDING, TAIL, FINISHED }
+
+  /** What happened on a sample. */
+  public sealed interface Event
+      permits Started, OverloadWarning, BreakDeclared, Finished {}
+
+  /**
+   * Recording started.
+   *
+   * @param firstIndex first sample of the run (pre-trigger included)
+   * @param triggerIndex the sample that crossed the threshold (or the manual start)
+   * @param triggerTime_s its time
+   * @param manual whether the operator started it
+   */
+  public record Started(long firstIndex, long triggerIndex, double triggerTime_s, boolean manual)
+      implements Event {}
+
+  /** Force passed the overload warning level (once per run). */
+  public record OverloadWarning(long index, double force_N, double warn_N) implements Event {}
+
+  /** The break was declared. */
+  public record BreakDeclared(BreakDetector.Break detail) implements Event {}
+
+  /**
+   * The run ended.
+   *
+   * @param cause why
+   * @param lastIndex last sample of the run (inclusive)
+   */
+  public record Finished(FinishCause cause, long lastIndex) implements Event {}
+
+  private final RunSettings settings;
+  private final long pretriggerSamples;
+  private State state = State.IDLE;
+  private BreakDetector detector;
+  private long firstIndex = -1;
+  private long lastSeen = -1;
+  private double startTime_s;
+  private double tailUntil_s;
+  private boolean warned;
+  private boolean manualStartPending;
+  private FinishCause pendingStop;
+  private Finished finished;
+  private double peak_N = Double.NEGATIVE_INFINITY;
+
+  /**
+   * @param settings thresholds and limits
+   * @param sampleRate_Hz nominal rate, to size the pre-trigger history in samples
+   */
+  public RunControl(RunSettings settings, double sampleRate_Hz) {
+    this.settings = Precondition.notNull(settings, "settings");
+    Precondition.positive(sampleRate_Hz, "sampleRate_Hz");
+    this.pretriggerSamples = Math.round(settings.pretrigger_s() * sampleRate_Hz);
+  }
+
+  /** @return the current state */
+  public State state() {
+    return state;
+  }
+
+  /** @return the settings */
+  public RunSettings settings() {
+    return settings;
+  }
+
+  /** @return highest force since recording started, or −∞ */
+  public double peak_N() {
+    return peak_N;
+  }
+
+  /** @return the first sample index of the run, or −1 before it starts */
+  public long firstIndex() {
+    return firstIndex;
+  }
+
+  /** @return the finish, once finished */
+  public Finished finished() {
+    return finished;
+  }
+
+  /** @return the declared break, or null */
+  public BreakDetector.Break breakDetail() {
+    return detector == null ? null : detector.result();
+  }
+
+  /** Waits for the start threshold. Allowed from idle only. */
+  public void arm() {
+    if (state != State.IDLE) {
+      throw new IllegalStateException("arm() in state " + state);
+    }
+    state = State.ARMED;
+  }
+
+  /** Starts recording at the next sample, whatever the force. */
+  public void startNow() {
+    if (state == State.IDLE || state == State.ARMED) {
+      manualStartPending = true;
+    }
+  }
+
+  /** Stops at the next sample with cause {@code manual} (or ends the wait when not recording). */
+  public void stopNow() {
+    requestStop(FinishCause.MANUAL);
+  }
+
+  /**
+   * The device is gone: the run finishes with cause {@code device-lost} at the last sample seen.
+   *
+   * @return the finish event when a run was recording, else null
+   */
+  public Finished deviceLost() {
+    if (state == State.RECORDING || state == State.TAIL) {
+      return finish(FinishCause.DEVICE_LOST, lastSeen);
+    }
+    state = State.FINISHED;
+    return null;
+  }
+
+  private void requestStop(FinishCause c) {
+    if (state == State.RECORDING || state == State.TAIL) {
+      pendingStop = c;
+    } else if (state != State.FINISHED) {
+      state = State.FINISHED;
+    }
+  }
+
+  /**
+   * Takes one sample.
+   *
+   * @param index ring index, increasing by one per sample
+   * @param oldestHeld oldest index still available (limits the pre-trigger history)
+   * @param time_s time of the sample
+   * @param force_N force of the sample
+   * @param sink receives the events this sample causes, in order
+   */
+  public void offer(long index, long oldestHeld, double time_s, double force_N,
+      java.util.function.Consumer<Event> sink) {
+    lastSeen = index;
+    switch (state) {
+      case IDLE, FINISHED -> {
+        if (manualStartPending) {
+          start(index, oldestHeld, time_s, true, sink);
+          recording(index, time_s, force_N, sink);
+        }
+      }
+      case ARMED -> {
+        if (manualStartPending || force_N >= settings.startThreshold_N()) {
+          start(index, oldestHeld, time_s, manualStartPending, sink);
+          recording(index, time_s, force_N, sink);
+        }
+      }
+      case RECORDING, TAIL -> recording(index, time_s, force_N, sink);
+      default -> throw new IllegalStateException(state.toString());
+    }
+  }
+
+  private void start(long index, long oldestHeld, double time_s, boolean manual,
+      java.util.function.Consumer<Event> sink) {
+    manualStartPending = false;
+    firstIndex = Math.max(oldestHeld, index - pretriggerSamples);
+    startTime_s = time_s;
+    detector = new BreakDetector(settings);
+    state = State.RECORDING;
+    sink.accept(new Started(firstIndex, index, time_s, manual));
+  }
+
+  private void recording(long index, double time_s, double force_N,
+      java.util.function.Consumer<Event> sink) {
+    if (force_N > peak_N) {
+      peak_N = force_N;
+    }
+    if (pendingStop != null) {
+      sink.accept(finish(pendingStop, index));
+      return;
+    }
+    if (force_N >= settings.overloadStop_N()) {
+      sink.accept(finish(FinishCause.OVERLOAD, index));
+      return;
+    }
+    if (!warned && force_N >= settings.overloadWarn_N()) {
+      warned = true;
+      sink.accept(new OverloadWarning(index, force_N, settings.overloadWarn_N()));
+    }
+    if (state == State.RECORDING) {
+      BreakDetector.Break b = detector.offer(index, time_s, force_N);
+      if (b != null) {
+        state = State.TAIL;
+        tailUntil_s = time_s + settings.postBreak_s();
+        sink.accept(new BreakDeclared(b));
+      }
+    }
+    if (state == State.TAIL && time_s >= tailUntil_s) {
+      sink.accept(finish(FinishCause.BREAK, index));
+      return;
+    }
+    if (settings.maxSeconds() > 0 && time_s - startTime_s >= settings.maxSeconds()) {
+      sink.accept(finish(FinishCause.TIME_LIMIT, index));
+    }
+  }
+
+  private Finished finish(FinishCause cause, long lastIndex) {
+    state = State.FINISHED;
+    pendingStop = null;
+    finished = new Finished(cause, lastIndex);
+    return finished;
+  }
+}
