@@ -25,6 +25,7 @@ public final class LiveFeed {
   private double time_s;
   private long firstTimeUs = -1;
   private long lastCounts;
+  private boolean zeroKnown;
 
   /**
    * @param reader the device reader feeding the ring
@@ -92,7 +93,11 @@ public final class LiveFeed {
           zeroCounts = tareSum / tareTotal;
           peak_N = Double.NEGATIVE_INFINITY;
         }
+        if (!zeroKnown) {
+          return; // nothing meaningful to show before the first zero
+        }
       }
+      zeroKnown = true;
       time_s = (tUs - firstTimeUs) / 1e6;
       force_N = sc.force_N(counts - zeroCounts);
       if (force_N > peak_N) {

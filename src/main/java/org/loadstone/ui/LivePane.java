@@ -120,6 +120,7 @@ final class LivePane {
     HBox.setHgrow(text, Priority.ALWAYS);
     Button ok = new Button("I understand");
     ok.setId("safety-ack");
+    ok.setMinWidth(javafx.scene.layout.Region.USE_PREF_SIZE);
     HBox banner = new HBox(14, text, ok);
     banner.setId("safety-banner");
     banner.getStyleClass().add("safety-banner");
