@@ -62,6 +62,33 @@ public final class SampleRing {
     head = h + 1;
   }
 
+  /** @return index of the oldest sample still held */
+  public long oldestIndex() {
+    return Math.max(0, head - capacity);
+  }
+
+  /**
+   * @param index the first sample to read; clamped to the oldest sample still held
+   * @return a reader that starts at {@code index}
+   */
+  public Cursor cursorAt(long index) {
+    return new Cursor(Math.max(oldestIndex(), Math.min(index, head)));
+  }
+
+  /**
+   * @param index a sample index still held
+   * @return its unwrapped device time in µs
+   * @throws IllegalArgumentException when the sample is no longer (or not yet) held
+   */
+  public long timeUsAt(long index) {
+    long h = head;
+    if (index < Math.max(0, h - capacity) || index >= h) {
+      throw new IllegalArgumentException("sample " + index + " is not held (held: "
+          + Math.max(0, h - capacity) + "…" + (h - 1) + ")");
+    }
+    return timeUs[(int) (index & mask)];
+  }
+
   /** @return a reader that starts at the next sample written */
   public Cursor cursorAtEnd() {
     return new Cursor(head);

@@ -1,0 +1,314 @@
+package org.loadstone.acquire;
+
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.TimeUnit;
+import org.loadstone.archive.FinishCause;
+import org.loadstone.archive.RunMetadata;
+import org.loadstone.protocol.DecoderCounters;
+import org.loadstone.protocol.HostCommand;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
+
+/**
+ * Records one hands-free run: reads the sample ring on its own thread, converts counts to force,
+ * drives {@link RunControl}, starts the {@link RunStore} at the start (with the pre-trigger history)
+ * and finishes it at the break, overload, time limit, manual stop or loss of the device. Sends
+ * {@code HALT} to a motorised frame at every stop. The device reader thread is never blocked.
+ */
+public final class Recorder implements AutoCloseable {
+  /** Told about the run's progress, on the recorder's thread; must return quickly. */
+  public interface Listener {
+    default void onStarted(RunControl.Started e) {}
+
+    default void onWarning(String text) {}
+
+    default void onBreak(BreakDetector.Break b) {}
+
+    default void onFinished(Result r) {}
+
+    default void onFailed(String why) {}
+  }
+
+  /**
+   * The outcome of a run.
+   *
+   * @param stored where it went
+   * @param cause why it ended
+   * @param peak_N highest force recorded
+   * @param samples samples in the run
+   * @param dropped samples missing from the device sequence during the run
+   * @param checksumErrors checksum errors during the run
+   * @param breakDetail the break, or null
+   */
+  public record Result(RunStore.Stored stored, FinishCause cause, double peak_N, long samples,
+      long dropped, long checksumErrors, BreakDetector.Break breakDetail) {}
+
+  /** What a status line shows. */
+  public record Status(RunControl.State state, double force_N, double peak_N, double rateHz,
+      long samples) {}
+
+  private final DeviceReader reader;
+  private final ForceScale scale;
+  private final double zero_counts;
+  private final RunControl control;
+  private final RunMetadata template;
+  private final RunStore store;
+  private final Listener listener;
+  private final Thread thread;
+  private final CountDownLatch done = new CountDownLatch(1);
+  private final List<String> warnings = new ArrayList<>();
+  private volatile boolean stopRequested;
+  private volatile boolean closing;
+  private volatile double lastForce_N = Double.NaN;
+  private volatile Result result;
+  private volatile String failure;
+  private RunStore.Recording recording;
+  private RunControl.Started started;
+  private DecoderCounters atStart;
+  private double firstTimeUs = Double.NaN;
+  private double runStartTime_s;
+  private Instant startedAt;
+
+  /**
+   * @param reader the running device reader
+   * @param scale counts above zero → force
+   * @param zero_counts tare
+   * @param settings start/stop rules
+   * @param template run metadata known before the start (specimen, group, device, calibration…)
+   * @param store where the run goes
+   * @param listener progress
+   */
+  public Recorder(DeviceReader reader, ForceScale scale, double zero_counts, RunSettings settings,
+      RunMetadata template, RunStore store, Listener listener) {
+    this.reader = Precondition.notNull(reader, "reader");
+    this.scale = Precondition.notNull(scale, "scale");
+    this.zero_counts = zero_counts;
+    this.template = Precondition.notNull(template, "template");
+    this.store = Precondition.notNull(store, "store");
+    this.listener = listener == null ? new Listener() {} : listener;
+    double rate = template.sampleRate_Hz() > 0 ? template.sampleRate_Hz() : 80;
+    this.control = new RunControl(settings, rate);
+    this.warnings.addAll(template.warnings());
+    this.thread = new Thread(this::loop, "loadstone-run-control");
+    this.thread.setDaemon(true);
+  }
+
+  /**
+   * Averages the next {@code samples} samples from the ring as the zero (tare), waiting for them.
+   *
+   * @return mean counts
+   * @throws LoadstoneException when the samples do not come in time (device silent or lost)
+   */
+  public static double tare(DeviceReader reader, int samples, long timeoutMs) {
+    SampleRing.Cursor c = reader.ring().cursorAtEnd();
+    double[] sum = {0};
+    int[] n = {0};
+    long until = System.nanoTime() + timeoutMs * 1_000_000;
+    while (n[0] < samples) {
+      c.drain((i, s, d, t, counts, hp, p) -> {
+        if (n[0] < samples) {
+          sum[0] += counts;
+          n[0]++;
+        }
+      }, samples - n[0]);
+      if (n[0] < samples) {
+        if (System.nanoTime() > until || reader.lostReason().isPresent()) {
+          throw new LoadstoneException("zeroing failed: only " + n[0] + " of " + samples
+              + " samples arrived from " + reader.transport().name() + " in "
+              + timeoutMs / 1000.0 + " s"
+              + reader.lostReason().map(w -> " (" + w + ")").orElse(
+                  "; check that the device is streaming ('loadstone monitor')"));
+        }
+        sleep(5);
+      }
+    }
+    return sum[0] / samples;
+  }
+
+  /** Arms (waits for the start threshold) and starts the recorder's thread. */
+  public void arm() {
+    control.arm();
+    thread.start();
+  }
+
+  /** Starts recording now, whatever the force (manual start), and starts the thread. */
+  public void startNow() {
+    control.startNow();
+    if (thread.getState() == Thread.State.NEW) {
+      thread.start();
+    }
+  }
+
+  /** Ends the run with cause {@code manual} (or stops waiting for the start). */
+  public void stop() {
+    stopRequested = true;
+  }
+
+  /** @return what a status line shows now */
+  public Status status() {
+    return new Status(control.state(), lastForce_N,
+        control.peak_N() == Double.NEGATIVE_INFINITY ? Double.NaN : control.peak_N(),
+        reader.measuredRateHz(), reader.samplesAccepted());
+  }
+
+  /**
+   * Waits for the run to end.
+   *
+   * @return the result, or empty when the wait ended before a run (stopped while armed) or failed
+   */
+  public java.util.Optional<Result> await(long timeout, TimeUnit unit) throws InterruptedException {
+    done.await(timeout, unit);
+    return java.util.Optional.ofNullable(result);
+  }
+
+  /** @return why the run could not be written, if it could not */
+  public java.util.Optional<String> failure() {
+    return java.util.Optional.ofNullable(failure);
+  }
+
+  /** @return warnings given so far */
+  public synchronized List<String> warnings() {
+    return List.copyOf(warnings);
+  }
+
+  private void loop() {
+    SampleRing ring = reader.ring();
+    SampleRing.Cursor cursor = ring.cursorAtEnd();
+    try {
+      while (control.state() != RunControl.State.FINISHED && !closing) {
+        if (stopRequested) {
+          control.stopNow();
+        }
+        int n = cursor.drain((i, seq, dev, tUs, counts, hp, pos) -> {
+          if (control.state() == RunControl.State.FINISHED) {
+            return;
+          }
+          if (Double.isNaN(firstTimeUs)) {
+            firstTimeUs = tUs;
+          }
+          double f = scale.force_N(counts - zero_counts);
+          lastForce_N = f;
+          control.offer(i, ring.oldestIndex(), tUs / 1e6, f, this::onEvent);
+        }, 4096);
+        if (n == 0) {
+          if (reader.lostReason().isPresent() && cursor.available() == 0) {
+            RunControl.Finished f = control.deviceLost();
+            if (f != null) {
+              onEvent(f);
+            }
+            break;
+          }
+          if (stopRequested && control.state() != RunControl.State.RECORDING
+              && control.state() != RunControl.State.TAIL) {
+            break;
+          }
+          if (stopRequested) {
+            // no samples are coming (device silent): finish at the last sample seen
+            RunControl.Finished f = control.deviceLost();
+            if (f != null) {
+              onEvent(new RunControl.Finished(FinishCause.MANUAL, f.lastIndex()));
+            }
+            break;
+          }
+          sleep(2);
+        }
+      }
+    } catch (LoadstoneException e) {
+      failure = e.getMessage();
+      listener.onFailed(e.getMessage());
+    } catch (RuntimeException e) {
+      failure = "recording failed: " + e;
+      listener.onFailed(failure);
+    } finally {
+      done.countDown();
+    }
+  }
+
+  private void onEvent(RunControl.Event e) {
+    if (e instanceof RunControl.Started s) {
+      started = s;
+      atStart = reader.counters();
+      runStartTime_s = reader.ring().timeUsAt(s.firstIndex()) / 1e6;
+      startedAt = Instant.now().minusNanos((long) ((s.triggerTime_s() - runStartTime_s) * 1e9));
+      RunMetadata meta = copy(template, FinishCause.MANUAL, null, null, null, null, 0, 0, s);
+      recording = store.begin(meta, reader.ring(), s.firstIndex());
+      listener.onStarted(s);
+    } else if (e instanceof RunControl.OverloadWarning w) {
+      String text = String.format(java.util.Locale.ROOT,
+          "overload warning: %.1f N is past %.0f %% of the cell's rated capacity (%.0f N)",
+          w.force_N(), control.settings().overloadWarnPct(), control.settings().ratedCapacity_N());
+      synchronized (this) {
+        warnings.add(text);
+      }
+      listener.onWarning(text);
+    } else if (e instanceof RunControl.BreakDeclared b) {
+      listener.onBreak(b.detail());
+    } else if (e instanceof RunControl.Finished f) {
+      finish(f);
+    }
+  }
+
+  private void finish(RunControl.Finished f) {
+    if (reader.identity().map(id -> id.motorised()).orElse(false)
+        && reader.lostReason().isEmpty()) {
+      reader.send(HostCommand.halt());
+    }
+    if (recording == null) {
+      return;
+    }
+    DecoderCounters now = reader.counters();
+    long dropped = now.dropped() - atStart.dropped();
+    long crc = now.checksumErrors() - atStart.checksumErrors();
+    BreakDetector.Break b = control.breakDetail();
+    Integer breakIndex = b == null ? null : (int) (b.index() - started.firstIndex());
+    Double breakTime = null;
+    if (b != null) {
+      breakTime = b.time_s();
+    }
+    RunMetadata meta = copy(template, f.cause(), breakIndex, breakTime,
+        b == null ? null : b.peakBefore_N(), b == null ? null : b.dropPct(), dropped, crc, started);
+    RunStore.Stored stored = recording.finish(f.lastIndex(), meta);
+    result = new Result(stored, f.cause(), control.peak_N(), stored.samples(), dropped, crc, b);
+    listener.onFinished(result);
+  }
+
+  private RunMetadata copy(RunMetadata t, FinishCause cause, Integer breakIndex,
+      Double breakTime_s, Double peakBefore, Double dropPct, long dropped, long crc,
+      RunControl.Started s) {
+    List<String> w;
+    synchronized (this) {
+      w = List.copyOf(warnings);
+    }
+    Double breakRelative = breakTime_s == null ? null : breakTime_s - runStartTime_s;
+    return new RunMetadata(t.runId(), startedAt != null ? startedAt : t.startedAt(),
+        t.specimen(), t.group(), t.tags(), t.operator(), t.notes(), t.mass_g(), t.geometry(),
+        t.testType(), t.device(), reader.measuredRateHz() > 0 ? reader.measuredRateHz()
+            : t.sampleRate_Hz(), t.calibrationId(), t.calibrationSha256(), t.scale(),
+        t.scaleSpec(), zero_counts, dropped, crc, cause, breakIndex, breakRelative, peakBefore,
+        dropPct, control.settings().pretrigger_s(),
+        s != null && s.manual() ? null : control.settings().startThreshold_N(), t.checkWeight(),
+        w, t.softwareVersion(), t.extra());
+  }
+
+  private static void sleep(long ms) {
+    try {
+      Thread.sleep(ms);
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+    }
+  }
+
+  /** Stops the recorder's thread (the run, if any, is left to the journal's recovery). */
+  @Override
+  public void close() {
+    closing = true;
+    try {
+      thread.join(5000);
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+    }
+  }
+}

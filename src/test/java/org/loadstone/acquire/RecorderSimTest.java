@@ -1,0 +1,136 @@
+package org.loadstone.acquire;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.time.Instant;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.Timeout;
+import org.loadstone.archive.FinishCause;
+import org.loadstone.archive.RunMetadata;
+import org.loadstone.archive.ScaleSpec;
+import org.loadstone.device.SimSetup;
+import org.loadstone.device.SimTransport;
+import org.loadstone.device.sim.SimTruth;
+import org.loadstone.device.sim.SimulatedFrame;
+
+/** Hands-free runs end to end on the simulated frame: bytes, decoder, ring, run control. */
+class RecorderSimTest {
+
+  static RunMetadata template(String specimen, double rate) {
+    return new RunMetadata("test-" + specimen, Instant.now(), specimen, "g", List.of(), "", "",
+        null, null, null, Map.of(), rate, null, null, "nominal", ScaleSpec.nominal(1), 0, 0, 0,
+        FinishCause.MANUAL, null, null, null, null, 1.0, null, null, List.of(), "test", Map.of());
+  }
+
+  @Test
+  @Timeout(60)
+  void brittleRunStopsAtTheBreakWithTheTruePeakAndKeepsThePretrigger() throws Exception {
+    int rate = 1000;
+    SimSetup setup = new SimSetup("brittle", 5, rate, false, 8);
+    SimulatedFrame truthFrame = setup.buildFrame();
+    SimTransport t = setup.openTransport();
+    DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 20));
+    reader.start();
+    double countsPerN = setup.nominalCountsPerN();
+    double zero = Recorder.tare(reader, 200, 5000);
+    // the simulated specimen is touched about 0.9 s after the stream starts: 0.3 s of history fits
+    RunSettings s = RunSettings.builder().startThreshold_N(5).pretrigger_s(0.3)
+        .ratedCapacity_N(500).build();
+    MemoryRunStore store = new MemoryRunStore();
+    Recorder rec = new Recorder(reader, ForceScale.linear(countsPerN, "nominal"), zero, s,
+        template("b1", rate), store, null);
+    rec.arm();
+    Recorder.Result r = rec.await(50, TimeUnit.SECONDS).orElseThrow();
+    reader.close();
+
+    assertThat(r.cause()).isEqualTo(FinishCause.BREAK);
+    assertThat(r.dropped()).isZero();
+    // ground truth: run the same model to the end and read its peak
+    for (int i = 0; i < 200_000 && !truthFrame.truth().broken(); i++) {
+      truthFrame.next((a, b, c, d) -> { });
+    }
+    for (int i = 0; i < 2000; i++) {
+      truthFrame.next((a, b, c, d) -> { });
+    }
+    SimTruth truth = truthFrame.truth();
+    double noiseStep_N = truth.loadCell().noiseRms_counts() / countsPerN;
+    double zeroError_N = Math.abs(zero - truth.loadCell().zeroOffset_counts()) / countsPerN;
+    // the recorded peak is the true peak within one noise step (plus the tare's own error, which
+    // is the mean of 200 samples: noise/sqrt(200)), and the cell's non-linearity at that load
+    double nonLin_N = truth.loadCell().nonLinearity_pctFS() / 100 * truth.loadCell().capacity_N();
+    assertThat(Math.abs(r.peak_N() - truth.peakForce_N()))
+        .isLessThanOrEqualTo(noiseStep_N + zeroError_N + nonLin_N + 1e-9);
+    // pre-trigger history: exactly 0.3 s (300 samples) before the first sample at 5 N or more
+    RunMetadata m = store.finalMeta;
+    assertThat(m.cause()).isEqualTo(FinishCause.BREAK);
+    assertThat(m.breakIndex()).isNotNull();
+    double firstT = store.samples.get(0)[2] / 1e6;
+    double breakT = store.samples.get(m.breakIndex())[2] / 1e6;
+    int trigger = -1;
+    for (int i = 0; i < store.samples.size() && trigger < 0; i++) {
+      if ((store.samples.get(i)[3] - zero) / countsPerN >= 5.0) {
+        trigger = i;
+      }
+    }
+    assertThat(trigger).isEqualTo(300);
+    assertThat(m.pretrigger_s()).isEqualTo(0.3);
+    // the tail: 0.5 s after the break
+    double lastT = store.samples.get(store.samples.size() - 1)[2] / 1e6;
+    assertThat(lastT - breakT).isBetween(0.5, 0.52);
+  }
+
+  @Test
+  @Timeout(60)
+  void overRangeSpecimenStopsForOverload() throws Exception {
+    SimSetup setup = new SimSetup("over-range", 2, 1000, false, 8);
+    DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
+    reader.start();
+    double k = setup.nominalCountsPerN();
+    double zero = Recorder.tare(reader, 100, 5000);
+    double capacity = setup.buildFrame().truth().loadCell().capacity_N();
+    RunSettings s = RunSettings.builder().ratedCapacity_N(capacity).build();
+    MemoryRunStore store = new MemoryRunStore();
+    List<String> warnings = new java.util.concurrent.CopyOnWriteArrayList<>();
+    Recorder rec = new Recorder(reader, ForceScale.linear(k, "nominal"), zero, s,
+        template("o1", 1000), store, new Recorder.Listener() {
+          @Override
+          public void onWarning(String text) {
+            warnings.add(text);
+          }
+        });
+    rec.arm();
+    Recorder.Result r = rec.await(50, TimeUnit.SECONDS).orElseThrow();
+    reader.close();
+    assertThat(r.cause()).isEqualTo(FinishCause.OVERLOAD);
+    assertThat(warnings).anySatisfy(w -> assertThat(w).contains("overload warning"));
+    assertThat(r.peak_N()).isGreaterThanOrEqualTo(capacity);
+    assertThat(store.finalMeta.warnings()).anySatisfy(w -> assertThat(w).contains("80 %"));
+  }
+
+  @Test
+  @Timeout(60)
+  void cablePulledFinishesAsDeviceLostWithTheData() throws Exception {
+    SimSetup setup = new SimSetup("ductile", 3, 1000, false, 4);
+    SimTransport t = setup.openTransport();
+    DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 20));
+    reader.start();
+    double zero = Recorder.tare(reader, 100, 5000);
+    MemoryRunStore store = new MemoryRunStore();
+    Recorder rec = new Recorder(reader, ForceScale.linear(setup.nominalCountsPerN(), "n"), zero,
+        RunSettings.DEFAULTS, template("d1", 1000), store, null);
+    rec.startNow();
+    while (reader.samplesAccepted() < 3000) {
+      Thread.sleep(5);
+    }
+    t.pullCable();
+    Recorder.Result r = rec.await(20, TimeUnit.SECONDS).orElseThrow();
+    assertThat(r.cause()).isEqualTo(FinishCause.DEVICE_LOST);
+    assertThat(r.samples()).isGreaterThanOrEqualTo(2900);
+    assertThat(store.samples.get(store.samples.size() - 1)[0] + 1)
+        .isEqualTo(reader.samplesAccepted());
+    reader.close();
+  }
+}
