@@ -1,0 +1,208 @@
+package org.loadstone.acquire;
+
+import java.io.IOException;
+import java.nio.ByteBuffer;
+import java.nio.channels.FileChannel;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.locks.LockSupport;
+import org.loadstone.archive.JournalFormat;
+import org.loadstone.archive.RunMetadata;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
+
+/**
+ * Writes a run's raw samples to its journal ({@link JournalFormat}) as they arrive, on its own
+ * thread, reading the {@link SampleRing} through its own cursor, so the device reader never
+ * waits on the disk. If the disk is slower than the device for longer than the ring holds, the
+ * journal misses samples (counted in {@link #samplesLost()}); the reader is never slowed.
+ *
+ * <p>Durability: the thread polls the cursor every {@value #POLL_MS} ms, appends what is
+ * waiting, and calls {@link FileChannel#force(boolean) force(false)} (fdatasync, which also
+ * makes the new file length durable) whenever unforced records exist and at least {@value
+ * #FORCE_INTERVAL_MS} ms have passed since the previous force began. A sample is therefore on
+ * the disk about {@value #FORCE_INTERVAL_MS} ms + one poll + one force after it reached the
+ * ring, inside the 100 ms the design allows on an ordinary disk.
+ *
+ * <p>Use: {@link #start}, then at the end of the run {@link #finish()}, store the run, then
+ * {@link #discard()}. If the program ends first, the journal stays for {@code
+ * JournalRecovery}.
+ */
+public final class JournalWriter implements AutoCloseable {
+  /** Longest time between forces while samples arrive, ms. */
+  public static final long FORCE_INTERVAL_MS = 50;
+  /** Poll period when the ring has nothing new, ms. */
+  public static final long POLL_MS = 2;
+  private static final int BATCH = 4096;
+
+  private final Path file;
+  private final FileChannel channel;
+  private final SampleRing.Cursor cursor;
+  private final Thread thread;
+  private final ByteBuffer buf = ByteBuffer.allocate(BATCH * JournalFormat.RECORD_BYTES);
+  private volatile boolean stopRequested;
+  private volatile boolean finished;
+  private volatile long written;
+  private volatile long durable;
+  private volatile long lost;
+  private volatile IOException failure;
+
+  private JournalWriter(Path file, FileChannel channel, SampleRing.Cursor cursor) {
+    this.file = file;
+    this.channel = channel;
+    this.cursor = cursor;
+    this.thread = new Thread(this::loop, "loadstone-journal-" + file.getFileName());
+    this.thread.setDaemon(true);
+  }
+
+  /**
+   * Creates {@code <archive>/.journal/<run-id>.journal}, writes and forces its header, and starts
+   * the writer thread.
+   *
+   * @param archiveDir the archive folder (created if missing)
+   * @param startInfo the run as known at its start; cause and break fields are ignored
+   * @param cursor where the run's samples begin (e.g. {@link SampleRing#cursorBack} for the
+   *     pre-trigger history); from now on used only by the writer thread
+   * @throws LoadstoneException when the journal cannot be created (the run should not start)
+   */
+  public static JournalWriter start(Path archiveDir, RunMetadata startInfo,
+      SampleRing.Cursor cursor) {
+    Precondition.notNull(cursor, "cursor");
+    FileChannel ch = JournalFormat.create(archiveDir, startInfo);
+    JournalWriter w = new JournalWriter(
+        JournalFormat.journalFile(archiveDir, startInfo.runId()), ch, cursor);
+    w.thread.start();
+    return w;
+  }
+
+  /** @return the journal file */
+  public Path file() {
+    return file;
+  }
+
+  /** @return records handed to the operating system */
+  public long samplesWritten() {
+    return written;
+  }
+
+  /** @return records known to be on the disk (forced) */
+  public long samplesDurable() {
+    return durable;
+  }
+
+  /** @return samples the journal missed because it fell more than a ring behind */
+  public long samplesLost() {
+    return lost;
+  }
+
+  private void loop() {
+    long lastForce = System.nanoTime();
+    long intervalNs = TimeUnit.MILLISECONDS.toNanos(FORCE_INTERVAL_MS);
+    long target = -1;
+    try {
+      while (true) {
+        if (stopRequested && target < 0) {
+          target = cursor.position() + cursor.available();
+        }
+        int n = cursor.drain(this::append, BATCH);
+        if (n > 0) {
+          buf.flip();
+          while (buf.hasRemaining()) {
+            channel.write(buf);
+          }
+          buf.clear();
+          written += n;
+        }
+        lost = cursor.lost();
+        long now = System.nanoTime();
+        boolean done = target >= 0 && cursor.position() >= target;
+        if (written > durable && (done || now - lastForce >= intervalNs)) {
+          long w = written;
+          lastForce = now;
+          channel.force(false);
+          durable = w;
+        }
+        if (done) {
+          return;
+        }
+        if (n == 0) {
+          LockSupport.parkNanos(TimeUnit.MILLISECONDS.toNanos(POLL_MS));
+        }
+      }
+    } catch (IOException e) {
+      failure = e;
+    } finally {
+      try {
+        channel.close();
+      } catch (IOException e) {
+        if (failure == null) {
+          failure = e;
+        }
+      }
+    }
+  }
+
+  private void append(long index, int seq, long deviceUs, long timeUs, int counts,
+      boolean hasPosition, int position) {
+    JournalFormat.putRecord(buf, index, seq, deviceUs, timeUs, counts, hasPosition, position);
+  }
+
+  /**
+   * Writes every sample in the ring at the time of the call, forces it to the disk and closes
+   * the journal. Waits for the writer thread (not for the device).
+   *
+   * @throws LoadstoneException when writing the journal failed at any point (e.g. disk full); the
+   *     journal keeps what reached the disk
+   */
+  public void finish() {
+    stop();
+    IOException f = failure;
+    if (f != null) {
+      throw new LoadstoneException("journal " + file + " could not be written: " + f.getMessage()
+          + ": free disk space; the samples that reached it are kept and the run can still be"
+          + " stored from memory", f);
+    }
+    finished = true;
+  }
+
+  /**
+   * Deletes the journal once its run is stored.
+   *
+   * @throws IllegalStateException when {@link #finish()} has not completed
+   * @throws LoadstoneException when the file cannot be removed
+   */
+  public void discard() {
+    if (!finished) {
+      throw new IllegalStateException("finish the journal before discarding it");
+    }
+    try {
+      Files.deleteIfExists(file);
+    } catch (IOException e) {
+      throw new LoadstoneException("journal " + file + " cannot be removed: " + e.getMessage()
+          + ": delete it by hand, or it will be recovered as a second copy of the run", e);
+    }
+  }
+
+  /** Stops writing and closes the journal, keeping the file (it is recovered at next start). */
+  @Override
+  public void close() {
+    stop();
+  }
+
+  private void stop() {
+    stopRequested = true;
+    LockSupport.unpark(thread);
+    boolean interrupted = false;
+    while (thread.isAlive()) {
+      try {
+        thread.join();
+      } catch (InterruptedException e) {
+        interrupted = true;
+      }
+    }
+    if (interrupted) {
+      Thread.currentThread().interrupt();
+    }
+  }
+}

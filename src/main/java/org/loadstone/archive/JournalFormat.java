@@ -1,0 +1,137 @@
+package org.loadstone.archive;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.io.IOException;
+import java.nio.ByteBuffer;
+import java.nio.channels.FileChannel;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.FileAlreadyExistsException;
+import java.nio.file.Path;
+import java.nio.file.StandardOpenOption;
+import java.util.zip.CRC32C;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
+
+/**
+ * The run journal, {@code <archive>/.journal/<run-id>.journal}: an append-only file that holds
+ * every raw sample of a run as it arrives, so that a run survives the program's end.
+ *
+ * <p>Layout: one header line (UTF-8 JSON object ending in {@code \n}) holding {@code
+ * "journal_format": 1} and the sidecar fields known at the start (all but {@code cause} and the
+ * break fields; the scale spec and zero offset included), then fixed-size records of {@value
+ * #RECORD_BYTES} bytes, big-endian:
+ *
+ * <pre>
+ *  0  int64  index      sample number in the ring (gaps = samples the journal missed)
+ *  8  int64  time_us    unwrapped device time, µs
+ * 16  int64  device_us  device clock as sent (wrapping, 0…2³²−1)
+ * 24  int32  counts     load counts
+ * 28  int32  position   position counts (0 without a position channel)
+ * 32  int32  seq        device sequence number, 0…65535
+ * 36  int32  flags      bit 0: has position
+ * 40  uint32 crc        CRC-32C of bytes 0…39
+ * </pre>
+ *
+ * A torn last write leaves a short tail or a record whose CRC fails; readers stop there.
+ */
+public final class JournalFormat {
+  /** Format version in the header's {@code journal_format} field. */
+  public static final int VERSION = 1;
+  /** Size of one sample record. */
+  public static final int RECORD_BYTES = 44;
+  /** Longest header line accepted, bytes. */
+  static final int MAX_HEADER_BYTES = 1 << 20;
+
+  private JournalFormat() {}
+
+  /** @return {@code <archive>/.journal} */
+  public static Path journalDir(Path archiveDir) {
+    return archiveDir.resolve(".journal");
+  }
+
+  /** @return {@code <archive>/.journal/damaged}, where unreadable journals are moved */
+  public static Path damagedDir(Path archiveDir) {
+    return journalDir(archiveDir).resolve("damaged");
+  }
+
+  /** @return {@code <archive>/.journal/<run-id>.journal} */
+  public static Path journalFile(Path archiveDir, String runId) {
+    return journalDir(archiveDir).resolve(runId + ".journal");
+  }
+
+  /**
+   * @param startInfo the sidecar as known at the start; cause and break fields are not stored
+   * @return the header line, ending in {@code \n}
+   */
+  public static byte[] header(RunMetadata startInfo) {
+    ObjectNode o = RunJson.LINE.createObjectNode();
+    o.put("journal_format", VERSION);
+    ObjectNode m = RunJson.toTree(startInfo);
+    RunJson.END_FIELDS.forEach(m::remove);
+    o.setAll(m);
+    try {
+      return (RunJson.LINE.writeValueAsString(o) + "\n").getBytes(StandardCharsets.UTF_8);
+    } catch (JsonProcessingException e) {
+      throw new IllegalStateException("cannot serialise journal header", e);
+    }
+  }
+
+  /**
+   * Creates the run's journal (and its folder), writes the header and forces it to the disk.
+   *
+   * @return the open channel, positioned after the header, for appending records
+   * @throws LoadstoneException when the journal exists already or cannot be created
+   */
+  public static FileChannel create(Path archiveDir, RunMetadata startInfo) {
+    Precondition.notNull(archiveDir, "archiveDir");
+    Precondition.notNull(startInfo, "startInfo");
+    String id = RunIds.requireValid(startInfo.runId());
+    Path dir = journalDir(archiveDir);
+    RunWriter.ensureFolder(dir);
+    Path file = journalFile(archiveDir, id);
+    FileChannel ch = null;
+    try {
+      ch = FileChannel.open(file, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
+      ByteBuffer b = ByteBuffer.wrap(header(startInfo));
+      while (b.hasRemaining()) {
+        ch.write(b);
+      }
+      ch.force(true);
+      RunWriter.syncFolder(dir);
+      return ch;
+    } catch (FileAlreadyExistsException e) {
+      throw new LoadstoneException("journal " + file + " already exists: another run uses id '"
+          + id + "'; take a free id from RunIds.newId");
+    } catch (IOException e) {
+      if (ch != null) {
+        try {
+          ch.close();
+        } catch (IOException ignored) {
+          // reporting the first failure
+        }
+        RunWriter.deleteQuietly(file);
+      }
+      throw new LoadstoneException("cannot create journal " + file + ": " + e.getMessage()
+          + ": free disk space or choose another archive folder before starting a run", e);
+    }
+  }
+
+  /** Appends one record of {@value #RECORD_BYTES} bytes at the buffer's position. */
+  public static void putRecord(ByteBuffer buf, long index, int seq, long deviceUs, long timeUs,
+      int counts, boolean hasPosition, int position) {
+    int start = buf.position();
+    buf.putLong(index).putLong(timeUs).putLong(deviceUs).putInt(counts)
+        .putInt(hasPosition ? position : 0).putInt(seq).putInt(hasPosition ? 1 : 0);
+    CRC32C crc = new CRC32C();
+    crc.update(buf.array(), buf.arrayOffset() + start, RECORD_BYTES - 4);
+    buf.putInt((int) crc.getValue());
+  }
+
+  /** @return whether the record at {@code b[off…off+43]} is intact */
+  static boolean intact(byte[] b, int off) {
+    CRC32C crc = new CRC32C();
+    crc.update(b, off, RECORD_BYTES - 4);
+    return (int) crc.getValue() == ByteBuffer.wrap(b, off + RECORD_BYTES - 4, 4).getInt();
+  }
+}

@@ -1,0 +1,370 @@
+package org.loadstone.archive;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.ByteBuffer;
+import java.nio.file.DirectoryStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.function.Consumer;
+import java.util.function.DoubleUnaryOperator;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
+
+/**
+ * Turns journals left by an unfinished run into stored runs, at start-up.
+ *
+ * <p>Each {@code <archive>/.journal/*.journal} becomes a run with cause {@code recovered}: every
+ * intact record is kept (a torn last record is left out), force is derived again from the raw
+ * counts with the header's scale spec and zero. The journal is deleted only after the run is
+ * safely stored. A journal whose header cannot be read, or whose intact records could not all
+ * be stored, is moved to {@code <archive>/.journal/damaged/}, never deleted.
+ */
+public final class JournalRecovery {
+  private static final System.Logger LOG = System.getLogger(JournalRecovery.class.getName());
+
+  private JournalRecovery() {}
+
+  /** Same as {@link #recoverAll(Path, Consumer)}, with notices going to the system logger. */
+  public static List<StoredRun> recoverAll(Path archiveDir) {
+    return recoverAll(archiveDir, m -> LOG.log(System.Logger.Level.WARNING, m));
+  }
+
+  /**
+   * @param archiveDir the archive folder; nothing happens when it has no journals
+   * @param notices told one sentence per journal handled (recovered, moved aside, kept)
+   * @return the runs stored, in journal-name (hence start-time) order
+   * @throws LoadstoneException after trying every journal, when some could not be stored (e.g.
+   *     disk full); those journals stay where they are and the message names them
+   */
+  public static List<StoredRun> recoverAll(Path archiveDir, Consumer<String> notices) {
+    return recoverAll(archiveDir, notices, new RunWriter((p, o) -> o));
+  }
+
+  static List<StoredRun> recoverAll(Path archiveDir, Consumer<String> notices, RunWriter writer) {
+    Precondition.notNull(archiveDir, "archiveDir");
+    Precondition.notNull(notices, "notices");
+    Path dir = JournalFormat.journalDir(archiveDir);
+    if (!Files.isDirectory(dir)) {
+      return List.of();
+    }
+    List<Path> journals = new ArrayList<>();
+    try (DirectoryStream<Path> ds = Files.newDirectoryStream(dir, "*.journal")) {
+      ds.forEach(p -> {
+        if (Files.isRegularFile(p)) {
+          journals.add(p);
+        }
+      });
+    } catch (IOException e) {
+      throw new LoadstoneException("cannot list journals in " + dir + ": " + e.getMessage()
+          + ": check the folder's permissions", e);
+    }
+    journals.sort(null);
+    List<StoredRun> stored = new ArrayList<>();
+    List<String> failed = new ArrayList<>();
+    for (Path j : journals) {
+      try {
+        StoredRun s = recoverOne(archiveDir, j, notices, writer);
+        if (s != null) {
+          stored.add(s);
+        }
+      } catch (LoadstoneException e) {
+        failed.add(e.getMessage());
+        notices.accept(e.getMessage());
+      }
+    }
+    if (!failed.isEmpty()) {
+      throw new LoadstoneException(failed.size() + " unfinished run(s) could not be recovered and"
+          + " their journals are kept for the next try: " + String.join("; ", failed));
+    }
+    return stored;
+  }
+
+  private static StoredRun recoverOne(Path archiveDir, Path journal, Consumer<String> notices,
+      RunWriter writer) {
+    JournalContents c;
+    try {
+      c = readJournal(journal);
+    } catch (DamagedHeader e) {
+      Path moved = moveAside(archiveDir, journal);
+      notices.accept("journal " + journal + " has an unreadable header (" + e.getMessage()
+          + ") and was moved to " + moved + ": its samples are kept there but could not be"
+          + " turned into a run; report it with the file attached");
+      return null;
+    }
+    String id = c.startInfo().runId();
+    Path csv = archiveDir.resolve(id + ".csv");
+    Path json = archiveDir.resolve(id + ".json");
+    if (Files.exists(csv) && Files.exists(json) && readsBack(csv, c.data().size())) {
+      delete(journal);
+      notices.accept("journal " + journal + " belonged to run " + id + ", which was already"
+          + " stored in full; the journal was removed");
+      return null;
+    }
+    // the journal itself holds `id`, so RunIds.firstFree would always skip it
+    String newId = freeOtherThanJournal(archiveDir, id);
+    RunMetadata m = recoveredMetadata(c, newId, journal);
+    StoredRun s = writer.store(archiveDir, m, c.data());
+    if (c.complete()) {
+      delete(journal);
+      notices.accept("unfinished run " + id + " was recovered from its journal as " + newId
+          + " (" + c.data().size() + " samples)");
+    } else {
+      Path moved = moveAside(archiveDir, journal);
+      notices.accept("unfinished run " + id + " was recovered as " + newId + ", but some"
+          + " records could not be stored as samples (see the run's warnings); the journal was"
+          + " kept as " + moved);
+    }
+    return s;
+  }
+
+  private static String freeOtherThanJournal(Path archiveDir, String id) {
+    if (!Files.exists(archiveDir.resolve(id + ".csv"))
+        && !Files.exists(archiveDir.resolve(id + ".json"))) {
+      return id;
+    }
+    for (int n = 2; ; n++) {
+      String cand = id + "-" + n;
+      if (!RunIds.taken(archiveDir, cand)) {
+        return cand;
+      }
+    }
+  }
+
+  private static boolean readsBack(Path csv, int samples) {
+    try {
+      return RunReader.read(csv).data().size() >= samples;
+    } catch (LoadstoneException e) {
+      return false;
+    }
+  }
+
+  private static RunMetadata recoveredMetadata(JournalContents c, String id, Path journal) {
+    RunMetadata h = c.startInfo();
+    List<String> w = new ArrayList<>(h.warnings());
+    w.add("recovered from journal " + journal.getFileName() + " after the program ended during"
+        + " the run; " + c.data().size() + " samples kept; no break was detected");
+    if (c.tornBytes() > 0) {
+      w.add("the journal ended in " + c.tornBytes() + " bytes of an incomplete record (the last"
+          + " write before the program ended); they were left out");
+    }
+    if (c.missedByJournal() > 0) {
+      w.add(c.missedByJournal() + " samples were missed by the journal (it fell behind)");
+    }
+    if (c.outOfOrder() > 0) {
+      w.add(c.outOfOrder() + " records were left out because their time was not after the"
+          + " previous sample; the journal is kept in .journal/damaged");
+    }
+    if (c.positionDropped()) {
+      w.add("position was present on only some records and was left out; the journal is kept"
+          + " in .journal/damaged");
+    }
+    return new RunMetadata(id, h.startedAt(), h.specimen(), h.group(), h.tags(), h.operator(),
+        h.notes(), h.mass_g(), h.geometry(), h.testType(), h.device(), h.sampleRate_Hz(),
+        h.calibrationId(), h.calibrationSha256(), h.scale(), h.scaleSpec(),
+        h.zeroOffset_counts(), h.dropped() + c.seqGaps(), h.checksumErrors(),
+        FinishCause.RECOVERED, null, null, null, null, h.pretrigger_s(), h.startThreshold_N(),
+        h.checkWeight(), w, h.softwareVersion(), h.extra());
+  }
+
+  /** The header could not be read. */
+  static final class DamagedHeader extends LoadstoneException {
+    private static final long serialVersionUID = 1L;
+
+    DamagedHeader(String message) {
+      super(message);
+    }
+  }
+
+  /**
+   * Reads a journal: its header and every intact record, stopping at the first torn one.
+   *
+   * @param journal a {@code .journal} file
+   * @throws LoadstoneException when the file cannot be read or its header is damaged
+   */
+  public static JournalContents readJournal(Path journal) {
+    Precondition.notNull(journal, "journal");
+    try (InputStream in = new java.io.BufferedInputStream(Files.newInputStream(journal), 1 << 16)) {
+      RunMetadata header = readHeader(in, journal);
+      DoubleUnaryOperator force;
+      try {
+        force = ScaleForce.of(header.scaleSpec());
+      } catch (LoadstoneException e) {
+        throw new DamagedHeader("its scale_spec cannot be used: " + e.getMessage());
+      }
+      double cpm = countsPerMm(header);
+      return readRecords(in, header, force, cpm);
+    } catch (IOException e) {
+      throw new LoadstoneException("journal " + journal + " cannot be read: " + e.getMessage()
+          + ": check the file's permissions", e);
+    }
+  }
+
+  private static RunMetadata readHeader(InputStream in, Path journal) throws IOException {
+    ByteArrayOutputStream line = new ByteArrayOutputStream();
+    int b;
+    while ((b = in.read()) != '\n') {
+      if (b < 0) {
+        throw new DamagedHeader("the header line is incomplete");
+      }
+      if (line.size() >= JournalFormat.MAX_HEADER_BYTES) {
+        throw new DamagedHeader("the header line is longer than 1 MiB");
+      }
+      line.write(b);
+    }
+    JsonNode root;
+    try {
+      root = RunJson.LINE.readTree(line.toByteArray());
+    } catch (IOException e) {
+      throw new DamagedHeader("the header is not valid JSON");
+    }
+    if (root == null || !root.isObject() || root.path("journal_format").asInt(-1)
+        != JournalFormat.VERSION) {
+      throw new DamagedHeader("the header has no journal_format " + JournalFormat.VERSION);
+    }
+    ((com.fasterxml.jackson.databind.node.ObjectNode) root).remove("journal_format");
+    try {
+      return RunJson.fromTree(root, "journal " + journal, FinishCause.RECOVERED);
+    } catch (LoadstoneException e) {
+      throw new DamagedHeader(e.getMessage());
+    }
+  }
+
+  private static double countsPerMm(RunMetadata h) {
+    String v = h.device().get("cpm");
+    try {
+      double d = v == null ? Double.NaN : Double.parseDouble(v);
+      return Double.isFinite(d) && d != 0 ? d : Double.NaN;
+    } catch (NumberFormatException e) {
+      return Double.NaN;
+    }
+  }
+
+  private static JournalContents readRecords(InputStream in, RunMetadata header,
+      DoubleUnaryOperator force, double cpm) throws IOException {
+    int cap = 4096;
+    long[] t = new long[cap];
+    int[] k = new int[cap];
+    int[] p = new int[cap];
+    int[] s = new int[cap];
+    int n = 0;
+    int withPos = 0;
+    long firstIndex = -1;
+    long prevIndex = -1;
+    long missed = 0;
+    long gaps = 0;
+    long outOfOrder = 0;
+    long torn = 0;
+    byte[] rec = new byte[JournalFormat.RECORD_BYTES];
+    while (true) {
+      int got = in.readNBytes(rec, 0, rec.length);
+      if (got < rec.length || !JournalFormat.intact(rec, 0)) {
+        torn = got + in.transferTo(java.io.OutputStream.nullOutputStream());
+        break;
+      }
+      ByteBuffer bb = ByteBuffer.wrap(rec);
+      long index = bb.getLong();
+      long timeUs = bb.getLong();
+      bb.getLong(); // device_us: the unwrapped time_us is what the run needs
+      int counts = bb.getInt();
+      int pos = bb.getInt();
+      int seq = bb.getInt();
+      boolean hasPos = (bb.getInt() & 1) != 0;
+      if (prevIndex >= 0 && index <= prevIndex) {
+        torn = rec.length + in.transferTo(java.io.OutputStream.nullOutputStream());
+        break; // an old record after a new one cannot come from an append-only writer
+      }
+      if (n > 0 && timeUs <= t[n - 1]) {
+        outOfOrder++;
+        prevIndex = index;
+        continue;
+      }
+      if (prevIndex >= 0) {
+        missed += index - prevIndex - 1;
+        gaps += (seq - s[n - 1] - 1) & 0xFFFF;
+      } else {
+        firstIndex = index;
+      }
+      prevIndex = index;
+      if (n == t.length) {
+        int m = n * 2;
+        t = Arrays.copyOf(t, m);
+        k = Arrays.copyOf(k, m);
+        p = Arrays.copyOf(p, m);
+        s = Arrays.copyOf(s, m);
+      }
+      t[n] = timeUs;
+      k[n] = counts;
+      p[n] = pos;
+      s[n] = seq;
+      withPos += hasPos ? 1 : 0;
+      n++;
+    }
+    boolean pos = n > 0 && withPos == n;
+    boolean posDropped = withPos > 0 && withPos < n;
+    double[] time = new double[n];
+    double[] f = new double[n];
+    double[] mm = pos ? new double[n] : null;
+    double zero = header.zeroOffset_counts();
+    for (int i = 0; i < n; i++) {
+      time[i] = (t[i] - t[0]) / 1e6;
+      f[i] = force.applyAsDouble(k[i] - zero);
+      if (pos) {
+        mm[i] = Double.isNaN(cpm) ? p[i] : p[i] / cpm;
+      }
+    }
+    RunMetadata h = header;
+    if (pos && Double.isNaN(cpm)) {
+      List<String> w = new ArrayList<>(h.warnings());
+      w.add("the device identity gave no counts per mm (cpm): position_mm holds raw position"
+          + " counts");
+      h = withWarnings(h, w);
+    }
+    RunData data = new RunData(time, f, mm, Arrays.copyOf(k, n), pos ? Arrays.copyOf(p, n) : null,
+        Arrays.copyOf(s, n));
+    return new JournalContents(h, data, firstIndex, missed, gaps, outOfOrder, torn, posDropped);
+  }
+
+  private static RunMetadata withWarnings(RunMetadata h, List<String> w) {
+    return new RunMetadata(h.runId(), h.startedAt(), h.specimen(), h.group(), h.tags(),
+        h.operator(), h.notes(), h.mass_g(), h.geometry(), h.testType(), h.device(),
+        h.sampleRate_Hz(), h.calibrationId(), h.calibrationSha256(), h.scale(), h.scaleSpec(),
+        h.zeroOffset_counts(), h.dropped(), h.checksumErrors(), h.cause(), h.breakIndex(),
+        h.breakTime_s(), h.peakBeforeBreak_N(), h.dropAtBreak_pct(), h.pretrigger_s(),
+        h.startThreshold_N(), h.checkWeight(), w, h.softwareVersion(), h.extra());
+  }
+
+  private static Path moveAside(Path archiveDir, Path journal) {
+    Path dir = JournalFormat.damagedDir(archiveDir);
+    RunWriter.ensureFolder(dir);
+    String name = journal.getFileName().toString();
+    Path target = dir.resolve(name);
+    for (int n = 2; Files.exists(target); n++) {
+      target = dir.resolve(name + "." + n);
+    }
+    try {
+      Files.move(journal, target);
+      RunWriter.syncFolder(dir);
+      RunWriter.syncFolder(journal.getParent());
+      return target;
+    } catch (IOException e) {
+      throw new LoadstoneException("journal " + journal + " could not be moved to " + dir + ": "
+          + e.getMessage() + ": move it there by hand; it was not changed", e);
+    }
+  }
+
+  private static void delete(Path journal) {
+    try {
+      Files.delete(journal);
+      RunWriter.syncFolder(journal.getParent());
+    } catch (IOException e) {
+      throw new LoadstoneException("journal " + journal + " was recovered but cannot be removed: "
+          + e.getMessage() + ": delete it by hand so it is not recovered twice", e);
+    }
+  }
+}

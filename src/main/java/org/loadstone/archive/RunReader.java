@@ -1,0 +1,98 @@
+package org.loadstone.archive;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.JsonNode;
+import java.io.IOException;
+import java.io.Reader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
+
+/** Reads a stored run back, checking it strictly. */
+public final class RunReader {
+  private RunReader() {}
+
+  /**
+   * @param csvOrJsonOrStem {@code <dir>/<id>.csv}, {@code <dir>/<id>.json} or {@code <dir>/<id>}
+   * @return the run; unknown CSV columns are ignored, unknown JSON fields kept in {@code extra}
+   * @throws LoadstoneException when a file is missing or invalid: the message names the file,
+   *     and for the CSV the line and column (missing cells, non-numbers, NaN, time out of order)
+   */
+  public static Run read(Path csvOrJsonOrStem) {
+    Precondition.notNull(csvOrJsonOrStem, "csvOrJsonOrStem");
+    Path stem = stem(csvOrJsonOrStem);
+    String name = stem.getFileName().toString();
+    Path csv = stem.resolveSibling(name + ".csv");
+    Path json = stem.resolveSibling(name + ".json");
+    RunMetadata meta = readMetadata(json);
+    RunData data;
+    try (Reader r = Files.newBufferedReader(csv, StandardCharsets.UTF_8)) {
+      data = RunCsv.read(r, csv);
+    } catch (NoSuchFileException e) {
+      throw missing(csv, json);
+    } catch (IOException e) {
+      throw new LoadstoneException("run file " + csv + " cannot be read: " + e.getMessage()
+          + ": check the file's permissions", e);
+    }
+    if (meta.breakIndex() != null && meta.breakIndex() >= data.size()) {
+      throw new LoadstoneException("run file " + json + ": field 'break_index' is "
+          + meta.breakIndex() + " but " + csv.getFileName() + " has only " + data.size()
+          + " samples: the two files do not belong together; restore them from a backup");
+    }
+    return new Run(meta, data, csv, json);
+  }
+
+  /**
+   * @param json a sidecar file
+   * @throws LoadstoneException naming the file and the field when missing or invalid
+   */
+  public static RunMetadata readMetadata(Path json) {
+    byte[] bytes;
+    try {
+      bytes = Files.readAllBytes(json);
+    } catch (NoSuchFileException e) {
+      throw missing(json, json);
+    } catch (IOException e) {
+      throw new LoadstoneException("run file " + json + " cannot be read: " + e.getMessage()
+          + ": check the file's permissions", e);
+    }
+    JsonNode root;
+    try {
+      root = RunJson.LINE.readTree(bytes);
+    } catch (JsonProcessingException e) {
+      String loc = e.getLocation() == null ? "" : ", line " + e.getLocation().getLineNr()
+          + ", column " + e.getLocation().getColumnNr();
+      throw new LoadstoneException("run file " + json + loc + ": not valid JSON ("
+          + e.getOriginalMessage() + "): correct the file or restore it from a backup", e);
+    } catch (IOException e) {
+      throw new LoadstoneException("run file " + json + " cannot be read: " + e.getMessage(), e);
+    }
+    if (root == null || !root.isObject()) {
+      throw new LoadstoneException("run file " + json + ": expected one JSON object: correct the"
+          + " file or restore it from a backup");
+    }
+    return RunJson.fromTree(root, "run file " + json, null);
+  }
+
+  private static Path stem(Path p) {
+    String n = p.getFileName() == null ? "" : p.getFileName().toString();
+    if (n.endsWith(".csv")) {
+      return p.resolveSibling(n.substring(0, n.length() - 4));
+    }
+    if (n.endsWith(".json")) {
+      return p.resolveSibling(n.substring(0, n.length() - 5));
+    }
+    if (n.isEmpty()) {
+      throw new LoadstoneException("'" + p + "' names no run: give <id>.csv, <id>.json or <id>");
+    }
+    return p;
+  }
+
+  private static LoadstoneException missing(Path which, Path json) {
+    return new LoadstoneException("run file " + which + " does not exist: check the path (a run"
+        + " is stored as <id>.csv with <id>.json beside it)");
+  }
+}

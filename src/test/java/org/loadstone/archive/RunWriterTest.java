@@ -1,0 +1,178 @@
+package org.loadstone.archive;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.io.FilterOutputStream;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.ByteBuffer;
+import java.nio.channels.FileChannel;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.loadstone.units.LoadstoneException;
+
+class RunWriterTest {
+  @TempDir Path tmp;
+
+  private static List<String> names(Path dir) throws IOException {
+    try (Stream<Path> s = Files.list(dir)) {
+      return s.map(p -> p.getFileName().toString()).sorted().toList();
+    }
+  }
+
+  @Test
+  void writesTheHeaderExactlyAndEmptyPositionCellsWithoutPosition() throws Exception {
+    Path archive = tmp.resolve("archive/sub"); // missing: created
+    RunData d = new RunData(new double[] {0.0, 0.0125}, new double[] {-0.25, 1.0E-5}, null,
+        new int[] {812, 898}, null, new int[] {65535, 0});
+    StoredRun s = RunWriter.write(archive, RunFixtures.startMetadata("r1", false), d);
+    assertThat(s.csv()).isEqualTo(archive.resolve("r1.csv"));
+    assertThat(s.json()).isEqualTo(archive.resolve("r1.json"));
+    // exact text: Double.toString forms (Java SE API, Double.toString), "\n" line ends
+    assertThat(Files.readString(s.csv())).isEqualTo(
+        "time_s,force_N,position_mm,raw_counts,raw_position,seq\n"
+            + "0.0,-0.25,,812,,65535\n"
+            + "0.0125,1.0E-5,,898,,0\n");
+    assertThat(names(archive)).containsExactly("r1.csv", "r1.json");
+  }
+
+  @Test
+  void neverOverwritesAnExistingRun() throws Exception {
+    RunData d = RunFixtures.randomData(7, 20, true);
+    RunMetadata m = RunFixtures.fullMetadata("r2");
+    RunWriter.write(tmp, m, d);
+    byte[] csvBefore = Files.readAllBytes(tmp.resolve("r2.csv"));
+    byte[] jsonBefore = Files.readAllBytes(tmp.resolve("r2.json"));
+    RunData other = RunFixtures.randomData(8, 5, false);
+    assertThatThrownBy(() -> RunWriter.write(tmp, m, other))
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("r2.csv already exists")
+        .hasMessageContaining("never overwritten")
+        .hasMessageContaining("r2-2");
+    assertThat(Files.readAllBytes(tmp.resolve("r2.csv"))).isEqualTo(csvBefore);
+    assertThat(Files.readAllBytes(tmp.resolve("r2.json"))).isEqualTo(jsonBefore);
+    assertThat(names(tmp)).containsExactly("r2.csv", "r2.json");
+  }
+
+  @Test
+  void aSidecarAloneAlsoBlocksTheId() throws Exception {
+    Files.writeString(tmp.resolve("r3.json"), "{\"keep\":true}");
+    assertThatThrownBy(() -> RunWriter.write(tmp, RunFixtures.startMetadata("r3", false),
+        RunFixtures.randomData(1, 3, false)))
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("r3.json already exists");
+    assertThat(Files.readString(tmp.resolve("r3.json"))).isEqualTo("{\"keep\":true}");
+    assertThat(names(tmp)).containsExactly("r3.json");
+  }
+
+  @Test
+  void leavesNoTemporaryFilesAfterManyWrites() throws Exception {
+    for (int i = 0; i < 20; i++) {
+      RunWriter.write(tmp, RunFixtures.startMetadata("run-" + i, false),
+          RunFixtures.randomData(i, 100, i % 2 == 0));
+    }
+    assertThat(names(tmp)).hasSize(40).allMatch(n -> n.matches("run-\\d+\\.(csv|json)"));
+  }
+
+  @Test
+  void unwritableArchiveFolderNamesTheFolderAndTheFix() throws Exception {
+    // the test may run as root, which ignores permissions; a folder below a regular file cannot
+    // be created by anyone
+    Path afile = Files.writeString(tmp.resolve("afile"), "not a folder");
+    Path archive = afile.resolve("sub");
+    assertThatThrownBy(() -> RunWriter.write(archive, RunFixtures.startMetadata("r4", false),
+        RunFixtures.randomData(1, 3, false)))
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("archive folder " + archive)
+        .hasMessageContaining("choose a folder you may write to");
+  }
+
+  /** Lets {@code limit} bytes through, then fails as a full disk does. */
+  static final class FullDisk extends FilterOutputStream {
+    private long left;
+
+    FullDisk(OutputStream out, long limit) {
+      super(out);
+      left = limit;
+    }
+
+    @Override
+    public void write(int b) throws IOException {
+      write(new byte[] {(byte) b}, 0, 1);
+    }
+
+    @Override
+    public void write(byte[] b, int off, int len) throws IOException {
+      if (len > left) {
+        out.write(b, off, (int) left);
+        left = 0;
+        throw new IOException("No space left on device");
+      }
+      left -= len;
+      out.write(b, off, len);
+    }
+  }
+
+  @Test
+  void diskFullMidWriteRemovesThePartialFileKeepsTheJournalAndSaysSo() throws Exception {
+    RunMetadata m = RunFixtures.startMetadata("r5", false);
+    try (FileChannel j = JournalFormat.create(tmp, m)) {
+      ByteBuffer b = ByteBuffer.allocate(JournalFormat.RECORD_BYTES);
+      JournalFormat.putRecord(b, 0, 1, 1000, 1000, 812, false, 0);
+      b.flip();
+      j.write(b);
+    }
+    byte[] journalBefore = Files.readAllBytes(JournalFormat.journalFile(tmp, "r5"));
+    RunWriter failing = new RunWriter((p, o) -> new FullDisk(o, 100_000));
+    RunData big = RunFixtures.randomData(3, 20_000, true);
+    assertThatThrownBy(() -> failing.store(tmp, m, big))
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("cannot write run file " + tmp.resolve("r5.csv"))
+        .hasMessageContaining("No space left on device")
+        .hasMessageContaining("free disk space")
+        .hasMessageContaining("journal");
+    assertThat(names(tmp)).containsExactly(".journal");
+    assertThat(Files.readAllBytes(JournalFormat.journalFile(tmp, "r5"))).isEqualTo(journalBefore);
+
+    // the sidecar failing (after the CSV temp file was complete) is cleaned up the same way
+    RunWriter failingJson = new RunWriter((p, o) -> p.toString().endsWith(".json.tmp")
+        ? new FullDisk(o, 10) : o);
+    assertThatThrownBy(() -> failingJson.store(tmp, m, big))
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("cannot write run file " + tmp.resolve("r5.json"));
+    assertThat(names(tmp)).containsExactly(".journal");
+  }
+
+  @Test
+  void refusesNonFiniteForceAndTimeOutOfOrderBeforeWritingAnything() {
+    RunData nan = new RunData(new double[] {0, 1}, new double[] {0, Double.NaN}, null,
+        new int[] {1, 2}, null, new int[] {0, 1});
+    assertThatThrownBy(() -> RunWriter.write(tmp, RunFixtures.startMetadata("r6", false), nan))
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("force_N of sample 1 is NaN");
+    RunData back = new RunData(new double[] {0, 1, 1}, new double[] {0, 0, 0}, null,
+        new int[] {1, 2, 3}, null, new int[] {0, 1, 2});
+    assertThatThrownBy(() -> RunWriter.write(tmp, RunFixtures.startMetadata("r6", false), back))
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("time_s of sample 2");
+    assertThat(tmp.resolve("r6.csv")).doesNotExist();
+  }
+
+  @Test
+  void refusesRunIdsThatAreNotSafeStems() {
+    assertThatThrownBy(() -> RunWriter.write(tmp, RunFixtures.startMetadata("../evil", false),
+        RunFixtures.randomData(1, 2, false))).isInstanceOf(IllegalArgumentException.class);
+    assertThat(tmp.getParent().resolve("evil.csv")).doesNotExist();
+  }
+
+  @Test
+  void sidecarIsUtf8Json() throws Exception {
+    StoredRun s = RunWriter.write(tmp, RunFixtures.fullMetadata("r7"),
+        RunFixtures.randomData(1, 4, true));
+    String text = new String(Files.readAllBytes(s.json()), StandardCharsets.UTF_8);
+    assertThat(text).startsWith("{").contains("\"run_id\" : \"r7\"").endsWith("}\n");
+  }
+}
