@@ -19,6 +19,7 @@ import picocli.CommandLine.Command;
       MonitorCommand.class,
       SimulateCommand.class,
       ConsoleCommand.class,
+      RecordCommand.class,
       CommandLine.HelpCommand.class
     })
 public final class LoadstoneCommand implements Runnable {

@@ -1,0 +1,106 @@
+package org.loadstone.acquire;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.loadstone.archive.ScaleSpec;
+import org.loadstone.calibration.CalibrationDocument;
+import org.loadstone.calibration.CalibrationFiles;
+import org.loadstone.calibration.CalibrationStatus;
+import org.loadstone.calibration.CheckWeightResult;
+import org.loadstone.calibration.CheckWeights;
+import org.loadstone.calibration.CountsToForce;
+import org.loadstone.calibration.LoadCellProfile;
+import org.loadstone.units.LoadstoneException;
+
+/**
+ * How counts become force for a run, and what must be said about it before the run starts: a
+ * calibration file (checked for expiry and integrity, with its last check-weight result) or a
+ * nominal data-sheet sensitivity (always with a warning).
+ *
+ * @param scale counts above zero → N
+ * @param spec the same, stored with the run so force can be derived again
+ * @param description in words
+ * @param calibrationId the calibration's id, or null
+ * @param calibrationSha256 its content hash, or null
+ * @param warnings to show before the run and store with it
+ * @param checkWeight the last check-weight result of the calibration, or null
+ * @param ratedCapacity_N the cell's rated capacity from its profile, or null when unknown
+ */
+public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
+    String calibrationId, String calibrationSha256, List<String> warnings,
+    Map<String, Object> checkWeight, Double ratedCapacity_N) {
+
+  /** A data-sheet sensitivity, with the warning that the run is not calibrated. */
+  public static ScaleChoice nominal(double countsPerN, String source, Double capacity_N) {
+    String d = String.format(Locale.ROOT, "nominal %.6g counts/N (%s)", countsPerN, source);
+    return new ScaleChoice(ForceScale.linear(countsPerN, source), ScaleSpec.nominal(countsPerN), d,
+        null, null, List.of("no calibration: force uses the " + source + " sensitivity "
+            + String.format(Locale.ROOT, "%.6g", countsPerN) + " counts/N; calibrate with "
+            + "'loadstone calibrate' and pass --cal"), null, capacity_N);
+  }
+
+  /**
+   * Loads a calibration for a run.
+   *
+   * @param file the calibration JSON
+   * @param today for the expiry check
+   * @throws LoadstoneException when the file is missing, unreadable or damaged (naming the file and
+   *     field)
+   */
+  public static ScaleChoice fromCalibration(Path file, LocalDate today) {
+    CalibrationStatus st = CalibrationStatus.check(file, null, today);
+    if (st.document() == null) {
+      throw new LoadstoneException(st.warning());
+    }
+    List<String> warnings = new ArrayList<>();
+    if (!st.ok()) {
+      warnings.add(st.warning());
+    }
+    CalibrationDocument doc = st.document();
+    CountsToForce inverse = doc.fit().inverse();
+    ForceScale scale = new ForceScale() {
+      @Override
+      public double force_N(double net) {
+        return inverse.force_N(net);
+      }
+
+      @Override
+      public String describe() {
+        return "calibration " + doc.id() + " (" + doc.fit().kind().label() + ")";
+      }
+    };
+    ScaleSpec spec = new ScaleSpec("calibration", doc.fit().coefficients(),
+        doc.fit().minForce_N(), doc.fit().maxForce_N());
+    Map<String, Object> check = null;
+    List<CheckWeightResult> log = CheckWeights.readLog(file);
+    if (log.isEmpty()) {
+      warnings.add("calibration " + doc.id() + " has no check-weight verification yet: run "
+          + "'loadstone verify --cal " + file + " --mass-g M' before a day of testing");
+    } else {
+      CheckWeightResult last = log.get(log.size() - 1);
+      @SuppressWarnings("unchecked")
+      Map<String, Object> m = new ObjectMapper().convertValue(last, Map.class);
+      check = m;
+      if (!last.pass()) {
+        warnings.add("the last check-weight verification of " + doc.id() + " (" + last.time()
+            + ") FAILED: " + String.format(Locale.ROOT, "%.2f %%", last.error_pct())
+            + " error; recalibrate before trusting forces");
+      }
+    }
+    Double capacity = null;
+    Path profile = file.toAbsolutePath().getParent().resolve("cells")
+        .resolve(doc.cellId() + ".json");
+    if (Files.exists(profile)) {
+      LoadCellProfile p = CalibrationFiles.readProfile(profile);
+      capacity = p.ratedCapacity_N();
+    }
+    return new ScaleChoice(scale, spec, scale.describe(), doc.id(), doc.contentSha256(),
+        List.copyOf(warnings), check, capacity);
+  }
+}

@@ -1,0 +1,341 @@
+package org.loadstone.cli;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import java.util.concurrent.TimeUnit;
+import org.loadstone.acquire.BreakDetector;
+import org.loadstone.acquire.DeviceReader;
+import org.loadstone.acquire.JournalRunStore;
+import org.loadstone.acquire.Recorder;
+import org.loadstone.acquire.RunControl;
+import org.loadstone.acquire.RunSettings;
+import org.loadstone.acquire.SampleRing;
+import org.loadstone.acquire.ScaleChoice;
+import org.loadstone.archive.FinishCause;
+import org.loadstone.archive.Geometry;
+import org.loadstone.archive.JournalRecovery;
+import org.loadstone.archive.RunIds;
+import org.loadstone.archive.RunMetadata;
+import org.loadstone.archive.StoredRun;
+import org.loadstone.archive.TestType;
+import org.loadstone.device.SimSetup;
+import org.loadstone.protocol.DeviceMessage;
+import org.loadstone.units.LoadstoneException;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+
+/** {@code loadstone record}: one hands-free run, started by load and stopped at the load drop. */
+@Command(
+    name = "record",
+    sortOptions = false,
+    description = {
+      "Record one run: zero, wait for load, record with a pre-trigger history, stop by itself",
+      "at the load drop (or overload, time limit, Ctrl-C), and store it in the archive."
+    })
+public final class RecordCommand implements Callable<Integer> {
+  @Mixin DeviceOptions device;
+  @Mixin ArchiveOption archive;
+
+  @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file to turn counts into force.")
+  Path cal;
+
+  @Option(names = "--counts-per-n", description = "Without a calibration: a nominal sensitivity (counts per N); the run is marked uncalibrated.")
+  Double countsPerN;
+
+  @Option(names = "--specimen", required = true, description = "Specimen id.")
+  String specimen;
+
+  @Option(names = "--group", defaultValue = "", description = "Group for comparisons, e.g. balsa.")
+  String group;
+
+  @Option(names = "--tag", description = "A tag (repeatable).")
+  List<String> tags = new ArrayList<>();
+
+  @Option(names = "--operator", defaultValue = "") String operator;
+
+  @Option(names = "--notes", defaultValue = "") String notes;
+
+  @Option(names = "--mass-g", description = "Specimen mass in g (for strength per weight).")
+  Double mass_g;
+
+  @Option(names = "--test", defaultValue = "three-point", description = "three-point, four-point, compression or tension (default: ${DEFAULT-VALUE}).")
+  String test;
+
+  @Option(names = "--span-mm") Double span;
+  @Option(names = "--load-span-mm") Double loadSpan;
+  @Option(names = "--width-mm") Double width;
+  @Option(names = "--depth-mm") Double depth;
+  @Option(names = "--facing-mm") Double facing;
+  @Option(names = "--core-mm") Double core;
+  @Option(names = "--area-mm2") Double area;
+
+  @Option(names = "--start-at-N", defaultValue = "5", description = "Start recording at this force (default: ${DEFAULT-VALUE}).")
+  double startAt;
+
+  @Option(names = "--stop-drop-pct", defaultValue = "40", description = "Break when force falls this % below the peak (default: ${DEFAULT-VALUE}).")
+  double dropPct;
+
+  @Option(names = "--arm-at-N", description = "The peak must pass this before a break counts (default: twice --start-at-N).")
+  Double armAt;
+
+  @Option(names = "--stop-below-N", defaultValue = "0", description = "Also break when force falls back below this (0 = off).")
+  double stopBelow;
+
+  @Option(names = "--debounce-s", defaultValue = "0.01", description = "The drop must last this long (default: ${DEFAULT-VALUE}).")
+  double debounce;
+
+  @Option(names = "--tail-s", defaultValue = "0.5", description = "Keep recording this long after the break (default: ${DEFAULT-VALUE}).")
+  double tail;
+
+  @Option(names = "--pretrigger-s", defaultValue = "1", description = "History kept before the start (default: ${DEFAULT-VALUE}).")
+  double pretrigger;
+
+  @Option(names = "--capacity-N", description = "The load cell's rated capacity (default: from the calibration's cell profile, or the simulated cell).")
+  Double capacity;
+
+  @Option(names = "--warn-pct", defaultValue = "80", description = "Overload warning, % of capacity (default: ${DEFAULT-VALUE}).")
+  double warnPct;
+
+  @Option(names = "--overload-pct", defaultValue = "100", description = "Overload stop, % of capacity (default: ${DEFAULT-VALUE}).")
+  double overloadPct;
+
+  @Option(names = "--max-seconds", defaultValue = "0", description = "Longest run (0 = no limit).")
+  double maxSeconds;
+
+  @Option(names = "--manual-start", description = "Start recording at once instead of waiting for load.")
+  boolean manualStart;
+
+  @Option(names = "--zero-samples", description = "Samples averaged for the zero (default: half a second).")
+  Integer zeroSamples;
+
+  @Option(names = "--json", description = "End with the result as one JSON object on the last line.")
+  boolean json;
+
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter err = spec.commandLine().getErr();
+    Path dir = archive.folder();
+    JournalRunStore store = new JournalRunStore(dir);
+    store.checkWritable();
+    for (StoredRun r : JournalRecovery.recoverAll(dir, n -> say(err, n))) {
+      say(err, "recovered an unfinished run into " + r.csv());
+    }
+
+    ScaleChoice scale = chooseScale();
+    double cap = capacity != null ? capacity : scale.ratedCapacity_N() != null
+        ? scale.ratedCapacity_N() : unknownCapacity();
+    RunSettings.Builder b = RunSettings.builder().startThreshold_N(startAt).breakDropPct(dropPct)
+        .absoluteStop_N(stopBelow).debounce_s(debounce).postBreak_s(tail).pretrigger_s(pretrigger)
+        .ratedCapacity_N(cap).overloadWarnPct(warnPct).overloadStopPct(overloadPct)
+        .maxSeconds(maxSeconds);
+    if (armAt != null) {
+      b.armingLevel_N(armAt);
+    }
+    RunSettings settings = b.build();
+    Geometry geometry = new Geometry(span, loadSpan, width, depth, facing, core, area);
+    TestType type = TestType.parse(test);
+    for (String w : scale.warnings()) {
+      say(err, "warning: " + w);
+    }
+
+    DeviceReader reader = new DeviceReader(device.open(), new SampleRing(1 << 21));
+    reader.start();
+    try {
+      waitForIdentity(reader, err);
+      double rate = reader.identity().map(DeviceMessage.Identity::rateHz).filter(r -> r > 0)
+          .orElse(device.simulated() ? device.rateHz : 80.0);
+      int nZero = zeroSamples != null ? zeroSamples : (int) Math.max(5, Math.round(rate / 2));
+      say(err, "zeroing on " + nZero + " samples: keep the specimen unloaded");
+      double zero = Recorder.tare(reader, nZero, 10_000 + (long) (nZero / rate * 2000));
+      Instant now = Instant.now();
+      RunMetadata template = new RunMetadata(RunIds.newId(dir, now, specimen), now, specimen,
+          group, tags, operator, notes, mass_g, geometry, type, deviceFields(reader), rate,
+          scale.calibrationId(), scale.calibrationSha256(), scale.description(), scale.spec(),
+          zero, 0, 0, FinishCause.MANUAL, null, null, null, null, pretrigger,
+          manualStart ? null : startAt, scale.checkWeight(), scale.warnings(),
+          LoadstoneCommand.softwareVersion(), Map.of());
+      Recorder rec = new Recorder(reader, scale.scale(), zero, settings, template, store,
+          new Progress(err));
+      Thread hook = new Thread(() -> {
+        rec.stop();
+        try {
+          rec.await(30, TimeUnit.SECONDS);
+        } catch (InterruptedException e) {
+          Thread.currentThread().interrupt();
+        }
+      });
+      Runtime.getRuntime().addShutdownHook(hook);
+      if (manualStart) {
+        say(err, "recording now (manual start)");
+        rec.startNow();
+      } else {
+        say(err, String.format(Locale.ROOT, "armed: recording starts at %.4g N; the run stops "
+            + "by itself at a %.0f %% drop from the peak (Ctrl-C stops it by hand)",
+            startAt, dropPct));
+        rec.arm();
+      }
+      boolean tty = System.console() != null && !json;
+      java.util.Optional<Recorder.Result> result = java.util.Optional.empty();
+      while (result.isEmpty() && rec.failure().isEmpty()) {
+        result = rec.await(200, TimeUnit.MILLISECONDS);
+        if (tty && result.isEmpty()) {
+          Recorder.Status s = rec.status();
+          err.printf(Locale.ROOT, "\r%-9s force %9.2f N   peak %9.2f N   %7.1f samples/s   ",
+              s.state().name().toLowerCase(Locale.ROOT), s.force_N(),
+              Double.isNaN(s.peak_N()) ? 0.0 : s.peak_N(), s.rateHz());
+          err.flush();
+        }
+        if (result.isEmpty() && reader.lostReason().isPresent()
+            && rec.status().state() != RunControl.State.RECORDING
+            && rec.status().state() != RunControl.State.TAIL) {
+          rec.stop();
+        }
+      }
+      try {
+        Runtime.getRuntime().removeShutdownHook(hook);
+      } catch (IllegalStateException shuttingDown) {
+        // Ctrl-C
+      }
+      if (tty) {
+        err.println();
+      }
+      if (rec.failure().isPresent()) {
+        throw new LoadstoneException(rec.failure().get());
+      }
+      if (result.isEmpty()) {
+        say(err, reader.lostReason().orElse("stopped before any load: no run recorded"));
+        return reader.lostReason().isPresent() ? LoadstoneCommand.EXIT_DEVICE_LOST : 0;
+      }
+      report(result.get(), out);
+      return 0;
+    } finally {
+      reader.close();
+    }
+  }
+
+  private ScaleChoice chooseScale() {
+    if (cal != null) {
+      return ScaleChoice.fromCalibration(cal, LocalDate.now());
+    }
+    if (countsPerN != null) {
+      return ScaleChoice.nominal(countsPerN, "given", null);
+    }
+    if (device.simulated()) {
+      SimSetup s = device.simSetup();
+      return ScaleChoice.nominal(s.nominalCountsPerN(), "simulated cell's nominal",
+          s.buildFrame().truth().loadCell().capacity_N());
+    }
+    throw new LoadstoneException("no calibration for " + device.port + ": pass --cal FILE (make "
+        + "one with 'loadstone calibrate') or --counts-per-n K for a rough, uncalibrated reading");
+  }
+
+  private double unknownCapacity() {
+    throw new LoadstoneException("the load cell's rated capacity is unknown, and the overload "
+        + "stop depends on it: give --capacity-N (or keep the cell profile in cells/ beside the "
+        + "calibration file)");
+  }
+
+  private static void waitForIdentity(DeviceReader reader, PrintWriter err)
+      throws InterruptedException {
+    long until = System.nanoTime() + 3_000_000_000L;
+    while (reader.identity().isEmpty() && System.nanoTime() < until
+        && reader.lostReason().isEmpty()) {
+      Thread.sleep(10);
+    }
+    reader.unsupportedVersion().ifPresent(m -> {
+      throw new LoadstoneException(m);
+    });
+    reader.lostReason().ifPresent(m -> {
+      throw new LoadstoneException(m);
+    });
+    if (reader.identity().isEmpty()) {
+      say(err, "warning: the device did not identify itself; using the measured rate");
+    }
+  }
+
+  private Map<String, String> deviceFields(DeviceReader reader) {
+    Map<String, String> m = new LinkedHashMap<>();
+    reader.identity().ifPresent(id -> m.putAll(id.fields()));
+    m.put("port", reader.transport().name());
+    if (device.simulated()) {
+      m.put("sim_scenario", device.scenario);
+      m.put("sim_seed", Long.toString(device.seed));
+    }
+    return m;
+  }
+
+  private void report(Recorder.Result r, PrintWriter out) throws Exception {
+    BreakDetector.Break b = r.breakDetail();
+    if (json) {
+      Map<String, Object> m = new LinkedHashMap<>();
+      m.put("run_id", r.stored().runId());
+      m.put("cause", r.cause().wireName());
+      m.put("peak_N", r.peak_N());
+      m.put("samples", r.samples());
+      m.put("dropped", r.dropped());
+      m.put("checksum_errors", r.checksumErrors());
+      m.put("break_drop_pct", b == null ? null : b.dropPct());
+      m.put("csv", r.stored().csv().toString());
+      m.put("json", r.stored().json().toString());
+      out.println(new ObjectMapper().writeValueAsString(m));
+    } else {
+      out.printf(Locale.ROOT, "run %s: %s, peak %.2f N, %d samples, %d dropped%n",
+          r.stored().runId(), r.cause().wireName(), r.peak_N(), r.samples(), r.dropped());
+      out.println("  " + r.stored().csv());
+      out.println("  " + r.stored().json());
+    }
+    out.flush();
+  }
+
+  static void say(PrintWriter err, String text) {
+    synchronized (err) {
+      err.println(text);
+      err.flush();
+    }
+  }
+
+  /** Prints run events as they happen. */
+  private static final class Progress implements Recorder.Listener {
+    private final PrintWriter err;
+
+    Progress(PrintWriter err) {
+      this.err = err;
+    }
+
+    @Override
+    public void onStarted(RunControl.Started e) {
+      say(err, "\nrecording" + (e.manual() ? "" : String.format(Locale.ROOT,
+          " (load reached the start threshold at %.3f s)", e.triggerTime_s())));
+    }
+
+    @Override
+    public void onWarning(String text) {
+      say(err, "\n" + text.toUpperCase(Locale.ROOT).charAt(0) + text.substring(1));
+    }
+
+    @Override
+    public void onBreak(BreakDetector.Break b) {
+      say(err, String.format(Locale.ROOT, "\nbreak at %.3f s: force fell %.0f %% below the peak "
+          + "of %.2f N", b.time_s(), b.dropPct(), b.peakBefore_N()));
+    }
+
+    @Override
+    public void onFailed(String why) {
+      say(err, "\n" + why);
+    }
+  }
+}
