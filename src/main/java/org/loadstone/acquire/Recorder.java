@@ -70,6 +70,7 @@ public final class Recorder implements AutoCloseable {
   private DecoderCounters atStart;
   private double firstTimeUs = Double.NaN;
   private double runStartTime_s;
+  private double deviceRate_Hz;
   private Instant startedAt;
 
   /**
@@ -268,6 +269,7 @@ public final class Recorder implements AutoCloseable {
     if (b != null) {
       breakTime = b.time_s();
     }
+    deviceRate_Hz = deviceClockRate(started.firstIndex(), f.lastIndex());
     RunMetadata meta = copy(template, f.cause(), breakIndex, breakTime,
         b == null ? null : b.peakBefore_N(), b == null ? null : b.dropPct(), dropped, crc, started);
     RunStore.Stored stored = recording.finish(f.lastIndex(), meta);
@@ -285,12 +287,22 @@ public final class Recorder implements AutoCloseable {
     Double breakRelative = breakTime_s == null ? null : breakTime_s - runStartTime_s;
     return new RunMetadata(t.runId(), startedAt != null ? startedAt : t.startedAt(),
         t.specimen(), t.group(), t.tags(), t.operator(), t.notes(), t.mass_g(), t.geometry(),
-        t.testType(), t.device(), reader.measuredRateHz() > 0 ? reader.measuredRateHz()
-            : t.sampleRate_Hz(), t.calibrationId(), t.calibrationSha256(), t.scale(),
+        t.testType(), t.device(), deviceRate_Hz > 0 ? deviceRate_Hz : t.sampleRate_Hz(),
+        t.calibrationId(), t.calibrationSha256(), t.scale(),
         t.scaleSpec(), zero_counts, dropped, crc, cause, breakIndex, breakRelative, peakBefore,
         dropPct, control.settings().pretrigger_s(),
         s != null && s.manual() ? null : control.settings().startThreshold_N(), t.checkWeight(),
         w, t.softwareVersion(), t.extra());
+  }
+
+  /** Sample rate by the device's own clock over the run, or 0 when it cannot be read. */
+  private double deviceClockRate(long first, long last) {
+    try {
+      long dt = reader.ring().timeUsAt(last) - reader.ring().timeUsAt(first);
+      return last > first && dt > 0 ? (last - first) * 1e6 / dt : 0;
+    } catch (IllegalArgumentException overwritten) {
+      return 0;
+    }
   }
 
   private static void sleep(long ms) {

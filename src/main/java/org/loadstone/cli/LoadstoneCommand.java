@@ -37,21 +37,35 @@ public final class LoadstoneCommand implements Runnable {
     spec.commandLine().usage(spec.commandLine().getOut());
   }
 
-  /** Runs a command line and returns its exit code. */
+  /** Runs a command line on the process's standard streams and returns its exit code. */
   public static int run(String... args) {
+    return run(null, null, args);
+  }
+
+  /**
+   * Runs a command line with its output and messages going to the given writers (null: the
+   * process's standard streams) and returns its exit code.
+   */
+  public static int run(PrintWriter out, PrintWriter err, String... args) {
     CommandLine cl = new CommandLine(new LoadstoneCommand());
+    if (out != null) {
+      cl.setOut(out);
+    }
+    if (err != null) {
+      cl.setErr(err);
+    }
     cl.setExecutionExceptionHandler(
         (ex, commandLine, parseResult) -> {
-          PrintWriter err = commandLine.getErr();
+          PrintWriter w = commandLine.getErr();
           if (ex instanceof LoadstoneException) {
-            err.println("loadstone: " + ex.getMessage());
-            err.flush();
+            w.println("loadstone: " + ex.getMessage());
+            w.flush();
             return EXIT_USER_ERROR;
           }
-          err.println("loadstone: internal error: " + ex);
-          ex.printStackTrace(err);
-          err.println("This is a bug in Loadstone; please report it with the lines above.");
-          err.flush();
+          w.println("loadstone: internal error: " + ex);
+          ex.printStackTrace(w);
+          w.println("This is a bug in Loadstone; please report it with the lines above.");
+          w.flush();
           return EXIT_INTERNAL;
         });
     return cl.execute(args);

@@ -1,0 +1,180 @@
+package org.loadstone.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.BufferedReader;
+import java.io.InputStreamReader;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicInteger;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.Timeout;
+import org.junit.jupiter.api.io.TempDir;
+import org.loadstone.archive.FinishCause;
+import org.loadstone.archive.JournalRecovery;
+import org.loadstone.archive.Run;
+import org.loadstone.archive.RunReader;
+import org.loadstone.archive.StoredRun;
+import org.loadstone.device.SimSetup;
+import org.loadstone.device.SocatPair;
+import org.loadstone.device.sim.SimulatedFrame;
+
+/** {@code loadstone record} end to end: the simulated frame, a pseudo-terminal cable, a crash. */
+class RecordCommandTest {
+  @TempDir Path tmp;
+
+  record Outcome(int exit, String out, String err) {
+    JsonNode json() throws Exception {
+      String[] lines = out.trim().split("\n");
+      return new ObjectMapper().readTree(lines[lines.length - 1]);
+    }
+  }
+
+  static Outcome run(String... args) {
+    StringWriter o = new StringWriter();
+    StringWriter e = new StringWriter();
+    int code = LoadstoneCommand.run(new PrintWriter(o, true), new PrintWriter(e, true), args);
+    return new Outcome(code, o.toString(), e.toString());
+  }
+
+  @Test
+  @Timeout(90)
+  void brittleRunOnTheSimulatorStopsAtTheBreakAndIsStored() throws Exception {
+    Outcome r = run("record", "--port", "sim", "--scenario", "panel-balsa", "--rate", "1000",
+        "--sim-speed", "8", "--specimen", "balsa-01", "--group", "balsa", "--mass-g", "61.5",
+        "--span-mm", "200", "--width-mm", "50", "--depth-mm", "12", "--archive",
+        tmp.toString(), "--json");
+    assertThat(r.exit()).as(r.err()).isZero();
+    JsonNode j = r.json();
+    assertThat(j.get("cause").asText()).isEqualTo("break");
+    assertThat(j.get("dropped").asLong()).isZero();
+    Run run = RunReader.read(Path.of(j.get("csv").asText()));
+    assertThat(run.metadata().cause()).isEqualTo(FinishCause.BREAK);
+    assertThat(run.metadata().group()).isEqualTo("balsa");
+    assertThat(run.metadata().mass_g()).isEqualTo(61.5);
+    assertThat(run.metadata().sampleRate_Hz()).isCloseTo(1000, org.assertj.core.data.Offset.offset(5.0));
+    assertThat(run.data().size()).isEqualTo(j.get("samples").asInt());
+    assertThat(Files.list(tmp.resolve(".journal")).count()).as("journal removed").isZero();
+    assertThat(r.err()).contains("no calibration");
+  }
+
+  @Test
+  void badThresholdsAreRefusedBeforeTheDeviceOpens() {
+    Outcome r = run("record", "--port", "/dev/ttyNOPE9", "--counts-per-n", "100",
+        "--capacity-N", "500", "--specimen", "x", "--stop-drop-pct", "100",
+        "--archive", tmp.toString());
+    assertThat(r.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
+    assertThat(r.err()).contains("--stop-drop-pct").doesNotContain("ttyNOPE9").doesNotContain("at org.");
+    Outcome r2 = run("record", "--port", "sim", "--specimen", "x", "--start-at-N", "-3",
+        "--archive", tmp.toString());
+    assertThat(r2.err()).contains("--start-at-N");
+  }
+
+  @Test
+  void unwritableArchiveIsReportedBeforeTheRun() throws Exception {
+    Path file = Files.writeString(tmp.resolve("afile"), "x");
+    Outcome r = run("record", "--port", "sim", "--specimen", "x", "--archive",
+        file.resolve("runs").toString());
+    assertThat(r.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
+    assertThat(r.err()).contains("cannot write runs to the archive folder").contains("--archive");
+  }
+
+  @Test
+  void serialDeviceWithoutCalibrationOrCapacityIsRefused() {
+    Outcome r = run("record", "--port", "/dev/ttyNOPE9", "--specimen", "x",
+        "--archive", tmp.toString());
+    assertThat(r.err()).contains("--cal").contains("--counts-per-n");
+    Outcome r2 = run("record", "--port", "/dev/ttyNOPE9", "--specimen", "x", "--counts-per-n",
+        "100", "--archive", tmp.toString());
+    assertThat(r2.err()).contains("--capacity-N");
+  }
+
+  @Test
+  @Timeout(90)
+  void cablePulledMidRunKeepsTheDataAsDeviceLost() throws Exception {
+    try (SocatPair pty = SocatPair.start()) {
+      Thread writer = new Thread(() -> LoadstoneCommand.run(new PrintWriter(new StringWriter()),
+          new PrintWriter(new StringWriter()), "simulate", "--scenario", "ductile", "--rate",
+          "1000", "--seconds", "60", "--seed", "4", "--out", pty.a().toString()));
+      writer.setDaemon(true);
+      writer.start();
+      AtomicInteger exit = new AtomicInteger(-1);
+      StringWriter o = new StringWriter();
+      StringWriter e = new StringWriter();
+      Thread rec = new Thread(() -> exit.set(LoadstoneCommand.run(new PrintWriter(o, true),
+          new PrintWriter(e, true), "record", "--port", pty.b().toString(), "--counts-per-n",
+          Double.toString(new SimSetup("ductile", 4, 1000, false, 1).nominalCountsPerN()),
+          "--capacity-N", "500", "--specimen", "cable", "--manual-start", "--archive",
+          tmp.toString(), "--json")));
+      rec.start();
+      long until = System.nanoTime() + 20_000_000_000L;
+      while (!e.toString().contains("recording") && System.nanoTime() < until) {
+        Thread.sleep(20);
+      }
+      Thread.sleep(1500);
+      pty.kill();
+      rec.join(30_000);
+      assertThat(exit.get()).as(e.toString()).isZero();
+      Outcome r = new Outcome(exit.get(), o.toString(), e.toString());
+      assertThat(r.json().get("cause").asText()).isEqualTo("device-lost");
+      assertThat(r.json().get("samples").asLong()).isGreaterThan(1000);
+      assertThat(r.err()).doesNotContain("Exception").doesNotContain("\tat ");
+      Run run = RunReader.read(Path.of(r.json().get("csv").asText()));
+      assertThat(run.metadata().cause()).isEqualTo(FinishCause.DEVICE_LOST);
+    }
+  }
+
+  @Test
+  @Timeout(120)
+  void killedWithSigkillTheJournalIsRecoveredAtTheNextStart() throws Exception {
+    ProcessBuilder pb = new ProcessBuilder(Path.of(System.getProperty("java.home"), "bin", "java")
+        .toString(), "-cp", System.getProperty("java.class.path"), "org.loadstone.Main", "record",
+        "--port", "sim", "--scenario", "panel-foam", "--seed", "9", "--rate", "1000",
+        "--specimen", "crash-01", "--manual-start", "--archive", tmp.toString());
+    pb.redirectErrorStream(true);
+    Process p = pb.start();
+    BufferedReader lines = new BufferedReader(
+        new InputStreamReader(p.getInputStream(), StandardCharsets.UTF_8));
+    String line;
+    while ((line = lines.readLine()) != null && !line.contains("recording now")) {
+      // wait for the run to start
+    }
+    long recordingSince = System.nanoTime();
+    Thread.sleep(2000);
+    p.destroyForcibly(); // SIGKILL
+    p.waitFor(10, TimeUnit.SECONDS);
+    double aliveFor_s = (System.nanoTime() - recordingSince) / 1e9;
+    assertThat(Files.list(tmp).filter(f -> f.toString().endsWith(".csv")).count()).isZero();
+
+    List<StoredRun> recovered = JournalRecovery.recoverAll(tmp);
+    assertThat(recovered).hasSize(1);
+    Run run = RunReader.read(recovered.get(0).csv());
+    assertThat(run.metadata().cause()).isEqualTo(FinishCause.RECOVERED);
+    // the journal is forced to disk at least every 100 ms: of the ~2 s recorded at 1000
+    // samples/s, at most 100 ms (plus the kill's own latency, ~50 ms) may be missing
+    int n = run.data().size();
+    assertThat(n).isGreaterThanOrEqualTo((int) ((aliveFor_s - 0.15) * 1000));
+    // and what was recovered is bit-exact with the simulator's stream for the same seed
+    SimulatedFrame truth = new SimSetup("panel-foam", 9, 1000, false, 1).buildFrame();
+    int[] counts = run.data().rawCounts();
+    int[] seq = run.data().seq();
+    int[] mismatch = {0};
+    for (int i = 0; i < n; i++) {
+      int k = i;
+      truth.next((s, us, load, pos) -> {
+        if (s != seq[k] || load != counts[k]) {
+          mismatch[0]++;
+        }
+      });
+    }
+    assertThat(mismatch[0]).isZero();
+    assertThat(Files.list(tmp.resolve(".journal")).filter(Files::isRegularFile).count()).isZero();
+  }
+}
