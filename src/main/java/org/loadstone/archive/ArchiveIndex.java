@@ -1,0 +1,142 @@
+package org.loadstone.archive;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.stream.Stream;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
+
+/**
+ * The runs in an archive folder, found by their JSON sidecars, with search by date, specimen,
+ * group, tag and finish cause. Reads metadata only; samples are read on demand. A damaged sidecar
+ * does not hide the others: it is listed in {@link #problems()}.
+ */
+public final class ArchiveIndex {
+  /**
+   * One run in the index.
+   *
+   * @param metadata its sidecar
+   * @param json the sidecar file
+   * @param csv the samples file beside it
+   */
+  public record Entry(RunMetadata metadata, Path json, Path csv) {}
+
+  private final Path dir;
+  private final List<Entry> entries;
+  private final List<String> problems;
+
+  private ArchiveIndex(Path dir, List<Entry> entries, List<String> problems) {
+    this.dir = dir;
+    this.entries = List.copyOf(entries);
+    this.problems = List.copyOf(problems);
+  }
+
+  /**
+   * Scans a folder (not its sub-folders).
+   *
+   * @throws LoadstoneException when the folder does not exist or cannot be listed
+   */
+  public static ArchiveIndex scan(Path dir) {
+    Precondition.notNull(dir, "dir");
+    if (!Files.isDirectory(dir)) {
+      throw new LoadstoneException("archive folder " + dir + " does not exist: record a run "
+          + "first, or pass --archive DIR for another folder");
+    }
+    List<Entry> found = new ArrayList<>();
+    List<String> problems = new ArrayList<>();
+    try (Stream<Path> s = Files.list(dir)) {
+      for (Path json : (Iterable<Path>) s.filter(p -> p.toString().endsWith(".json")).sorted()::iterator) {
+        try {
+          RunMetadata m = RunReader.readMetadata(json);
+          String stem = json.getFileName().toString().replaceFirst("\\.json$", "");
+          found.add(new Entry(m, json, json.resolveSibling(stem + ".csv")));
+        } catch (LoadstoneException e) {
+          problems.add(e.getMessage());
+        }
+      }
+    } catch (IOException e) {
+      throw new LoadstoneException("archive folder " + dir + " cannot be listed: "
+          + e.getMessage(), e);
+    }
+    found.sort(Comparator.comparing((Entry e) -> e.metadata().startedAt())
+        .thenComparing(e -> e.metadata().runId()));
+    return new ArchiveIndex(dir, found, problems);
+  }
+
+  /** @return the folder */
+  public Path folder() {
+    return dir;
+  }
+
+  /** @return every run, oldest first */
+  public List<Entry> entries() {
+    return entries;
+  }
+
+  /** @return sidecars that could not be read, as messages naming the file and the field */
+  public List<String> problems() {
+    return problems;
+  }
+
+  /**
+   * Finds one run by id (or a unique prefix of it).
+   *
+   * @throws LoadstoneException when none or several match
+   */
+  public Entry find(String idOrPrefix) {
+    List<Entry> m = entries.stream().filter(e -> e.metadata().runId().startsWith(idOrPrefix))
+        .toList();
+    Optional<Entry> exact = m.stream().filter(e -> e.metadata().runId().equals(idOrPrefix))
+        .findFirst();
+    if (exact.isPresent()) {
+      return exact.get();
+    }
+    if (m.size() == 1) {
+      return m.get(0);
+    }
+    if (m.isEmpty()) {
+      throw new LoadstoneException("no run '" + idOrPrefix + "' in " + dir
+          + ": 'loadstone runs' lists the runs there");
+    }
+    throw new LoadstoneException("'" + idOrPrefix + "' matches " + m.size() + " runs in " + dir
+        + ": give more of the id");
+  }
+
+  /**
+   * What to look for; null fields match everything.
+   *
+   * @param from earliest start, inclusive
+   * @param to latest start, exclusive
+   * @param specimen text the specimen id contains (any case)
+   * @param group exact group name (any case)
+   * @param tag a tag the run has (any case)
+   * @param cause finish cause
+   */
+  public record Query(Instant from, Instant to, String specimen, String group, String tag,
+      FinishCause cause) {
+    /** Matches every run. */
+    public static final Query ALL = new Query(null, null, null, null, null, null);
+
+    boolean matches(RunMetadata m) {
+      return (from == null || !m.startedAt().isBefore(from))
+          && (to == null || m.startedAt().isBefore(to))
+          && (specimen == null || m.specimen().toLowerCase(Locale.ROOT)
+              .contains(specimen.toLowerCase(Locale.ROOT)))
+          && (group == null || m.group().equalsIgnoreCase(group))
+          && (tag == null || m.tags().stream().anyMatch(t -> t.equalsIgnoreCase(tag)))
+          && (cause == null || m.cause() == cause);
+    }
+  }
+
+  /** @return the runs matching {@code q}, oldest first */
+  public List<Entry> search(Query q) {
+    return entries.stream().filter(e -> q.matches(e.metadata())).toList();
+  }
+}
