@@ -96,6 +96,16 @@ public final class JournalWriter implements AutoCloseable {
     return lost;
   }
 
+  /**
+   * @return why the journal stopped writing (e.g. "No space left on device"), or empty while it
+   *     is healthy; once set, no more samples reach the journal
+   */
+  public java.util.Optional<String> problem() {
+    IOException f = failure;
+    return f == null ? java.util.Optional.empty()
+        : java.util.Optional.of("journal " + file + " stopped: " + f.getMessage());
+  }
+
   private void loop() {
     long lastForce = System.nanoTime();
     long intervalNs = TimeUnit.MILLISECONDS.toNanos(FORCE_INTERVAL_MS);

@@ -61,6 +61,7 @@ class JournalWriterTest {
     assertThat(w.samplesWritten()).isEqualTo(20_200);
     assertThat(w.samplesDurable()).isEqualTo(20_200);
     assertThat(w.samplesLost()).isZero();
+    assertThat(w.problem()).isEmpty();
     JournalContents c = JournalRecovery.readJournal(w.file());
     assertThat(c.firstIndex()).isEqualTo(100);
     assertThat(c.tornBytes()).isZero();

@@ -120,6 +120,15 @@ class RunRoundTripTest {
   }
 
   @Test
+  void blankLinesAreSkippedAndLineNumbersStayPhysical() throws Exception {
+    Path p = runWithCsv("bad10", HEAD + "0.0,1,,5,,1\n\n0.1,x,,5,,2\n");
+    assertThatThrownBy(() -> RunReader.read(p)).isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("line 4, column 2 (force_N)");
+    Path q = runWithCsv("ok10", HEAD + "0.0,1,,5,,1\r\n\r\n0.1,2,,6,,2\r\n");
+    assertThat(RunReader.read(q).data().force_N()).containsExactly(1.0, 2.0);
+  }
+
+  @Test
   void timeOutOfOrderIsRefused() throws Exception {
     Path p = runWithCsv("bad4", HEAD + "0.0,1,,5,,1\n0.2,1,,5,,2\n0.2,1,,5,,3\n");
     assertThatThrownBy(() -> RunReader.read(p)).isInstanceOf(LoadstoneException.class)
