@@ -88,6 +88,45 @@ class JournalWriterTest {
   }
 
   @Test
+  void aFullDiskStopsTheJournalWithoutStoppingTheRing() throws Exception {
+    SampleRing ring = new SampleRing(1 << 10);
+    java.util.concurrent.atomic.AtomicLong bytes = new java.util.concurrent.atomic.AtomicLong();
+    JournalWriter.Sink full = new JournalWriter.Sink() {
+      @Override
+      public void write(java.nio.ByteBuffer records) throws java.io.IOException {
+        if (bytes.addAndGet(records.remaining()) > 100 * JournalFormat.RECORD_BYTES) {
+          throw new java.io.IOException("No space left on device");
+        }
+        records.position(records.limit());
+      }
+
+      @Override
+      public void force() {}
+
+      @Override
+      public void close() {}
+    };
+    Path file = archive.resolve("w3.journal");
+    JournalWriter w = new JournalWriter(file, full, ring.cursorAtEnd()).begin();
+    for (long i = 0; i < 5000; i++) {
+      JournalSamples.put(ring, i); // the device side goes on regardless
+      if (i % 50 == 0) {
+        Thread.sleep(1);
+      }
+    }
+    assertThat(ring.written()).isEqualTo(5000);
+    long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(10);
+    while (w.problem().isEmpty() && System.nanoTime() < deadline) {
+      Thread.sleep(5);
+    }
+    assertThat(w.problem()).hasValueSatisfying(m -> assertThat(m)
+        .contains("w3.journal").contains("No space left on device"));
+    assertThatThrownBy(w::finish).isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("w3.journal").hasMessageContaining("free disk space");
+    assertThat(w.samplesWritten()).isLessThanOrEqualTo(100);
+  }
+
+  @Test
   void sigkilledWriterLosesAtMost100msOfSamples() throws Exception {
     String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
     Process p = new ProcessBuilder(java, "-cp", System.getProperty("java.class.path"),
