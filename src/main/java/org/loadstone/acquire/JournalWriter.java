@@ -36,8 +36,36 @@ public final class JournalWriter implements AutoCloseable {
   public static final long POLL_MS = 2;
   private static final int BATCH = 4096;
 
+  /** Where records go; a file channel outside tests. */
+  interface Sink extends java.io.Closeable {
+    void write(ByteBuffer records) throws IOException;
+
+    void force() throws IOException;
+  }
+
+  private static Sink of(FileChannel ch) {
+    return new Sink() {
+      @Override
+      public void write(ByteBuffer records) throws IOException {
+        while (records.hasRemaining()) {
+          ch.write(records);
+        }
+      }
+
+      @Override
+      public void force() throws IOException {
+        ch.force(false);
+      }
+
+      @Override
+      public void close() throws IOException {
+        ch.close();
+      }
+    };
+  }
+
   private final Path file;
-  private final FileChannel channel;
+  private final Sink channel;
   private final SampleRing.Cursor cursor;
   private final Thread thread;
   private final ByteBuffer buf = ByteBuffer.allocate(BATCH * JournalFormat.RECORD_BYTES);
@@ -48,12 +76,18 @@ public final class JournalWriter implements AutoCloseable {
   private volatile long lost;
   private volatile IOException failure;
 
-  private JournalWriter(Path file, FileChannel channel, SampleRing.Cursor cursor) {
+  JournalWriter(Path file, Sink channel, SampleRing.Cursor cursor) {
     this.file = file;
     this.channel = channel;
     this.cursor = cursor;
     this.thread = new Thread(this::loop, "loadstone-journal-" + file.getFileName());
     this.thread.setDaemon(true);
+  }
+
+  /** Starts the thread of a writer made with the package-private constructor (tests). */
+  JournalWriter begin() {
+    thread.start();
+    return this;
   }
 
   /**
@@ -71,9 +105,8 @@ public final class JournalWriter implements AutoCloseable {
     Precondition.notNull(cursor, "cursor");
     FileChannel ch = JournalFormat.create(archiveDir, startInfo);
     JournalWriter w = new JournalWriter(
-        JournalFormat.journalFile(archiveDir, startInfo.runId()), ch, cursor);
-    w.thread.start();
-    return w;
+        JournalFormat.journalFile(archiveDir, startInfo.runId()), of(ch), cursor);
+    return w.begin();
   }
 
   /** @return the journal file */
@@ -96,6 +129,16 @@ public final class JournalWriter implements AutoCloseable {
     return lost;
   }
 
+  /**
+   * @return why the journal stopped writing (e.g. "No space left on device"), or empty while it
+   *     is healthy; once set, no more samples reach the journal
+   */
+  public java.util.Optional<String> problem() {
+    IOException f = failure;
+    return f == null ? java.util.Optional.empty()
+        : java.util.Optional.of("journal " + file + " stopped: " + f.getMessage());
+  }
+
   private void loop() {
     long lastForce = System.nanoTime();
     long intervalNs = TimeUnit.MILLISECONDS.toNanos(FORCE_INTERVAL_MS);
@@ -108,9 +151,7 @@ public final class JournalWriter implements AutoCloseable {
         int n = cursor.drain(this::append, BATCH);
         if (n > 0) {
           buf.flip();
-          while (buf.hasRemaining()) {
-            channel.write(buf);
-          }
+          channel.write(buf);
           buf.clear();
           written += n;
         }
@@ -120,7 +161,7 @@ public final class JournalWriter implements AutoCloseable {
         if (written > durable && (done || now - lastForce >= intervalNs)) {
           long w = written;
           lastForce = now;
-          channel.force(false);
+          channel.force();
           durable = w;
         }
         if (done) {

@@ -70,6 +70,7 @@ public final class JournalFormat {
     ObjectNode m = RunJson.toTree(startInfo);
     RunJson.END_FIELDS.forEach(m::remove);
     o.setAll(m);
+    o.put("journal_format", VERSION); // an extra field of that name must not hide the version
     try {
       return (RunJson.LINE.writeValueAsString(o) + "\n").getBytes(StandardCharsets.UTF_8);
     } catch (JsonProcessingException e) {
@@ -90,10 +91,10 @@ public final class JournalFormat {
     Path dir = journalDir(archiveDir);
     RunWriter.ensureFolder(dir);
     Path file = journalFile(archiveDir, id);
+    ByteBuffer b = ByteBuffer.wrap(header(startInfo)); // before the file exists: keeps it short-lived
     FileChannel ch = null;
     try {
       ch = FileChannel.open(file, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
-      ByteBuffer b = ByteBuffer.wrap(header(startInfo));
       while (b.hasRemaining()) {
         ch.write(b);
       }

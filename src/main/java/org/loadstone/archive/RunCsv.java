@@ -33,7 +33,7 @@ final class RunCsv {
   private static final CSVFormat WRITE = CSVFormat.DEFAULT.builder()
       .setHeader(HEADER.toArray(String[]::new)).setRecordSeparator("\n").get();
   private static final CSVFormat READ = CSVFormat.DEFAULT.builder().setHeader()
-      .setSkipHeaderRecord(true).setIgnoreEmptyLines(true).get();
+      .setSkipHeaderRecord(true).setIgnoreEmptyLines(false).get();
 
   private RunCsv() {}
 
@@ -91,7 +91,11 @@ final class RunCsv {
       Boolean hasPos = null;
       double prevT = Double.NaN;
       for (CSVRecord r : parser) {
+        // empty lines are records too (ignoreEmptyLines off), so record numbers stay line numbers
         long line = r.getRecordNumber() + 1;
+        if (r.size() == 1 && r.get(0).isEmpty() && cols.size() > 1) {
+          continue;
+        }
         if (!r.isConsistent()) {
           throw new LoadstoneException("run file " + file + ", line " + line + ": " + r.size()
               + " cells where the header has " + cols.size() + " (column " + (r.size() + 1)
