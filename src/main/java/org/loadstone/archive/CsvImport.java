@@ -94,12 +94,12 @@ public final class CsvImport {
             + "; check the skip count and that the file is a CSV.");
       }
       CSVRecord h = it.next();
-      headerLine = lineOf(lineStarts, bodyStart + (int) h.getCharacterPosition());
+      headerLine = lineOf(text, lineStarts, bodyStart + (int) h.getCharacterPosition());
       header = h.toList();
       while (it.hasNext()) {
         CSVRecord r = it.next();
         rows.add(r.toList().toArray(new String[0]));
-        rowLines.add(lineOf(lineStarts, bodyStart + (int) r.getCharacterPosition()));
+        rowLines.add(lineOf(text, lineStarts, bodyStart + (int) r.getCharacterPosition()));
       }
     } catch (IOException | UncheckedIOException e) {
       throw new LoadstoneException("File " + name + " is not a readable CSV: " + e.getMessage()
@@ -227,7 +227,11 @@ public final class CsvImport {
   }
 
   /** @return the 1-based line holding a character offset */
-  private static int lineOf(int[] starts, int offset) {
+  private static int lineOf(String text, int[] starts, int offset) {
+    // the parser reports where it started looking, before any empty lines it skipped
+    while (offset < text.length() && (text.charAt(offset) == '\n' || text.charAt(offset) == '\r')) {
+      offset++;
+    }
     int k = Arrays.binarySearch(starts, offset);
     return (k >= 0 ? k : -k - 2) + 1;
   }
