@@ -1,0 +1,276 @@
+package org.loadstone.report;
+
+import java.awt.BasicStroke;
+import java.awt.Color;
+import java.awt.Font;
+import java.awt.geom.Ellipse2D;
+import java.awt.geom.Rectangle2D;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.jfree.chart.JFreeChart;
+import org.jfree.chart.annotations.XYLineAnnotation;
+import org.jfree.chart.annotations.XYPointerAnnotation;
+import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.axis.SymbolAxis;
+import org.jfree.chart.plot.XYPlot;
+import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
+import org.jfree.chart.title.TextTitle;
+import org.jfree.chart.ui.RectangleInsets;
+import org.jfree.chart.ui.TextAnchor;
+import org.jfree.data.xy.XYSeries;
+import org.jfree.data.xy.XYSeriesCollection;
+import org.loadstone.analysis.Curve;
+import org.loadstone.analysis.RunResult;
+import org.loadstone.analysis.StiffnessFit;
+import org.loadstone.analysis.stats.ComparisonResult;
+import org.loadstone.analysis.stats.GroupSummary;
+import org.loadstone.archive.RunMetrics;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
+
+/**
+ * JFreeChart charts of runs and groups, drawn for print: white background, light grid, a calm
+ * palette of muted blues, greens and earth tones. No JavaFX.
+ */
+public final class Charts {
+  private Charts() {}
+
+  /** Series colours, in order of use. */
+  static final Color[] PALETTE = {
+    new Color(0x35, 0x5C, 0x7D), new Color(0x6C, 0x9A, 0x8B), new Color(0xB8, 0x86, 0x4B),
+    new Color(0x8E, 0x5B, 0x6E), new Color(0x7D, 0x86, 0x4F), new Color(0x5F, 0x6B, 0xA8),
+    new Color(0x9C, 0x6B, 0x4E), new Color(0x4B, 0x85, 0x9E)
+  };
+  private static final Color INK = new Color(0x2E, 0x34, 0x3B);
+  private static final Color GRID = new Color(0xDD, 0xE1, 0xE6);
+  private static final Color ACCENT = new Color(0xB0, 0x4A, 0x3A);
+  private static final Font LABEL = new Font(Font.SANS_SERIF, Font.PLAIN, 11);
+  private static final Font TITLE = new Font(Font.SANS_SERIF, Font.BOLD, 13);
+
+  /**
+   * Force against displacement (from the first sample) for a run with position, otherwise force
+   * against time; with the stiffness line (when fitted and with position), the break point and
+   * the peak annotated.
+   *
+   * @param m the run's metrics, not null
+   * @return a new chart
+   */
+  public static JFreeChart run(RunMetrics m) {
+    Precondition.notNull(m, "metrics");
+    Curve c = m.curve();
+    RunResult r = m.analysis();
+    double[] x = xValues(c);
+    double[] f = c.force_N();
+    XYSeriesCollection ds = new XYSeriesCollection();
+    XYSeries curve = new XYSeries("force", false, true);
+    for (int i = 0; i < f.length; i++) {
+      curve.add(x[i], f[i], false);
+    }
+    ds.addSeries(curve);
+    XYLineAndShapeRenderer rend = new XYLineAndShapeRenderer(true, false);
+    rend.setSeriesPaint(0, PALETTE[0]);
+    rend.setSeriesStroke(0, new BasicStroke(1.6f));
+    int next = 1;
+    if (c.hasPosition() && r.stiffness().isPresent()) {
+      StiffnessFit fit = r.stiffness().get();
+      double top = Math.min(r.peakForce_N(), fit.toForce_N() + 0.35 * (r.peakForce_N()
+          - fit.toForce_N()));
+      XYSeries line = new XYSeries(String.format(Locale.ROOT, "stiffness %.4g N/mm",
+          fit.slope_N_per_mm()), false, true);
+      line.add(fit.toeOffset_mm(), 0.0);
+      line.add((top - fit.intercept_N()) / fit.slope_N_per_mm(), top);
+      ds.addSeries(line);
+      rend.setSeriesPaint(next, PALETTE[2]);
+      rend.setSeriesStroke(next, new BasicStroke(1.4f, BasicStroke.CAP_ROUND,
+          BasicStroke.JOIN_ROUND, 1f, new float[] {6f, 4f}, 0f));
+      next++;
+    }
+    if (r.breakPoint().isPresent()) {
+      int b = r.breakPoint().get().index();
+      XYSeries brk = new XYSeries("break", false, true);
+      brk.add(x[b], f[b]);
+      ds.addSeries(brk);
+      rend.setSeriesLinesVisible(next, false);
+      rend.setSeriesShapesVisible(next, true);
+      rend.setSeriesShape(next, new Rectangle2D.Double(-4, -4, 8, 8));
+      rend.setSeriesPaint(next, ACCENT);
+    }
+    String xLabel = c.hasPosition() ? "displacement (mm)" : "time (s)";
+    XYPlot plot = plot(ds, rend, new NumberAxis(xLabel), "force (N)");
+    int p = r.peakIndex();
+    XYPointerAnnotation peak = new XYPointerAnnotation(
+        String.format(Locale.ROOT, "peak %.4g N", r.peakForce_N()), x[p], f[p], -Math.PI / 4);
+    peak.setFont(LABEL);
+    peak.setPaint(INK);
+    peak.setArrowPaint(INK);
+    peak.setTextAnchor(TextAnchor.BOTTOM_LEFT);
+    plot.addAnnotation(peak);
+    String title = m.metadata().specimen().isBlank() ? m.metadata().runId()
+        : m.metadata().specimen();
+    return chart(title, plot, ds.getSeriesCount() > 1);
+  }
+
+  /**
+   * The curves of several runs on one chart, one colour per group (legend: one entry per group).
+   *
+   * @param groups group name → runs, in order; at least one run in all
+   * @return a new chart; force against displacement when every run has position, else time
+   * @throws LoadstoneException when there is no run
+   */
+  public static JFreeChart overlay(String title, Map<String, List<RunMetrics>> groups) {
+    Precondition.notNull(groups, "groups");
+    boolean allPosition = true;
+    int count = 0;
+    for (List<RunMetrics> l : groups.values()) {
+      for (RunMetrics m : l) {
+        allPosition &= m.curve().hasPosition();
+        count++;
+      }
+    }
+    if (count == 0) {
+      throw new LoadstoneException("An overlay chart needs at least one run; select runs first.");
+    }
+    XYSeriesCollection ds = new XYSeriesCollection();
+    XYLineAndShapeRenderer rend = new XYLineAndShapeRenderer(true, false);
+    int g = 0;
+    int s = 0;
+    for (Map.Entry<String, List<RunMetrics>> e : groups.entrySet()) {
+      Color colour = PALETTE[g % PALETTE.length];
+      boolean first = true;
+      for (RunMetrics m : e.getValue()) {
+        XYSeries series = new XYSeries(first ? e.getKey() : e.getKey() + " #" + s, false, true);
+        double[] x = allPosition ? displacement(m.curve()) : m.curve().time_s();
+        double[] f = m.curve().force_N();
+        for (int i = 0; i < f.length; i++) {
+          series.add(x[i], f[i], false);
+        }
+        ds.addSeries(series);
+        rend.setSeriesPaint(s, colour);
+        rend.setSeriesStroke(s, new BasicStroke(1.1f));
+        rend.setSeriesVisibleInLegend(s, first);
+        first = false;
+        s++;
+      }
+      g++;
+    }
+    String xLabel = allPosition ? "displacement (mm)" : "time (s)";
+    return chart(title, plot(ds, rend, new NumberAxis(xLabel), "force (N)"), true);
+  }
+
+  /**
+   * One metric by group: each specimen as a point (spread sideways so equal values stay
+   * visible), with the group mean as a bar and its 95 % confidence interval as a whisker.
+   *
+   * @param result the comparison (gives means and intervals), not null
+   * @param values group name → per-specimen values, the same groups as the result
+   * @param axisLabel value axis label with unit, e.g. "peak force (N)"
+   * @return a new chart
+   */
+  public static JFreeChart strip(ComparisonResult result, Map<String, List<Double>> values,
+      String axisLabel) {
+    Precondition.notNull(result, "result");
+    Precondition.notNull(values, "values");
+    List<GroupSummary> groups = result.groups();
+    String[] names = new String[groups.size()];
+    XYSeriesCollection ds = new XYSeriesCollection();
+    XYLineAndShapeRenderer rend = new XYLineAndShapeRenderer(false, true);
+    List<XYLineAnnotation> bars = new ArrayList<>();
+    BasicStroke thick = new BasicStroke(2.2f);
+    BasicStroke thin = new BasicStroke(1.2f);
+    for (int gi = 0; gi < groups.size(); gi++) {
+      GroupSummary gs = groups.get(gi);
+      names[gi] = gs.name();
+      XYSeries pts = new XYSeries(gs.name(), false, true);
+      List<Double> v = values.getOrDefault(gs.name(), List.of());
+      for (int i = 0; i < v.size(); i++) {
+        double off = v.size() == 1 ? 0 : -0.12 + 0.24 * i / (v.size() - 1);
+        pts.add(gi - 0.1 + off, v.get(i));
+      }
+      ds.addSeries(pts);
+      rend.setSeriesPaint(gi, PALETTE[gi % PALETTE.length]);
+      rend.setSeriesShape(gi, new Ellipse2D.Double(-3.5, -3.5, 7, 7));
+      double xm = gi + 0.25;
+      bars.add(new XYLineAnnotation(xm - 0.12, gs.mean(), xm + 0.12, gs.mean(), thick, INK));
+      if (gs.ci95Low().isPresent()) {
+        double lo = gs.ci95Low().getAsDouble();
+        double hi = gs.ci95High().getAsDouble();
+        bars.add(new XYLineAnnotation(xm, lo, xm, hi, thin, INK));
+        bars.add(new XYLineAnnotation(xm - 0.05, lo, xm + 0.05, lo, thin, INK));
+        bars.add(new XYLineAnnotation(xm - 0.05, hi, xm + 0.05, hi, thin, INK));
+      }
+    }
+    SymbolAxis xAxis = new SymbolAxis("group", names);
+    xAxis.setGridBandsVisible(false);
+    xAxis.setRange(-0.6, names.length - 0.4);
+    XYPlot plot = plot(ds, rend, xAxis, axisLabel);
+    ((NumberAxis) plot.getRangeAxis()).setAutoRangeIncludesZero(false);
+    bars.forEach(plot::addAnnotation);
+    // keep the whiskers inside the visible range
+    double lo = Double.POSITIVE_INFINITY;
+    double hi = Double.NEGATIVE_INFINITY;
+    for (GroupSummary gs : groups) {
+      lo = Math.min(lo, gs.ci95Low().orElse(gs.mean()));
+      hi = Math.max(hi, gs.ci95High().orElse(gs.mean()));
+      for (double v : values.getOrDefault(gs.name(), List.of())) {
+        lo = Math.min(lo, v);
+        hi = Math.max(hi, v);
+      }
+    }
+    double pad = hi > lo ? 0.08 * (hi - lo) : Math.max(1e-9, Math.abs(hi) * 0.05 + 1e-9);
+    plot.getRangeAxis().setRange(lo - pad, hi + pad);
+    return chart(result.metric() + " by group (mean and 95 % interval)", plot, false);
+  }
+
+  private static double[] xValues(Curve c) {
+    return c.hasPosition() ? displacement(c) : c.time_s();
+  }
+
+  private static double[] displacement(Curve c) {
+    double[] p = c.position_mm();
+    double p0 = p[0];
+    for (int i = 0; i < p.length; i++) {
+      p[i] -= p0;
+    }
+    return p;
+  }
+
+  private static XYPlot plot(XYSeriesCollection ds, XYLineAndShapeRenderer rend,
+      org.jfree.chart.axis.ValueAxis xAxis, String yLabel) {
+    NumberAxis yAxis = new NumberAxis(yLabel);
+    for (org.jfree.chart.axis.ValueAxis a : new org.jfree.chart.axis.ValueAxis[] {xAxis, yAxis}) {
+      a.setLabelFont(LABEL);
+      a.setTickLabelFont(LABEL);
+      a.setLabelPaint(INK);
+      a.setTickLabelPaint(INK);
+      a.setAxisLinePaint(INK);
+    }
+    if (xAxis instanceof NumberAxis n) {
+      n.setAutoRangeIncludesZero(false);
+    }
+    XYPlot plot = new XYPlot(ds, xAxis, yAxis, rend);
+    plot.setBackgroundPaint(Color.WHITE);
+    plot.setDomainGridlinePaint(GRID);
+    plot.setRangeGridlinePaint(GRID);
+    plot.setDomainGridlineStroke(new BasicStroke(0.6f));
+    plot.setRangeGridlineStroke(new BasicStroke(0.6f));
+    plot.setOutlinePaint(GRID);
+    plot.setAxisOffset(new RectangleInsets(4, 4, 4, 4));
+    return plot;
+  }
+
+  private static JFreeChart chart(String title, XYPlot plot, boolean legend) {
+    JFreeChart ch = new JFreeChart(title, TITLE, plot, legend);
+    ch.setBackgroundPaint(Color.WHITE);
+    ch.setAntiAlias(true);
+    TextTitle t = ch.getTitle();
+    t.setPaint(INK);
+    if (ch.getLegend() != null) {
+      ch.getLegend().setItemFont(LABEL);
+      ch.getLegend().setItemPaint(INK);
+      ch.getLegend().setFrame(new org.jfree.chart.block.BlockBorder(Color.WHITE));
+    }
+    return ch;
+  }
+}

@@ -1,0 +1,89 @@
+package org.loadstone.report;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+import org.apache.commons.math3.stat.inference.OneWayAnova;
+import org.apache.pdfbox.Loader;
+import org.apache.pdfbox.pdmodel.PDDocument;
+import org.apache.pdfbox.text.PDFTextStripper;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.loadstone.archive.RunMetrics;
+import org.loadstone.archive.TestRuns;
+import org.loadstone.units.LoadstoneException;
+
+class PdfReportTest {
+  @TempDir Path dir;
+
+  /** Where to keep copies for looking at: -Dloadstone.reportSamples=/some/dir (optional). */
+  private static void keep(Path pdf) throws IOException {
+    String to = System.getProperty("loadstone.reportSamples");
+    if (to != null) {
+      Files.createDirectories(Path.of(to));
+      Files.copy(pdf, Path.of(to).resolve(pdf.getFileName()),
+          java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+    }
+  }
+
+  private static String text(Path pdf) throws IOException {
+    try (PDDocument d = Loader.loadPDF(pdf.toFile())) {
+      return new PDFTextStripper().getText(d).replaceAll("\\s+", " ");
+    }
+  }
+
+  @Test
+  void runReportHoldsTheFactsResultsAndCautions() throws IOException {
+    RunMetrics m = RunMetrics.of(TestRuns.meta("FO-17", "foam", TestRuns.panel(), 52.0),
+        TestRuns.bend(60, 460));
+    Path pdf = dir.resolve("run.pdf");
+    PdfReport.writeRun(m, pdf);
+    keep(pdf);
+    String t = text(pdf);
+    assertThat(t).contains("Run report: FO-17")
+        .contains(TestRuns.CAL_HASH)
+        .contains("cal-2026-11-20-500N")
+        .contains("peak force (N) 460.0")
+        // C393 core shear stress 460/((26+20)·50) = 0.2 MPa, printed with 4 digits
+        .contains("core shear stress at peak (MPa) 0.2000")
+        .contains("R. Okafor")
+        .contains("shield and eye protection")
+        .contains("does not replace the press's own mechanical limits or an emergency stop")
+        .contains("not an accredited calibration or certification");
+    assertThatThrownBy(() -> PdfReport.writeRun(m, pdf))
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("already exists");
+  }
+
+  @Test
+  void groupReportHoldsStatisticsAndTheIndependentPValue() throws IOException {
+    Map<String, List<RunMetrics>> g = ReportFixtures.groups();
+    Path pdf = dir.resolve("groups.pdf");
+    // title with characters outside WinAnsi: must not throw
+    PdfReport.writeGroups("Shelf panels: core shear ≥ 0.2 MPa, σ in N/mm² — 试验", g,
+        PdfReport.DEFAULT_METRICS, pdf);
+    keep(pdf);
+    String t = text(pdf);
+    // reference p-value of the one-way ANOVA on the peak forces from Commons Math 3.6.1
+    double p = new OneWayAnova().anovaPValue(List.of(ReportFixtures.PEAKS));
+    assertThat(t).contains("one-way ANOVA").contains("p = " + PdfReport.formatP(p))
+        .contains("core shear >= 0.2 MPa, sigma in N/mm2")
+        .contains("Peak force (N)")
+        .contains("95 % CI low (N)")
+        .contains("Sample size:")
+        .contains("FO-1").contains("BA-3").contains("BO-4")
+        .contains("shield and eye protection");
+    assertThat(PdfReport.formatP(p)).isNotBlank();
+  }
+
+  @Test
+  void groupReportRefusesOneGroup() {
+    Map<String, List<RunMetrics>> one = Map.of("foam", ReportFixtures.groups().get("foam"));
+    assertThatThrownBy(() -> PdfReport.writeGroups("x", one, PdfReport.DEFAULT_METRICS,
+        dir.resolve("x.pdf"))).hasMessageContaining("at least 2 groups");
+  }
+}
