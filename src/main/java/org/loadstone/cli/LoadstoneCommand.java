@@ -20,6 +20,8 @@ import picocli.CommandLine.Command;
       SimulateCommand.class,
       ConsoleCommand.class,
       RecordCommand.class,
+      RunsCommand.class,
+      CompareCommand.class,
       CommandLine.HelpCommand.class
     })
 public final class LoadstoneCommand implements Runnable {
