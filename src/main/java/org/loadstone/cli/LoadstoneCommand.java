@@ -1,5 +1,6 @@
 package org.loadstone.cli;
 
+import java.io.InputStream;
 import java.io.PrintWriter;
 import org.loadstone.units.LoadstoneException;
 import picocli.CommandLine;
@@ -19,6 +20,8 @@ import picocli.CommandLine.Command;
       MonitorCommand.class,
       SimulateCommand.class,
       ConsoleCommand.class,
+      CalibrateCommand.class,
+      VerifyCommand.class,
       CommandLine.HelpCommand.class
     })
 public final class LoadstoneCommand implements Runnable {
@@ -38,7 +41,25 @@ public final class LoadstoneCommand implements Runnable {
 
   /** Runs a command line and returns its exit code. */
   public static int run(String... args) {
-    CommandLine cl = new CommandLine(new LoadstoneCommand());
+    return run(System.in, null, null, args);
+  }
+
+  /**
+   * Runs a command line with the given standard input, output and error (for tests and for
+   * embedding) and returns its exit code.
+   *
+   * @param in answers for the commands that ask questions; not null
+   * @param stdout standard output, or null for the process's
+   * @param stderr standard error, or null for the process's
+   */
+  public static int run(InputStream in, PrintWriter stdout, PrintWriter stderr, String... args) {
+    CommandLine cl = new CommandLine(new LoadstoneCommand(), CommandInput.factory(in));
+    if (stdout != null) {
+      cl.setOut(stdout);
+    }
+    if (stderr != null) {
+      cl.setErr(stderr);
+    }
     cl.setExecutionExceptionHandler(
         (ex, commandLine, parseResult) -> {
           PrintWriter err = commandLine.getErr();
