@@ -16,14 +16,17 @@ import java.util.Locale;
 final class Answers {
   private final BufferedReader in;
   private final PrintWriter out;
+  private final boolean echo;
 
   /**
-   * @param in answers, read as UTF-8 lines
+   * @param in answers, read as UTF-8 lines; when they do not come from a terminal, each answer
+   *     is echoed after its prompt so that the output reads like a session
    * @param out where prompts go
    */
   Answers(InputStream in, PrintWriter out) {
     this.in = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8));
     this.out = out;
+    this.echo = in != System.in || System.console() == null;
   }
 
   /** @return the answer without surrounding spaces, or null when the input has ended */
@@ -36,6 +39,10 @@ final class Answers {
         out.println();
         out.flush();
         return null;
+      }
+      if (echo) {
+        out.println(line.strip());
+        out.flush();
       }
       return line.strip();
     } catch (IOException e) {
