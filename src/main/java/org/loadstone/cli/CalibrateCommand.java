@@ -154,9 +154,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
           + " exists and is never overwritten: give another --id, e.g. '"
           + freeId(saveDir, calId) + "'");
     }
-    if (device.simulated() && !matched("--scenario")) {
-      device.scenario = "dead-weight";
-    }
+    LiveDevice.useDeadWeight(device, matched("--scenario"));
     LiveCalibration.Outcome o;
     String identity;
     try (LiveDevice dev = LiveDevice.open(device, out)) {
@@ -267,8 +265,9 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
 
   private void refuseLiveOptions() {
     List<String> given = new ArrayList<>();
-    for (String o : List.of("--port", "--loads", "--loads-file", "--descending", "--series",
-        "--scenario", "--seed", "--rate", "--sim-speed")) {
+    for (String o : List.of("--port", "--baud", "--reset-wait-ms", "--loads", "--loads-file",
+        "--descending", "--series", "--scenario", "--seed", "--rate", "--hand", "--sim-speed",
+        "--window-s", "--max-sd-counts", "--max-drift", "--timeout-s")) {
       if (matched(o)) {
         given.add(o);
       }

@@ -7,6 +7,7 @@ import org.loadstone.acquire.SampleRing;
 import org.loadstone.calibration.CapturedReading;
 import org.loadstone.calibration.StabilityDetector;
 import org.loadstone.device.Transport;
+import org.loadstone.device.sim.Scenario;
 import org.loadstone.protocol.DeviceMessage;
 import org.loadstone.units.LoadstoneException;
 
@@ -41,6 +42,26 @@ final class LiveDevice implements AutoCloseable {
     this.rateHz = rateHz;
     this.identity = identity;
     this.out = out;
+  }
+
+  /**
+   * For the simulator: makes {@code dead-weight} the scenario unless one was given, and refuses
+   * any other (only dead weights can be placed on the simulated cell).
+   *
+   * @param scenarioGiven whether --scenario was on the command line
+   * @throws LoadstoneException for a simulated scenario other than dead-weight
+   */
+  static void useDeadWeight(DeviceOptions options, boolean scenarioGiven) {
+    if (!options.simulated()) {
+      return;
+    }
+    if (!scenarioGiven) {
+      options.scenario = Scenario.DEAD_WEIGHT.cliName();
+    } else if (Scenario.parse(options.scenario) != Scenario.DEAD_WEIGHT) {
+      throw new LoadstoneException("--scenario " + options.scenario + " has no weights to"
+          + " place: calibrate and verify on the simulator need --scenario dead-weight (the"
+          + " default for these commands)");
+    }
   }
 
   /**

@@ -96,10 +96,8 @@ public final class VerifyCommand implements Callable<Integer>, CommandInput.Read
       err.flush();
     }
     CalibrationDocument cal = status.document();
-    if (device.simulated()
-        && !spec.commandLine().getParseResult().hasMatchedOption("--scenario")) {
-      device.scenario = "dead-weight";
-    }
+    LiveDevice.useDeadWeight(device,
+        spec.commandLine().getParseResult().hasMatchedOption("--scenario"));
     double mass_kg = mass_g / 1000;
     Answers answers = new Answers(input, out);
     CapturedReading zero;

@@ -151,6 +151,38 @@ class CalibrateLiveSimTest {
   }
 
   @Test
+  void afterATimeOutTheOperatorWaitsAgainOrSkipsTheStep() throws Exception {
+    // the simulated hanger settles with a 0.2 s time constant, so a load step is still moving
+    // after 1.3 s (time-out) but settled in the second wait; the zero step settles at once
+    Path save = dir.resolve("skip");
+    CliRun r = CliRun.run("\n" + "\nr\n" + "\ns\n" + "\nr\n", "calibrate", "--port", "sim",
+        "--cell", "c1", "--loads", "1 kg, 2 kg, 5 kg", "--window-s", "0.5", "--max-drift",
+        "200", "--timeout-s", "1.3", "--sim-speed", "40", "--save", save.toString(), "--id",
+        "k", "--operator", "tester", "--json");
+    assertThat(r.exit()).as(r.toString()).isZero();
+    assertThat(r.out()).contains("series 1, up: weights totalling 1.0 kg on the cell: reading"
+        + " did not settle within 1.3 s", "r = wait again, s = skip this step, q = quit",
+        "step skipped", "captured 5 kg");
+    var doc = org.loadstone.calibration.CalibrationFiles.readCalibration(save.resolve("k.json"));
+    assertThat(doc.points()).extracting(p -> p.mass_kg()).containsExactly(0.0, 1.0, 5.0);
+    assertThat(doc.description()).contains("1 step(s) skipped");
+  }
+
+  @Test
+  void refusesASimulatedScenarioWithoutWeightsAndAnExistingCalibrationId() {
+    CliRun scen = CliRun.run("\n", "calibrate", "--port", "sim", "--scenario", "panel-foam",
+        "--cell", "c1", "--loads", "1 kg, 2 kg");
+    assertThat(scen.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
+    assertThat(scen.err()).contains("--scenario panel-foam has no weights to place");
+    CliRun exists = CliRun.run("\n", "calibrate", "--port", "sim", "--cell", "c1", "--loads",
+        "1 kg, 2 kg", "--save", dir.toString(), "--id", "sim-cal");
+    assertThat(exists.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
+    assertThat(exists.err()).contains("sim-cal.json exists and is never overwritten",
+        "'sim-cal-2'");
+    assertThat(exists.out()).doesNotContain("Calibrating");
+  }
+
+  @Test
   void badLoadsAreRefusedBeforeTheDeviceIsOpened() {
     for (String[] c : List.of(
         new String[] {"abc, 2 kg", "--loads, weight 1: mass 'abc': cannot read 'abc'"},
