@@ -38,12 +38,13 @@ import picocli.CommandLine.Option;
     name = "calibrate",
     description = {
       "Calibrate a load cell with dead weights.",
-      "With --from, fit points captured earlier (a points CSV). Otherwise capture them live on",
-      "--port: for each step you are asked to place the weights and press Enter; the reading is",
-      "taken when it has settled. On --port sim the program puts each mass on the simulated",
-      "cell (scenario dead-weight by default).",
-      "Exit codes: 0 done, 1 stopped by the operator (nothing saved), 2 bad input,",
-      "3 device lost."
+      "With --from, fit points captured earlier (a points CSV). Otherwise capture them live on "
+          + "--port: for each step you are asked to place the weights and press Enter (or type "
+          + "the mass actually placed); the reading is taken when it has settled. On --port sim "
+          + "the program puts each mass on the simulated cell (scenario dead-weight unless "
+          + "--scenario is given).",
+      "Exit codes: 0 done, 1 stopped by the operator (nothing saved), 2 bad input, 3 device "
+          + "lost."
     })
 public final class CalibrateCommand implements Callable<Integer>, CommandInput.Reader {
   /** Exit code when the operator quits before the calibration is complete. */

@@ -6,11 +6,11 @@ import picocli.CommandLine.Option;
 
 /** When a live reading counts as settled, for the commands that capture readings. */
 final class StabilityOptions {
-  @Option(names = "--window-s", defaultValue = "1",
+  @Option(names = "--window-s", paramLabel = "S", defaultValue = "1",
       description = "Judge the reading over this many seconds of samples (default: ${DEFAULT-VALUE}).")
   double window_s;
 
-  @Option(names = "--max-sd-counts", defaultValue = "100",
+  @Option(names = "--max-sd-counts", paramLabel = "COUNTS", defaultValue = "100",
       description = "Largest standard deviation of the counts accepted as settled "
           + "(default: ${DEFAULT-VALUE}).")
   double maxSd_counts;
@@ -20,7 +20,7 @@ final class StabilityOptions {
           + "(default: ${DEFAULT-VALUE}).")
   double maxDrift_counts_per_s;
 
-  @Option(names = "--timeout-s", defaultValue = "30",
+  @Option(names = "--timeout-s", paramLabel = "S", defaultValue = "30",
       description = "Give up waiting for a settled reading after this many seconds "
           + "(default: ${DEFAULT-VALUE}).")
   double timeout_s;

@@ -27,10 +27,12 @@ import picocli.CommandLine.Option;
 @Command(
     name = "verify",
     description = {
-      "Check a calibration with a known weight: the cell is tared with no weight, the check",
-      "weight is placed, and the force the calibration indicates is compared with the weight's",
-      "force. The result is appended to ID.checks.jsonl beside the calibration file.",
-      "On --port sim the program puts the weight on the simulated cell.",
+      "Check a calibration with a known weight and log the result.",
+      "The cell is tared with no weight, the check "
+          + "weight is placed, and the force the calibration indicates is compared with the "
+          + "weight's force. The result is appended to ID.checks.jsonl beside the calibration "
+          + "file. On --port sim the program puts the weight on the simulated cell (scenario "
+          + "dead-weight unless --scenario is given).",
       "Exit codes: 0 pass, 1 fail or stopped, 2 bad input, 3 device lost."
     })
 public final class VerifyCommand implements Callable<Integer>, CommandInput.Reader {
