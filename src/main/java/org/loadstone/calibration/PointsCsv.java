@@ -138,6 +138,33 @@ public final class PointsCsv {
     }
   }
 
+  /**
+   * Writes points in the format {@link #read} takes: {@code mass_g} when every point has a mass,
+   * else {@code force_N}; then counts, direction, series, counts_sd, samples.
+   *
+   * @param points the points, not null
+   * @param comment text for a leading {@code #} line, or null for none
+   * @return the CSV text, lines ending in a newline
+   */
+  public static String format(List<CalibrationPoint> points, String comment) {
+    Precondition.notNull(points, "points");
+    boolean mass = points.stream().allMatch(p -> p.mass_kg() != null);
+    StringBuilder sb = new StringBuilder();
+    if (comment != null) {
+      for (String line : comment.split("\\R")) {
+        sb.append("# ").append(line).append('\n');
+      }
+    }
+    sb.append(mass ? "mass_g" : "force_N").append(",counts,direction,series,counts_sd,samples\n");
+    for (CalibrationPoint p : points) {
+      double load = mass ? p.mass_kg() * 1000 : p.force_N();
+      sb.append(Double.toString(load)).append(',').append(Double.toString(p.counts_mean()))
+          .append(',').append(p.direction().label()).append(',').append(p.series()).append(',')
+          .append(Double.toString(p.counts_sd())).append(',').append(p.samples()).append('\n');
+    }
+    return sb.toString();
+  }
+
   private static double number(CSVRecord rec, int c, List<String> header, String name, long line) {
     String t = rec.get(c);
     double v;

@@ -1,5 +1,6 @@
 package org.loadstone.cli;
 
+import java.io.InputStream;
 import java.io.PrintWriter;
 import org.loadstone.units.LoadstoneException;
 import picocli.CommandLine;
@@ -20,6 +21,8 @@ import picocli.CommandLine.Command;
       SimulateCommand.class,
       ConsoleCommand.class,
       RecordCommand.class,
+      CalibrateCommand.class,
+      VerifyCommand.class,
       RunsCommand.class,
       CompareCommand.class,
       CommandLine.HelpCommand.class
@@ -41,7 +44,7 @@ public final class LoadstoneCommand implements Runnable {
 
   /** Runs a command line on the process's standard streams and returns its exit code. */
   public static int run(String... args) {
-    return run(null, null, args);
+    return run(System.in, null, null, args);
   }
 
   /**
@@ -49,12 +52,24 @@ public final class LoadstoneCommand implements Runnable {
    * process's standard streams) and returns its exit code.
    */
   public static int run(PrintWriter out, PrintWriter err, String... args) {
-    CommandLine cl = new CommandLine(new LoadstoneCommand());
-    if (out != null) {
-      cl.setOut(out);
+    return run(System.in, out, err, args);
+  }
+
+  /**
+   * Runs a command line with the given standard input, output and error (for tests and for
+   * embedding) and returns its exit code.
+   *
+   * @param in answers for the commands that ask questions; not null
+   * @param stdout standard output, or null for the process's
+   * @param stderr standard error, or null for the process's
+   */
+  public static int run(InputStream in, PrintWriter stdout, PrintWriter stderr, String... args) {
+    CommandLine cl = new CommandLine(new LoadstoneCommand(), CommandInput.factory(in));
+    if (stdout != null) {
+      cl.setOut(stdout);
     }
-    if (err != null) {
-      cl.setErr(err);
+    if (stderr != null) {
+      cl.setErr(stderr);
     }
     cl.setExecutionExceptionHandler(
         (ex, commandLine, parseResult) -> {

@@ -66,6 +66,16 @@ public final class SimTransport implements Transport {
     return v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
   }
 
+  /**
+   * Runs {@code action} on the sample source while no sample is being produced, e.g. to place a
+   * mass on the simulated cell from another thread than the reader's.
+   *
+   * @param action called once, on the caller's thread, holding this transport's lock; not null
+   */
+  public synchronized void withSource(java.util.function.Consumer<SampleSource> action) {
+    Precondition.notNull(action, "action").accept(source);
+  }
+
   /** Simulates pulling the cable: the next read reports the device gone. */
   public void pullCable() {
     cablePulled = true;

@@ -1,0 +1,213 @@
+package org.loadstone.cli;
+
+import java.io.PrintWriter;
+import java.util.Locale;
+import org.loadstone.acquire.DeviceReader;
+import org.loadstone.acquire.SampleRing;
+import org.loadstone.calibration.CapturedReading;
+import org.loadstone.calibration.StabilityDetector;
+import org.loadstone.device.Transport;
+import org.loadstone.device.sim.Scenario;
+import org.loadstone.protocol.DeviceMessage;
+import org.loadstone.units.LoadstoneException;
+
+/**
+ * An open device for the commands that capture settled readings: the reader thread fills a ring,
+ * and {@link #settle} feeds the newest samples to a {@link StabilityDetector} while one terminal
+ * line shows the live counts and the state of the judgement.
+ */
+final class LiveDevice implements AutoCloseable {
+  /** The device went away during a command. */
+  static final class DeviceLostException extends LoadstoneException {
+    private static final long serialVersionUID = 1L;
+
+    DeviceLostException(String message) {
+      super(message);
+    }
+  }
+
+  private static final long IDENTITY_WAIT_MS = 5000;
+  private static final long SILENCE_LIMIT_MS = 5000;
+  private static final long LINE_EVERY_MS = 100;
+
+  private final DeviceReader reader;
+  private final WeightHandler weights;
+  private final double rateHz;
+  private final String identity;
+  private final PrintWriter out;
+
+  private LiveDevice(DeviceReader reader, double rateHz, String identity, PrintWriter out) {
+    this.reader = reader;
+    this.weights = WeightHandler.forTransport(reader.transport());
+    this.rateHz = rateHz;
+    this.identity = identity;
+    this.out = out;
+  }
+
+  /**
+   * For the simulator: makes {@code dead-weight} the scenario unless one was given, and refuses
+   * any other (only dead weights can be placed on the simulated cell).
+   *
+   * @param scenarioGiven whether --scenario was on the command line
+   * @throws LoadstoneException for a simulated scenario other than dead-weight
+   */
+  static void useDeadWeight(DeviceOptions options, boolean scenarioGiven) {
+    if (!options.simulated()) {
+      return;
+    }
+    if (!scenarioGiven) {
+      options.scenario = Scenario.DEAD_WEIGHT.cliName();
+    } else if (Scenario.parse(options.scenario) != Scenario.DEAD_WEIGHT) {
+      throw new LoadstoneException("--scenario " + options.scenario + " has no weights to"
+          + " place: calibrate and verify on the simulator need --scenario dead-weight (the"
+          + " default for these commands)");
+    }
+  }
+
+  /**
+   * Opens the device, starts streaming and waits for its identity (its sample rate).
+   *
+   * @throws LoadstoneException when the device cannot be opened, does not identify itself within
+   *     5 s, or speaks another protocol version
+   */
+  static LiveDevice open(DeviceOptions options, PrintWriter out) {
+    Transport t = options.open();
+    DeviceReader r = new DeviceReader(t, new SampleRing(1 << 16));
+    try {
+      r.start();
+      long deadline = System.nanoTime() + IDENTITY_WAIT_MS * 1_000_000;
+      while (r.identity().isEmpty() && r.lostReason().isEmpty()
+          && System.nanoTime() < deadline) {
+        sleep(10);
+      }
+      if (r.lostReason().isPresent()) {
+        throw new DeviceLostException(r.lostReason().get());
+      }
+      if (r.unsupportedVersion().isPresent()) {
+        throw new LoadstoneException(r.unsupportedVersion().get());
+      }
+      DeviceMessage.Identity id = r.identity().orElseThrow(() -> new LoadstoneException(
+          "the device on " + t.name() + " sent no identity within " + IDENTITY_WAIT_MS / 1000
+              + " s: check that it runs Loadstone firmware, the baud rate (--baud) and, for a"
+              + " board that resets on open, --reset-wait-ms 2000"));
+      if (!(id.rateHz() > 0)) {
+        throw new LoadstoneException("the device on " + t.name() + " reports no sample rate in"
+            + " its identity: update its firmware");
+      }
+      String text = String.format(Locale.ROOT, "%s on %s, %s at %.0f samples/s", id.name(),
+          t.name(), id.adc(), id.rateHz());
+      return new LiveDevice(r, id.rateHz(), text, out);
+    } catch (RuntimeException e) {
+      r.close();
+      throw e;
+    }
+  }
+
+  /** @return who places the weights */
+  WeightHandler weights() {
+    return weights;
+  }
+
+  /** @return the device's nominal sample rate, samples/s */
+  double rateHz() {
+    return rateHz;
+  }
+
+  /** @return a one-line description of the device */
+  String identity() {
+    return identity;
+  }
+
+  /**
+   * Feeds samples that arrive from now on to {@code detector} until it reports a stable window,
+   * showing the progress on one line (rewritten with a carriage return).
+   *
+   * @param detector a fresh (or reset) detector
+   * @return the reading of the stable window
+   * @throws LoadstoneException from the detector when the time-out is reached, or when no
+   *     sample has arrived for 5 s
+   * @throws DeviceLostException when the device goes away
+   */
+  CapturedReading settle(StabilityDetector detector) {
+    SampleRing.Cursor cursor = reader.ring().cursorAtEnd();
+    StabilityDetector.State[] state = {StabilityDetector.State.FILLING};
+    int[] last = new int[1];
+    SampleRing.Consumer feed = (i, s, d, tu, c, hp, p) -> {
+      last[0] = c;
+      state[0] = detector.offer(c);
+    };
+    long lastSample = System.nanoTime();
+    long lastLine = 0;
+    long seen = 0;
+    try {
+      while (true) {
+        boolean any = false;
+        while (state[0] != StabilityDetector.State.STABLE && cursor.drain(feed, 1) > 0) {
+          any = true;
+          seen++;
+        }
+        long now = System.nanoTime();
+        if (state[0] == StabilityDetector.State.STABLE) {
+          showLine(last[0], detector, state[0], seen);
+          out.println();
+          out.flush();
+          return detector.reading();
+        }
+        if (now - lastLine > LINE_EVERY_MS * 1_000_000 && seen > 0) {
+          showLine(last[0], detector, state[0], seen);
+          lastLine = now;
+        }
+        if (any) {
+          lastSample = now;
+        } else {
+          checkAlive(now - lastSample);
+          sleep(5);
+        }
+      }
+    } catch (LoadstoneException e) {
+      if (seen > 0) {
+        out.println();
+        out.flush();
+      }
+      throw e;
+    }
+  }
+
+  private void checkAlive(long silentNanos) {
+    if (reader.lostReason().isPresent()) {
+      throw new DeviceLostException(reader.lostReason().get());
+    }
+    if (silentNanos > SILENCE_LIMIT_MS * 1_000_000) {
+      throw new LoadstoneException("no samples from " + identity + " for "
+          + SILENCE_LIMIT_MS / 1000 + " s: check the cable and that the board is powered");
+    }
+  }
+
+  private void showLine(int counts, StabilityDetector d, StabilityDetector.State s, long seen) {
+    String judged = switch (s) {
+      case FILLING -> "filling";
+      case SETTLING -> "settling";
+      case STABLE -> "STABLE";
+    };
+    String text = Double.isNaN(d.lastSd_counts())
+        ? String.format(Locale.ROOT, "  counts %9d   [%-8s]", counts, judged)
+        : String.format(Locale.ROOT, "  counts %9d   sd %8.1f   drift %+9.1f/s   [%-8s]",
+            counts, d.lastSd_counts(), d.lastDrift_counts_per_s(), judged);
+    out.print("\r" + text + "   ");
+    out.flush();
+  }
+
+  private static void sleep(long ms) {
+    try {
+      Thread.sleep(ms);
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+      throw new LoadstoneException("interrupted while waiting for the device");
+    }
+  }
+
+  @Override
+  public void close() {
+    reader.close();
+  }
+}

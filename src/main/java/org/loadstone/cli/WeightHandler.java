@@ -1,0 +1,72 @@
+package org.loadstone.cli;
+
+import org.loadstone.device.FrameSampleSource;
+import org.loadstone.device.SimTransport;
+import org.loadstone.device.Transport;
+import org.loadstone.device.sim.SimulatedFrame;
+import org.loadstone.units.LoadstoneException;
+
+/**
+ * Who puts the weights on the cell when a command asks for them. On a real device the operator
+ * does, and the program only waits; on the built-in simulated frame the program stands in for
+ * the operator's hands and puts the mass on the model.
+ */
+interface WeightHandler {
+  /**
+   * Makes {@code total_kg} the whole mass on the cell (0 removes every weight).
+   *
+   * @param total_kg conventional mass, ≥ 0
+   */
+  void load(double total_kg);
+
+  /** @return whether the weights are placed by the program (the simulator) */
+  boolean automatic();
+
+  /** @return the handler for a real device: the operator places the weights */
+  static WeightHandler operator() {
+    return new WeightHandler() {
+      @Override
+      public void load(double total_kg) {}
+
+      @Override
+      public boolean automatic() {
+        return false;
+      }
+    };
+  }
+
+  /**
+   * @param t the open device
+   * @return a handler that loads the simulated cell for the simulator, else {@link #operator()}
+   */
+  static WeightHandler forTransport(Transport t) {
+    if (!(t instanceof SimTransport sim)) {
+      return operator();
+    }
+    return new WeightHandler() {
+      @Override
+      public void load(double total_kg) {
+        sim.withSource(src -> {
+          if (!(src instanceof FrameSampleSource f)) {
+            throw new IllegalStateException("the simulated device has no frame model");
+          }
+          SimulatedFrame frame = f.frame();
+          try {
+            frame.removeAll();
+            if (total_kg > 0) {
+              frame.placeMass(total_kg);
+            }
+          } catch (IllegalStateException e) {
+            throw new LoadstoneException(e.getMessage() + ": use --scenario dead-weight (the"
+                + " default for calibrate and verify) to put weights on the simulated cell", e);
+          }
+        });
+      }
+
+      @Override
+      public boolean automatic() {
+        return true;
+      }
+    };
+  }
+}
