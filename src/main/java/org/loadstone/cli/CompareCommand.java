@@ -82,7 +82,12 @@ public final class CompareCommand implements Callable<Integer> {
               + num(g.ci95High().getAsDouble()) : "needs n ≥ 2");
     }
     out.println();
-    out.printf(Locale.ROOT, "test: %s%s%n", r.test().name().toLowerCase(Locale.ROOT).replace('_', ' '),
+    String test = switch (r.test()) {
+      case WELCH_T -> "Welch's t-test";
+      case ONE_WAY_ANOVA -> "one-way ANOVA";
+      case NONE -> "none (a group has fewer than 2 specimens, or no scatter)";
+    };
+    out.printf(Locale.ROOT, "test: %s%s%n", test,
         r.pValue().isPresent() ? String.format(Locale.ROOT, ", p = %.3g", r.pValue().getAsDouble())
             : "");
     out.println(r.sentence());

@@ -146,6 +146,10 @@ public final class RecordCommand implements Callable<Integer> {
       b.armingLevel_N(armAt);
     }
     RunSettings settings = b.build();
+    List<String> notesAdded = new ArrayList<>();
+    if (device.simulated()) {
+      fillFromSimulatedSpecimen(device.simSetup(), notesAdded);
+    }
     Geometry geometry = new Geometry(span, loadSpan, width, depth, facing, core, area);
     TestType type = TestType.parse(test);
     for (String w : scale.warnings()) {
@@ -163,7 +167,9 @@ public final class RecordCommand implements Callable<Integer> {
       double zero = Recorder.tare(reader, nZero, 10_000 + (long) (nZero / rate * 2000));
       Instant now = Instant.now();
       RunMetadata template = new RunMetadata(RunIds.newId(dir, now, specimen), now, specimen,
-          group, tags, operator, notes, mass_g, geometry, type, deviceFields(reader), rate,
+          group, tags, operator, notesAdded.isEmpty() ? notes
+              : (notes.isEmpty() ? "" : notes + " ") + String.join(" ", notesAdded),
+          mass_g, geometry, type, deviceFields(reader), rate,
           scale.calibrationId(), scale.calibrationSha256(), scale.description(), scale.spec(),
           zero, 0, 0, FinishCause.MANUAL, null, null, null, null, pretrigger,
           manualStart ? null : startAt, scale.checkWeight(), scale.warnings(),
@@ -224,6 +230,50 @@ public final class RecordCommand implements Callable<Integer> {
       return 0;
     } finally {
       reader.close();
+    }
+  }
+
+  /**
+   * On the simulated frame, the specimen's dimensions and mass are what a tester would measure
+   * with calipers and a scale before the run: fill what the user did not give.
+   */
+  private void fillFromSimulatedSpecimen(SimSetup setup, List<String> notesAdded) {
+    var spec = setup.buildFrame().truth().specimen();
+    if (spec == null) {
+      return;
+    }
+    boolean filled = false;
+    if (spec.panel() != null) {
+      var p = spec.panel();
+      if (span == null) {
+        span = p.span_mm();
+        filled = true;
+      }
+      if (width == null) {
+        width = p.width_mm();
+        filled = true;
+      }
+      if (facing == null && core == null && depth == null) {
+        facing = p.facing_mm();
+        core = p.core_mm();
+        depth = p.core_mm() + 2 * p.facing_mm();
+        filled = true;
+      }
+    } else if (spec.beam() != null) {
+      var b = spec.beam();
+      if (span == null && width == null && depth == null) {
+        span = b.span_mm();
+        width = b.width_mm();
+        depth = b.depth_mm();
+        filled = true;
+      }
+    }
+    if (mass_g == null && spec.mass_kg() > 0) {
+      mass_g = Math.round(spec.mass_kg() * 1e4) / 10.0;
+      filled = true;
+    }
+    if (filled) {
+      notesAdded.add("Geometry and mass not given were taken from the simulated specimen.");
     }
   }
 
