@@ -134,7 +134,15 @@ class JournalRecoveryTest {
     Files.write(bad, content);
     Path bad2 = JournalFormat.journalFile(archive, "j6");
     Files.writeString(bad2, "{\"journal_format\":1,\"run_id\":\"j6\"}\n"); // no scale etc.
+    Path bad3 = JournalFormat.journalFile(archive, "j0");
+    byte[] good = JournalFormat.header(RunFixtures.startMetadata("j0", false));
+    Files.write(bad3, new String(good, StandardCharsets.UTF_8)
+        .replace("\"run_id\":\"j0\"", "\"run_id\":\"../../escape\"")
+        .getBytes(StandardCharsets.UTF_8));
     assertThat(JournalRecovery.recoverAll(archive, notices::add)).isEmpty();
+    assertThat(archive.getParent().resolve("escape.csv")).doesNotExist();
+    assertThat(JournalFormat.damagedDir(archive).resolve("j0.journal")).exists();
+    assertThat(notices.remove(0)).contains("'../../escape' is not a safe file name");
     Path moved = JournalFormat.damagedDir(archive).resolve("j5.journal");
     assertThat(moved).exists();
     assertThat(Files.readAllBytes(moved)).isEqualTo(content);
