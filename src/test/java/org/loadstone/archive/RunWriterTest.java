@@ -61,6 +61,20 @@ class RunWriterTest {
   }
 
   @Test
+  void withoutHardLinksTheAtomicMoveAlsoNeverOverwrites() throws Exception {
+    RunWriter noLinks = new RunWriter((p, o) -> o, false);
+    RunData d = RunFixtures.randomData(9, 50, true);
+    StoredRun s = noLinks.store(tmp, RunFixtures.fullMetadata("r8"), d);
+    RunRoundTripTest.assertSameData(d, RunReader.read(s.csv()).data());
+    assertThat(names(tmp)).containsExactly("r8.csv", "r8.json");
+    byte[] before = Files.readAllBytes(s.csv());
+    assertThatThrownBy(() -> noLinks.store(tmp, RunFixtures.fullMetadata("r8"), d))
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("already exists");
+    assertThat(Files.readAllBytes(s.csv())).isEqualTo(before);
+    assertThat(names(tmp)).containsExactly("r8.csv", "r8.json");
+  }
+
+  @Test
   void aSidecarAloneAlsoBlocksTheId() throws Exception {
     Files.writeString(tmp.resolve("r3.json"), "{\"keep\":true}");
     assertThatThrownBy(() -> RunWriter.write(tmp, RunFixtures.startMetadata("r3", false),
