@@ -74,6 +74,7 @@ public final class RunWriter {
       throw new IllegalArgumentException("break index " + metadata.breakIndex()
           + " is outside the run's " + data.size() + " samples");
     }
+    byte[] sidecar = RunJson.pretty(metadata); // refuses NaN before anything is written
     ensureFolder(archiveDir);
     Path csv = archiveDir.resolve(id + ".csv");
     Path json = archiveDir.resolve(id + ".json");
@@ -92,7 +93,7 @@ public final class RunWriter {
       });
       current = json;
       tmpJson = temp(archiveDir, id, ".json");
-      writeTemp(tmpJson, out -> out.write(RunJson.pretty(metadata)));
+      writeTemp(tmpJson, out -> out.write(sidecar));
       current = csv;
       publish(tmpCsv, csv);
       csvPublished = true;

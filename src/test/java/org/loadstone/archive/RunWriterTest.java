@@ -176,6 +176,20 @@ class RunWriterTest {
   }
 
   @Test
+  void refusesNonFiniteMetadataNumbersThatJsonCannotHold() {
+    RunMetadata ok = RunFixtures.startMetadata("r9", false);
+    RunMetadata nanRate = new RunMetadata("r9", ok.startedAt(), ok.specimen(), null, null, null,
+        null, null, null, null, null, Double.NaN, null, null, null, ok.scaleSpec(), 0, 0, 0,
+        FinishCause.MANUAL, null, null, null, null, 0, null, null, null, null,
+        java.util.Map.of("rig", java.util.Map.of("temp_C", Double.POSITIVE_INFINITY)));
+    assertThatThrownBy(() -> RunWriter.write(tmp, nanRate, RunFixtures.randomData(1, 2, false)))
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("field 'sample_rate_hz' is NaN");
+    assertThat(tmp.resolve("r9.csv")).doesNotExist();
+    assertThat(tmp.resolve("r9.json")).doesNotExist();
+  }
+
+  @Test
   void refusesRunIdsThatAreNotSafeStems() {
     assertThatThrownBy(() -> RunWriter.write(tmp, RunFixtures.startMetadata("../evil", false),
         RunFixtures.randomData(1, 2, false))).isInstanceOf(IllegalArgumentException.class);
