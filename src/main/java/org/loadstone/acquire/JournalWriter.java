@@ -74,7 +74,7 @@ public final class JournalWriter implements AutoCloseable {
   private volatile long written;
   private volatile long durable;
   private volatile long lost;
-  private volatile IOException failure;
+  private volatile Exception failure;
 
   JournalWriter(Path file, Sink channel, SampleRing.Cursor cursor) {
     this.file = file;
@@ -134,7 +134,7 @@ public final class JournalWriter implements AutoCloseable {
    *     is healthy; once set, no more samples reach the journal
    */
   public java.util.Optional<String> problem() {
-    IOException f = failure;
+    Exception f = failure;
     return f == null ? java.util.Optional.empty()
         : java.util.Optional.of("journal " + file + " stopped: " + f.getMessage());
   }
@@ -171,8 +171,8 @@ public final class JournalWriter implements AutoCloseable {
           LockSupport.parkNanos(TimeUnit.MILLISECONDS.toNanos(POLL_MS));
         }
       }
-    } catch (IOException e) {
-      failure = e;
+    } catch (IOException | RuntimeException e) {
+      failure = e; // reported by problem() and finish(); the ring and its reader are unaffected
     } finally {
       try {
         channel.close();
@@ -198,7 +198,7 @@ public final class JournalWriter implements AutoCloseable {
    */
   public void finish() {
     stop();
-    IOException f = failure;
+    Exception f = failure;
     if (f != null) {
       throw new LoadstoneException("journal " + file + " could not be written: " + f.getMessage()
           + ": free disk space; the samples that reached it are kept and the run can still be"

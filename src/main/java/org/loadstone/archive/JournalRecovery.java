@@ -76,6 +76,11 @@ public final class JournalRecovery {
       } catch (LoadstoneException e) {
         failed.add(e.getMessage());
         notices.accept(e.getMessage());
+      } catch (RuntimeException e) {
+        // a fault of ours must not stop the other journals; this one stays for the next start
+        String m = "journal " + j + " could not be recovered (" + e + ")";
+        failed.add(m);
+        notices.accept(m);
       }
     }
     if (!failed.isEmpty()) {
@@ -228,11 +233,16 @@ public final class JournalRecovery {
       throw new DamagedHeader("the header has no journal_format " + JournalFormat.VERSION);
     }
     ((com.fasterxml.jackson.databind.node.ObjectNode) root).remove("journal_format");
+    RunMetadata m;
     try {
-      return RunJson.fromTree(root, "journal " + journal, FinishCause.RECOVERED);
+      m = RunJson.fromTree(root, "journal " + journal, FinishCause.RECOVERED);
     } catch (LoadstoneException e) {
       throw new DamagedHeader(e.getMessage());
     }
+    if (!RunIds.isValid(m.runId())) {
+      throw new DamagedHeader("its run_id '" + m.runId() + "' is not a safe file name");
+    }
+    return m;
   }
 
   private static double countsPerMm(RunMetadata h) {

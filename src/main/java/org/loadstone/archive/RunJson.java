@@ -93,11 +93,29 @@ final class RunJson {
   }
 
   static byte[] pretty(RunMetadata m) {
+    ObjectNode tree = toTree(m);
+    checkFinite(tree, "", m.runId());
     try {
-      return (PRETTY.writeValueAsString(toTree(m)) + "\n")
+      return (PRETTY.writeValueAsString(tree) + "\n")
           .getBytes(java.nio.charset.StandardCharsets.UTF_8);
     } catch (JsonProcessingException e) {
       throw new IllegalStateException("cannot serialise run " + m.runId(), e);
+    }
+  }
+
+  /** JSON has no NaN or infinity: refuse them before writing a sidecar no reader would accept. */
+  static void checkFinite(JsonNode n, String path, String runId) {
+    if (n.isNumber() && !Double.isFinite(n.asDouble())) {
+      throw new LoadstoneException("run " + runId + ": field '" + path + "' is " + n.asDouble()
+          + ": the run was not stored; give a finite value or leave the field empty (null)");
+    }
+    if (n.isObject()) {
+      n.fields().forEachRemaining(e -> checkFinite(e.getValue(),
+          path.isEmpty() ? e.getKey() : path + "." + e.getKey(), runId));
+    } else if (n.isArray()) {
+      for (int i = 0; i < n.size(); i++) {
+        checkFinite(n.get(i), path + "[" + i + "]", runId);
+      }
     }
   }
 

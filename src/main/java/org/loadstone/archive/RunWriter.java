@@ -23,8 +23,9 @@ import org.loadstone.units.Precondition;
  * <p>Each file is written to a temporary name ({@code .<run-id>.<random>.csv.tmp}) in the
  * archive folder, flushed to the disk ({@link FileChannel#force}), and then published under its
  * final name by a hard link, which the file system refuses if the name exists, so a run is
- * never overwritten even by a second program racing for the same id; where links are not
- * supported an {@link StandardCopyOption#ATOMIC_MOVE atomic move} is used after a check that the
+ * never overwritten even by a second program racing for the same id (an atomic rename would
+ * silently replace a file that appeared meanwhile); where links are not supported (FAT, exFAT)
+ * an {@link StandardCopyOption#ATOMIC_MOVE atomic move} is used right after a check that the
  * name is free. The folder is then flushed so the new names survive a power cut. A reader
  * therefore sees either no file or a complete one. On any failure the temporary files are
  * removed; the run's journal (if any) is left for {@link JournalRecovery}.
@@ -37,9 +38,16 @@ public final class RunWriter {
 
   private static final RunWriter DEFAULT = new RunWriter((p, o) -> o);
   private final StreamWrap wrap;
+  private final boolean links;
 
   RunWriter(StreamWrap wrap) {
+    this(wrap, true);
+  }
+
+  /** @param links false to test the path taken on file systems without hard links (FAT) */
+  RunWriter(StreamWrap wrap, boolean links) {
     this.wrap = wrap;
+    this.links = links;
   }
 
   /**
@@ -66,6 +74,7 @@ public final class RunWriter {
       throw new IllegalArgumentException("break index " + metadata.breakIndex()
           + " is outside the run's " + data.size() + " samples");
     }
+    byte[] sidecar = RunJson.pretty(metadata); // refuses NaN before anything is written
     ensureFolder(archiveDir);
     Path csv = archiveDir.resolve(id + ".csv");
     Path json = archiveDir.resolve(id + ".json");
@@ -84,7 +93,7 @@ public final class RunWriter {
       });
       current = json;
       tmpJson = temp(archiveDir, id, ".json");
-      writeTemp(tmpJson, out -> out.write(RunJson.pretty(metadata)));
+      writeTemp(tmpJson, out -> out.write(sidecar));
       current = csv;
       publish(tmpCsv, csv);
       csvPublished = true;
@@ -168,15 +177,21 @@ public final class RunWriter {
     }
   }
 
-  private static void publish(Path tmp, Path target) throws IOException {
-    try {
-      Files.createLink(target, tmp);
-    } catch (UnsupportedOperationException | SecurityException e) {
-      if (Files.exists(target)) {
-        throw new FileAlreadyExistsException(target.toString());
+  private void publish(Path tmp, Path target) throws IOException {
+    if (links) {
+      try {
+        Files.createLink(target, tmp);
+        return;
+      } catch (FileAlreadyExistsException e) {
+        throw e;
+      } catch (IOException | UnsupportedOperationException | SecurityException e) {
+        // no hard links here (FAT/exFAT answer EPERM): fall through to the atomic move
       }
-      Files.move(tmp, target, StandardCopyOption.ATOMIC_MOVE);
     }
+    if (Files.exists(target)) {
+      throw new FileAlreadyExistsException(target.toString());
+    }
+    Files.move(tmp, target, StandardCopyOption.ATOMIC_MOVE);
   }
 
   /** Flushes a folder's entries (new and removed names) to the disk where the platform can. */

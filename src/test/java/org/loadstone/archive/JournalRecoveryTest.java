@@ -134,7 +134,15 @@ class JournalRecoveryTest {
     Files.write(bad, content);
     Path bad2 = JournalFormat.journalFile(archive, "j6");
     Files.writeString(bad2, "{\"journal_format\":1,\"run_id\":\"j6\"}\n"); // no scale etc.
+    Path bad3 = JournalFormat.journalFile(archive, "j0");
+    byte[] good = JournalFormat.header(RunFixtures.startMetadata("j0", false));
+    Files.write(bad3, new String(good, StandardCharsets.UTF_8)
+        .replace("\"run_id\":\"j0\"", "\"run_id\":\"../../escape\"")
+        .getBytes(StandardCharsets.UTF_8));
     assertThat(JournalRecovery.recoverAll(archive, notices::add)).isEmpty();
+    assertThat(archive.getParent().resolve("escape.csv")).doesNotExist();
+    assertThat(JournalFormat.damagedDir(archive).resolve("j0.journal")).exists();
+    assertThat(notices.remove(0)).contains("'../../escape' is not a safe file name");
     Path moved = JournalFormat.damagedDir(archive).resolve("j5.journal");
     assertThat(moved).exists();
     assertThat(Files.readAllBytes(moved)).isEqualTo(content);
@@ -178,6 +186,35 @@ class JournalRecoveryTest {
     assertThat(runs.get(0).csv()).isEqualTo(archive.resolve("j9-2.csv"));
     assertThat(Files.readString(archive.resolve("j9.csv"))).isEqualTo("partial");
     assertThat(j9).doesNotExist();
+  }
+
+  @Test
+  void headerIsOneLineWithEverythingButTheEndOfTheRun() throws Exception {
+    RunMetadata full = RunFixtures.fullMetadata("j10");
+    String line = new String(JournalFormat.header(full), StandardCharsets.UTF_8);
+    assertThat(line).endsWith("}\n").containsOnlyOnce("\n").startsWith("{\"journal_format\":1,")
+        .contains("\"scale_spec\":{").contains("\"zero_offset_counts\":-1234.5")
+        .doesNotContain("\"cause\"").doesNotContain("break_index").doesNotContain("break_time_s")
+        .doesNotContain("peak_before_break_N").doesNotContain("drop_at_break_pct");
+    try (FileChannel ch = JournalFormat.create(archive, full)) {
+      ByteBuffer b = ByteBuffer.allocate(JournalFormat.RECORD_BYTES);
+      JournalFormat.putRecord(b, 0, 1, 0, 0, 10_000, true, 4);
+      b.flip();
+      ch.write(b);
+    }
+    RunMetadata got = RunReader.read(JournalRecovery.recoverAll(archive, notices::add).get(0)
+        .json()).metadata();
+    List<String> warnings = new ArrayList<>(full.warnings());
+    warnings.add(got.warnings().get(got.warnings().size() - 1));
+    RunMetadata expected = new RunMetadata(full.runId(), full.startedAt(), full.specimen(),
+        full.group(), full.tags(), full.operator(), full.notes(), full.mass_g(), full.geometry(),
+        full.testType(), full.device(), full.sampleRate_Hz(), full.calibrationId(),
+        full.calibrationSha256(), full.scale(), full.scaleSpec(), full.zeroOffset_counts(),
+        full.dropped(), full.checksumErrors(), FinishCause.RECOVERED, null, null, null, null,
+        full.pretrigger_s(), full.startThreshold_N(), full.checkWeight(), warnings,
+        full.softwareVersion(), full.extra());
+    assertThat(got).isEqualTo(expected);
+    assertThat(warnings.get(warnings.size() - 1)).contains("recovered from journal j10.journal");
   }
 
   @Test

@@ -48,6 +48,25 @@ class RunRoundTripTest {
   }
 
   @Test
+  void numbersDoNotFollowTheDefaultLocale() throws Exception {
+    java.util.Locale before = java.util.Locale.getDefault();
+    try {
+      java.util.Locale.setDefault(java.util.Locale.GERMANY); // decimal comma
+      RunData d = new RunData(new double[] {0.0, 0.0125}, new double[] {1234.5, -0.5},
+          new double[] {0.25, 0.5}, new int[] {1, 2}, new int[] {100, 200}, new int[] {0, 1});
+      RunWriter.write(tmp, RunFixtures.startMetadata("rt-de", false), d);
+      assertThat(Files.readAllLines(tmp.resolve("rt-de.csv")))
+          .containsExactly(RunCsv.HEADER_TEXT, "0.0,1234.5,0.25,1,100,0",
+              "0.0125,-0.5,0.5,2,200,1");
+      assertThat(Files.readString(tmp.resolve("rt-de.json"))).contains("\"sample_rate_hz\" : 1000.0")
+          .contains("\"zero_offset_counts\" : 812.0");
+      assertSameData(d, RunReader.read(tmp.resolve("rt-de")).data());
+    } finally {
+      java.util.Locale.setDefault(before);
+    }
+  }
+
+  @Test
   void minimalMetadataRoundTripsWithNullsAndDefaults() {
     RunMetadata m = RunFixtures.startMetadata("rt-min", false);
     RunWriter.write(tmp, m, RunFixtures.randomData(1, 0, false));

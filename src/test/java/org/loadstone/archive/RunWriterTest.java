@@ -61,6 +61,20 @@ class RunWriterTest {
   }
 
   @Test
+  void withoutHardLinksTheAtomicMoveAlsoNeverOverwrites() throws Exception {
+    RunWriter noLinks = new RunWriter((p, o) -> o, false);
+    RunData d = RunFixtures.randomData(9, 50, true);
+    StoredRun s = noLinks.store(tmp, RunFixtures.fullMetadata("r8"), d);
+    RunRoundTripTest.assertSameData(d, RunReader.read(s.csv()).data());
+    assertThat(names(tmp)).containsExactly("r8.csv", "r8.json");
+    byte[] before = Files.readAllBytes(s.csv());
+    assertThatThrownBy(() -> noLinks.store(tmp, RunFixtures.fullMetadata("r8"), d))
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("already exists");
+    assertThat(Files.readAllBytes(s.csv())).isEqualTo(before);
+    assertThat(names(tmp)).containsExactly("r8.csv", "r8.json");
+  }
+
+  @Test
   void aSidecarAloneAlsoBlocksTheId() throws Exception {
     Files.writeString(tmp.resolve("r3.json"), "{\"keep\":true}");
     assertThatThrownBy(() -> RunWriter.write(tmp, RunFixtures.startMetadata("r3", false),
@@ -159,6 +173,20 @@ class RunWriterTest {
     assertThatThrownBy(() -> RunWriter.write(tmp, RunFixtures.startMetadata("r6", false), back))
         .isInstanceOf(LoadstoneException.class).hasMessageContaining("time_s of sample 2");
     assertThat(tmp.resolve("r6.csv")).doesNotExist();
+  }
+
+  @Test
+  void refusesNonFiniteMetadataNumbersThatJsonCannotHold() {
+    RunMetadata ok = RunFixtures.startMetadata("r9", false);
+    RunMetadata nanRate = new RunMetadata("r9", ok.startedAt(), ok.specimen(), null, null, null,
+        null, null, null, null, null, Double.NaN, null, null, null, ok.scaleSpec(), 0, 0, 0,
+        FinishCause.MANUAL, null, null, null, null, 0, null, null, null, null,
+        java.util.Map.of("rig", java.util.Map.of("temp_C", Double.POSITIVE_INFINITY)));
+    assertThatThrownBy(() -> RunWriter.write(tmp, nanRate, RunFixtures.randomData(1, 2, false)))
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("field 'sample_rate_hz' is NaN");
+    assertThat(tmp.resolve("r9.csv")).doesNotExist();
+    assertThat(tmp.resolve("r9.json")).doesNotExist();
   }
 
   @Test
