@@ -6,6 +6,10 @@ package org.loadstone.protocol;
  */
 public final class Crc16 {
   static final int[] TABLE = new int[256];
+  // T2..T4[i]: the CRC contribution of byte i followed by 1, 2 or 3 zero bytes ("slicing by 4")
+  private static final int[] T2 = new int[256];
+  private static final int[] T3 = new int[256];
+  private static final int[] T4 = new int[256];
 
   static {
     for (int i = 0; i < 256; i++) {
@@ -14,6 +18,11 @@ public final class Crc16 {
         crc = (crc & 0x8000) != 0 ? (crc << 1) ^ 0x1021 : crc << 1;
       }
       TABLE[i] = crc & 0xFFFF;
+    }
+    for (int i = 0; i < 256; i++) {
+      T2[i] = ((TABLE[i] << 8) ^ TABLE[TABLE[i] >>> 8]) & 0xFFFF;
+      T3[i] = ((T2[i] << 8) ^ TABLE[T2[i] >>> 8]) & 0xFFFF;
+      T4[i] = ((T3[i] << 8) ^ TABLE[T3[i] >>> 8]) & 0xFFFF;
     }
   }
 
@@ -27,7 +36,13 @@ public final class Crc16 {
    */
   public static int compute(byte[] data, int off, int len) {
     int crc = 0xFFFF;
-    for (int i = off, end = off + len; i < end; i++) {
+    int i = off;
+    int end = off + len;
+    for (; i + 4 <= end; i += 4) {
+      int x = crc ^ (((data[i] & 0xFF) << 8) | (data[i + 1] & 0xFF));
+      crc = T4[x >>> 8] ^ T3[x & 0xFF] ^ T2[data[i + 2] & 0xFF] ^ TABLE[data[i + 3] & 0xFF];
+    }
+    for (; i < end; i++) {
       crc = ((crc << 8) ^ TABLE[((crc >>> 8) ^ data[i]) & 0xFF]) & 0xFFFF;
     }
     return crc;
