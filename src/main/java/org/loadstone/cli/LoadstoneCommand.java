@@ -19,6 +19,10 @@ import picocli.CommandLine.Command;
       MonitorCommand.class,
       SimulateCommand.class,
       ConsoleCommand.class,
+      AnalyzeCommand.class,
+      ImportCommand.class,
+      ExportCommand.class,
+      ReportCommand.class,
       CommandLine.HelpCommand.class
     })
 public final class LoadstoneCommand implements Runnable {

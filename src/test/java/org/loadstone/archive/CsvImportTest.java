@@ -66,6 +66,10 @@ class CsvImportTest {
     ImportedRun a = CsvImport.plain(with);
     assertThat(a.data().force_N()).containsExactly(1.5, 2.5);
     assertThat(a.data().position_mm()).containsExactly(0.0, 0.01);
+    // a run file's raw columns are kept: raw is truth
+    assertThat(a.data().rawCounts()).containsExactly(12, 20);
+    assertThat(a.data().rawPosition()).containsExactly(0, 4);
+    assertThat(a.data().seq()).containsExactly(7, 8);
     Path without = file("r2.csv", "time_s,force_N,position_mm\n0,1,\n1,2,\n");
     assertThat(CsvImport.plain(without).data().hasPosition()).isFalse();
     Path noColumn = file("r3.csv", "time_s,force_N\n0,1\n1,2\n");
