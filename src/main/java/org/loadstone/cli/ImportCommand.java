@@ -86,10 +86,11 @@ public final class ImportCommand implements Callable<Integer> {
     run.columns().forEach(c -> o.println("  " + c));
     double[] t = range(d.time_s());
     double[] f = range(d.force_N());
-    o.printf(Locale.ROOT, "  time %.6g to %.6g s, force %.6g to %.6g N%n", t[0], t[1], f[0], f[1]);
+    o.println("  time " + num(t[0]) + " to " + num(t[1]) + " s, force " + num(f[0]) + " to "
+        + num(f[1]) + " N");
     double[] x = d.hasPosition() ? range(d.position_mm()) : null;
     if (x != null) {
-      o.printf(Locale.ROOT, "  position %.6g to %.6g mm%n", x[0], x[1]);
+      o.println("  position " + num(x[0]) + " to " + num(x[1]) + " mm");
     }
     run.notes().forEach(n -> o.println("note: " + n));
     String stored;
@@ -119,6 +120,11 @@ public final class ImportCommand implements Callable<Integer> {
     }
     o.flush();
     return 0;
+  }
+
+  private static String num(double v) {
+    return new java.math.BigDecimal(v).round(new java.math.MathContext(6)).stripTrailingZeros()
+        .toPlainString();
   }
 
   private static double[] range(double[] v) {
