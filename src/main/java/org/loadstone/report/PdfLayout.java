@@ -176,10 +176,10 @@ final class PdfLayout implements AutoCloseable {
   void chart(JFreeChart chart, float width, float height) {
     need(height + 6);
     // drawn at a logical size a little larger than the page size, so chart text comes out
-    // near 9 pt, and at three times that in pixels for a sharp print
+    // near 9 pt, and at twice that in pixels (about 160 dpi on paper)
     double logicalW = width / 0.9;
     double logicalH = height / 0.9;
-    int scale = 3;
+    int scale = 2;
     BufferedImage img = new BufferedImage((int) (logicalW * scale), (int) (logicalH * scale),
         BufferedImage.TYPE_INT_RGB);
     java.awt.Graphics2D g2 = img.createGraphics();

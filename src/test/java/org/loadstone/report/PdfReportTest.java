@@ -106,6 +106,15 @@ class PdfReportTest {
   }
 
   @Test
+  void charactersOutsideTheFontAreReplacedNotThrown() throws IOException {
+    RunMetrics m = RunMetrics.of(TestRuns.meta("σ-µ²-≥-试", "foam", TestRuns.panel(), null),
+        TestRuns.bend(60, 460));
+    Path pdf = dir.resolve("odd.pdf");
+    PdfReport.writeRun(m, pdf);
+    assertThat(text(pdf)).contains("Run report: sigma-u2->=-?");
+  }
+
+  @Test
   void groupReportRefusesOneGroup() {
     Map<String, List<RunMetrics>> one = Map.of("foam", ReportFixtures.groups().get("foam"));
     assertThatThrownBy(() -> PdfReport.writeGroups("x", one, PdfReport.DEFAULT_METRICS,
