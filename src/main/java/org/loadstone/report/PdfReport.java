@@ -145,8 +145,11 @@ public final class PdfReport {
         r.advice().ifPresent(a -> p.paragraph("Sample size: " + a.sentence(), 9));
         if (!r.outliers().isEmpty()) {
           List<String> o = new ArrayList<>();
-          r.outliers().forEach(f -> o.add("Possible outlier in group '" + f.group() + "': "
-              + f.outlier()));
+          r.outliers().forEach(f -> o.add(String.format(Locale.ROOT,
+              "Possible outlier in group '%s': specimen %d of the group, %s %s (Grubbs G = %.3g "
+                  + "above the critical %.3g at the 5 %% level). Check that specimen before "
+                  + "leaving it out.", f.group(), f.outlier().index() + 1,
+              num(f.outlier().value()), metric.unit(), f.outlier().g(), f.outlier().critical())));
           p.bullets(o, 8.5f);
         }
       }
