@@ -41,7 +41,8 @@ public final class CsvImport {
   /**
    * Reads a CSV with columns {@code time_s, force_N} and optionally {@code position_mm} (other
    * columns are ignored), as written for every Loadstone run and by {@code CsvExport} with the
-   * default marks. The delimiter is detected; numbers use a decimal point. A position column
+   * default marks. The delimiter is detected; numbers use a decimal point, or either mark when
+   * the delimiter is ';' or tab (as {@code CsvExport} writes for spreadsheets). A position column
    * with only empty cells means the run has no position.
    *
    * @param file the CSV, not null
@@ -80,6 +81,8 @@ public final class CsvImport {
     String body = text.substring(bodyStart);
     char delim = s.delimiter() != null ? s.delimiter()
         : detectDelimiter(body, s.decimalComma(), name, s.skipLines() + 1);
+    // a plain file separated by ';' or tab may use either decimal mark (a spreadsheet export)
+    boolean decimalComma = s.decimalComma() || (plain && delim != ',');
     List<String> notes = new ArrayList<>();
     CSVFormat fmt = CSVFormat.DEFAULT.builder().setDelimiter(delim).setIgnoreEmptyLines(true)
         .setTrim(true).build();
@@ -110,7 +113,7 @@ public final class CsvImport {
     int pi = s.columns().position() == null ? -1
         : column(s.columns().position(), header, name, headerLine, plain);
     if (isIndex(s.columns().time()) && isIndex(s.columns().force())
-        && numeric(header, ti, s.decimalComma()) && numeric(header, fi, s.decimalComma())) {
+        && numeric(header, ti, decimalComma) && numeric(header, fi, decimalComma)) {
       rows.add(0, header.toArray(new String[0])); // no header row: the first line is data
       rowLines.add(0, headerLine);
       header = null;
@@ -135,7 +138,7 @@ public final class CsvImport {
     double[] t = new double[n];
     double[] f = new double[n];
     double[] x = pi < 0 ? null : new double[n];
-    Cells c = new Cells(name, header, s.decimalComma());
+    Cells c = new Cells(name, header, decimalComma);
     for (int i = 0; i < n; i++) {
       String[] row = rows.get(i);
       int line = rowLines.get(i);
@@ -342,6 +345,10 @@ public final class CsvImport {
       }
     }
     if (given != null) {
+      if (fromHeader != null && !fromHeader.equalsIgnoreCase(symbol.apply(given))) {
+        notes.add("The " + role + " header says '" + fromHeader + "' but " + option + " "
+            + symbol.apply(given) + " was given; the given unit is used.");
+      }
       return given;
     }
     if (fromHeader != null) {
