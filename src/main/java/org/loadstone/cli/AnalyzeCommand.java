@@ -18,8 +18,9 @@ import picocli.CommandLine.Parameters;
 @Command(
     name = "analyze",
     description = {
-      "Analyse one run: peak force, break, stiffness, energy and, when the geometry is known,",
-      "flexural and sandwich values. RUN is a CSV with columns time_s, force_N, position_mm."
+      "Analyse one run: peak force, break, stiffness and energy.",
+      "Flexural and sandwich values follow when the run's geometry is known. RUN is a CSV "
+          + "with columns time_s, force_N and (optionally) position_mm."
     })
 public final class AnalyzeCommand implements Callable<Integer> {
   @Parameters(paramLabel = "RUN", description = "The run's CSV file.")
@@ -75,7 +76,8 @@ public final class AnalyzeCommand implements Callable<Integer> {
         m.metadata().specimen(), m.analysis().sampleCount(), r.source());
     for (String[] row : ROWS) {
       Object v = j.get(row[1]);
-      String text = v == null ? "-" : v instanceof Double d ? String.format(Locale.ROOT, "%.5g", d)
+      String text = v == null ? "-"
+          : v instanceof Double d ? (Math.abs(d) < 1e-12 ? "0" : String.format(Locale.ROOT, "%.5g", d))
           : v.toString();
       out.printf(Locale.ROOT, "  %-28s %14s %s%n", row[0], text, v == null ? "" : row[2]);
     }

@@ -14,8 +14,9 @@ import picocli.CommandLine.Parameters;
 @Command(
     name = "export",
     description = {
-      "Write a run's samples as CSV with a chosen delimiter and decimal mark, e.g.",
-      "--delimiter ';' --decimal ',' for spreadsheets in comma-decimal locales."
+      "Write a run's samples as CSV for a spreadsheet.",
+      "Choose the delimiter and decimal mark, e.g. --delimiter ';' --decimal ',' for "
+          + "comma-decimal locales."
     })
 public final class ExportCommand implements Callable<Integer> {
   @Parameters(paramLabel = "RUN", description = "The run's CSV file.")

@@ -27,8 +27,9 @@ import picocli.CommandLine.Parameters;
 @Command(
     name = "import",
     description = {
-      "Read a force-time or force-displacement CSV written by other software, show what was",
-      "parsed, and store it (in the archive when connected, or with --out as a plain CSV)."
+      "Read a force-time or force-displacement CSV from other software.",
+      "Shows what was parsed and stores the run: in the archive when one is connected, or "
+          + "with --out as a plain CSV."
     })
 public final class ImportCommand implements Callable<Integer> {
   @Parameters(paramLabel = "FILE", description = "The CSV to import.")

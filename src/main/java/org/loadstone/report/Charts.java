@@ -117,6 +117,7 @@ public final class Charts {
   /**
    * The curves of several runs on one chart, one colour per group (legend: one entry per group).
    *
+   * @param title chart title, not null
    * @param groups group name → runs, in order; at least one run in all
    * @return a new chart; force against displacement when every run has position, else time
    * @throws LoadstoneException when there is no run
