@@ -133,6 +133,24 @@ class CsvImportTest {
   }
 
   @Test
+  void lineNumbersCountCrLfAndPreambleLines() throws IOException {
+    Path p = file("crlf.csv", "exported 2026-11-30\r\n\r\nt;F\r\n0;1\r\n1;2\r\n1;3\r\n");
+    assertThatThrownBy(() -> CsvImport.read(p, ImportSettings.of(ColumnMap.parse("time=t,force=F"))
+        .withSkipLines(2).withDelimiter(';')))
+        .hasMessageContaining("crlf.csv line 6 column 't': time 1.0 s does not come after 1.0 s "
+            + "on line 5");
+  }
+
+  @Test
+  void aGivenUnitOverridesTheHeaderWithANote() throws IOException {
+    Path p = file("u.csv", "t [s],F [kN]\n0,1\n1,2\n");
+    ImportedRun r = CsvImport.read(p, ImportSettings.of(ColumnMap.parse("time=1,force=2"))
+        .withForceUnit(ForceUnit.N));
+    assertThat(r.data().force_N()).containsExactly(1.0, 2.0);
+    assertThat(r.notes()).anyMatch(n -> n.contains("header says 'kN'"));
+  }
+
+  @Test
   void aSingleRowIsNotARun() throws IOException {
     Path p = file("one.csv", "time_s,force_N\n0,1\n");
     assertThatThrownBy(() -> CsvImport.plain(p))
