@@ -163,6 +163,25 @@ public final class Charts {
   }
 
   /**
+   * The curves of one group, one colour per specimen, the legend naming the specimens.
+   *
+   * @param group group name, used as the title, not null
+   * @param runs the group's runs, at least one
+   * @return a new chart; force against displacement when every run has position, else time
+   * @throws LoadstoneException when there is no run
+   */
+  public static JFreeChart group(String group, List<RunMetrics> runs) {
+    Precondition.notNull(group, "group");
+    Precondition.notNull(runs, "runs");
+    Map<String, List<RunMetrics>> each = new java.util.LinkedHashMap<>();
+    for (int i = 0; i < runs.size(); i++) {
+      String name = runs.get(i).metadata().specimen();
+      each.put(each.containsKey(name) ? name + " (" + (i + 1) + ")" : name, List.of(runs.get(i)));
+    }
+    return overlay(group, each);
+  }
+
+  /**
    * One metric by group: each specimen as a point (spread sideways so equal values stay
    * visible), with the group mean as a bar and its 95 % confidence interval as a whisker.
    *

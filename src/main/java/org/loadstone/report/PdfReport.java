@@ -94,7 +94,8 @@ public final class PdfReport {
   }
 
   /**
-   * Writes a group comparison: an overlay of all curves, then per metric a strip plot, the
+   * Writes a group comparison: an overlay of all curves, one chart of each group's curves, then
+   * per metric a strip plot, the
    * statistics table (n, mean, SD, CV %, 95 % interval), the test and p-value, the plain
    * reading and sample-size advice; then the runs per group and the cautions. A metric that any
    * run lacks is left out with a note.
@@ -128,6 +129,10 @@ public final class PdfReport {
           + String.join(", ", groups.keySet()));
       p.heading("Force curves by group");
       p.chart(Charts.overlay("all runs", groups), PdfLayout.TEXT_WIDTH, 270);
+      for (Map.Entry<String, List<RunMetrics>> e : groups.entrySet()) {
+        p.heading("Group " + e.getKey(), 200);
+        p.chart(Charts.group(e.getKey(), e.getValue()), PdfLayout.TEXT_WIDTH * 0.8f, 200);
+      }
       List<String> skipped = new ArrayList<>();
       for (Metric metric : metrics) {
         Map<String, List<Double>> values = values(groups, metric, skipped);
