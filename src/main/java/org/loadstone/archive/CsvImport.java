@@ -41,7 +41,8 @@ public final class CsvImport {
   /**
    * Reads a CSV with columns {@code time_s, force_N} and optionally {@code position_mm} (other
    * columns are ignored), as written for every Loadstone run and by {@code CsvExport} with the
-   * default marks. The delimiter is detected; numbers use a decimal point. A position column
+   * default marks. The delimiter is detected; numbers use a decimal point, or either mark when
+   * the delimiter is ';' or tab (as {@code CsvExport} writes for spreadsheets). A position column
    * with only empty cells means the run has no position.
    *
    * @param file the CSV, not null
@@ -80,6 +81,8 @@ public final class CsvImport {
     String body = text.substring(bodyStart);
     char delim = s.delimiter() != null ? s.delimiter()
         : detectDelimiter(body, s.decimalComma(), name, s.skipLines() + 1);
+    // a plain file separated by ';' or tab may use either decimal mark (a spreadsheet export)
+    boolean decimalComma = s.decimalComma() || (plain && delim != ',');
     List<String> notes = new ArrayList<>();
     CSVFormat fmt = CSVFormat.DEFAULT.builder().setDelimiter(delim).setIgnoreEmptyLines(true)
         .setTrim(true).build();
@@ -110,7 +113,7 @@ public final class CsvImport {
     int pi = s.columns().position() == null ? -1
         : column(s.columns().position(), header, name, headerLine, plain);
     if (isIndex(s.columns().time()) && isIndex(s.columns().force())
-        && numeric(header, ti, s.decimalComma()) && numeric(header, fi, s.decimalComma())) {
+        && numeric(header, ti, decimalComma) && numeric(header, fi, decimalComma)) {
       rows.add(0, header.toArray(new String[0])); // no header row: the first line is data
       rowLines.add(0, headerLine);
       header = null;
@@ -135,7 +138,7 @@ public final class CsvImport {
     double[] t = new double[n];
     double[] f = new double[n];
     double[] x = pi < 0 ? null : new double[n];
-    Cells c = new Cells(name, header, s.decimalComma());
+    Cells c = new Cells(name, header, decimalComma);
     for (int i = 0; i < n; i++) {
       String[] row = rows.get(i);
       int line = rowLines.get(i);
@@ -158,24 +161,55 @@ public final class CsvImport {
       }
       notes.add(String.format(Locale.ROOT, "Time shifted by %.6g s to start at 0.", -t0));
     }
-    notes.add("No raw data: raw counts are 0 and seq is the row index.");
-    int[] seq = new int[n];
-    Arrays.setAll(seq, i -> i);
-    RunData data = new RunData(t, f, x, new int[n], x == null ? null : new int[n], seq);
+    RunData data = plain && header != null
+        ? withRaw(t, f, x, rows, rowLines, header, c, notes)
+        : null;
+    if (data == null) {
+      notes.add("No raw data: raw counts are 0 and seq is the row index.");
+      int[] seq = new int[n];
+      Arrays.setAll(seq, i -> i);
+      data = new RunData(t, f, x, new int[n], x == null ? null : new int[n], seq);
+    }
     List<String> cols = new ArrayList<>();
     cols.add(describe("time", c.label(ti), ti, tu.symbol()));
     cols.add(describe("force", c.label(fi), fi, fu.symbol()));
     if (pi >= 0) {
       cols.add(describe("position", c.label(pi), pi, lu.symbol()));
     }
-    return new ImportedRun(metadata(file, name, data, cols), data, delim, cols, notes);
+    boolean raw = notes.stream().anyMatch(x2 -> x2.startsWith("Raw counts"));
+    return new ImportedRun(metadata(file, name, data, cols, raw), data, delim, cols, notes);
+  }
+
+  /** A run CSV's own raw columns, kept when present (raw is truth); null when absent. */
+  private static RunData withRaw(double[] t, double[] f, double[] x, List<String[]> rows,
+      List<Integer> lines, List<String> header, Cells c, List<String> notes) {
+    int rc = column("raw_counts", header, "", 0, true);
+    int sq = column("seq", header, "", 0, true);
+    int rp = x == null ? -1 : column("raw_position", header, "", 0, true);
+    if (rc < 0 || sq < 0 || (x != null && rp < 0)) {
+      return null;
+    }
+    int n = rows.size();
+    int[] raw = new int[n];
+    int[] seq = new int[n];
+    int[] rawPos = x == null ? null : new int[n];
+    for (int i = 0; i < n; i++) {
+      raw[i] = c.integer(rows.get(i), rc, lines.get(i));
+      seq[i] = c.integer(rows.get(i), sq, lines.get(i));
+      if (rawPos != null) {
+        rawPos[i] = c.integer(rows.get(i), rp, lines.get(i));
+      }
+    }
+    notes.add("Raw counts and sequence numbers read from the file.");
+    return new RunData(t, f, x, raw, rawPos, seq);
   }
 
   private static String describe(String role, String label, int index, String unit) {
     return role + ": " + label + " (column " + (index + 1) + ") in " + unit;
   }
 
-  private static RunMetadata metadata(Path file, String name, RunData d, List<String> cols) {
+  private static RunMetadata metadata(Path file, String name, RunData d, List<String> cols,
+      boolean raw) {
     String stem = name.contains(".") ? name.substring(0, name.lastIndexOf('.')) : name;
     Instant started;
     try {
@@ -189,9 +223,10 @@ public final class CsvImport {
     return new RunMetadata("import-" + stem.replaceAll("[^A-Za-z0-9._-]", "_"), started, stem, "",
         List.of("imported"), "", "Imported from " + name + ".", null, Geometry.NONE, null,
         Map.of("source", name), rate, null, null,
-        "imported: force read from " + name + ", no raw counts",
+        "imported: force read from " + name + (raw ? "" : ", no raw counts"),
         new ScaleSpec("imported", List.of(0.0), null, null), 0, 0, 0, FinishCause.IMPORTED, null,
-        null, null, null, 0, null, null, List.of("No raw data: raw counts are 0."),
+        null, null, null, 0, null, null,
+        raw ? List.of() : List.of("No raw data: raw counts are 0."),
         version == null ? "dev" : version, Map.of("import_columns", String.join("; ", cols)));
   }
 
@@ -310,6 +345,10 @@ public final class CsvImport {
       }
     }
     if (given != null) {
+      if (fromHeader != null && !fromHeader.equalsIgnoreCase(symbol.apply(given))) {
+        notes.add("The " + role + " header says '" + fromHeader + "' but " + option + " "
+            + symbol.apply(given) + " was given; the given unit is used.");
+      }
       return given;
     }
     if (fromHeader != null) {
@@ -351,6 +390,16 @@ public final class CsvImport {
         throw new LoadstoneException(where + ": '" + raw + "' is not a number." + hint);
       }
       return Double.parseDouble(v);
+    }
+
+    int integer(String[] row, int col, int line) {
+      double v = number(row, col, line);
+      if (v != Math.rint(v) || Math.abs(v) > Integer.MAX_VALUE) {
+        throw new LoadstoneException("File " + file + " line " + line + " column " + label(col)
+            + ": " + row[col].trim() + " is not a whole number of counts. Repair the cell or "
+            + "drop the raw columns.");
+      }
+      return (int) v;
     }
   }
 }

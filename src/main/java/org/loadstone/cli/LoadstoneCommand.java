@@ -25,6 +25,10 @@ import picocli.CommandLine.Command;
       VerifyCommand.class,
       RunsCommand.class,
       CompareCommand.class,
+      AnalyzeCommand.class,
+      ImportCommand.class,
+      ExportCommand.class,
+      ReportCommand.class,
       CommandLine.HelpCommand.class
     })
 public final class LoadstoneCommand implements Runnable {

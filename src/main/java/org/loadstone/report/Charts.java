@@ -46,8 +46,8 @@ public final class Charts {
   private static final Color INK = new Color(0x2E, 0x34, 0x3B);
   private static final Color GRID = new Color(0xDD, 0xE1, 0xE6);
   private static final Color ACCENT = new Color(0xB0, 0x4A, 0x3A);
-  private static final Font LABEL = new Font(Font.SANS_SERIF, Font.PLAIN, 11);
-  private static final Font TITLE = new Font(Font.SANS_SERIF, Font.BOLD, 13);
+  private static final Font LABEL = new Font(Font.SANS_SERIF, Font.PLAIN, 10);
+  private static final Font TITLE = new Font(Font.SANS_SERIF, Font.BOLD, 12);
 
   /**
    * Force against displacement (from the first sample) for a run with position, otherwise force
@@ -75,8 +75,7 @@ public final class Charts {
     int next = 1;
     if (c.hasPosition() && r.stiffness().isPresent()) {
       StiffnessFit fit = r.stiffness().get();
-      double top = Math.min(r.peakForce_N(), fit.toForce_N() + 0.35 * (r.peakForce_N()
-          - fit.toForce_N()));
+      double top = r.peakForce_N(); // up to the peak level, so the curve's departure shows
       XYSeries line = new XYSeries(String.format(Locale.ROOT, "stiffness %.4g N/mm",
           fit.slope_N_per_mm()), false, true);
       line.add(fit.toeOffset_mm(), 0.0);
@@ -101,12 +100,15 @@ public final class Charts {
     XYPlot plot = plot(ds, rend, new NumberAxis(xLabel), "force (N)");
     int p = r.peakIndex();
     XYPointerAnnotation peak = new XYPointerAnnotation(
-        String.format(Locale.ROOT, "peak %.4g N", r.peakForce_N()), x[p], f[p], -Math.PI / 4);
+        String.format(Locale.ROOT, "peak %.4g N", r.peakForce_N()), x[p], f[p], -2.6);
     peak.setFont(LABEL);
     peak.setPaint(INK);
     peak.setArrowPaint(INK);
-    peak.setTextAnchor(TextAnchor.BOTTOM_LEFT);
+    peak.setTextAnchor(TextAnchor.BOTTOM_RIGHT);
+    peak.setBaseRadius(22);
+    peak.setTipRadius(3);
     plot.addAnnotation(peak);
+    plot.getRangeAxis().setUpperMargin(0.2);
     String title = m.metadata().specimen().isBlank() ? m.metadata().runId()
         : m.metadata().specimen();
     return chart(title, plot, ds.getSeriesCount() > 1);
@@ -115,6 +117,7 @@ public final class Charts {
   /**
    * The curves of several runs on one chart, one colour per group (legend: one entry per group).
    *
+   * @param title chart title, not null
    * @param groups group name → runs, in order; at least one run in all
    * @return a new chart; force against displacement when every run has position, else time
    * @throws LoadstoneException when there is no run
@@ -157,6 +160,25 @@ public final class Charts {
     }
     String xLabel = allPosition ? "displacement (mm)" : "time (s)";
     return chart(title, plot(ds, rend, new NumberAxis(xLabel), "force (N)"), true);
+  }
+
+  /**
+   * The curves of one group, one colour per specimen, the legend naming the specimens.
+   *
+   * @param group group name, used as the title, not null
+   * @param runs the group's runs, at least one
+   * @return a new chart; force against displacement when every run has position, else time
+   * @throws LoadstoneException when there is no run
+   */
+  public static JFreeChart group(String group, List<RunMetrics> runs) {
+    Precondition.notNull(group, "group");
+    Precondition.notNull(runs, "runs");
+    Map<String, List<RunMetrics>> each = new java.util.LinkedHashMap<>();
+    for (int i = 0; i < runs.size(); i++) {
+      String name = runs.get(i).metadata().specimen();
+      each.put(each.containsKey(name) ? name + " (" + (i + 1) + ")" : name, List.of(runs.get(i)));
+    }
+    return overlay(group, each);
   }
 
   /**

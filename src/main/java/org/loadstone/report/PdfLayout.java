@@ -84,7 +84,12 @@ final class PdfLayout implements AutoCloseable {
   }
 
   void heading(String s) {
-    need(36);
+    heading(s, 40);
+  }
+
+  /** A heading kept on the same page as the next {@code keep} points of content. */
+  void heading(String s, float keep) {
+    need(25 + keep);
     y -= 8;
     text(bold, 11.5f, INK, MARGIN, y - 11.5f, s);
     y -= 17;
@@ -170,7 +175,21 @@ final class PdfLayout implements AutoCloseable {
   /** A chart rendered at twice the resolution and drawn {@code width × height} points. */
   void chart(JFreeChart chart, float width, float height) {
     need(height + 6);
-    BufferedImage img = chart.createBufferedImage((int) (width * 2.5), (int) (height * 2.5));
+    // drawn at a logical size a little larger than the page size, so chart text comes out
+    // near 9 pt, and at twice that in pixels (about 160 dpi on paper)
+    double logicalW = width / 0.9;
+    double logicalH = height / 0.9;
+    int scale = 2;
+    BufferedImage img = new BufferedImage((int) (logicalW * scale), (int) (logicalH * scale),
+        BufferedImage.TYPE_INT_RGB);
+    java.awt.Graphics2D g2 = img.createGraphics();
+    g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING,
+        java.awt.RenderingHints.VALUE_ANTIALIAS_ON);
+    g2.setRenderingHint(java.awt.RenderingHints.KEY_TEXT_ANTIALIASING,
+        java.awt.RenderingHints.VALUE_TEXT_ANTIALIAS_ON);
+    g2.scale(scale, scale);
+    chart.draw(g2, new java.awt.geom.Rectangle2D.Double(0, 0, logicalW, logicalH));
+    g2.dispose();
     try {
       PDImageXObject x = LosslessFactory.createFromImage(doc, img);
       cs.drawImage(x, MARGIN + (TEXT_WIDTH - width) / 2, y - height, width, height);

@@ -79,9 +79,9 @@ public final class PdfReport {
           + when(md) + "  -  Loadstone " + md.softwareVersion());
       p.heading("Specimen and run");
       p.table(new String[] {"item", "value"}, RunFacts.rows(md), new float[] {0.3f, 0.7f}, 8.5f);
-      p.heading("Force curve");
-      p.chart(Charts.run(m), PdfLayout.TEXT_WIDTH, 290);
-      p.heading("Results");
+      p.heading("Force curve", 260);
+      p.chart(Charts.run(m), PdfLayout.TEXT_WIDTH, 260);
+      p.heading("Results", 120);
       p.table(new String[] {"quantity (unit)", "value"}, results(m), new float[] {0.55f, 0.45f},
           9);
       if (!m.notes().isEmpty()) {
@@ -94,7 +94,8 @@ public final class PdfReport {
   }
 
   /**
-   * Writes a group comparison: an overlay of all curves, then per metric a strip plot, the
+   * Writes a group comparison: an overlay of all curves, one chart of each group's curves, then
+   * per metric a strip plot, the
    * statistics table (n, mean, SD, CV %, 95 % interval), the test and p-value, the plain
    * reading and sample-size advice; then the runs per group and the cautions. A metric that any
    * run lacks is left out with a note.
@@ -128,6 +129,10 @@ public final class PdfReport {
           + String.join(", ", groups.keySet()));
       p.heading("Force curves by group");
       p.chart(Charts.overlay("all runs", groups), PdfLayout.TEXT_WIDTH, 270);
+      for (Map.Entry<String, List<RunMetrics>> e : groups.entrySet()) {
+        p.heading("Group " + e.getKey(), 200);
+        p.chart(Charts.group(e.getKey(), e.getValue()), PdfLayout.TEXT_WIDTH * 0.8f, 200);
+      }
       List<String> skipped = new ArrayList<>();
       for (Metric metric : metrics) {
         Map<String, List<Double>> values = values(groups, metric, skipped);
@@ -135,10 +140,9 @@ public final class PdfReport {
           continue;
         }
         ComparisonResult r = GroupComparison.compare(metric.label(), values);
-        p.newPage();
-        p.heading(capital(metric.label()) + " (" + metric.unit() + ")");
+        p.heading(capital(metric.label()) + " (" + metric.unit() + ")", 340);
         p.chart(Charts.strip(r, values, metric.label() + " (" + metric.unit() + ")"),
-            PdfLayout.TEXT_WIDTH * 0.8f, 230);
+            PdfLayout.TEXT_WIDTH * 0.8f, 190);
         p.table(statsHeads(metric.unit()), statsRows(r), new float[] {0.22f, 0.06f, 0.14f, 0.14f,
             0.1f, 0.17f, 0.17f}, 8.5f);
         p.paragraph(testLine(r), 9);
@@ -146,13 +150,15 @@ public final class PdfReport {
         r.advice().ifPresent(a -> p.paragraph("Sample size: " + a.sentence(), 9));
         if (!r.outliers().isEmpty()) {
           List<String> o = new ArrayList<>();
-          r.outliers().forEach(f -> o.add("Possible outlier in group '" + f.group() + "': "
-              + f.outlier()));
+          r.outliers().forEach(f -> o.add(String.format(Locale.ROOT,
+              "Possible outlier in group '%s': specimen %d of the group, %s %s (Grubbs G = %.3g "
+                  + "above the critical %.3g at the 5 %% level). Check that specimen before "
+                  + "leaving it out.", f.group(), f.outlier().index() + 1,
+              num(f.outlier().value()), metric.unit(), f.outlier().g(), f.outlier().critical())));
           p.bullets(o, 8.5f);
         }
       }
-      p.newPage();
-      p.heading("Runs in this report");
+      p.heading("Runs in this report", 80);
       List<String[]> rows = new ArrayList<>();
       groups.forEach((g, list) -> list.forEach(m -> rows.add(new String[] {g,
           m.metadata().specimen(), m.metadata().runId(), num(m.analysis().peakForce_N())})));
@@ -167,9 +173,9 @@ public final class PdfReport {
     }
   }
 
-  /** @return a p-value with two significant digits, or {@code < 0.0001} */
+  /** @return {@code p = } and the p-value with two significant digits, or {@code p < 0.0001} */
   public static String formatP(double p) {
-    return p < 1e-4 ? "< 0.0001" : String.format(Locale.ROOT, "%.2g", p);
+    return p < 1e-4 ? "p < 0.0001" : String.format(Locale.ROOT, "p = %.2g", p);
   }
 
   private static Map<String, List<Double>> values(Map<String, List<RunMetrics>> groups,
@@ -208,11 +214,11 @@ public final class PdfReport {
 
   private static String testLine(ComparisonResult r) {
     return switch (r.test()) {
-      case WELCH_T -> String.format(Locale.ROOT, "Test: Welch t-test, t = %.3g, df = %.3g, p = %s",
+      case WELCH_T -> String.format(Locale.ROOT, "Test: Welch t-test, t = %.3g, df = %.3g, %s",
           r.statistic().getAsDouble(), r.degreesOfFreedom().getAsDouble(),
           formatP(r.pValue().getAsDouble()));
       case ONE_WAY_ANOVA -> String.format(Locale.ROOT,
-          "Test: one-way ANOVA, F = %.3g, within-group df = %.0f, p = %s",
+          "Test: one-way ANOVA, F = %.3g, within-group df = %.0f, %s",
           r.statistic().getAsDouble(), r.degreesOfFreedom().getAsDouble(),
           formatP(r.pValue().getAsDouble()));
       case NONE -> "Test: none (see the reading below).";
@@ -251,6 +257,9 @@ public final class PdfReport {
   }
 
   static String num(double v) {
+    if (Math.abs(v) < 1e-12) {
+      return "0"; // rounding noise of a value that is zero, e.g. a toe offset on a clean line
+    }
     return String.format(Locale.ROOT, "%.4g", v);
   }
 

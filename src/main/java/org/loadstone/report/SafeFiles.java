@@ -32,6 +32,11 @@ final class SafeFiles {
     try {
       Files.createDirectories(dir);
       tmp = Files.createTempFile(dir, "." + abs.getFileName(), ".tmp");
+      if (Files.getFileStore(tmp).supportsFileAttributeView("posix")) {
+        // temporary files are private; the finished file is an ordinary readable one
+        Files.setPosixFilePermissions(tmp,
+            java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--"));
+      }
       try (OutputStream out = Files.newOutputStream(tmp)) {
         content.writeTo(out);
       }

@@ -66,6 +66,10 @@ class CsvImportTest {
     ImportedRun a = CsvImport.plain(with);
     assertThat(a.data().force_N()).containsExactly(1.5, 2.5);
     assertThat(a.data().position_mm()).containsExactly(0.0, 0.01);
+    // a run file's raw columns are kept: raw is truth
+    assertThat(a.data().rawCounts()).containsExactly(12, 20);
+    assertThat(a.data().rawPosition()).containsExactly(0, 4);
+    assertThat(a.data().seq()).containsExactly(7, 8);
     Path without = file("r2.csv", "time_s,force_N,position_mm\n0,1,\n1,2,\n");
     assertThat(CsvImport.plain(without).data().hasPosition()).isFalse();
     Path noColumn = file("r3.csv", "time_s,force_N\n0,1\n1,2\n");
@@ -126,6 +130,24 @@ class CsvImportTest {
     assertThatThrownBy(() -> CsvImport.plain(p))
         .hasMessageContaining("m.csv line 4 column 'time_s': time 0.1 s does not come after "
             + "0.2 s on line 3");
+  }
+
+  @Test
+  void lineNumbersCountCrLfAndPreambleLines() throws IOException {
+    Path p = file("crlf.csv", "exported 2026-11-30\r\n\r\nt;F\r\n0;1\r\n1;2\r\n1;3\r\n");
+    assertThatThrownBy(() -> CsvImport.read(p, ImportSettings.of(ColumnMap.parse("time=t,force=F"))
+        .withSkipLines(2).withDelimiter(';')))
+        .hasMessageContaining("crlf.csv line 6 column 't': time 1.0 s does not come after 1.0 s "
+            + "on line 5");
+  }
+
+  @Test
+  void aGivenUnitOverridesTheHeaderWithANote() throws IOException {
+    Path p = file("u.csv", "t [s],F [kN]\n0,1\n1,2\n");
+    ImportedRun r = CsvImport.read(p, ImportSettings.of(ColumnMap.parse("time=1,force=2"))
+        .withForceUnit(ForceUnit.N));
+    assertThat(r.data().force_N()).containsExactly(1.0, 2.0);
+    assertThat(r.notes()).anyMatch(n -> n.contains("header says 'kN'"));
   }
 
   @Test

@@ -43,6 +43,45 @@ class RunMetricsTest {
   }
 
   @Test
+  void fourPointModulusRecoversTheBeamModulus() {
+    // Two loads P/2 at a = (L − load span)/2 from the supports: midspan deflection
+    // δ = P·a·(3L² − 4a²)/(48EI) (standard beam table, e.g. Roark's Formulas for Stress and
+    // Strain), so k = 48EI/(a(3L² − 4a²)). Stress σ = 3P(L − load span)/(2bd²) (ASTM D6272).
+    double e = 2800;
+    double l = 240;
+    double ls = 80;
+    double a = (l - ls) / 2;
+    double b = 50;
+    double d = 12;
+    double k = 48 * e * (b * d * d * d / 12) / (a * (3 * l * l - 4 * a * a));
+    Geometry g = new Geometry(l, ls, b, d, null, null, null);
+    RunMetadata meta = TestRuns.meta("B-4P", "balsa", g, null);
+    meta = new RunMetadata(meta.runId(), meta.startedAt(), meta.specimen(), meta.group(),
+        meta.tags(), meta.operator(), meta.notes(), null, g, TestType.FOUR_POINT_BEND,
+        meta.device(), meta.sampleRate_Hz(), null, null, meta.scale(), meta.scaleSpec(), 0, 0, 0,
+        FinishCause.BREAK, null, null, null, null, 0, null, null, null, "t", null);
+    RunMetrics m = RunMetrics.of(meta, TestRuns.bend(k, 500));
+    assertThat(m.flexuralModulus_MPa().getAsDouble()).isCloseTo(e, within(0.005 * e));
+    // 3·500·160/(2·50·144) = 16.6667 MPa
+    assertThat(m.flexuralStressAtPeak_MPa().getAsDouble()).isCloseTo(240000 / 14400.0,
+        within(1e-9));
+  }
+
+  @Test
+  void compressionStressIsForceOverArea() {
+    // σ = P/A: 460 N on 50 mm × 50 mm = 2500 mm² gives 0.184 MPa (hand-computed)
+    Geometry g = new Geometry(null, null, null, null, null, null, 2500.0);
+    RunMetadata base = TestRuns.meta("C-01", "foam", g, null);
+    RunMetadata meta = new RunMetadata(base.runId(), base.startedAt(), base.specimen(),
+        base.group(), base.tags(), base.operator(), base.notes(), null, g, TestType.COMPRESSION,
+        base.device(), base.sampleRate_Hz(), null, null, base.scale(), base.scaleSpec(), 0, 0, 0,
+        FinishCause.BREAK, null, null, null, null, 0, null, null, null, "t", null);
+    RunMetrics m = RunMetrics.of(meta, TestRuns.bend(60, 460));
+    assertThat(m.compressionStressAtPeak_MPa().getAsDouble()).isCloseTo(0.184, within(1e-12));
+    assertThat(m.flexuralStressAtPeak_MPa()).isEmpty();
+  }
+
+  @Test
   void jsonMapHasTheAgreedKeysAndNullsForAbsentValues() {
     RunData d = TestRuns.bend(60, 460);
     RunData noPos = new RunData(d.time_s(), d.force_N(), null, d.rawCounts(), null, d.seq());

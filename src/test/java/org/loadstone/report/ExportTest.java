@@ -2,6 +2,7 @@ package org.loadstone.report;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.assertj.core.api.Assertions.within;
 
 import java.awt.image.BufferedImage;
 import java.io.IOException;
@@ -86,6 +87,35 @@ class ExportTest {
     Path c3 = dir.resolve("small-point.csv");
     CsvExport.write(small, c3, ',', '.');
     assertThat(CsvImport.plain(c3).data().force_N()).containsExactly(1.25, 2.5e-7);
+  }
+
+  @Test
+  void randomValuesSurviveTheSpreadsheetRoundTripExactly() throws IOException {
+    java.util.Random rnd = new java.util.Random(20261202L); // fixed seed
+    int n = 500;
+    double[] t = new double[n];
+    double[] f = new double[n];
+    double[] x = new double[n];
+    double now = 0;
+    for (int i = 0; i < n; i++) {
+      now += Math.pow(10, -6 + 6 * rnd.nextDouble());
+      t[i] = now;
+      f[i] = (rnd.nextDouble() - 0.3) * Math.pow(10, -9 + 15 * rnd.nextDouble());
+      x[i] = rnd.nextGaussian() * 50;
+    }
+    int[] zeros = new int[n];
+    int[] seq = new int[n];
+    java.util.Arrays.setAll(seq, i -> i);
+    RunData d = new RunData(t, f, x, zeros, zeros.clone(), seq);
+    Path csv = dir.resolve("random.csv");
+    CsvExport.write(d, csv, ';', ',');
+    ImportedRun back = CsvImport.plain(csv);
+    assertThat(back.data().force_N()).containsExactly(f);
+    assertThat(back.data().position_mm()).containsExactly(x);
+    // plain() shifts time to start at 0; the differences survive within one ulp of the sum
+    for (int i = 0; i < n; i++) {
+      assertThat(back.data().time_s()[i]).isCloseTo(t[i] - t[0], within(Math.ulp(t[i]) * 2));
+    }
   }
 
   @Test

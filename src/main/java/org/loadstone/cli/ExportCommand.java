@@ -1,0 +1,56 @@
+package org.loadstone.cli;
+
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import org.loadstone.cli.RunResolver.ResolvedRun;
+import org.loadstone.report.CsvExport;
+import org.loadstone.units.LoadstoneException;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code loadstone export}: a run's samples as CSV for a spreadsheet. */
+@Command(
+    name = "export",
+    description = {
+      "Write a run's samples as CSV for a spreadsheet.",
+      "Choose the delimiter and decimal mark, e.g. --delimiter ';' --decimal ',' for "
+          + "comma-decimal locales."
+    })
+public final class ExportCommand implements Callable<Integer> {
+  @Parameters(paramLabel = "RUN", description = "The run's CSV file.")
+  String run;
+
+  @Option(names = "--out", required = true, paramLabel = "FILE", description = "Target file (must not exist).")
+  Path out;
+
+  @Option(names = "--delimiter", defaultValue = ",", description = "',', ';' or tab (default ',').")
+  String delimiter;
+
+  @Option(names = "--decimal", defaultValue = ".", description = "'.' or ',' (default '.').")
+  String decimal;
+
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
+
+  @Override
+  public Integer call() {
+    ResolvedRun r = CliWiring.resolve(run);
+    CsvExport.write(r.data(), out, mark(delimiter, "--delimiter"), mark(decimal, "--decimal"));
+    spec.commandLine().getOut().println("written " + r.data().size() + " samples to " + out);
+    spec.commandLine().getOut().flush();
+    return 0;
+  }
+
+  /** Reads a one-character mark; {@code tab} or {@code \t} is a tab. */
+  static char mark(String text, String option) {
+    if (text.equalsIgnoreCase("tab") || text.equals("\\t")) {
+      return '\t';
+    }
+    if (text.length() != 1) {
+      throw new LoadstoneException(option + " '" + text + "' is not one character; give e.g. ';', "
+          + "',' or tab.");
+    }
+    return text.charAt(0);
+  }
+}

@@ -1,0 +1,134 @@
+package org.loadstone.cli;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.Arrays;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.loadstone.archive.ColumnMap;
+import org.loadstone.archive.CsvImport;
+import org.loadstone.archive.ImportSettings;
+import org.loadstone.archive.ImportedRun;
+import org.loadstone.archive.RunData;
+import org.loadstone.report.CsvExport;
+import org.loadstone.units.DurationUnit;
+import org.loadstone.units.ForceUnit;
+import org.loadstone.units.LengthUnit;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/** {@code loadstone import}: reads a force–time or force–displacement CSV from elsewhere. */
+@Command(
+    name = "import",
+    description = {
+      "Read a force-time or force-displacement CSV from other software.",
+      "Shows what was parsed and stores the run: in the archive when one is connected, or "
+          + "with --out as a plain CSV."
+    })
+public final class ImportCommand implements Callable<Integer> {
+  @Parameters(paramLabel = "FILE", description = "The CSV to import.")
+  Path file;
+
+  @Option(names = "--map", required = true, paramLabel = "MAP",
+      description = "Columns by header name or 1-based number, e.g. time=Time [s],force=Load,position=3")
+  String map;
+
+  @Option(names = "--force-unit", description = "N, kN, lbf or kgf (default: from the header, else N).")
+  String forceUnit;
+
+  @Option(names = "--length-unit", description = "mm, um, cm, m or in (default: from the header, else mm).")
+  String lengthUnit;
+
+  @Option(names = "--time-unit", description = "s, ms or min (default: from the header, else s).")
+  String timeUnit;
+
+  @Option(names = "--decimal-comma", description = "Numbers use a comma as decimal mark.")
+  boolean decimalComma;
+
+  @Option(names = "--delimiter", description = "Field delimiter: ',', ';' or tab (default: detect).")
+  String delimiter;
+
+  @Option(names = "--skip-lines", defaultValue = "0", description = "Lines before the header row.")
+  int skipLines;
+
+  @Option(names = "--out", paramLabel = "FILE.csv", description = "Write the run as a plain CSV here.")
+  Path out;
+
+  @Option(names = "--json", description = "End with the summary as one JSON object on the last line.")
+  boolean json;
+
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
+
+  @Override
+  public Integer call() throws Exception {
+    ImportSettings s = ImportSettings.of(ColumnMap.parse(map))
+        .withDecimalComma(decimalComma).withSkipLines(skipLines)
+        .withDelimiter(delimiter == null ? null : ExportCommand.mark(delimiter, "--delimiter"));
+    if (forceUnit != null) {
+      s = s.withForceUnit(ForceUnit.parse(forceUnit));
+    }
+    if (lengthUnit != null) {
+      s = s.withLengthUnit(LengthUnit.parse(lengthUnit));
+    }
+    if (timeUnit != null) {
+      s = s.withTimeUnit(DurationUnit.parse(timeUnit));
+    }
+    ImportedRun run = CsvImport.read(file, s);
+    RunData d = run.data();
+    PrintWriter o = spec.commandLine().getOut();
+    o.printf(Locale.ROOT, "%s: %d rows, delimiter %s%n", file, d.size(),
+        run.delimiter() == '\t' ? "tab" : "'" + run.delimiter() + "'");
+    run.columns().forEach(c -> o.println("  " + c));
+    double[] t = range(d.time_s());
+    double[] f = range(d.force_N());
+    o.println("  time " + num(t[0]) + " to " + num(t[1]) + " s, force " + num(f[0]) + " to "
+        + num(f[1]) + " N");
+    double[] x = d.hasPosition() ? range(d.position_mm()) : null;
+    if (x != null) {
+      o.println("  position " + num(x[0]) + " to " + num(x[1]) + " mm");
+    }
+    run.notes().forEach(n -> o.println("note: " + n));
+    String stored;
+    if (out != null) {
+      CsvExport.write(d, out, ',', '.');
+      stored = out.toString();
+      o.println("written to " + out);
+    } else if (CliWiring.sink().isPresent()) {
+      stored = CliWiring.sink().get().store(run);
+      o.println("stored: " + stored);
+    } else {
+      stored = null;
+      o.println("not stored: no archive is connected; give --out FILE.csv to keep the samples");
+    }
+    if (json) {
+      Map<String, Object> m = new LinkedHashMap<>();
+      m.put("file", file.toString());
+      m.put("rows", d.size());
+      m.put("delimiter", String.valueOf(run.delimiter()));
+      m.put("columns", run.columns());
+      m.put("time_s_range", List.of(t[0], t[1]));
+      m.put("force_N_range", List.of(f[0], f[1]));
+      m.put("position_mm_range", x == null ? null : List.of(x[0], x[1]));
+      m.put("notes", run.notes());
+      m.put("stored", stored);
+      o.println(new ObjectMapper().writeValueAsString(m));
+    }
+    o.flush();
+    return 0;
+  }
+
+  private static String num(double v) {
+    return new java.math.BigDecimal(v).round(new java.math.MathContext(6)).stripTrailingZeros()
+        .toPlainString();
+  }
+
+  private static double[] range(double[] v) {
+    return new double[] {Arrays.stream(v).min().orElseThrow(), Arrays.stream(v).max().orElseThrow()};
+  }
+}
