@@ -23,7 +23,9 @@ import picocli.CommandLine.Parameters;
           + "with columns time_s, force_N and (optionally) position_mm."
     })
 public final class AnalyzeCommand implements Callable<Integer> {
-  @Parameters(paramLabel = "RUN", description = "The run's CSV file.")
+  @picocli.CommandLine.Mixin ArchiveOption archive;
+
+  @Parameters(paramLabel = "RUN", description = "A run id (or id prefix) in the archive, a run's CSV, or any CSV with columns time_s, force_N, position_mm.")
   String run;
 
   @Option(names = "--stiffness-from-N", paramLabel = "A",
@@ -68,7 +70,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
     if (fromN != null) {
       settings = settings.withStiffnessBounds(StiffnessBounds.force_N(fromN, toN));
     }
-    ResolvedRun r = CliWiring.resolve(run);
+    ResolvedRun r = CliWiring.resolve(run, archive.folder());
     RunMetrics m = RunMetrics.of(r.metadata(), r.data(), settings);
     Map<String, Object> j = m.toJsonMap();
     PrintWriter out = spec.commandLine().getOut();

@@ -1,38 +1,78 @@
 package org.loadstone.cli;
 
+import java.nio.file.Files;
+import java.nio.file.InvalidPathException;
+import java.nio.file.Path;
+import java.time.Instant;
 import java.util.Optional;
+import org.loadstone.archive.ArchiveIndex;
+import org.loadstone.archive.ImportedRun;
+import org.loadstone.archive.Run;
+import org.loadstone.archive.RunIds;
+import org.loadstone.archive.RunMetadata;
+import org.loadstone.archive.RunReader;
+import org.loadstone.archive.RunWriter;
+import org.loadstone.archive.StoredRun;
 import org.loadstone.cli.RunResolver.ResolvedRun;
 import org.loadstone.units.LoadstoneException;
-import org.loadstone.units.Precondition;
 
 /**
- * The services the run commands use, replaceable at start-up (before the command line runs):
- * how a run reference is resolved and where an imported run is stored.
+ * How the run commands find a run and where an imported run goes: a file path (a run's CSV with
+ * its JSON sidecar keeps all metadata; any other CSV with {@code time_s, force_N, position_mm} is
+ * read as plain columns), else a run id or id prefix in the archive.
  */
-public final class CliWiring {
+final class CliWiring {
   private CliWiring() {}
 
-  private static volatile RunResolver resolver = RunResolver.csvFiles();
-  private static volatile RunSink sink;
-
-  /** Uses another resolver, e.g. {@code archiveLookup.orElse(RunResolver.csvFiles())}. */
-  public static void useResolver(RunResolver r) {
-    resolver = Precondition.notNull(r, "resolver");
+  /** @throws LoadstoneException when neither a file nor an archived run matches */
+  static ResolvedRun resolve(String reference, Path archiveDir) {
+    Optional<Path> file = asFile(reference);
+    if (file.isPresent()) {
+      Path p = file.get();
+      Path sidecar = p.resolveSibling(p.getFileName().toString().replaceFirst("\\.csv$", "")
+          + ".json");
+      if (p.toString().endsWith(".json") || (p.toString().endsWith(".csv")
+          && Files.isRegularFile(sidecar))) {
+        Run r = RunReader.read(p);
+        return new ResolvedRun(r.metadata(), r.data(), r.csv().toString());
+      }
+      return RunResolver.csvFiles().resolve(reference).orElseThrow();
+    }
+    if (!Files.isDirectory(archiveDir)) {
+      throw new LoadstoneException("no run '" + reference + "': it is not a file, and the "
+          + "archive " + archiveDir + " does not exist; give a CSV path or --archive DIR");
+    }
+    ArchiveIndex.Entry e = ArchiveIndex.scan(archiveDir).find(reference);
+    Run r = RunReader.read(e.json());
+    return new ResolvedRun(r.metadata(), r.data(), r.csv().toString());
   }
 
-  /** Uses a sink for {@code loadstone import}; {@code null} for none. */
-  public static void useSink(RunSink s) {
-    sink = s;
+  private static Optional<Path> asFile(String reference) {
+    try {
+      Path p = Path.of(reference);
+      return Files.isRegularFile(p) ? Optional.of(p) : Optional.empty();
+    } catch (InvalidPathException e) {
+      return Optional.empty();
+    }
   }
 
-  static Optional<RunSink> sink() {
-    return Optional.ofNullable(sink);
-  }
-
-  /** @throws LoadstoneException when no resolver knows the reference */
-  static ResolvedRun resolve(String reference) {
-    return resolver.resolve(reference).orElseThrow(() -> new LoadstoneException(
-        "No run '" + reference + "': it is not a readable file. Give the path of a CSV with "
-            + "columns time_s, force_N and (optionally) position_mm."));
+  /**
+   * Stores an imported run in the archive under a fresh id.
+   *
+   * @return the new run id
+   */
+  static StoredRun store(ImportedRun run, Path archiveDir, String specimen, String group) {
+    RunMetadata h = run.metadata();
+    Instant now = Instant.now();
+    String spec = specimen != null ? specimen : h.specimen();
+    String id = RunIds.newId(archiveDir, now, spec);
+    RunMetadata m = new RunMetadata(id, h.startedAt() != null ? h.startedAt() : now, spec,
+        group != null ? group : h.group(), h.tags(), h.operator(), h.notes(), h.mass_g(),
+        h.geometry(), h.testType(), h.device(), h.sampleRate_Hz(), h.calibrationId(),
+        h.calibrationSha256(), h.scale(), h.scaleSpec(), h.zeroOffset_counts(), h.dropped(),
+        h.checksumErrors(), h.cause(), h.breakIndex(), h.breakTime_s(), h.peakBeforeBreak_N(),
+        h.dropAtBreak_pct(), h.pretrigger_s(), h.startThreshold_N(), h.checkWeight(),
+        h.warnings(), h.softwareVersion(), h.extra());
+    return RunWriter.write(archiveDir, m, run.data());
   }
 }

@@ -19,7 +19,9 @@ import picocli.CommandLine.Parameters;
           + "comma-decimal locales."
     })
 public final class ExportCommand implements Callable<Integer> {
-  @Parameters(paramLabel = "RUN", description = "The run's CSV file.")
+  @picocli.CommandLine.Mixin ArchiveOption archive;
+
+  @Parameters(paramLabel = "RUN", description = "A run id (or id prefix) in the archive, a run's CSV, or any CSV with columns time_s, force_N, position_mm.")
   String run;
 
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "Target file (must not exist).")
@@ -35,7 +37,7 @@ public final class ExportCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    ResolvedRun r = CliWiring.resolve(run);
+    ResolvedRun r = CliWiring.resolve(run, archive.folder());
     CsvExport.write(r.data(), out, mark(delimiter, "--delimiter"), mark(decimal, "--decimal"));
     spec.commandLine().getOut().println("written " + r.data().size() + " samples to " + out);
     spec.commandLine().getOut().flush();

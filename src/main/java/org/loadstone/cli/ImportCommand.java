@@ -8,6 +8,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import org.loadstone.archive.StoredRun;
 import java.util.concurrent.Callable;
 import org.loadstone.archive.ColumnMap;
 import org.loadstone.archive.CsvImport;
@@ -32,6 +33,8 @@ import picocli.CommandLine.Parameters;
           + "with --out as a plain CSV."
     })
 public final class ImportCommand implements Callable<Integer> {
+  @picocli.CommandLine.Mixin ArchiveOption archive;
+
   @Parameters(paramLabel = "FILE", description = "The CSV to import.")
   Path file;
 
@@ -57,7 +60,13 @@ public final class ImportCommand implements Callable<Integer> {
   @Option(names = "--skip-lines", defaultValue = "0", description = "Lines before the header row.")
   int skipLines;
 
-  @Option(names = "--out", paramLabel = "FILE.csv", description = "Write the run as a plain CSV here.")
+  @Option(names = "--specimen", description = "Specimen id for the imported run (default: the file name).")
+  String specimen;
+
+  @Option(names = "--group", description = "Group for the imported run.")
+  String group;
+
+  @Option(names = "--out", paramLabel = "FILE.csv", description = "Write the run as a plain CSV here instead of storing it in the archive.")
   Path out;
 
   @Option(names = "--json", description = "End with the summary as one JSON object on the last line.")
@@ -99,12 +108,11 @@ public final class ImportCommand implements Callable<Integer> {
       CsvExport.write(d, out, ',', '.');
       stored = out.toString();
       o.println("written to " + out);
-    } else if (CliWiring.sink().isPresent()) {
-      stored = CliWiring.sink().get().store(run);
-      o.println("stored: " + stored);
     } else {
-      stored = null;
-      o.println("not stored: no archive is connected; give --out FILE.csv to keep the samples");
+      StoredRun sr = CliWiring.store(run, archive.folder(), specimen, group);
+      stored = sr.csv().toString();
+      o.println("stored in the archive as " + sr.csv().getFileName().toString()
+          .replaceFirst("\\.csv$", ""));
     }
     if (json) {
       Map<String, Object> m = new LinkedHashMap<>();

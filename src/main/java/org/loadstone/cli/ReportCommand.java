@@ -1,22 +1,39 @@
 package org.loadstone.cli;
 
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
 import java.util.concurrent.Callable;
+import org.loadstone.analysis.AnalysisSettings;
+import org.loadstone.archive.ArchiveIndex;
+import org.loadstone.archive.FinishCause;
+import org.loadstone.archive.GroupStudy;
 import org.loadstone.archive.RunMetrics;
 import org.loadstone.cli.RunResolver.ResolvedRun;
 import org.loadstone.report.PdfReport;
+import org.loadstone.units.LoadstoneException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 
-/** {@code loadstone report}: the PDF report of one run. */
+/** {@code loadstone report}: the PDF of one run, or of a comparison of groups. */
 @Command(
     name = "report",
-    description = {"Write the PDF report of one run: metadata, force curve, results, cautions."})
+    description = {
+      "Write a PDF report: of one run (metadata, force curve, results, cautions), or with",
+      "--group of a comparison of archived groups (overlays, strip plots, statistics)."
+    })
 public final class ReportCommand implements Callable<Integer> {
-  @Parameters(paramLabel = "RUN", description = "The run's CSV file.")
+  @picocli.CommandLine.Mixin ArchiveOption archive;
+
+  @Parameters(arity = "0..1", paramLabel = "RUN", description = "A run id (or id prefix) in the archive, a run's CSV, or any CSV with columns time_s, force_N, position_mm.")
   String run;
+
+  @Option(names = "--group", split = ",", paramLabel = "G", description = "Groups to compare (comma separated or repeated); one group is compared with all the others.")
+  List<String> groups;
 
   @Option(names = "--out", required = true, paramLabel = "FILE.pdf", description = "Target PDF (must not exist).")
   Path out;
@@ -25,8 +42,34 @@ public final class ReportCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    ResolvedRun r = CliWiring.resolve(run);
-    PdfReport.writeRun(RunMetrics.of(r.metadata(), r.data()), out);
+    if ((run == null) == (groups == null || groups.isEmpty())) {
+      throw new LoadstoneException("give either one RUN or --group G: a run report or a group "
+          + "report");
+    }
+    if (run != null) {
+      ResolvedRun r = CliWiring.resolve(run, archive.folder());
+      PdfReport.writeRun(RunMetrics.of(r.metadata(), r.data()), out);
+    } else {
+      ArchiveIndex idx = ArchiveIndex.scan(archive.folder());
+      List<ArchiveIndex.Entry> broken = idx.entries().stream()
+          .filter(e -> e.metadata().cause() == FinishCause.BREAK
+              || e.metadata().cause() == FinishCause.IMPORTED)
+          .toList();
+      Map<String, List<RunMetrics>> all = GroupStudy.load(broken, AnalysisSettings.DEFAULTS);
+      Map<String, List<RunMetrics>> chosen = new LinkedHashMap<>();
+      for (String g : groups) {
+        List<RunMetrics> list = all.entrySet().stream()
+            .filter(x -> x.getKey().equalsIgnoreCase(g.trim())).map(Map.Entry::getValue)
+            .findFirst().orElseThrow(() -> new LoadstoneException("no runs of group '" + g
+                + "' in " + idx.folder() + ": groups there are " + all.keySet()));
+        chosen.put(g.trim(), list);
+      }
+      if (chosen.size() == 1) {
+        all.forEach((k, v) -> chosen.putIfAbsent(k, v));
+      }
+      PdfReport.writeGroups("Comparison of " + String.join(", ", new ArrayList<>(
+          chosen.keySet())), chosen, PdfReport.DEFAULT_METRICS, out);
+    }
     spec.commandLine().getOut().println("report written to " + out);
     spec.commandLine().getOut().flush();
     return 0;

@@ -74,7 +74,7 @@ class RunCommandsTest {
     assertThat(err).contains("give both or neither");
     assertThat(run("analyze", dir.resolve("nope.csv").toString()))
         .isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
-    assertThat(err).contains("No run").contains("nope.csv");
+    assertThat(err).contains("no run").contains("nope.csv");
   }
 
   @Test
