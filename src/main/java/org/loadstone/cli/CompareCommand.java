@@ -25,9 +25,10 @@ import picocli.CommandLine.Option;
 @Command(
     name = "compare",
     description = {
-      "Compare groups of archived runs on one metric: per group n, mean, SD, CV and 95 % CI;",
-      "Welch's t-test (two groups) or one-way ANOVA (more); outliers; how many specimens",
-      "would resolve a given difference."
+      "Compare groups of archived runs on one metric: real difference or scatter?",
+      "",
+      "Per group n, mean, SD, CV and 95 %% CI; Welch's t-test (two groups) or one-way",
+      "ANOVA (more); outliers; how many specimens would resolve a given difference."
     })
 public final class CompareCommand implements Callable<Integer> {
   @Mixin ArchiveOption archive;
@@ -41,7 +42,7 @@ public final class CompareCommand implements Callable<Integer> {
   @Option(names = "--groups", split = ",", description = "Only these groups (comma separated).")
   List<String> only;
 
-  @Option(names = "--target-pct", defaultValue = "10", description = "Difference the sample-size advice aims to resolve, % (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--target-pct", defaultValue = "10", description = "Difference the sample-size advice aims to resolve, in per cent (default: ${DEFAULT-VALUE}).")
   double targetPct;
 
   @Option(names = "--include-unbroken", description = "Also use runs that did not end in a break (manual, time limit, recovered…).")

@@ -69,6 +69,11 @@ public final class LoadstoneCommand implements Runnable {
    */
   public static int run(InputStream in, PrintWriter stdout, PrintWriter stderr, String... args) {
     CommandLine cl = new CommandLine(new LoadstoneCommand(), CommandInput.factory(in));
+    for (CommandLine sub : cl.getSubcommands().values()) {
+      if (!(sub.getCommand() instanceof CommandLine.HelpCommand)) {
+        sub.getCommandSpec().mixinStandardHelpOptions(true);
+      }
+    }
     if (stdout != null) {
       cl.setOut(stdout);
     }

@@ -21,8 +21,9 @@ import picocli.CommandLine.Option;
 @Command(
     name = "monitor",
     description = {
-      "Show decoded samples from a device as they arrive, then totals: samples, dropped,",
-      "checksum errors, resyncs and the measured rate."
+      "Show decoded samples from a device live, then the stream's totals.",
+      "",
+      "Totals: samples, dropped, checksum errors, resyncs and the measured rate."
     })
 public final class MonitorCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;

@@ -40,8 +40,10 @@ import picocli.CommandLine.Option;
     name = "record",
     sortOptions = false,
     description = {
-      "Record one run: zero, wait for load, record with a pre-trigger history, stop by itself",
-      "at the load drop (or overload, time limit, Ctrl-C), and store it in the archive."
+      "Record one hands-free run and store it in the archive.",
+      "",
+      "Zero, wait for load, record with a pre-trigger history, stop by itself at",
+      "the load drop (or overload, time limit, Ctrl-C)."
     })
 public final class RecordCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
@@ -62,9 +64,9 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--tag", description = "A tag (repeatable).")
   List<String> tags = new ArrayList<>();
 
-  @Option(names = "--operator", defaultValue = "") String operator;
+  @Option(names = "--operator", defaultValue = "", description = "Who ran the test.") String operator;
 
-  @Option(names = "--notes", defaultValue = "") String notes;
+  @Option(names = "--notes", defaultValue = "", description = "Free notes kept with the run.") String notes;
 
   @Option(names = "--mass-g", description = "Specimen mass in g (for strength per weight).")
   Double mass_g;
@@ -72,18 +74,18 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--test", defaultValue = "three-point", description = "three-point, four-point, compression or tension (default: ${DEFAULT-VALUE}).")
   String test;
 
-  @Option(names = "--span-mm") Double span;
-  @Option(names = "--load-span-mm") Double loadSpan;
-  @Option(names = "--width-mm") Double width;
-  @Option(names = "--depth-mm") Double depth;
-  @Option(names = "--facing-mm") Double facing;
-  @Option(names = "--core-mm") Double core;
-  @Option(names = "--area-mm2") Double area;
+  @Option(names = "--span-mm", description = "Support span L (bend tests).") Double span;
+  @Option(names = "--load-span-mm", description = "Load span (four-point bend).") Double loadSpan;
+  @Option(names = "--width-mm", description = "Specimen width b.") Double width;
+  @Option(names = "--depth-mm", description = "Specimen depth (total thickness) d.") Double depth;
+  @Option(names = "--facing-mm", description = "Sandwich facing thickness t.") Double facing;
+  @Option(names = "--core-mm", description = "Sandwich core thickness c.") Double core;
+  @Option(names = "--area-mm2", description = "Loaded area (compression, tension), mm².") Double area;
 
   @Option(names = "--start-at-N", defaultValue = "5", description = "Start recording at this force (default: ${DEFAULT-VALUE}).")
   double startAt;
 
-  @Option(names = "--stop-drop-pct", defaultValue = "40", description = "Break when force falls this % below the peak (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--stop-drop-pct", defaultValue = "40", description = "Break when force falls this many per cent below the peak (default: ${DEFAULT-VALUE}).")
   double dropPct;
 
   @Option(names = "--arm-at-N", description = "The peak must pass this before a break counts (default: twice --start-at-N).")
@@ -104,10 +106,10 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--capacity-N", description = "The load cell's rated capacity (default: from the calibration's cell profile, or the simulated cell).")
   Double capacity;
 
-  @Option(names = "--warn-pct", defaultValue = "80", description = "Overload warning, % of capacity (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--warn-pct", defaultValue = "80", description = "Overload warning, per cent of rated capacity (default: ${DEFAULT-VALUE}).")
   double warnPct;
 
-  @Option(names = "--overload-pct", defaultValue = "100", description = "Overload stop, % of capacity (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--overload-pct", defaultValue = "100", description = "Overload stop, per cent of rated capacity (default: ${DEFAULT-VALUE}).")
   double overloadPct;
 
   @Option(names = "--max-seconds", defaultValue = "0", description = "Longest run (0 = no limit).")

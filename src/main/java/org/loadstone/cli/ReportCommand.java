@@ -23,8 +23,10 @@ import picocli.CommandLine.Parameters;
 @Command(
     name = "report",
     description = {
-      "Write a PDF report: of one run (metadata, force curve, results, cautions), or with",
-      "--group of a comparison of archived groups (overlays, strip plots, statistics)."
+      "Write a PDF report of one run, or of a comparison of groups.",
+      "",
+      "One run: metadata, force curve, results, cautions. With --group: overlays, strip",
+      "plots and statistics of archived groups."
     })
 public final class ReportCommand implements Callable<Integer> {
   @picocli.CommandLine.Mixin ArchiveOption archive;

@@ -23,8 +23,9 @@ import picocli.CommandLine.Option;
 @Command(
     name = "simulate",
     description = {
-      "Write the built-in simulated frame's wire bytes (exactly what the firmware sends) to a",
-      "file, to standard output (-) or to a serial device path such as one end of a",
+      "Write the simulated frame's wire bytes to a file, stdout or a serial device.",
+      "",
+      "The bytes are exactly what the firmware sends. A device path can be one end of a",
       "pseudo-terminal pair. Output is paced in real time at --rate.",
       "",
       "Scenarios: brittle, ductile, crush, over-range, rigid-block, panel-foam, panel-balsa,",
