@@ -4,6 +4,14 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.Map;
+import java.nio.file.Path;
+import org.loadstone.acquire.ScaleChoice;
+import org.loadstone.analysis.position.PositionTable;
+import org.loadstone.archive.FrameProfile;
+import org.loadstone.archive.PositionTableCsv;
+import org.loadstone.archive.RunAdjust;
+import org.loadstone.units.DurationUnit;
+import org.loadstone.units.LengthUnit;
 import java.util.concurrent.Callable;
 import org.loadstone.analysis.AnalysisSettings;
 import org.loadstone.analysis.AnalysisSettings.StiffnessBounds;
@@ -35,6 +43,36 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--stiffness-to-N", paramLabel = "B", description = "Upper force of the stiffness fit.")
   Double toN;
 
+  @Option(names = "--cal", paramLabel = "FILE", description = "Derive force again from the raw counts with this calibration (the stored run is not changed).")
+  Path cal;
+
+  @Option(names = "--crosshead-rate-mm-min", paramLabel = "R", description = "Position from a constant crosshead rate, for runs without a position channel.")
+  Double crossheadRate;
+
+  @Option(names = "--position-table", paramLabel = "FILE", description = "Position from a position-time CSV (video tracking, dial gauge), aligned by the break unless --table-offset-s is given.")
+  Path table;
+
+  @Option(names = "--table-map", defaultValue = "time=1,position=2", description = "Columns of the position table by header or 1-based number (default: ${DEFAULT-VALUE}).")
+  String tableMap;
+
+  @Option(names = "--table-time-unit", defaultValue = "s", description = "s, ms or min (default: ${DEFAULT-VALUE}).")
+  String tableTimeUnit;
+
+  @Option(names = "--table-length-unit", defaultValue = "mm", description = "mm, um, cm, m or in (default: ${DEFAULT-VALUE}).")
+  String tableLengthUnit;
+
+  @Option(names = "--table-decimal-comma", description = "The position table uses a decimal comma.")
+  boolean tableDecimalComma;
+
+  @Option(names = "--table-offset-s", description = "Table time minus run time, s (default: found from the break).")
+  Double tableOffset;
+
+  @Option(names = "--frame", paramLabel = "FILE", description = "Remove the load frame's deflection F/k with this frame profile (see 'loadstone frame').")
+  Path frame;
+
+  @Option(names = "--frame-stiffness-N-per-mm", paramLabel = "K", description = "Remove the load frame's deflection F/K.")
+  Double frameK;
+
   @Option(names = "--json", description = "End with the results as one JSON object on the last line.")
   boolean json;
 
@@ -60,6 +98,46 @@ public final class AnalyzeCommand implements Callable<Integer> {
     {"specific stiffness", "specific_stiffness_N_per_mm_per_g", "N/mm per g"},
   };
 
+  private RunAdjust adjust(RunAdjust a) {
+    if (cal != null) {
+      ScaleChoice c = ScaleChoice.fromCalibration(cal, java.time.LocalDate.now());
+      a = a.recalibrated(c.spec(), c.calibrationId(), c.calibrationSha256());
+    }
+    if (crossheadRate != null && table != null) {
+      throw new org.loadstone.units.LoadstoneException("--crosshead-rate-mm-min and "
+          + "--position-table are two position sources: give one");
+    }
+    if (crossheadRate != null) {
+      a = a.withCrossheadRate(crossheadRate);
+    }
+    if (table != null) {
+      Map<String, String> cols = new java.util.HashMap<>();
+      for (String part : tableMap.split(",")) {
+        String[] kv = part.split("=", 2);
+        if (kv.length != 2 || !(kv[0].trim().equals("time") || kv[0].trim().equals("position"))) {
+          throw new org.loadstone.units.LoadstoneException("--table-map '" + tableMap
+              + "': use time=COLUMN,position=COLUMN (header names or 1-based numbers)");
+        }
+        cols.put(kv[0].trim(), kv[1].trim());
+      }
+      PositionTable t = PositionTableCsv.read(table, cols.getOrDefault("time", "1"),
+          cols.getOrDefault("position", "2"), DurationUnit.parse(tableTimeUnit),
+          LengthUnit.parse(tableLengthUnit), tableDecimalComma);
+      a = a.withPositionTable(t, tableOffset);
+    }
+    if (frame != null && frameK != null) {
+      throw new org.loadstone.units.LoadstoneException("give --frame or "
+          + "--frame-stiffness-N-per-mm, not both");
+    }
+    if (frame != null) {
+      FrameProfile p = FrameProfile.read(frame);
+      a = a.complianceCorrected(p.frameStiffness_N_per_mm(), "frame profile " + p.id());
+    } else if (frameK != null) {
+      a = a.complianceCorrected(frameK, "given");
+    }
+    return a;
+  }
+
   @Override
   public Integer call() throws Exception {
     if ((fromN == null) != (toN == null)) {
@@ -71,7 +149,8 @@ public final class AnalyzeCommand implements Callable<Integer> {
       settings = settings.withStiffnessBounds(StiffnessBounds.force_N(fromN, toN));
     }
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
-    RunMetrics m = RunMetrics.of(r.metadata(), r.data(), settings);
+    RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()));
+    RunMetrics m = RunMetrics.of(adj.metadata(), adj.data(), settings);
     Map<String, Object> j = m.toJsonMap();
     PrintWriter out = spec.commandLine().getOut();
     out.printf(Locale.ROOT, "run %s, specimen %s, %d samples (%s)%n", m.metadata().runId(),
@@ -83,11 +162,17 @@ public final class AnalyzeCommand implements Callable<Integer> {
           : v.toString();
       out.printf(Locale.ROOT, "  %-28s %14s %s%n", row[0], text, v == null ? "" : row[2]);
     }
+    for (String note : adj.notes()) {
+      out.println("derived: " + note);
+    }
     for (String note : m.notes()) {
       out.println("note: " + note);
     }
     if (json) {
-      out.println(new ObjectMapper().writeValueAsString(j));
+      Map<String, Object> withAdj = new java.util.LinkedHashMap<>(j);
+      withAdj.put("derived", adj.notes());
+      withAdj.put("calibration_id", adj.metadata().calibrationId());
+      out.println(new ObjectMapper().writeValueAsString(withAdj));
     }
     out.flush();
     return 0;

@@ -29,6 +29,7 @@ import picocli.CommandLine.Command;
       ImportCommand.class,
       ExportCommand.class,
       ReportCommand.class,
+      FrameCommand.class,
       CommandLine.HelpCommand.class
     })
 public final class LoadstoneCommand implements Runnable {
