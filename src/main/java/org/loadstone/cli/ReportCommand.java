@@ -12,7 +12,9 @@ import org.loadstone.archive.FinishCause;
 import org.loadstone.archive.GroupStudy;
 import org.loadstone.archive.RunMetrics;
 import org.loadstone.cli.RunResolver.ResolvedRun;
+import org.loadstone.report.Charts;
 import org.loadstone.report.PdfReport;
+import org.loadstone.report.PngExport;
 import org.loadstone.units.LoadstoneException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -37,10 +39,26 @@ public final class ReportCommand implements Callable<Integer> {
   @Option(names = "--group", split = ",", paramLabel = "G", description = "Groups to compare (comma separated or repeated); one group is compared with all the others.")
   List<String> groups;
 
-  @Option(names = "--out", required = true, paramLabel = "FILE.pdf", description = "Target PDF (must not exist).")
+  @Option(names = "--out", paramLabel = "FILE.pdf", description = "Target PDF (must not exist).")
   Path out;
 
+  @Option(names = "--png", paramLabel = "FILE.png", description = "Also (or only) write the main chart as a PNG: the force curve of a run, or the overlay of the groups.")
+  Path png;
+
+  @Option(names = "--png-size", defaultValue = "1200x800", paramLabel = "WxH", description = "PNG size in pixels (default: ${DEFAULT-VALUE}).")
+  String pngSize;
+
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
+
+  private static int[] size(String text) {
+    java.util.regex.Matcher m = java.util.regex.Pattern.compile("([1-9][0-9]{1,4})x([1-9][0-9]{1,4})")
+        .matcher(text.trim());
+    if (!m.matches()) {
+      throw new LoadstoneException("--png-size '" + text + "': use WIDTHxHEIGHT in pixels, e.g. "
+          + "1200x800");
+    }
+    return new int[] {Integer.parseInt(m.group(1)), Integer.parseInt(m.group(2))};
+  }
 
   @Override
   public Integer call() {
@@ -48,9 +66,20 @@ public final class ReportCommand implements Callable<Integer> {
       throw new LoadstoneException("give either one RUN or --group G: a run report or a group "
           + "report");
     }
+    if (out == null && png == null) {
+      throw new LoadstoneException("give --out FILE.pdf, --png FILE.png, or both");
+    }
+    int[] size = size(pngSize);
     if (run != null) {
       ResolvedRun r = CliWiring.resolve(run, archive.folder());
-      PdfReport.writeRun(RunMetrics.of(r.metadata(), r.data()), out);
+      RunMetrics m = RunMetrics.of(r.metadata(), r.data());
+      if (png != null) {
+        PngExport.write(Charts.run(m), png, size[0], size[1]);
+        spec.commandLine().getOut().println("chart written to " + png);
+      }
+      if (out != null) {
+        PdfReport.writeRun(m, out);
+      }
     } else {
       ArchiveIndex idx = ArchiveIndex.scan(archive.folder());
       List<ArchiveIndex.Entry> broken = idx.entries().stream()
@@ -69,10 +98,18 @@ public final class ReportCommand implements Callable<Integer> {
       if (chosen.size() == 1) {
         all.forEach((k, v) -> chosen.putIfAbsent(k, v));
       }
-      PdfReport.writeGroups("Comparison of " + String.join(", ", new ArrayList<>(
-          chosen.keySet())), chosen, PdfReport.DEFAULT_METRICS, out);
+      String title = "Comparison of " + String.join(", ", new ArrayList<>(chosen.keySet()));
+      if (png != null) {
+        PngExport.write(Charts.overlay(title, chosen), png, size[0], size[1]);
+        spec.commandLine().getOut().println("chart written to " + png);
+      }
+      if (out != null) {
+        PdfReport.writeGroups(title, chosen, PdfReport.DEFAULT_METRICS, out);
+      }
     }
-    spec.commandLine().getOut().println("report written to " + out);
+    if (out != null) {
+      spec.commandLine().getOut().println("report written to " + out);
+    }
     spec.commandLine().getOut().flush();
     return 0;
   }

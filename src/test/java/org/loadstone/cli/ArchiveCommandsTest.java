@@ -59,6 +59,14 @@ class ArchiveCommandsTest {
     RecordCommandTest.Outcome again = RecordCommandTest.run("report", "--archive",
         CompareCommandTest.SAMPLES.toString(), "--group", "foam,balsa", "--out", pdf.toString());
     assertThat(again.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
+    Path png = tmp.resolve("overlay.png");
+    RecordCommandTest.Outcome p = RecordCommandTest.run("report", "--archive",
+        CompareCommandTest.SAMPLES.toString(), "--group", "board", "--png", png.toString(),
+        "--png-size", "900x600");
+    assertThat(p.exit()).as(p.err()).isZero();
+    java.awt.image.BufferedImage img = javax.imageio.ImageIO.read(png.toFile());
+    assertThat(img.getWidth()).isEqualTo(900);
+    assertThat(img.getHeight()).isEqualTo(600);
     RecordCommandTest.Outcome none = RecordCommandTest.run("analyze", "nosuchrun", "--archive",
         CompareCommandTest.SAMPLES.toString());
     assertThat(none.err()).contains("no run 'nosuchrun'");

@@ -66,6 +66,35 @@ class RecordCommandTest {
   }
 
   @Test
+  @Timeout(90)
+  void aRunWithACalibrationReferencesItByIdAndHashAndCarriesItsWarnings() throws Exception {
+    Path calDir = tmp.resolve("cal");
+    Path project = Path.of(System.getProperty("loadstone.projectDir", "."), "calibration");
+    Files.createDirectories(calDir.resolve("cells"));
+    Files.copy(project.resolve("shelf-rig-500N-2026-12-02.json"),
+        calDir.resolve("shelf-rig-500N-2026-12-02.json"));
+    Files.copy(project.resolve("cells/shelf-rig-500N.json"), calDir.resolve("cells/shelf-rig-500N.json"));
+    Path cal = calDir.resolve("shelf-rig-500N-2026-12-02.json");
+    var doc = org.loadstone.calibration.CalibrationFiles.readCalibration(cal);
+    Outcome r = run("record", "--port", "sim", "--scenario", "brittle", "--rate", "1000",
+        "--sim-speed", "8", "--specimen", "c1", "--cal", cal.toString(), "--archive",
+        tmp.resolve("runs").toString(), "--json");
+    assertThat(r.exit()).as(r.err()).isZero();
+    // no check weight has been logged for this calibration yet: said before the run
+    assertThat(r.err()).contains("no check-weight verification");
+    Run run = RunReader.read(Path.of(r.json().get("csv").asText()));
+    assertThat(run.metadata().calibrationId()).isEqualTo(doc.id());
+    assertThat(run.metadata().calibrationSha256()).isEqualTo(doc.contentSha256());
+    assertThat(run.metadata().scaleSpec().kind()).isEqualTo("calibration");
+    assertThat(run.metadata().warnings()).anySatisfy(w -> assertThat(w).contains("check-weight"));
+    // a missing calibration is refused before anything starts
+    Outcome missing = run("record", "--port", "sim", "--specimen", "c2", "--cal",
+        calDir.resolve("nope.json").toString(), "--archive", tmp.resolve("runs").toString());
+    assertThat(missing.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
+    assertThat(missing.err()).contains("nope.json");
+  }
+
+  @Test
   void badThresholdsAreRefusedBeforeTheDeviceOpens() {
     Outcome r = run("record", "--port", "/dev/ttyNOPE9", "--counts-per-n", "100",
         "--capacity-N", "500", "--specimen", "x", "--stop-drop-pct", "100",
