@@ -66,7 +66,7 @@ public final class JournalRunStore implements RunStore {
           warnings.add(c.missedByJournal() + " samples were lost because the disk fell more than "
               + "a ring behind the device");
         }
-        RunMetadata m = withWarnings(meta, warnings);
+        RunMetadata m = meta.withWarnings(warnings);
         StoredRun s = RunWriter.write(archiveDir, m, d);
         try {
           Files.deleteIfExists(journal.file());
@@ -92,12 +92,4 @@ public final class JournalRunStore implements RunStore {
         Arrays.copyOf(d.seq(), n));
   }
 
-  static RunMetadata withWarnings(RunMetadata h, List<String> w) {
-    return new RunMetadata(h.runId(), h.startedAt(), h.specimen(), h.group(), h.tags(),
-        h.operator(), h.notes(), h.mass_g(), h.geometry(), h.testType(), h.device(),
-        h.sampleRate_Hz(), h.calibrationId(), h.calibrationSha256(), h.scale(), h.scaleSpec(),
-        h.zeroOffset_counts(), h.dropped(), h.checksumErrors(), h.cause(), h.breakIndex(),
-        h.breakTime_s(), h.peakBeforeBreak_N(), h.dropAtBreak_pct(), h.pretrigger_s(),
-        h.startThreshold_N(), h.checkWeight(), w, h.softwareVersion(), h.extra());
-  }
 }

@@ -333,21 +333,13 @@ public final class JournalRecovery {
       List<String> w = new ArrayList<>(h.warnings());
       w.add("the device identity gave no counts per mm (cpm): position_mm holds raw position"
           + " counts");
-      h = withWarnings(h, w);
+      h = h.withWarnings(w);
     }
     RunData data = new RunData(time, f, mm, Arrays.copyOf(k, n), pos ? Arrays.copyOf(p, n) : null,
         Arrays.copyOf(s, n));
     return new JournalContents(h, data, firstIndex, missed, gaps, outOfOrder, torn, posDropped);
   }
 
-  private static RunMetadata withWarnings(RunMetadata h, List<String> w) {
-    return new RunMetadata(h.runId(), h.startedAt(), h.specimen(), h.group(), h.tags(),
-        h.operator(), h.notes(), h.mass_g(), h.geometry(), h.testType(), h.device(),
-        h.sampleRate_Hz(), h.calibrationId(), h.calibrationSha256(), h.scale(), h.scaleSpec(),
-        h.zeroOffset_counts(), h.dropped(), h.checksumErrors(), h.cause(), h.breakIndex(),
-        h.breakTime_s(), h.peakBeforeBreak_N(), h.dropAtBreak_pct(), h.pretrigger_s(),
-        h.startThreshold_N(), h.checkWeight(), w, h.softwareVersion(), h.extra());
-  }
 
   private static Path moveAside(Path archiveDir, Path journal) {
     Path dir = JournalFormat.damagedDir(archiveDir);

@@ -93,4 +93,22 @@ public record RunMetadata(
           "specimen mass must be a positive number of grams, was " + mass_g);
     }
   }
+
+  /** @return a copy with these warnings instead */
+  public RunMetadata withWarnings(List<String> w) {
+    return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g,
+        geometry, testType, device, sampleRate_Hz, calibrationId, calibrationSha256, scale,
+        scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s,
+        peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, checkWeight, w,
+        softwareVersion, extra);
+  }
+
+  /** @return a copy with another run id, specimen and group (e.g. an imported run) */
+  public RunMetadata withIdentity(String newRunId, String newSpecimen, String newGroup) {
+    return new RunMetadata(newRunId, startedAt, newSpecimen, newGroup, tags, operator, notes,
+        mass_g, geometry, testType, device, sampleRate_Hz, calibrationId, calibrationSha256, scale,
+        scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s,
+        peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, checkWeight, warnings,
+        softwareVersion, extra);
+  }
 }

@@ -66,13 +66,7 @@ final class CliWiring {
     Instant now = Instant.now();
     String spec = specimen != null ? specimen : h.specimen();
     String id = RunIds.newId(archiveDir, now, spec);
-    RunMetadata m = new RunMetadata(id, h.startedAt() != null ? h.startedAt() : now, spec,
-        group != null ? group : h.group(), h.tags(), h.operator(), h.notes(), h.mass_g(),
-        h.geometry(), h.testType(), h.device(), h.sampleRate_Hz(), h.calibrationId(),
-        h.calibrationSha256(), h.scale(), h.scaleSpec(), h.zeroOffset_counts(), h.dropped(),
-        h.checksumErrors(), h.cause(), h.breakIndex(), h.breakTime_s(), h.peakBeforeBreak_N(),
-        h.dropAtBreak_pct(), h.pretrigger_s(), h.startThreshold_N(), h.checkWeight(),
-        h.warnings(), h.softwareVersion(), h.extra());
+    RunMetadata m = h.withIdentity(id, spec, group != null ? group : h.group());
     return RunWriter.write(archiveDir, m, run.data());
   }
 }
