@@ -13,13 +13,6 @@ public final class ArchiveOption {
 
   /** @return the archive folder to use */
   public Path folder() {
-    if (archive != null) {
-      return archive;
-    }
-    String env = System.getenv("LOADSTONE_ARCHIVE");
-    if (env != null && !env.isBlank()) {
-      return Path.of(env);
-    }
-    return Path.of(System.getProperty("user.home"), "loadstone-runs");
+    return archive != null ? archive : org.loadstone.archive.ArchiveFolders.defaultFolder();
   }
 }

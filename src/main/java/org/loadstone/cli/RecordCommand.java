@@ -3,7 +3,6 @@ package org.loadstone.cli;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.time.Instant;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -18,12 +17,11 @@ import org.loadstone.acquire.JournalRunStore;
 import org.loadstone.acquire.Recorder;
 import org.loadstone.acquire.RunControl;
 import org.loadstone.acquire.RunSettings;
+import org.loadstone.acquire.RunTemplate;
 import org.loadstone.acquire.SampleRing;
 import org.loadstone.acquire.ScaleChoice;
-import org.loadstone.archive.FinishCause;
 import org.loadstone.archive.Geometry;
 import org.loadstone.archive.JournalRecovery;
-import org.loadstone.archive.RunIds;
 import org.loadstone.archive.RunMetadata;
 import org.loadstone.archive.StoredRun;
 import org.loadstone.archive.TestType;
@@ -167,15 +165,11 @@ public final class RecordCommand implements Callable<Integer> {
       int nZero = zeroSamples != null ? zeroSamples : (int) Math.max(5, Math.round(rate / 2));
       say(err, "zeroing on " + nZero + " samples: keep the specimen unloaded");
       double zero = Recorder.tare(reader, nZero, 10_000 + (long) (nZero / rate * 2000));
-      Instant now = Instant.now();
-      RunMetadata template = new RunMetadata(RunIds.newId(dir, now, specimen), now, specimen,
-          group, tags, operator, notesAdded.isEmpty() ? notes
+      RunMetadata template = new RunTemplate(specimen, group, tags, operator,
+          notesAdded.isEmpty() ? notes
               : (notes.isEmpty() ? "" : notes + " ") + String.join(" ", notesAdded),
-          mass_g, geometry, type, deviceFields(reader), rate,
-          scale.calibrationId(), scale.calibrationSha256(), scale.description(), scale.spec(),
-          zero, 0, 0, FinishCause.MANUAL, null, null, null, null, pretrigger,
-          manualStart ? null : startAt, scale.checkWeight(), scale.warnings(),
-          LoadstoneCommand.softwareVersion(), Map.of());
+          mass_g, geometry, type).build(dir, reader, simFields(), rate, scale, zero, pretrigger,
+          manualStart ? null : startAt, LoadstoneCommand.softwareVersion());
       Recorder rec = new Recorder(reader, scale.scale(), zero, settings, template, store,
           new Progress(err));
       Thread hook = new Thread(() -> {
@@ -319,10 +313,8 @@ public final class RecordCommand implements Callable<Integer> {
     }
   }
 
-  private Map<String, String> deviceFields(DeviceReader reader) {
+  private Map<String, String> simFields() {
     Map<String, String> m = new LinkedHashMap<>();
-    reader.identity().ifPresent(id -> m.putAll(id.fields()));
-    m.put("port", reader.transport().name());
     if (device.simulated()) {
       m.put("sim_scenario", device.scenario);
       m.put("sim_seed", Long.toString(device.seed));

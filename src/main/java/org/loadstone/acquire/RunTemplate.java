@@ -1,0 +1,56 @@
+package org.loadstone.acquire;
+
+import java.nio.file.Path;
+import java.time.Instant;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.loadstone.archive.FinishCause;
+import org.loadstone.archive.Geometry;
+import org.loadstone.archive.RunIds;
+import org.loadstone.archive.RunMetadata;
+import org.loadstone.archive.TestType;
+
+/**
+ * The metadata of a run about to be armed, as the command line and the console both build it:
+ * a fresh time-sortable id, the specimen as described, the device's identity and the scale.
+ *
+ * @param specimen specimen id as typed
+ * @param group group name, may be empty
+ * @param tags tags
+ * @param operator who runs it
+ * @param notes free notes
+ * @param mass_g specimen mass, or null
+ * @param geometry specimen geometry
+ * @param testType kind of test
+ */
+public record RunTemplate(String specimen, String group, List<String> tags, String operator,
+    String notes, Double mass_g, Geometry geometry, TestType testType) {
+
+  /**
+   * @param archive where the run will go (for a free id)
+   * @param reader the device (identity, port)
+   * @param extraDevice more device fields, e.g. the simulator's scenario and seed
+   * @param rate_Hz nominal sample rate
+   * @param scale how counts become force
+   * @param zero_counts the tare
+   * @param pretrigger_s history kept before the start
+   * @param startAt_N start threshold, or null for a manual start
+   * @param softwareVersion Loadstone's version
+   * @return the metadata known before the start
+   */
+  public RunMetadata build(Path archive, DeviceReader reader, Map<String, String> extraDevice,
+      double rate_Hz, ScaleChoice scale, double zero_counts, double pretrigger_s, Double startAt_N,
+      String softwareVersion) {
+    Instant now = Instant.now();
+    Map<String, String> device = new LinkedHashMap<>();
+    reader.identity().ifPresent(id -> device.putAll(id.fields()));
+    device.put("port", reader.transport().name());
+    device.putAll(extraDevice);
+    return new RunMetadata(RunIds.newId(archive, now, specimen), now, specimen, group, tags,
+        operator, notes, mass_g, geometry, testType, device, rate_Hz, scale.calibrationId(),
+        scale.calibrationSha256(), scale.description(), scale.spec(), zero_counts, 0, 0,
+        FinishCause.MANUAL, null, null, null, null, pretrigger_s, startAt_N, scale.checkWeight(),
+        scale.warnings(), softwareVersion, Map.of());
+  }
+}
