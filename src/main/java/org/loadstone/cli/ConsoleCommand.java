@@ -1,8 +1,11 @@
 package org.loadstone.cli;
 
 import java.util.concurrent.Callable;
-import org.loadstone.acquire.ForceScale;
-import org.loadstone.device.SimSetup;
+import java.time.LocalDate;
+import java.util.Map;
+import org.loadstone.acquire.ScaleChoice;
+import org.loadstone.ui.DefaultDevice;
+import org.loadstone.units.LoadstoneException;
 import org.loadstone.ui.ConsoleApp;
 import org.loadstone.ui.ConsoleConfig;
 import org.loadstone.ui.ConsoleLauncher;
@@ -15,6 +18,13 @@ import picocli.CommandLine.Option;
 @Command(name = "console", description = "Open the console window (the default with no command).")
 public final class ConsoleCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
+  @Mixin ArchiveOption archive;
+
+  @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file for a serial device.")
+  java.nio.file.Path cal;
+
+  @Option(names = "--capacity-N", description = "The load cell's rated capacity (default: from the calibration's cell profile).")
+  Double capacity;
 
   @Option(
       names = "--counts-per-n",
@@ -26,16 +36,19 @@ public final class ConsoleCommand implements Callable<Integer> {
   public Integer call() {
     ConsoleConfig config;
     if (device.simulated()) {
-      SimSetup s = device.simSetup();
-      config = new ConsoleConfig("simulated frame · " + s.scenario() + " · seed " + s.seed(),
-          s::openTransport,
-          ForceScale.linear(s.nominalCountsPerN(), "simulated cell, nominal sensitivity"),
+      config = DefaultDevice.simulated(device.simSetup(), archive.folder(),
           SafetyNotice.defaultHome());
     } else {
-      double k = countsPerN == null ? 1.0 : countsPerN;
-      config = new ConsoleConfig(device.port, device::open,
-          ForceScale.linear(k, countsPerN == null ? "uncalibrated: counts" : "nominal"),
-          SafetyNotice.defaultHome());
+      ScaleChoice scale = cal != null ? ScaleChoice.fromCalibration(cal, LocalDate.now())
+          : ScaleChoice.nominal(countsPerN == null ? 1.0 : countsPerN,
+              countsPerN == null ? "uncalibrated: counts" : "given", null);
+      Double cap = capacity != null ? capacity : scale.ratedCapacity_N();
+      if (cap == null) {
+        throw new LoadstoneException("the load cell's rated capacity is unknown, and the "
+            + "overload stop depends on it: give --capacity-N");
+      }
+      config = new ConsoleConfig(device.port, device::open, scale, cap, archive.folder(),
+          Map.of(), SafetyNotice.defaultHome());
     }
     ConsoleApp.configure(config);
     ConsoleLauncher.launch(new String[0]);

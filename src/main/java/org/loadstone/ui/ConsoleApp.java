@@ -35,6 +35,7 @@ public final class ConsoleApp extends Application {
     stage.setMinWidth(900);
     stage.setMinHeight(560);
     stage.show();
+    live.root().requestFocus(); // so the Z, P, A and S keys work from the start
     live.connect();
   }
 

@@ -1,25 +1,32 @@
 package org.loadstone.ui;
 
 import java.nio.file.Path;
+import java.util.Map;
 import java.util.function.Supplier;
-import org.loadstone.acquire.ForceScale;
+import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.device.Transport;
 import org.loadstone.units.Precondition;
 
 /**
- * What the console connects to.
+ * What the console connects to and where its runs go.
  *
  * @param deviceLabel how the device is named in the window, e.g. {@code sim · panel-foam}
  * @param connect opens the device link (called again to reconnect)
- * @param scale counts to force until a calibration is chosen
+ * @param scale counts to force, with the warnings a run must carry
+ * @param ratedCapacity_N the load cell's rated capacity (for the overload stop)
+ * @param archive where runs are stored
+ * @param deviceFields extra device fields stored with runs (e.g. the simulator's scenario)
  * @param home Loadstone's settings folder
  */
-public record ConsoleConfig(String deviceLabel, Supplier<Transport> connect, ForceScale scale,
-    Path home) {
+public record ConsoleConfig(String deviceLabel, Supplier<Transport> connect, ScaleChoice scale,
+    double ratedCapacity_N, Path archive, Map<String, String> deviceFields, Path home) {
   public ConsoleConfig {
     Precondition.notNull(deviceLabel, "deviceLabel");
     Precondition.notNull(connect, "connect");
     Precondition.notNull(scale, "scale");
+    Precondition.positive(ratedCapacity_N, "ratedCapacity_N");
+    Precondition.notNull(archive, "archive");
+    deviceFields = Map.copyOf(deviceFields);
     Precondition.notNull(home, "home");
   }
 }

@@ -1,20 +1,26 @@
 package org.loadstone.ui;
 
-import org.loadstone.acquire.ForceScale;
+import java.nio.file.Path;
+import java.util.Map;
+import org.loadstone.acquire.ScaleChoice;
+import org.loadstone.archive.ArchiveFolders;
 import org.loadstone.device.SimSetup;
 
 /** The console's device when none is chosen: the built-in simulated frame. */
-final class DefaultDevice {
+public final class DefaultDevice {
   private DefaultDevice() {}
 
   static ConsoleConfig simulated() {
-    return simulated(SimSetup.DEFAULT);
+    return simulated(SimSetup.DEFAULT, ArchiveFolders.defaultFolder(), SafetyNotice.defaultHome());
   }
 
-  static ConsoleConfig simulated(SimSetup setup) {
+  /** The console on a simulated frame with these settings. */
+  public static ConsoleConfig simulated(SimSetup setup, Path archive, Path home) {
+    double capacity = setup.buildFrame().truth().loadCell().capacity_N();
     return new ConsoleConfig("simulated frame · " + setup.scenario() + " · seed " + setup.seed(),
         setup::openTransport,
-        ForceScale.linear(setup.nominalCountsPerN(), "simulated cell, nominal sensitivity"),
-        SafetyNotice.defaultHome());
+        ScaleChoice.nominal(setup.nominalCountsPerN(), "simulated cell's nominal", capacity),
+        capacity, archive, Map.of("sim_scenario", setup.scenario(),
+            "sim_seed", Long.toString(setup.seed())), home);
   }
 }

@@ -39,6 +39,12 @@ final class LivePane {
   private final Label health = label("health-line", "");
   private final Label state = label("state-chip", "connecting");
   private final Button reconnect = new Button("Reconnect");
+  private final javafx.scene.control.TextField specimenField = new javafx.scene.control.TextField();
+  private final javafx.scene.control.TextField groupField = new javafx.scene.control.TextField();
+  private final Label runState = label("run-state", "no run armed");
+  private final Label runResult = label("run-result", "");
+  private volatile org.loadstone.acquire.Recorder recorder;
+  private int runCount;
   private final ForceChart chart = new ForceChart("time (s)");
   private DeviceReader reader;
   private LiveFeed feed;
@@ -92,8 +98,25 @@ final class LivePane {
     reconnect.setVisible(false);
     reconnect.setManaged(false);
     reconnect.setOnAction(e -> connect());
-    VBox readout = new VBox(6, forceCaption, force, peak, position, raw, spacer(), tare, clearPeak,
-        reconnect);
+    specimenField.setId("specimen-field");
+    specimenField.setPromptText("specimen id");
+    groupField.setId("group-field");
+    groupField.setPromptText("group (e.g. balsa)");
+    Button arm = new Button("Arm run  [A]");
+    arm.setId("arm-button");
+    arm.setOnAction(e -> arm());
+    Button stop = new Button("Stop run  [S]");
+    stop.setId("stop-button");
+    stop.setOnAction(e -> stopRun());
+    arm.setMaxWidth(Double.MAX_VALUE);
+    stop.setMaxWidth(Double.MAX_VALUE);
+    runResult.setWrapText(true);
+    Label runCaption = label("run-caption", "RUN");
+    HBox runButtons = new HBox(8, arm, stop);
+    HBox.setHgrow(arm, Priority.ALWAYS);
+    HBox.setHgrow(stop, Priority.ALWAYS);
+    VBox readout = new VBox(6, forceCaption, force, peak, position, raw, spacer(), runCaption,
+        specimenField, groupField, runButtons, runState, runResult, tare, clearPeak, reconnect);
     readout.getStyleClass().add("readout");
     readout.setPrefWidth(380);
     root.setLeft(readout);
@@ -134,10 +157,17 @@ final class LivePane {
 
   void installKeys(Scene scene) {
     scene.setOnKeyPressed(e -> {
+      if (e.getTarget() instanceof javafx.scene.control.TextField) {
+        return; // typing a specimen id, not a shortcut
+      }
       if (e.getCode() == KeyCode.Z) {
         tare();
       } else if (e.getCode() == KeyCode.P) {
         clearPeak();
+      } else if (e.getCode() == KeyCode.A) {
+        arm();
+      } else if (e.getCode() == KeyCode.S) {
+        stopRun();
       }
     });
   }
@@ -151,6 +181,78 @@ final class LivePane {
   private void clearPeak() {
     if (feed != null) {
       feed.resetPeak();
+    }
+  }
+
+  /**
+   * Arms a hands-free run: it starts when load reaches the start threshold, stops by itself at the
+   * load drop (or overload), and is stored in the archive through the journal.
+   */
+  void arm() {
+    org.loadstone.acquire.Recorder r = recorder;
+    if (reader == null || feed == null
+        || (r != null && r.status().state() != org.loadstone.acquire.RunControl.State.FINISHED
+            && r.failure().isEmpty() && !runEnded)) {
+      return;
+    }
+    if (feed.taring()) {
+      runResult.setText("wait for the zero to finish, then arm");
+      return;
+    }
+    try {
+      org.loadstone.acquire.RunSettings settings = org.loadstone.acquire.RunSettings.builder()
+          .ratedCapacity_N(config.ratedCapacity_N()).build();
+      org.loadstone.acquire.JournalRunStore store =
+          new org.loadstone.acquire.JournalRunStore(config.archive());
+      store.checkWritable();
+      String spec = specimenField.getText().isBlank() ? "specimen-" + (++runCount)
+          : specimenField.getText().trim();
+      double rate = reader.identity().map(id -> id.rateHz()).filter(x -> x > 0).orElse(80.0);
+      org.loadstone.archive.RunMetadata template = new org.loadstone.acquire.RunTemplate(spec,
+          groupField.getText().trim(), java.util.List.of(), "", "", null,
+          org.loadstone.archive.Geometry.NONE, org.loadstone.archive.TestType.THREE_POINT_BEND)
+          .build(config.archive(), reader, config.deviceFields(), rate, config.scale(),
+              feed.zeroCounts(), settings.pretrigger_s(), settings.startThreshold_N(),
+              String.valueOf(LivePane.class.getPackage().getImplementationVersion()));
+      runEnded = false;
+      recorder = new org.loadstone.acquire.Recorder(reader, config.scale().scale(),
+          feed.zeroCounts(), settings, template, store, new RunEvents());
+      recorder.arm();
+      runResult.setText(config.scale().warnings().isEmpty() ? ""
+          : "note: " + config.scale().warnings().get(0));
+    } catch (LoadstoneException e) {
+      runResult.setText(e.getMessage());
+    }
+  }
+
+  private volatile boolean runEnded;
+
+  void stopRun() {
+    org.loadstone.acquire.Recorder r = recorder;
+    if (r != null) {
+      r.stop();
+    }
+  }
+
+  /** Run events arrive on the recorder's thread; labels change on the JavaFX thread. */
+  private final class RunEvents implements org.loadstone.acquire.Recorder.Listener {
+    @Override
+    public void onWarning(String text) {
+      javafx.application.Platform.runLater(() -> runResult.setText(text));
+    }
+
+    @Override
+    public void onFinished(org.loadstone.acquire.Recorder.Result r) {
+      runEnded = true;
+      String text = String.format(Locale.ROOT, "run %s: %s · peak %s N · %d samples",
+          r.stored().runId(), r.cause().wireName(), fmt(r.peak_N()), r.samples());
+      javafx.application.Platform.runLater(() -> runResult.setText(text));
+    }
+
+    @Override
+    public void onFailed(String why) {
+      runEnded = true;
+      javafx.application.Platform.runLater(() -> runResult.setText(why));
     }
   }
 
@@ -173,7 +275,7 @@ final class LivePane {
         }
       }
     });
-    feed = new LiveFeed(reader, config.scale(), WINDOW_S);
+    feed = new LiveFeed(reader, config.scale().scale(), WINDOW_S);
     feed.tare(20); // zero on connect, as the specimen is not yet loaded
     reader.start();
     reconnect.setVisible(false);
@@ -191,6 +293,16 @@ final class LivePane {
   void disconnect() {
     if (timer != null) {
       timer.stop();
+    }
+    org.loadstone.acquire.Recorder r = recorder;
+    if (r != null) {
+      r.stop();
+      try {
+        r.await(5, java.util.concurrent.TimeUnit.SECONDS);
+      } catch (InterruptedException e) {
+        Thread.currentThread().interrupt();
+      }
+      r.close();
     }
     if (reader != null) {
       reader.close();
@@ -211,6 +323,17 @@ final class LivePane {
             + "resyncs %d%s",
         s.rateHz(), s.samples(), c.dropped(), c.checksumErrors(), c.resyncs(),
         s.displayLost() > 0 ? "   ·   display skipped " + s.displayLost() : ""));
+    org.loadstone.acquire.Recorder r = recorder;
+    if (r != null) {
+      org.loadstone.acquire.RunControl.State st = r.status().state();
+      runState.setText(switch (st) {
+        case IDLE -> "no run armed";
+        case ARMED -> "armed: waiting for load";
+        case RECORDING -> "recording";
+        case TAIL -> "break: recording the tail";
+        case FINISHED -> runEnded ? "run stored" : "finishing…";
+      });
+    }
     if (now - lastChartNanos > 100_000_000L) {
       lastChartNanos = now;
       chart.show(s.traceTime_s(), s.traceForce_N(), s.traceLength());
@@ -241,6 +364,10 @@ final class LivePane {
 
   ForceChart chart() {
     return chart;
+  }
+
+  Label runResult() {
+    return runResult;
   }
 
   LiveFeed feed() {

@@ -11,7 +11,6 @@ import javafx.stage.Stage;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.extension.ExtendWith;
-import org.loadstone.acquire.ForceScale;
 import org.loadstone.device.SimSetup;
 import org.testfx.api.FxRobot;
 import org.testfx.framework.junit5.ApplicationExtension;
@@ -23,13 +22,14 @@ import org.testfx.util.WaitForAsyncUtils;
 class LivePaneTest {
   private LivePane pane;
   private Path home;
+  private Path archive;
 
   @Start
   void start(Stage stage) throws Exception {
     home = Files.createTempDirectory("loadstone-home");
-    SimSetup sim = new SimSetup("brittle", 3, 80, false, 4);
-    ConsoleConfig config = new ConsoleConfig("simulated frame · brittle", sim::openTransport,
-        ForceScale.linear(sim.nominalCountsPerN(), "test"), home);
+    SimSetup sim = new SimSetup("brittle", 3, 1000, false, 2);
+    archive = home.resolve("runs");
+    ConsoleConfig config = DefaultDevice.simulated(sim, archive, home);
     pane = new LivePane(config);
     Scene scene = new Scene(pane.root(), 1100, 700);
     scene.getStylesheets().add(
@@ -71,11 +71,33 @@ class LivePaneTest {
   void zeroOnConnectFindsTheCellsZeroOffset(FxRobot robot) throws Exception {
     WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> pane.chart().pointCount() > 5);
     // before the crosshead closes the gap the cell is unloaded, so the tare is its zero offset
-    double expected = new SimSetup("brittle", 3, 80, false, 4).buildFrame().truth().loadCell()
+    double expected = new SimSetup("brittle", 3, 1000, false, 2).buildFrame().truth().loadCell()
         .zeroOffset_counts();
     WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS, () -> !pane.feed().taring());
     assertThat(pane.feed().zeroCounts()).isCloseTo(expected, org.assertj.core.data.Offset.offset(50.0));
     robot.type(javafx.scene.input.KeyCode.Z);
     WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS, () -> !pane.feed().taring());
+  }
+
+  @Test
+  void armedRunStopsAtTheBreakAndIsStored(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !pane.feed().taring());
+    // the simulated specimen is loaded from about 1 s and breaks after about 11 s of device
+    // time (5.5 s here at twice real time): arm before the load comes on
+    robot.interact(() -> {
+      robot.lookup("#specimen-field").queryAs(javafx.scene.control.TextField.class).setText("gui-01");
+      robot.lookup("#group-field").queryAs(javafx.scene.control.TextField.class).setText("test");
+    });
+    robot.clickOn("#arm-button");
+    WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
+        () -> robot.lookup("#run-state").queryAs(Label.class).getText().contains("armed")
+            || robot.lookup("#run-state").queryAs(Label.class).getText().contains("recording"));
+    WaitForAsyncUtils.waitFor(60, TimeUnit.SECONDS,
+        () -> pane.runResult().getText().startsWith("run "));
+    assertThat(pane.runResult().getText()).contains(": break").contains("gui-01");
+    try (var files = java.nio.file.Files.list(archive)) {
+      assertThat(files.map(f -> f.getFileName().toString()))
+          .anySatisfy(n -> assertThat(n).endsWith("gui-01.csv"));
+    }
   }
 }
