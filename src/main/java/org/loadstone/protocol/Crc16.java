@@ -6,10 +6,14 @@ package org.loadstone.protocol;
  */
 public final class Crc16 {
   static final int[] TABLE = new int[256];
-  // T2..T4[i]: the CRC contribution of byte i followed by 1, 2 or 3 zero bytes ("slicing by 4")
+  // T2..T4[i]: the CRC contribution of byte i followed by 1, 2 or 3 zero bytes ("slicing by 4" and by 8)
   private static final int[] T2 = new int[256];
   private static final int[] T3 = new int[256];
   private static final int[] T4 = new int[256];
+  private static final int[] T5 = new int[256];
+  private static final int[] T6 = new int[256];
+  private static final int[] T7 = new int[256];
+  private static final int[] T8 = new int[256];
 
   static {
     for (int i = 0; i < 256; i++) {
@@ -23,6 +27,10 @@ public final class Crc16 {
       T2[i] = ((TABLE[i] << 8) ^ TABLE[TABLE[i] >>> 8]) & 0xFFFF;
       T3[i] = ((T2[i] << 8) ^ TABLE[T2[i] >>> 8]) & 0xFFFF;
       T4[i] = ((T3[i] << 8) ^ TABLE[T3[i] >>> 8]) & 0xFFFF;
+      T5[i] = ((T4[i] << 8) ^ TABLE[T4[i] >>> 8]) & 0xFFFF;
+      T6[i] = ((T5[i] << 8) ^ TABLE[T5[i] >>> 8]) & 0xFFFF;
+      T7[i] = ((T6[i] << 8) ^ TABLE[T6[i] >>> 8]) & 0xFFFF;
+      T8[i] = ((T7[i] << 8) ^ TABLE[T7[i] >>> 8]) & 0xFFFF;
     }
   }
 
@@ -38,6 +46,12 @@ public final class Crc16 {
     int crc = 0xFFFF;
     int i = off;
     int end = off + len;
+    for (; i + 8 <= end; i += 8) {
+      int x = crc ^ (((data[i] & 0xFF) << 8) | (data[i + 1] & 0xFF));
+      crc = T8[x >>> 8] ^ T7[x & 0xFF] ^ T6[data[i + 2] & 0xFF] ^ T5[data[i + 3] & 0xFF]
+          ^ T4[data[i + 4] & 0xFF] ^ T3[data[i + 5] & 0xFF] ^ T2[data[i + 6] & 0xFF]
+          ^ TABLE[data[i + 7] & 0xFF];
+    }
     for (; i + 4 <= end; i += 4) {
       int x = crc ^ (((data[i] & 0xFF) << 8) | (data[i + 1] & 0xFF));
       crc = T4[x >>> 8] ^ T3[x & 0xFF] ^ T2[data[i + 2] & 0xFF] ^ TABLE[data[i + 3] & 0xFF];

@@ -262,7 +262,7 @@ public final class StreamDecoder {
   private boolean fastTextSample(int s, int e) {
     final byte[] b = buf;
     int bodyEnd = e - 6;
-    if (b[bodyEnd] != ' ' || b[bodyEnd + 1] != '~') {
+    if (b[bodyEnd] != ' ' || b[bodyEnd + 1] != '~' || s < 8 || bodyEnd + 8 > b.length) {
       return false;
     }
     int sent = 0;
@@ -276,33 +276,47 @@ public final class StreamDecoder {
     if (Crc16.compute(b, s, bodyEnd - s) != sent) {
       return false;
     }
-    int p = s + 1;
-    int n = 0;
-    long[] f = fields;
-    while (p < bodyEnd) {
-      if (b[p] != ' ' || n == 4) {
-        return false;
+    // the spaces between fields, found a word at a time
+    int[] sp = spaces;
+    int nsp = 0;
+    for (int p = s + 1; p < bodyEnd; p += 8) {
+      long x = (long) LONGS.get(b, p) ^ 0x2020202020202020L;
+      long m = (x - ONES) & ~x & HIGHS;
+      int left = bodyEnd - p;
+      if (left < 8) {
+        m &= (1L << (8 * left)) - 1;
       }
-      p++;
-      boolean neg = b[p] == '-';
-      if (neg) {
-        p++;
+      while (m != 0) {
+        if (nsp == 4) {
+          return false;
+        }
+        sp[nsp++] = p + (Long.numberOfTrailingZeros(m) >>> 3);
+        m &= m - 1;
       }
-      int d0 = p;
-      while (p < bodyEnd && (byte) (b[p] - '0') >= 0 && b[p] <= '9') {
-        p++;
-      }
-      int digits = p - d0;
-      if (digits == 0 || digits > 10 || (b[d0] == '0' && (digits > 1 || neg))) {
-        return false;
-      }
-      long v = digits <= 8 ? digits8(b, p, digits)
-          : digits8(b, p - 8, digits - 8) * 100_000_000L + digits8(b, p, 8);
-      f[n++] = neg ? -v : v;
     }
-    if (n < 3) {
+    if (nsp < 3 || sp[0] != s + 1) {
       return false;
     }
+    long[] f = fields;
+    for (int i = 0; i < nsp; i++) {
+      int start = sp[i] + 1;
+      int end = i + 1 < nsp ? sp[i + 1] : bodyEnd;
+      boolean neg = start < end && b[start] == '-';
+      if (neg) {
+        start++;
+      }
+      int digits = end - start;
+      if (digits == 0 || digits > 10 || (b[start] == '0' && (digits > 1 || neg))) {
+        return false;
+      }
+      long v = digits <= 8 ? digits8(b, end, digits)
+          : hiDigits(b, end - 8, digits - 8) * 100_000_000L + digits8(b, end, 8);
+      if (v < 0) {
+        return false;
+      }
+      f[i] = neg ? -v : v;
+    }
+    int n = nsp;
     long seq = f[0];
     long us = f[1];
     if (seq < 0 || seq > RawSample.SEQ_MAX || us < 0 || us > RawSample.TIME_MAX_US
@@ -311,6 +325,13 @@ public final class StreamDecoder {
     }
     deliverSample((int) seq, us, (int) f[2], n == 4, n == 4 ? (int) f[3] : 0);
     return true;
+  }
+
+  private final int[] spaces = new int[4];
+
+  private static long hiDigits(byte[] b, int end, int len) {
+    long v = digits8(b, end, len);
+    return v;
   }
 
   /**
@@ -322,12 +343,22 @@ public final class StreamDecoder {
     if (end < 8) {
       long v = 0;
       for (int i = end - len; i < end; i++) {
-        v = v * 10 + (b[i] - '0');
+        int d = b[i] - '0';
+        if (d < 0 || d > 9) {
+          return -1;
+        }
+        v = v * 10 + d;
       }
       return v;
     }
     long mask = -1L << (8 * (8 - len)); // the top len bytes hold the digits, first digit lowest
-    long w = ((long) LONGS.get(b, end - 8) & mask) - (0x3030303030303030L & mask);
+    long raw = (long) LONGS.get(b, end - 8) & mask;
+    // every kept byte must be 0x30…0x39: high nibble 3, low nibble at most 9
+    if ((raw & 0xF0F0F0F0F0F0F0F0L) != (0x3030303030303030L & mask)
+        || (((raw & 0x0F0F0F0F0F0F0F0FL) + 0x0606060606060606L) & 0xF0F0F0F0F0F0F0F0L & mask) != 0) {
+      return -1;
+    }
+    long w = raw - (0x3030303030303030L & mask);
     w = (w * 10) + (w >>> 8);
     return (((w & 0x000000FF000000FFL) * (100 + (1000000L << 32)))
         + (((w >>> 16) & 0x000000FF000000FFL) * (1 + (10000L << 32)))) >>> 32;
