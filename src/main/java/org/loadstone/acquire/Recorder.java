@@ -68,7 +68,6 @@ public final class Recorder implements AutoCloseable {
   private RunStore.Recording recording;
   private RunControl.Started started;
   private DecoderCounters atStart;
-  private double firstTimeUs = Double.NaN;
   private double runStartTime_s;
   private double deviceRate_Hz;
   private Instant startedAt;
@@ -186,9 +185,6 @@ public final class Recorder implements AutoCloseable {
         int n = cursor.drain((i, seq, dev, tUs, counts, hp, pos) -> {
           if (control.state() == RunControl.State.FINISHED) {
             return;
-          }
-          if (Double.isNaN(firstTimeUs)) {
-            firstTimeUs = tUs;
           }
           double f = scale.force_N(counts - zero_counts);
           lastForce_N = f;
