@@ -15,6 +15,25 @@ public interface ForceScale {
   String describe();
 
   /**
+   * The scale a run stores ({@link org.loadstone.archive.ScaleSpec}), so live force and force
+   * derived again from the stored raw counts come from the same arithmetic.
+   */
+  static ForceScale of(org.loadstone.archive.ScaleSpec spec, String description) {
+    java.util.function.DoubleUnaryOperator f = org.loadstone.archive.ScaleForce.of(spec);
+    return new ForceScale() {
+      @Override
+      public double force_N(double countsAboveZero) {
+        return f.applyAsDouble(countsAboveZero);
+      }
+
+      @Override
+      public String describe() {
+        return description;
+      }
+    };
+  }
+
+  /**
    * A straight line through zero.
    *
    * @param countsPerN sensitivity, non-zero

@@ -14,7 +14,6 @@ import org.loadstone.calibration.CalibrationFiles;
 import org.loadstone.calibration.CalibrationStatus;
 import org.loadstone.calibration.CheckWeightResult;
 import org.loadstone.calibration.CheckWeights;
-import org.loadstone.calibration.CountsToForce;
 import org.loadstone.calibration.LoadCellProfile;
 import org.loadstone.units.LoadstoneException;
 
@@ -39,7 +38,8 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
   /** A data-sheet sensitivity, with the warning that the run is not calibrated. */
   public static ScaleChoice nominal(double countsPerN, String source, Double capacity_N) {
     String d = String.format(Locale.ROOT, "nominal %.6g counts/N (%s)", countsPerN, source);
-    return new ScaleChoice(ForceScale.linear(countsPerN, source), ScaleSpec.nominal(countsPerN), d,
+    ScaleSpec spec = ScaleSpec.nominal(countsPerN);
+    return new ScaleChoice(ForceScale.of(spec, d), spec, d,
         null, null, List.of("no calibration: force uses the " + source + " sensitivity "
             + String.format(Locale.ROOT, "%.6g", countsPerN) + " counts/N; calibrate with "
             + "'loadstone calibrate' and pass --cal"), null, capacity_N);
@@ -63,20 +63,10 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
       warnings.add(st.warning());
     }
     CalibrationDocument doc = st.document();
-    CountsToForce inverse = doc.fit().inverse();
-    ForceScale scale = new ForceScale() {
-      @Override
-      public double force_N(double net) {
-        return inverse.force_N(net);
-      }
-
-      @Override
-      public String describe() {
-        return "calibration " + doc.id() + " (" + doc.fit().kind().label() + ")";
-      }
-    };
     ScaleSpec spec = new ScaleSpec("calibration", doc.fit().coefficients(),
         doc.fit().minForce_N(), doc.fit().maxForce_N());
+    ForceScale scale = ForceScale.of(spec,
+        "calibration " + doc.id() + " (" + doc.fit().kind().label() + ")");
     Map<String, Object> check = null;
     List<CheckWeightResult> log = CheckWeights.readLog(file);
     if (log.isEmpty()) {

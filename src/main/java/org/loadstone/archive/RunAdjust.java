@@ -58,14 +58,8 @@ public record RunAdjust(RunMetadata metadata, RunData data, List<String> notes) 
     for (int i = 0; i < raw.length; i++) {
       force[i] = f.applyAsDouble(raw[i] - zero);
     }
-    RunMetadata m = new RunMetadata(metadata.runId(), metadata.startedAt(), metadata.specimen(),
-        metadata.group(), metadata.tags(), metadata.operator(), metadata.notes(),
-        metadata.mass_g(), metadata.geometry(), metadata.testType(), metadata.device(),
-        metadata.sampleRate_Hz(), calibrationId, sha256, "calibration " + calibrationId, spec,
-        zero, metadata.dropped(), metadata.checksumErrors(), metadata.cause(),
-        metadata.breakIndex(), metadata.breakTime_s(), metadata.peakBeforeBreak_N(),
-        metadata.dropAtBreak_pct(), metadata.pretrigger_s(), metadata.startThreshold_N(),
-        metadata.checkWeight(), metadata.warnings(), metadata.softwareVersion(), metadata.extra());
+    RunMetadata m = metadata.withScale(calibrationId, sha256, "calibration " + calibrationId,
+        spec);
     return with(m, new RunData(data.time_s(), force, data.position_mm(), raw, data.rawPosition(),
         data.seq()), "force derived again from the raw counts with calibration " + calibrationId
         + " (the stored run keeps " + (metadata.calibrationId() == null ? "its nominal scale"
@@ -147,7 +141,6 @@ public record RunAdjust(RunMetadata metadata, RunData data, List<String> notes) 
   }
 
   private RunAdjust trimmed(int i0, int i1) {
-    int n = i1 - i0 + 1;
     RunData d = data;
     RunData c = new RunData(java.util.Arrays.copyOfRange(d.time_s(), i0, i1 + 1),
         java.util.Arrays.copyOfRange(d.force_N(), i0, i1 + 1),
@@ -157,14 +150,7 @@ public record RunAdjust(RunMetadata metadata, RunData data, List<String> notes) 
         java.util.Arrays.copyOfRange(d.seq(), i0, i1 + 1));
     Integer b = metadata.breakIndex();
     Integer nb = b == null || b < i0 || b > i1 ? null : b - i0;
-    RunMetadata m = metadata;
-    RunMetadata mm = new RunMetadata(m.runId(), m.startedAt(), m.specimen(), m.group(), m.tags(),
-        m.operator(), m.notes(), m.mass_g(), m.geometry(), m.testType(), m.device(),
-        m.sampleRate_Hz(), m.calibrationId(), m.calibrationSha256(), m.scale(), m.scaleSpec(),
-        m.zeroOffset_counts(), m.dropped(), m.checksumErrors(), m.cause(), nb,
-        nb == null ? null : m.breakTime_s(), m.peakBeforeBreak_N(), m.dropAtBreak_pct(),
-        m.pretrigger_s(), m.startThreshold_N(), m.checkWeight(), m.warnings(),
-        m.softwareVersion(), m.extra());
+    RunMetadata mm = metadata.withBreak(nb, nb == null ? null : metadata.breakTime_s());
     return new RunAdjust(mm, c, notes);
   }
 

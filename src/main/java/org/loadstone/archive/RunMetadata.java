@@ -111,4 +111,23 @@ public record RunMetadata(
         peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, checkWeight, warnings,
         softwareVersion, extra);
   }
+
+  /** @return a copy whose force comes from another scale (another calibration) */
+  public RunMetadata withScale(String newCalibrationId, String newSha256, String newScale,
+      ScaleSpec newSpec) {
+    return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g,
+        geometry, testType, device, sampleRate_Hz, newCalibrationId, newSha256, newScale, newSpec,
+        zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s,
+        peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, checkWeight, warnings,
+        softwareVersion, extra);
+  }
+
+  /** @return a copy with another break sample (null: none) and break time */
+  public RunMetadata withBreak(Integer newBreakIndex, Double newBreakTime_s) {
+    return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g,
+        geometry, testType, device, sampleRate_Hz, calibrationId, calibrationSha256, scale,
+        scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, newBreakIndex,
+        newBreakTime_s, peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N,
+        checkWeight, warnings, softwareVersion, extra);
+  }
 }

@@ -282,8 +282,9 @@ public final class RecordCommand implements Callable<Integer> {
     }
     if (device.simulated()) {
       SimSetup s = device.simSetup();
-      return ScaleChoice.nominal(s.nominalCountsPerN(), "simulated cell's nominal",
-          s.buildFrame().truth().loadCell().capacity_N());
+      var cell = s.cell();
+      return ScaleChoice.nominal(cell.countsPerN(), "simulated cell's nominal",
+          cell.capacity_N());
     }
     throw new LoadstoneException("no calibration for " + device.port + ": pass --cal FILE (make "
         + "one with 'loadstone calibrate') or --counts-per-n K for a rough, uncalibrated reading");

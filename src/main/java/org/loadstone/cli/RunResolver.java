@@ -58,12 +58,5 @@ public interface RunResolver {
     };
   }
 
-  /** @return a resolver that asks this one first, then {@code next} */
-  default RunResolver orElse(RunResolver next) {
-    Precondition.notNull(next, "next");
-    return ref -> {
-      Optional<ResolvedRun> r = resolve(ref);
-      return r.isPresent() ? r : next.resolve(ref);
-    };
-  }
+
 }

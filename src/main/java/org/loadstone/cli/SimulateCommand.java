@@ -11,6 +11,7 @@ import java.util.concurrent.Callable;
 import org.loadstone.device.FrameSampleSource;
 import org.loadstone.device.SampleSource;
 import org.loadstone.device.SimSetup;
+import org.loadstone.device.SimTransport;
 import org.loadstone.device.sim.Scenario;
 import org.loadstone.protocol.Encoding;
 import org.loadstone.protocol.WireEncoder;
@@ -71,10 +72,7 @@ public final class SimulateCommand implements Callable<Integer> {
     PrintWriter err = spec.commandLine().getErr();
     long started = System.nanoTime();
     try (OutputStream os = openOut()) {
-      String id = "I proto=1 fw=sim-1 adc=" + source.adcKind() + " rate=" + Math.round(rateHz)
-          + " ch=" + (source.hasPosition() ? 2 : 1)
-          + (source.hasPosition() ? " cpm=" + Math.round(source.countsPerMm()) : "")
-          + " motor=1 name=loadstone-sim";
+      String id = SimTransport.identityBody(source);
       os.write(enc.body(id));
       byte[] buf = new byte[256 * 1024];
       SampleSource.SampleSlot slot = new SampleSource.SampleSlot();

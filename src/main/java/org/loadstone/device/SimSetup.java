@@ -47,6 +47,11 @@ public record SimSetup(String scenario, long seed, double rateHz, boolean hand, 
 
   /** @return the simulated cell's nominal sensitivity in counts per N (its data-sheet value) */
   public double nominalCountsPerN() {
-    return buildFrame().truth().loadCell().countsPerN();
+    return cell().countsPerN();
+  }
+
+  /** @return the simulated load cell (sensitivity, capacity, offset, noise, non-linearity) */
+  public org.loadstone.device.sim.LoadCell cell() {
+    return buildFrame().truth().loadCell();
   }
 }

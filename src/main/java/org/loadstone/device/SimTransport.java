@@ -55,6 +55,11 @@ public final class SimTransport implements Transport {
   }
 
   private String identityBody() {
+    return identityBody(source);
+  }
+
+  /** @return the identity record body the simulated frame sends for this source */
+  public static String identityBody(SampleSource source) {
     return "I proto=1 fw=" + FIRMWARE + " adc=" + source.adcKind()
         + " rate=" + Math.round(source.rateHz())
         + " ch=" + (source.hasPosition() ? 2 : 1)

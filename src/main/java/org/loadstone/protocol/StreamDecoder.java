@@ -310,7 +310,7 @@ public final class StreamDecoder {
         return false;
       }
       long v = digits <= 8 ? digits8(b, end, digits)
-          : hiDigits(b, end - 8, digits - 8) * 100_000_000L + digits8(b, end, 8);
+          : digits8(b, end - 8, digits - 8) * 100_000_000L + digits8(b, end, 8);
       if (v < 0) {
         return false;
       }
@@ -329,28 +329,15 @@ public final class StreamDecoder {
 
   private final int[] spaces = new int[4];
 
-  private static long hiDigits(byte[] b, int end, int len) {
-    long v = digits8(b, end, len);
-    return v;
-  }
-
   /**
    * The value of the {@code len} (1…8) decimal digits that end just before {@code end}, read as
    * one 8-byte word (the bytes before the digits are masked to zero; Lemire's eight-digit SWAR
-   * parse). Near the start of the buffer it falls back to a digit loop.
+   * parse). Needs {@code end ≥ 8}: the fast path only runs on lines that start at buffer index 8
+   * or later.
+   *
+   * @return the value, or -1 when a byte is not a decimal digit
    */
   private static long digits8(byte[] b, int end, int len) {
-    if (end < 8) {
-      long v = 0;
-      for (int i = end - len; i < end; i++) {
-        int d = b[i] - '0';
-        if (d < 0 || d > 9) {
-          return -1;
-        }
-        v = v * 10 + d;
-      }
-      return v;
-    }
     long mask = -1L << (8 * (8 - len)); // the top len bytes hold the digits, first digit lowest
     long raw = (long) LONGS.get(b, end - 8) & mask;
     // every kept byte must be 0x30…0x39: high nibble 3, low nibble at most 9

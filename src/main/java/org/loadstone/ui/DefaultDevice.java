@@ -16,10 +16,11 @@ public final class DefaultDevice {
 
   /** The console on a simulated frame with these settings. */
   public static ConsoleConfig simulated(SimSetup setup, Path archive, Path home) {
-    double capacity = setup.buildFrame().truth().loadCell().capacity_N();
+    var cell = setup.cell();
+    double capacity = cell.capacity_N();
     return new ConsoleConfig("simulated frame · " + setup.scenario() + " · seed " + setup.seed(),
         setup::openTransport,
-        ScaleChoice.nominal(setup.nominalCountsPerN(), "simulated cell's nominal", capacity),
+        ScaleChoice.nominal(cell.countsPerN(), "simulated cell's nominal", capacity),
         capacity, archive, Map.of("sim_scenario", setup.scenario(),
             "sim_seed", Long.toString(setup.seed())), home);
   }
