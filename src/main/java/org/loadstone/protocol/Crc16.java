@@ -1,19 +1,28 @@
 package org.loadstone.protocol;
 
+import java.lang.invoke.MethodHandles;
+import java.lang.invoke.VarHandle;
+import java.nio.ByteOrder;
+
 /**
  * CRC-16/CCITT-FALSE: polynomial 0x1021, initial value 0xFFFF, no reflection, no final XOR.
  * The ASCII bytes {@code 123456789} give 0x29B1.
+ *
+ * <p>Computed sixteen bytes at a time ("slicing by 16"). A message whose length is not a multiple
+ * of sixteen is read as if it were preceded by zero bytes, with a start value chosen so that those
+ * zeros bring the register to 0xFFFF exactly where the message begins (zero bytes only multiply
+ * the register by x^8 modulo the polynomial, which can be undone). That leaves no byte-at-a-time
+ * tail.
  */
 public final class Crc16 {
-  static final int[] TABLE = new int[256];
-  // T2..T4[i]: the CRC contribution of byte i followed by 1, 2 or 3 zero bytes ("slicing by 4" and by 8)
-  private static final int[] T2 = new int[256];
-  private static final int[] T3 = new int[256];
-  private static final int[] T4 = new int[256];
-  private static final int[] T5 = new int[256];
-  private static final int[] T6 = new int[256];
-  private static final int[] T7 = new int[256];
-  private static final int[] T8 = new int[256];
+  private static final int INIT = 0xFFFF;
+  private static final VarHandle BIG_ENDIAN_LONGS =
+      MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.BIG_ENDIAN);
+
+  /** T[k * 256 + i]: the CRC contribution of byte i followed by k zero bytes, k = 0…15. */
+  private static final char[] T = new char[16 * 256];
+  /** START[z]: the register value that z zero bytes turn into 0xFFFF. */
+  private static final int[] START = new int[16];
 
   static {
     for (int i = 0; i < 256; i++) {
@@ -21,44 +30,91 @@ public final class Crc16 {
       for (int b = 0; b < 8; b++) {
         crc = (crc & 0x8000) != 0 ? (crc << 1) ^ 0x1021 : crc << 1;
       }
-      TABLE[i] = crc & 0xFFFF;
+      T[i] = (char) (crc & 0xFFFF);
     }
-    for (int i = 0; i < 256; i++) {
-      T2[i] = ((TABLE[i] << 8) ^ TABLE[TABLE[i] >>> 8]) & 0xFFFF;
-      T3[i] = ((T2[i] << 8) ^ TABLE[T2[i] >>> 8]) & 0xFFFF;
-      T4[i] = ((T3[i] << 8) ^ TABLE[T3[i] >>> 8]) & 0xFFFF;
-      T5[i] = ((T4[i] << 8) ^ TABLE[T4[i] >>> 8]) & 0xFFFF;
-      T6[i] = ((T5[i] << 8) ^ TABLE[T5[i] >>> 8]) & 0xFFFF;
-      T7[i] = ((T6[i] << 8) ^ TABLE[T6[i] >>> 8]) & 0xFFFF;
-      T8[i] = ((T7[i] << 8) ^ TABLE[T7[i] >>> 8]) & 0xFFFF;
+    for (int k = 1; k < 16; k++) {
+      for (int i = 0; i < 256; i++) {
+        int prev = T[(k - 1) * 256 + i];
+        T[k * 256 + i] = (char) (((prev << 8) ^ T[prev >>> 8]) & 0xFFFF);
+      }
+    }
+    int[] beforeZero = new int[1 << 16]; // the inverse of one zero-byte step
+    for (int s = 0; s < 1 << 16; s++) {
+      beforeZero[zeroByte(s)] = s;
+    }
+    int s = INIT;
+    for (int z = 0; z < 16; z++) {
+      START[z] = s;
+      s = beforeZero[s];
     }
   }
 
   private Crc16() {}
+
+  private static int zeroByte(int crc) {
+    return ((crc << 8) ^ T[crc >>> 8]) & 0xFFFF;
+  }
 
   /**
    * @param data bytes
    * @param off first byte
    * @param len number of bytes
    * @return the CRC, 0…0xFFFF
+   * @throws IndexOutOfBoundsException when the range is outside the array
    */
   public static int compute(byte[] data, int off, int len) {
-    int crc = 0xFFFF;
+    java.util.Objects.checkFromIndexSize(off, len, data.length);
+    if (len == 0) {
+      return INIT;
+    }
+    int z = -len & 15;
+    if (off >= z) {
+      int start = off - z;
+      // without branches (z varies from message to message): 8…15 padding bytes fill the first word
+      long firstMask = (-1L >>> (z << 3)) & ((z - 8) >> 31);
+      int over = (z - 8) & ~((z - 8) >> 31);
+      long secondMask = -1L >>> (over << 3);
+      return steps(data, start, off + len, START[z], firstMask, secondMask);
+    }
+    int crc = INIT;
     int i = off;
-    int end = off + len;
-    for (; i + 8 <= end; i += 8) {
-      int x = crc ^ (((data[i] & 0xFF) << 8) | (data[i + 1] & 0xFF));
-      crc = T8[x >>> 8] ^ T7[x & 0xFF] ^ T6[data[i + 2] & 0xFF] ^ T5[data[i + 3] & 0xFF]
-          ^ T4[data[i + 4] & 0xFF] ^ T3[data[i + 5] & 0xFF] ^ T2[data[i + 6] & 0xFF]
-          ^ TABLE[data[i + 7] & 0xFF];
+    for (; i < off + (len & 15); i++) { // too near the array start for the padding words
+      crc = ((crc << 8) ^ T[((crc >>> 8) ^ data[i]) & 0xFF]) & 0xFFFF;
     }
-    for (; i + 4 <= end; i += 4) {
-      int x = crc ^ (((data[i] & 0xFF) << 8) | (data[i + 1] & 0xFF));
-      crc = T4[x >>> 8] ^ T3[x & 0xFF] ^ T2[data[i + 2] & 0xFF] ^ TABLE[data[i + 3] & 0xFF];
-    }
-    for (; i < end; i++) {
-      crc = ((crc << 8) ^ TABLE[((crc >>> 8) ^ data[i]) & 0xFF]) & 0xFFFF;
-    }
+    return i == off + len ? crc : steps(data, i, off + len, crc, -1L, -1L);
+  }
+
+  /**
+   * Sixteen-byte steps from {@code i} to {@code end}; the masks clear the padding of the first
+   * step. Only the first two bytes of a step depend on the register, so the other fourteen
+   * lookups run ahead of it.
+   */
+  private static int steps(byte[] data, int i, int end, int crc, long firstMask, long secondMask) {
+    final char[] t = T;
+    long m1 = firstMask;
+    long m2 = secondMask;
+    do {
+      long v = (long) BIG_ENDIAN_LONGS.get(data, i) & m1;
+      long w = (long) BIG_ENDIAN_LONGS.get(data, i + 8) & m2;
+      m1 = -1L;
+      m2 = -1L;
+      int rest = word(t, v, 8) ^ t[7 * 256 + (int) (w >>> 56)]
+          ^ t[6 * 256 + ((int) (w >>> 48) & 0xFF)] ^ word(t, w, 0);
+      int x = crc ^ (int) (v >>> 48);
+      crc = rest ^ t[15 * 256 + (x >>> 8)] ^ t[14 * 256 + (x & 0xFF)];
+      i += 16;
+    } while (i < end);
     return crc;
+  }
+
+  /**
+   * The contribution of bytes 2…7 of big-endian word {@code v} when followed by {@code k} zero
+   * bytes; bytes 0 and 1 are left to the caller, which mixes the register into them.
+   */
+  private static int word(char[] t, long v, int k) {
+    int o = k * 256;
+    return t[o + 5 * 256 + ((int) (v >>> 40) & 0xFF)] ^ t[o + 4 * 256 + ((int) (v >>> 32) & 0xFF)]
+        ^ t[o + 3 * 256 + ((int) (v >>> 24) & 0xFF)] ^ t[o + 2 * 256 + ((int) (v >>> 16) & 0xFF)]
+        ^ t[o + 256 + ((int) (v >>> 8) & 0xFF)] ^ t[o + ((int) v & 0xFF)];
   }
 }

@@ -20,7 +20,12 @@ public final class StreamDecoder {
   private static final int MAX_BODY = 194;
 
   private final DecodeListener listener;
-  private final byte[] buf = new byte[64 * 1024];
+  /** Bytes kept between feeds; the buffer has {@link SampleFastPath#SLACK} spare bytes beyond. */
+  private static final int BUF = 64 * 1024;
+
+  private final byte[] buf = new byte[BUF + SampleFastPath.SLACK];
+  private final SampleFastPath fast = new SampleFastPath();
+  private final SampleFastPath.Fields slot = new SampleFastPath.Fields();
   private final byte[] frame = new byte[MAX_CANDIDATE];
   private int len;
   private int end; // just past the terminator being handled
@@ -88,10 +93,10 @@ public final class StreamDecoder {
     int i = off;
     int stop = off + n;
     while (i < stop) {
-      if (len == buf.length) {
+      if (len == BUF) {
         compact();
       }
-      int k = Math.min(stop - i, buf.length - len);
+      int k = Math.min(stop - i, BUF - len);
       System.arraycopy(data, i, buf, len, k);
       int from = len;
       len += k;
@@ -100,28 +105,26 @@ public final class StreamDecoder {
     }
   }
 
-  private static final java.lang.invoke.VarHandle LONGS = java.lang.invoke.MethodHandles
-      .byteArrayViewVarHandle(long[].class, java.nio.ByteOrder.LITTLE_ENDIAN);
-  private static final long ONES = 0x0101010101010101L;
-  private static final long HIGHS = 0x8080808080808080L;
-  private static final long LFS = 0x0A0A0A0A0A0A0A0AL;
-
   /**
-   * Looks for record boundaries in buf[from, len). Eight bytes at a time: a word with neither a
-   * 0x00 nor an LF byte (the classic "has a zero byte" bit trick) is skipped whole.
+   * Looks for records in buf[from, len). At a record boundary the one-pass sample parser is tried
+   * first; otherwise bytes are scanned for boundaries eight at a time: a word with neither a 0x00
+   * nor an LF byte is skipped whole.
    */
   private void scan(int from) {
     byte[] b = buf;
     int n = len;
     int p = from;
     while (p < n) {
-      if (p + 8 <= n) {
-        long v = (long) LONGS.get(b, p);
-        long lf = v ^ LFS;
-        if (((((v - ONES) & ~v) | ((lf - ONES) & ~lf)) & HIGHS) == 0) {
-          p += 8;
+      if (p == lineStart || p == frameStart) {
+        int q = fastSample(p, n);
+        if (q > 0) {
+          p = q;
           continue;
         }
+      }
+      if (p + 8 <= n && !SampleFastPath.hasZeroOrLf((long) SampleFastPath.LONGS.get(b, p))) {
+        p += 8;
+        continue;
       }
       int stop = Math.min(n, p + 8);
       for (; p < stop; p++) {
@@ -139,6 +142,30 @@ public final class StreamDecoder {
     }
     capLine(len);
     capFrame(len);
+  }
+
+  /**
+   * Tries the one-pass parser on a sample record starting at boundary {@code p}; what it accepts
+   * the general path would accept as the first record of the candidate.
+   *
+   * @return the index just past the record, or -1 to leave the bytes to the general path
+   */
+  private int fastSample(int p, int n) {
+    Encoding e = Encoding.TEXT;
+    int q = -1;
+    if (p == lineStart && buf[p] == 'S') {
+      q = fast.text(buf, p, n, slot);
+    }
+    if (q < 0 && p == frameStart) {
+      q = fast.binary(buf, p, n, frame, slot);
+      e = Encoding.BINARY;
+    }
+    if (q > 0) {
+      end = q;
+      deliverSample(slot.seq, slot.us, slot.load, slot.hasPos, slot.pos);
+      accepted(e);
+    }
+    return q;
   }
 
   /** Keeps a text candidate ending at {@code at} (exclusive) to the newest MAX_CANDIDATE bytes. */
@@ -213,9 +240,6 @@ public final class StreamDecoder {
 
   /** Parses and delivers one text line [s, e) without its line end. */
   private int parseLine(int s, int e) {
-    if (buf[s] == 'S' && e - s >= 12 && buf[s + 1] == ' ' && fastTextSample(s, e)) {
-      return OK;
-    }
     // body " ~" 4 hex
     if (e - s < 8 || e - s > MAX_TEXT_BODY) {
       return MALFORMED;
@@ -253,102 +277,6 @@ public final class StreamDecoder {
       return textSample(s + 1, bodyEnd) ? OK : MALFORMED;
     }
     return textMessage(s, bodyEnd) ? OK : MALFORMED;
-  }
-
-  /**
-   * The hot path: one pass over a well-formed sample line, checksum computed while parsing. Any
-   * deviation returns false and the general parser classifies the line.
-   */
-  private boolean fastTextSample(int s, int e) {
-    final byte[] b = buf;
-    int bodyEnd = e - 6;
-    if (b[bodyEnd] != ' ' || b[bodyEnd + 1] != '~' || s < 8 || bodyEnd + 8 > b.length) {
-      return false;
-    }
-    int sent = 0;
-    for (int k = bodyEnd + 2; k < e; k++) {
-      int h = hex(b[k]);
-      if (h < 0) {
-        return false;
-      }
-      sent = (sent << 4) | h;
-    }
-    if (Crc16.compute(b, s, bodyEnd - s) != sent) {
-      return false;
-    }
-    // the spaces between fields, found a word at a time
-    int[] sp = spaces;
-    int nsp = 0;
-    for (int p = s + 1; p < bodyEnd; p += 8) {
-      long x = (long) LONGS.get(b, p) ^ 0x2020202020202020L;
-      long m = (x - ONES) & ~x & HIGHS;
-      int left = bodyEnd - p;
-      if (left < 8) {
-        m &= (1L << (8 * left)) - 1;
-      }
-      while (m != 0) {
-        if (nsp == 4) {
-          return false;
-        }
-        sp[nsp++] = p + (Long.numberOfTrailingZeros(m) >>> 3);
-        m &= m - 1;
-      }
-    }
-    if (nsp < 3 || sp[0] != s + 1) {
-      return false;
-    }
-    long[] f = fields;
-    for (int i = 0; i < nsp; i++) {
-      int start = sp[i] + 1;
-      int end = i + 1 < nsp ? sp[i + 1] : bodyEnd;
-      boolean neg = start < end && b[start] == '-';
-      if (neg) {
-        start++;
-      }
-      int digits = end - start;
-      if (digits == 0 || digits > 10 || (b[start] == '0' && (digits > 1 || neg))) {
-        return false;
-      }
-      long v = digits <= 8 ? digits8(b, end, digits)
-          : digits8(b, end - 8, digits - 8) * 100_000_000L + digits8(b, end, 8);
-      if (v < 0) {
-        return false;
-      }
-      f[i] = neg ? -v : v;
-    }
-    int n = nsp;
-    long seq = f[0];
-    long us = f[1];
-    if (seq < 0 || seq > RawSample.SEQ_MAX || us < 0 || us > RawSample.TIME_MAX_US
-        || !fitsInt(f[2]) || (n == 4 && !fitsInt(f[3]))) {
-      return false;
-    }
-    deliverSample((int) seq, us, (int) f[2], n == 4, n == 4 ? (int) f[3] : 0);
-    return true;
-  }
-
-  private final int[] spaces = new int[4];
-
-  /**
-   * The value of the {@code len} (1…8) decimal digits that end just before {@code end}, read as
-   * one 8-byte word (the bytes before the digits are masked to zero; Lemire's eight-digit SWAR
-   * parse). Needs {@code end ≥ 8}: the fast path only runs on lines that start at buffer index 8
-   * or later.
-   *
-   * @return the value, or -1 when a byte is not a decimal digit
-   */
-  private static long digits8(byte[] b, int end, int len) {
-    long mask = -1L << (8 * (8 - len)); // the top len bytes hold the digits, first digit lowest
-    long raw = (long) LONGS.get(b, end - 8) & mask;
-    // every kept byte must be 0x30…0x39: high nibble 3, low nibble at most 9
-    if ((raw & 0xF0F0F0F0F0F0F0F0L) != (0x3030303030303030L & mask)
-        || (((raw & 0x0F0F0F0F0F0F0F0FL) + 0x0606060606060606L) & 0xF0F0F0F0F0F0F0F0L & mask) != 0) {
-      return -1;
-    }
-    long w = raw - (0x3030303030303030L & mask);
-    w = (w * 10) + (w >>> 8);
-    return (((w & 0x000000FF000000FFL) * (100 + (1000000L << 32)))
-        + (((w >>> 16) & 0x000000FF000000FFL) * (1 + (10000L << 32)))) >>> 32;
   }
 
   private static int hex(byte b) {
@@ -481,10 +409,10 @@ public final class StreamDecoder {
         return MALFORMED;
       }
       int seq = (frame[1] & 0xFF) | ((frame[2] & 0xFF) << 8);
-      long us = le32(3) & 0xFFFF_FFFFL;
-      int load = le32(7);
+      long us = SampleFastPath.le32(frame, 3) & 0xFFFF_FFFFL;
+      int load = SampleFastPath.le32(frame, 7);
       boolean pos = type == 0x02;
-      deliverSample(seq, us, load, pos, pos ? le32(11) : 0);
+      deliverSample(seq, us, load, pos, pos ? SampleFastPath.le32(frame, 11) : 0);
       return OK;
     }
     if (type == 0x10) {
@@ -515,13 +443,6 @@ public final class StreamDecoder {
     }
     unknown++;
     return OK;
-  }
-
-  private int le32(int at) {
-    return (frame[at] & 0xFF)
-        | ((frame[at + 1] & 0xFF) << 8)
-        | ((frame[at + 2] & 0xFF) << 16)
-        | ((frame[at + 3] & 0xFF) << 24);
   }
 
   // ---------------------------------------------------------------- delivery

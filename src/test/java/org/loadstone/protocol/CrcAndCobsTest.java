@@ -18,6 +18,32 @@ class CrcAndCobsTest {
     assertThat(Crc16.compute(b, 0, b.length)).isEqualTo(0x29B1);
   }
 
+  /**
+   * The table-driven, sixteen-bytes-at-a-time CRC against the bit-by-bit shift register that
+   * defines it (R. Williams, "A Painless Guide to CRC Error Detection Algorithms", 1993, the
+   * "simple" register), for every length and alignment in the range.
+   */
+  @Property(tries = 300, seed = "5150")
+  void crcMatchesTheBitwiseDefinition(
+      @ForAll @Size(max = 300) byte[] data, @ForAll @net.jqwik.api.constraints.IntRange(max = 40) int cut) {
+    for (int off = 0; off <= Math.min(cut, data.length); off += 1 + off / 4) {
+      for (int len : new int[] {data.length - off, (data.length - off) / 2, Math.min(17, data.length - off)}) {
+        assertThat(Crc16.compute(data, off, len)).isEqualTo(bitwise(data, off, len));
+      }
+    }
+  }
+
+  private static int bitwise(byte[] d, int off, int len) {
+    int crc = 0xFFFF;
+    for (int i = off; i < off + len; i++) {
+      crc ^= (d[i] & 0xFF) << 8;
+      for (int k = 0; k < 8; k++) {
+        crc = (crc & 0x8000) != 0 ? ((crc << 1) ^ 0x1021) & 0xFFFF : (crc << 1) & 0xFFFF;
+      }
+    }
+    return crc;
+  }
+
   @Test
   void crcOfEmptyIsInitialValue() {
     assertThat(Crc16.compute(new byte[0], 0, 0)).isEqualTo(0xFFFF);

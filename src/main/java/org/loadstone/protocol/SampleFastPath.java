@@ -1,0 +1,245 @@
+package org.loadstone.protocol;
+
+import java.lang.invoke.MethodHandles;
+import java.lang.invoke.VarHandle;
+import java.nio.ByteOrder;
+
+/**
+ * The decoder's hot path: one forward pass over a sample record that starts exactly at a record
+ * boundary, text or binary. It accepts only a record that the general rules of {@link
+ * StreamDecoder} would accept as the first valid record of its candidate, and it has no side
+ * effects until it succeeds; on any doubt it returns -1 and the general byte-by-byte path decides.
+ *
+ * <p>Bytes are read eight at a time ({@link #LONGS}); the caller's buffer must hold at least
+ * {@link #SLACK} bytes beyond the last byte it passes as {@code limit}. Those slack bytes may hold
+ * anything: every accepted byte index is checked against {@code limit}.
+ */
+final class SampleFastPath {
+  /** Bytes a buffer needs beyond its data for the word-wide reads. */
+  static final int SLACK = 64;
+  /** Where {@link #binary} puts the decoded payload in its scratch array: the CRC reads before it. */
+  static final int FRAME_AT = 16;
+
+  static final VarHandle LONGS =
+      MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
+  static final long ONES = 0x0101010101010101L;
+  static final long HIGHS = 0x8080808080808080L;
+  static final long LFS = 0x0A0A0A0A0A0A0A0AL;
+  private static final long LOW7 = 0x7F7F7F7F7F7F7F7FL;
+  private static final long ZEROS_ASCII = 0x3030303030303030L;
+
+  /** Hex digit values by byte, -1 for a byte that is not a hex digit (either case). */
+  private static final int[] HEX = new int[256];
+
+  static {
+    java.util.Arrays.fill(HEX, -1);
+    for (int i = 0; i < 10; i++) {
+      HEX['0' + i] = i;
+    }
+    for (int i = 0; i < 6; i++) {
+      HEX['A' + i] = 10 + i;
+      HEX['a' + i] = 10 + i;
+    }
+  }
+
+  /** Where a successful parse leaves its values. Reused: the hot path allocates nothing. */
+  static final class Fields {
+    int seq;
+    long us;
+    int load;
+    boolean hasPos;
+    int pos;
+  }
+
+  private final long[] values = new long[4];
+
+  /** @return true when word {@code v} holds a 0x00 or an LF byte (the "has a zero byte" trick) */
+  static boolean hasZeroOrLf(long v) {
+    long lf = v ^ LFS;
+    return ((((v - ONES) & ~v) | ((lf - ONES) & ~lf)) & HIGHS) != 0;
+  }
+
+  /** High bit set in each byte of the result where {@code bad}'s byte is non-zero. */
+  private static long nonZeroBytes(long bad) {
+    return (((bad & LOW7) + LOW7) | bad) & HIGHS;
+  }
+
+  /** The number of leading (lowest-addressed) bytes of {@code w} that are decimal digits, 0…8. */
+  private static int digitRun(long w) {
+    long highNibbleOff = (w & 0xF0F0F0F0F0F0F0F0L) ^ ZEROS_ASCII;
+    long lowNibbleOver9 = ((w & 0x0F0F0F0F0F0F0F0FL) + 0x0606060606060606L) & 0x1010101010101010L;
+    return Long.numberOfTrailingZeros(nonZeroBytes(highNibbleOff | lowNibbleOver9)) >>> 3;
+  }
+
+  /**
+   * The value of the first {@code k} (1…8) bytes of {@code w}, all decimal digits, first digit in
+   * the lowest byte (Lemire's eight-digit SWAR conversion; the digits are shifted to the top so
+   * the bytes below read as leading zeros).
+   */
+  private static long digitsValue(long w, int k) {
+    int sh = (8 - k) << 3;
+    long x = (w << sh) - (ZEROS_ASCII << sh);
+    x = (x * 10) + (x >>> 8);
+    return (((x & 0x000000FF000000FFL) * (100 + (1000000L << 32)))
+        + (((x >>> 16) & 0x000000FF000000FFL) * (1 + (10000L << 32)))) >>> 32;
+  }
+
+  /**
+   * Parses a text sample line {@code S seq us load [pos] ~XXXX CR? LF} starting at {@code s}.
+   *
+   * @param b buffer, with {@link #SLACK} readable bytes past {@code limit}
+   * @param s first byte of the line (a record boundary)
+   * @param limit end of the valid bytes (exclusive)
+   * @param out receives the sample
+   * @return the index just past the LF, or -1 when this is not a complete, valid sample line
+   */
+  int text(byte[] b, int s, int limit, Fields out) {
+    if (s + 12 > limit || b[s] != 'S' || b[s + 1] != ' ') {
+      return -1;
+    }
+    long[] f = values;
+    int n = 0;
+    int q = s + 2;
+    int e;
+    while (true) {
+      boolean neg = b[q] == '-';
+      int d = neg ? q + 1 : q;
+      long w = (long) LONGS.get(b, d);
+      int k = digitRun(w);
+      long v;
+      if (k < 8) {
+        if (k == 0) {
+          return -1;
+        }
+        v = digitsValue(w, k);
+      } else {
+        long w2 = (long) LONGS.get(b, d + 8);
+        int k2 = digitRun(w2);
+        if (k2 > 2) {
+          return -1; // more than ten digits
+        }
+        v = digitsValue(w, 8);
+        if (k2 > 0) {
+          v = v * (k2 == 1 ? 10 : 100) + digitsValue(w2, k2);
+        }
+        k += k2;
+      }
+      if (b[d] == '0' && (k > 1 || neg)) {
+        return -1; // "007", "-0": not canonical
+      }
+      e = d + k;
+      if (e + 1 >= limit || b[e] != ' ') {
+        return -1;
+      }
+      f[n++] = neg ? -v : v;
+      if (b[e + 1] == '~') {
+        break;
+      }
+      if (n == 4) {
+        return -1;
+      }
+      q = e + 1;
+    }
+    if (n < 3) {
+      return -1;
+    }
+    int h = e + 2;
+    int t = h + 4; // the hex digits are below t, and t is checked against limit below
+    int h0 = HEX[b[h] & 0xFF];
+    int h1 = HEX[b[h + 1] & 0xFF];
+    int h2 = HEX[b[h + 2] & 0xFF];
+    int h3 = HEX[b[h + 3] & 0xFF];
+    if ((h0 | h1 | h2 | h3) < 0) {
+      return -1;
+    }
+    if (b[t] == '\r') {
+      t++;
+    }
+    if (t >= limit || b[t] != '\n') {
+      return -1;
+    }
+    long seq = f[0];
+    long us = f[1];
+    if (seq < 0 || seq > RawSample.SEQ_MAX || us < 0 || us > RawSample.TIME_MAX_US || !fitsInt(f[2])
+        || (n == 4 && !fitsInt(f[3]))) {
+      return -1;
+    }
+    if (Crc16.compute(b, s, e - s) != ((h0 << 12) | (h1 << 8) | (h2 << 4) | h3)) {
+      return -1;
+    }
+    out.seq = (int) seq;
+    out.us = us;
+    out.load = (int) f[2];
+    out.hasPos = n == 4;
+    out.pos = n == 4 ? (int) f[3] : 0;
+    return t + 1;
+  }
+
+  private static boolean fitsInt(long v) {
+    return v >= Integer.MIN_VALUE && v <= Integer.MAX_VALUE;
+  }
+
+  /**
+   * Parses a binary sample frame (type 0x01 or 0x02, COBS, CRC, 0x00 delimiter) starting at
+   * {@code s}. A frame with an LF byte inside is left to the general path, which must also look
+   * at the text candidate that LF ends.
+   *
+   * @param b buffer, with {@link #SLACK} readable bytes past {@code limit}
+   * @param s first byte of the frame (a record boundary)
+   * @param limit end of the valid bytes (exclusive)
+   * @param frame scratch for the decoded payload, at least {@link #FRAME_AT} + 17 bytes
+   * @param out receives the sample
+   * @return the index just past the 0x00, or -1 when this is not a complete, valid sample frame
+   */
+  int binary(byte[] b, int s, int limit, byte[] frame, Fields out) {
+    if (s + 15 > limit || (b[s] & 0xFF) < 2) {
+      return -1;
+    }
+    int type = b[s + 1];
+    int encoded; // COBS bytes before the delimiter: payload + 1
+    if (type == 0x02) {
+      encoded = 18;
+    } else if (type == 0x01) {
+      encoded = 14;
+    } else {
+      return -1;
+    }
+    int z = s + encoded;
+    if (z >= limit || b[z] != 0
+        || hasZeroOrLf((long) LONGS.get(b, s))
+        || hasZeroOrLf((long) LONGS.get(b, s + 6))
+        || hasZeroOrLf((long) LONGS.get(b, z - 8))) {
+      return -1;
+    }
+    final int o = FRAME_AT;
+    System.arraycopy(b, s + 1, frame, o, encoded - 1);
+    int c = s;
+    while (true) {
+      int next = c + (b[c] & 0xFF);
+      if (next >= z) {
+        if (next != z) {
+          return -1; // a code runs past the delimiter
+        }
+        break;
+      }
+      frame[o + next - s - 1] = 0;
+      c = next;
+    }
+    int payload = encoded - 1;
+    int sent = ((frame[o + payload - 2] & 0xFF) << 8) | (frame[o + payload - 1] & 0xFF);
+    if (Crc16.compute(frame, o, payload - 2) != sent) {
+      return -1;
+    }
+    out.seq = (frame[o + 1] & 0xFF) | ((frame[o + 2] & 0xFF) << 8);
+    out.us = le32(frame, o + 3) & 0xFFFF_FFFFL;
+    out.load = le32(frame, o + 7);
+    out.hasPos = type == 0x02;
+    out.pos = type == 0x02 ? le32(frame, o + 11) : 0;
+    return z + 1;
+  }
+
+  static int le32(byte[] f, int at) {
+    return (f[at] & 0xFF) | ((f[at + 1] & 0xFF) << 8) | ((f[at + 2] & 0xFF) << 16)
+        | ((f[at + 3] & 0xFF) << 24);
+  }
+}

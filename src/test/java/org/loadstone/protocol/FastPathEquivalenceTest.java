@@ -1,0 +1,129 @@
+package org.loadstone.protocol;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.ByteArrayOutputStream;
+import java.nio.charset.StandardCharsets;
+import java.util.List;
+import java.util.Random;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.constraints.IntRange;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The one-pass sample parser must decide exactly as the general path. Bytes fed one at a time
+ * never reach the one-pass parser (a record is never complete when its first byte arrives), so
+ * that decoder is the reference; the same bytes fed whole go through the one-pass parser wherever
+ * a record starts at a boundary. Records, order and every counter must agree.
+ */
+class FastPathEquivalenceTest {
+
+  /** Field spellings: canonical, edge of range, and ones the protocol forbids. */
+  private static final String[] FIELDS = {
+    "0", "7", "65535", "65536", "4294967295", "4294967296", "2147483647", "2147483648",
+    "-2147483648", "-2147483649", "-1", "-0", "007", "00", "", "-", "+5", "12345678901",
+    "99999999", "123456789", "1234567890", "9999999999", "1a", " ", "~"
+  };
+
+  @Property(tries = 400, seed = "31337")
+  void wholeFeedDecidesAsByteByByteFeed(
+      @ForAll("seeds") long seed, @ForAll @IntRange(min = 1, max = 60) int records) {
+    byte[] wire = stream(new Random(seed), records);
+    assertSameDecisions(wire);
+  }
+
+  @net.jqwik.api.Provide
+  net.jqwik.api.Arbitrary<Long> seeds() {
+    return net.jqwik.api.Arbitraries.longs();
+  }
+
+  @Test
+  void rejectedContentWithAValidChecksumIsNotASample() {
+    // Every body below carries a correct CRC, so only its content can make it fail
+    // (firmware-protocol/PROTOCOL.md, "Valid CRC, bad content").
+    for (String body : List.of("S 1 2", "S 1 2 3 4 5", "S 007 2 3", "S -0 2 3", "S 65536 2 3",
+        "S 1 4294967296 3", "S 1 2 2147483648", "S 1 2 3 -2147483649", "S 1  2 3", "S -1 2 3",
+        "S 1 2 12345678901", "S 1 2 +3")) {
+      CollectingListener out = new CollectingListener();
+      StreamDecoder d = new StreamDecoder(out, Encoding.TEXT);
+      d.feed(line(body, true, "\n"));
+      assertThat(out.samples).as(body).isEmpty();
+      assertThat(d.counters().resyncs()).as(body).isEqualTo(1);
+    }
+  }
+
+  @Test
+  void lowerCaseChecksumAndCrLfAreAccepted() {
+    CollectingListener out = new CollectingListener();
+    StreamDecoder d = new StreamDecoder(out, Encoding.TEXT);
+    byte[] a = line("S 1 4294967295 -2147483648 2147483647", false, "\r\n");
+    byte[] b = line("S 2 1234567890 5", true, "\n");
+    byte[] both = new byte[a.length + b.length];
+    System.arraycopy(a, 0, both, 0, a.length);
+    System.arraycopy(b, 0, both, a.length, b.length);
+    d.feed(both);
+    assertThat(out.samples).containsExactly(
+        new RawSample(1, 4294967295L, Integer.MIN_VALUE, true, Integer.MAX_VALUE),
+        new RawSample(2, 1234567890L, 5, false, 0));
+  }
+
+  private static void assertSameDecisions(byte[] wire) {
+    CollectingListener whole = new CollectingListener();
+    StreamDecoder w = new StreamDecoder(whole);
+    w.feed(wire);
+    CollectingListener single = new CollectingListener();
+    StreamDecoder s = new StreamDecoder(single);
+    for (int i = 0; i < wire.length; i++) {
+      s.feed(wire, i, 1);
+    }
+    assertThat(whole.all).containsExactlyElementsOf(single.all);
+    assertThat(w.counters()).isEqualTo(s.counters());
+  }
+
+  /** A mix of valid samples (both encodings), near-valid text lines, damaged frames and noise. */
+  static byte[] stream(Random r, int records) {
+    ByteArrayOutputStream out = new ByteArrayOutputStream();
+    WireEncoder text = new WireEncoder(Encoding.TEXT);
+    WireEncoder bin = new WireEncoder(Encoding.BINARY);
+    byte[] tmp = new byte[WireEncoder.MAX_SAMPLE_BYTES];
+    for (int i = 0; i < records; i++) {
+      int kind = r.nextInt(6);
+      int seq = r.nextInt(0x10000);
+      long us = r.nextLong() & 0xFFFF_FFFFL;
+      int load = r.nextInt();
+      boolean hasPos = r.nextBoolean();
+      int pos = hasPos ? r.nextInt() : 0;
+      if (kind <= 1) {
+        int n = (kind == 0 ? text : bin).sample(tmp, 0, seq, us, load, hasPos, pos);
+        if (r.nextInt(4) == 0) {
+          tmp[r.nextInt(n)] ^= (byte) (1 << r.nextInt(8)); // one flipped bit
+        }
+        out.write(tmp, 0, n);
+      } else if (kind <= 3) {
+        StringBuilder body = new StringBuilder("S");
+        int fields = 2 + r.nextInt(4);
+        for (int f = 0; f < fields; f++) {
+          body.append(' ').append(r.nextInt(3) == 0
+              ? FIELDS[r.nextInt(FIELDS.length)] : Long.toString(r.nextInt(100_000)));
+        }
+        String[] ends = {"\n", "\r\n", "\r\r\n", ""};
+        out.writeBytes(line(body.toString(), r.nextBoolean(), ends[r.nextInt(ends.length)]));
+      } else if (kind == 4) {
+        out.writeBytes(line("T streaming", true, "\n"));
+      } else {
+        byte[] noise = new byte[r.nextInt(12)];
+        r.nextBytes(noise);
+        out.writeBytes(noise);
+      }
+    }
+    return out.toByteArray();
+  }
+
+  /** A text line with the correct CRC of {@code body}. */
+  static byte[] line(String body, boolean upperHex, String end) {
+    byte[] b = body.getBytes(StandardCharsets.US_ASCII);
+    String hex = String.format(upperHex ? "%04X" : "%04x", Crc16.compute(b, 0, b.length));
+    return (body + " ~" + hex + end).getBytes(StandardCharsets.US_ASCII);
+  }
+}
