@@ -133,10 +133,14 @@ public final class StreamDecoder {
           end = p + 1;
           capLine(p);
           endOfLine();
+          p++;
+          break; // a boundary: the next record may start here, so try the one-pass parser
         } else if (c == 0) {
           end = p + 1;
           capFrame(p);
           endOfFrame();
+          p++;
+          break;
         }
       }
     }
