@@ -25,7 +25,6 @@ final class SampleFastPath {
   static final long ONES = 0x0101010101010101L;
   static final long HIGHS = 0x8080808080808080L;
   static final long LFS = 0x0A0A0A0A0A0A0A0AL;
-  private static final long LOW7 = 0x7F7F7F7F7F7F7F7FL;
   private static final long ZEROS_ASCII = 0x3030303030303030L;
 
   /** Hex digit values by byte, -1 for a byte that is not a hex digit (either case). */
@@ -59,16 +58,14 @@ final class SampleFastPath {
     return ((((v - ONES) & ~v) | ((lf - ONES) & ~lf)) & HIGHS) != 0;
   }
 
-  /** High bit set in each byte of the result where {@code bad}'s byte is non-zero. */
-  private static long nonZeroBytes(long bad) {
-    return (((bad & LOW7) + LOW7) | bad) & HIGHS;
-  }
-
-  /** The number of leading (lowest-addressed) bytes of {@code w} that are decimal digits, 0…8. */
+  /**
+   * The number of leading (lowest-addressed) bytes of {@code w} that are decimal digits, 0…8. A
+   * byte is not a digit when adding 0x46 or subtracting 0x30 sets its high bit; a carry or borrow
+   * only ever reaches bytes above a non-digit, so the count is exact.
+   */
   private static int digitRun(long w) {
-    long highNibbleOff = (w & 0xF0F0F0F0F0F0F0F0L) ^ ZEROS_ASCII;
-    long lowNibbleOver9 = ((w & 0x0F0F0F0F0F0F0F0FL) + 0x0606060606060606L) & 0x1010101010101010L;
-    return Long.numberOfTrailingZeros(nonZeroBytes(highNibbleOff | lowNibbleOver9)) >>> 3;
+    long notDigit = ((w + 0x4646464646464646L) | (w - ZEROS_ASCII)) & HIGHS;
+    return Long.numberOfTrailingZeros(notDigit) >>> 3;
   }
 
   /**
@@ -238,8 +235,11 @@ final class SampleFastPath {
     return z + 1;
   }
 
+  private static final VarHandle INTS =
+      MethodHandles.byteArrayViewVarHandle(int[].class, ByteOrder.LITTLE_ENDIAN);
+
+  /** The little-endian 32-bit value at {@code at}. */
   static int le32(byte[] f, int at) {
-    return (f[at] & 0xFF) | ((f[at + 1] & 0xFF) << 8) | ((f[at + 2] & 0xFF) << 16)
-        | ((f[at + 3] & 0xFF) << 24);
+    return (int) INTS.get(f, at);
   }
 }
