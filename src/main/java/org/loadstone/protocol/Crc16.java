@@ -68,13 +68,17 @@ public final class Crc16 {
       return INIT;
     }
     int z = -len & 15;
-    if (off >= z) {
-      int start = off - z;
-      // without branches (z varies from message to message): 8…15 padding bytes fill the first word
-      long firstMask = (-1L >>> (z << 3)) & ((z - 8) >> 31);
-      int over = (z - 8) & ~((z - 8) >> 31);
-      long secondMask = -1L >>> (over << 3);
-      return steps(data, start, off + len, START[z], firstMask, secondMask);
+    if (z >= 8 && off >= z - 8) {
+      // one eight-byte step first, so no step is spent on a word of padding alone
+      int pad = z - 8;
+      long v = (long) BIG_ENDIAN_LONGS.get(data, off - pad) & (-1L >>> (pad << 3));
+      int x = START[pad] ^ (int) (v >>> 48);
+      int crc = word(T, v, 0) ^ T[7 * 256 + (x >>> 8)] ^ T[6 * 256 + (x & 0xFF)];
+      int next = off - pad + 8;
+      return next == off + len ? crc : steps(data, next, off + len, crc, -1L, -1L);
+    }
+    if (z < 8 && off >= z) {
+      return steps(data, off - z, off + len, START[z], -1L >>> (z << 3), -1L);
     }
     int crc = INIT;
     int i = off;
