@@ -209,7 +209,10 @@ final class SampleFastPath {
       return -1;
     }
     final int o = FRAME_AT;
-    System.arraycopy(b, s + 1, frame, o, encoded - 1);
+    // 13 or 17 payload bytes, copied as three overlapping words (frame has room past o + 17)
+    LONGS.set(frame, o, (long) LONGS.get(b, s + 1));
+    LONGS.set(frame, o + 8, (long) LONGS.get(b, s + 9));
+    LONGS.set(frame, o + encoded - 9, (long) LONGS.get(b, s + encoded - 8));
     int c = s;
     while (true) {
       int next = c + (b[c] & 0xFF);
