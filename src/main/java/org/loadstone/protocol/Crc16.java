@@ -94,22 +94,39 @@ public final class Crc16 {
    * lookups run ahead of it.
    */
   private static int steps(byte[] data, int i, int end, int crc, long firstMask, long secondMask) {
-    final char[] t = T;
     long m1 = firstMask;
     long m2 = secondMask;
     do {
-      long v = (long) BIG_ENDIAN_LONGS.get(data, i) & m1;
-      long w = (long) BIG_ENDIAN_LONGS.get(data, i + 8) & m2;
+      crc = step16(crc, (long) BIG_ENDIAN_LONGS.get(data, i) & m1,
+          (long) BIG_ENDIAN_LONGS.get(data, i + 8) & m2);
       m1 = -1L;
       m2 = -1L;
-      int rest = word(t, v, 8) ^ t[7 * 256 + (int) (w >>> 56)]
-          ^ t[6 * 256 + ((int) (w >>> 48) & 0xFF)] ^ word(t, w, 0);
-      int x = crc ^ (int) (v >>> 48);
-      crc = rest ^ t[15 * 256 + (x >>> 8)] ^ t[14 * 256 + (x & 0xFF)];
       i += 16;
     } while (i < end);
     return crc;
   }
+
+  /**
+   * One sixteen-byte step: the register after bytes {@code v} then {@code w}, each read as a
+   * big-endian word (first byte in the top bits).
+   */
+  static int step16(int crc, long v, long w) {
+    final char[] t = T;
+    int rest = word(t, v, 8) ^ t[7 * 256 + (int) (w >>> 56)]
+        ^ t[6 * 256 + ((int) (w >>> 48) & 0xFF)] ^ word(t, w, 0);
+    int x = crc ^ (int) (v >>> 48);
+    return rest ^ t[15 * 256 + (x >>> 8)] ^ t[14 * 256 + (x & 0xFF)];
+  }
+
+  /**
+   * The CRC of a message of at most sixteen bytes held in registers: the message, read as a
+   * big-endian 16-byte number {@code v:w}, is preceded by {@code 16 - len} zero bytes, which the
+   * caller has shifted in.
+   */
+  static int ofPadded16(long v, long w, int len) {
+    return step16(START[16 - len], v, w);
+  }
+
 
   /**
    * The contribution of bytes 2…7 of big-endian word {@code v} when followed by {@code k} zero

@@ -17,8 +17,6 @@ import java.nio.ByteOrder;
 final class SampleFastPath {
   /** Bytes a buffer needs beyond its data for the word-wide reads. */
   static final int SLACK = 64;
-  /** Where {@link #binary} puts the decoded payload in its scratch array: the CRC reads before it. */
-  static final int FRAME_AT = 16;
 
   static final VarHandle LONGS =
       MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
@@ -54,8 +52,13 @@ final class SampleFastPath {
 
   /** @return true when word {@code v} holds a 0x00 or an LF byte (the "has a zero byte" trick) */
   static boolean hasZeroOrLf(long v) {
+    return zeroOrLfBytes(v) != 0;
+  }
+
+  /** Non-zero when word {@code v} holds a 0x00 or an LF byte (not exact about which bytes). */
+  private static long zeroOrLfBytes(long v) {
     long lf = v ^ LFS;
-    return ((((v - ONES) & ~v) | ((lf - ONES) & ~lf)) & HIGHS) != 0;
+    return (((v - ONES) & ~v) | ((lf - ONES) & ~lf)) & HIGHS;
   }
 
   /**
@@ -178,17 +181,18 @@ final class SampleFastPath {
 
   /**
    * Parses a binary sample frame (type 0x01 or 0x02, COBS, CRC, 0x00 delimiter) starting at
-   * {@code s}. A frame with an LF byte inside is left to the general path, which must also look
-   * at the text candidate that LF ends.
+   * {@code s}. The payload is decoded in registers: the words are read once and the bytes the
+   * COBS codes stand for are cleared by mask, so nothing is stored and read back. A frame with an
+   * LF byte inside is left to the general path, which must also look at the text candidate that
+   * LF ends.
    *
    * @param b buffer, with {@link #SLACK} readable bytes past {@code limit}
    * @param s first byte of the frame (a record boundary)
    * @param limit end of the valid bytes (exclusive)
-   * @param frame scratch for the decoded payload, at least {@link #FRAME_AT} + 17 bytes
    * @param out receives the sample
    * @return the index just past the 0x00, or -1 when this is not a complete, valid sample frame
    */
-  int binary(byte[] b, int s, int limit, byte[] frame, Fields out) {
+  int binary(byte[] b, int s, int limit, Fields out) {
     if (s + 15 > limit || (b[s] & 0xFF) < 2) {
       return -1;
     }
@@ -203,16 +207,11 @@ final class SampleFastPath {
     }
     int z = s + encoded;
     if (z >= limit || b[z] != 0
-        || hasZeroOrLf((long) LONGS.get(b, s))
-        || hasZeroOrLf((long) LONGS.get(b, s + 6))
-        || hasZeroOrLf((long) LONGS.get(b, z - 8))) {
+        || (zeroOrLfBytes((long) LONGS.get(b, s)) | zeroOrLfBytes((long) LONGS.get(b, s + 6))
+            | zeroOrLfBytes((long) LONGS.get(b, z - 8))) != 0) {
       return -1;
     }
-    final int o = FRAME_AT;
-    // 13 or 17 payload bytes, copied as three overlapping words (frame has room past o + 17)
-    LONGS.set(frame, o, (long) LONGS.get(b, s + 1));
-    LONGS.set(frame, o + 8, (long) LONGS.get(b, s + 9));
-    LONGS.set(frame, o + encoded - 9, (long) LONGS.get(b, s + encoded - 8));
+    int zeros = 0; // bit j: payload byte j is a zero that a COBS code stands for
     int c = s;
     while (true) {
       int next = c + (b[c] & 0xFF);
@@ -222,20 +221,51 @@ final class SampleFastPath {
         }
         break;
       }
-      frame[o + next - s - 1] = 0;
+      zeros |= 1 << (next - s - 1);
       c = next;
     }
-    int payload = encoded - 1;
-    int sent = ((frame[o + payload - 2] & 0xFF) << 8) | (frame[o + payload - 1] & 0xFF);
-    if (Crc16.compute(frame, o, payload - 2) != sent) {
+    // payload bytes 0…7 and 8…15, first byte lowest; byte 16 (type 0x02 only) apart
+    long p0 = (long) LONGS.get(b, s + 1) & ~BYTE_MASK[zeros & 0xFF];
+    long p1 = (long) LONGS.get(b, s + 9) & ~BYTE_MASK[(zeros >>> 8) & 0xFF];
+    int seq = (int) (p0 >>> 8) & 0xFFFF;
+    long us = (p0 >>> 24) & 0xFFFF_FFFFL;
+    int load = (int) ((p0 >>> 56) | (p1 << 8));
+    int crc;
+    int sent;
+    if (type == 0x02) {
+      // 15 bytes under the CRC, after one zero byte of padding
+      crc = Crc16.ofPadded16(Long.reverseBytes(p0 << 8), Long.reverseBytes((p0 >>> 56) | (p1 << 8)), 15);
+      int last = (zeros & (1 << 16)) != 0 ? 0 : b[s + 17] & 0xFF;
+      sent = ((int) (p1 >>> 56) << 8) | last;
+      out.pos = (int) (p1 >>> 24);
+    } else {
+      // 11 bytes under the CRC, after five zero bytes of padding
+      crc = Crc16.ofPadded16(Long.reverseBytes(p0 << 40), Long.reverseBytes((p0 >>> 24) | (p1 << 40)), 11);
+      sent = (int) (p1 >>> 24) & 0xFFFF;
+      sent = ((sent & 0xFF) << 8) | (sent >>> 8);
+      out.pos = 0;
+    }
+    if (crc != sent) {
       return -1;
     }
-    out.seq = (frame[o + 1] & 0xFF) | ((frame[o + 2] & 0xFF) << 8);
-    out.us = le32(frame, o + 3) & 0xFFFF_FFFFL;
-    out.load = le32(frame, o + 7);
+    out.seq = seq;
+    out.us = us;
+    out.load = load;
     out.hasPos = type == 0x02;
-    out.pos = type == 0x02 ? le32(frame, o + 11) : 0;
     return z + 1;
+  }
+
+  /** BYTE_MASK[m]: 0xFF in each byte i of the word where bit i of m is set. */
+  private static final long[] BYTE_MASK = new long[256];
+
+  static {
+    for (int m = 0; m < 256; m++) {
+      for (int i = 0; i < 8; i++) {
+        if ((m & (1 << i)) != 0) {
+          BYTE_MASK[m] |= 0xFFL << (8 * i);
+        }
+      }
+    }
   }
 
   private static final VarHandle INTS =

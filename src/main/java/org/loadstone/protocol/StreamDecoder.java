@@ -161,7 +161,7 @@ public final class StreamDecoder {
       q = fast.text(buf, p, n, slot);
     }
     if (q < 0 && p == frameStart) {
-      q = fast.binary(buf, p, n, frame, slot);
+      q = fast.binary(buf, p, n, slot);
       e = Encoding.BINARY;
     }
     if (q > 0) {

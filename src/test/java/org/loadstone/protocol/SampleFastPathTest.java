@@ -1,0 +1,54 @@
+package org.loadstone.protocol;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The one-pass parser must take every valid sample it is meant for (if it refused them, the
+ * general path would still decode them, only slower, so the differential test cannot see it).
+ */
+class SampleFastPathTest {
+
+  @Test
+  void takesEveryValidSampleOfBothEncodings() {
+    Random r = new Random(2026);
+    SampleFastPath fast = new SampleFastPath();
+    SampleFastPath.Fields out = new SampleFastPath.Fields();
+    byte[] buf = new byte[WireEncoder.MAX_SAMPLE_BYTES + SampleFastPath.SLACK];
+    int binaryTried = 0;
+    for (int i = 0; i < 20_000; i++) {
+      boolean hasPos = r.nextBoolean();
+      // small values put zero bytes in the frame, so COBS codes land all over it
+      int seq = r.nextBoolean() ? r.nextInt(0x10000) : r.nextInt(3);
+      long us = r.nextBoolean() ? r.nextLong() & 0xFFFF_FFFFL : r.nextInt(300);
+      int load = r.nextBoolean() ? r.nextInt() : r.nextInt(600) - 300;
+      int pos = hasPos ? (r.nextBoolean() ? r.nextInt() : r.nextInt(3)) : 0;
+      RawSample s = new RawSample(seq, us, load, hasPos, pos);
+
+      int n = new WireEncoder(Encoding.TEXT).sample(buf, 0, s);
+      assertThat(fast.text(buf, 0, n, out)).as("text %s", s).isEqualTo(n);
+      assertThat(read(out)).isEqualTo(s);
+
+      n = new WireEncoder(Encoding.BINARY).sample(buf, 0, s);
+      boolean lfInside = false;
+      for (int k = 0; k < n; k++) {
+        lfInside |= buf[k] == '\n';
+      }
+      int got = fast.binary(buf, 0, n, out);
+      if (lfInside) {
+        assertThat(got).as("frame with an LF is left to the general path").isEqualTo(-1);
+      } else {
+        binaryTried++;
+        assertThat(got).as("binary %s", s).isEqualTo(n);
+        assertThat(read(out)).isEqualTo(s);
+      }
+    }
+    assertThat(binaryTried).isGreaterThan(15_000);
+  }
+
+  private static RawSample read(SampleFastPath.Fields f) {
+    return new RawSample(f.seq, f.us, f.load, f.hasPos, f.pos);
+  }
+}
