@@ -14,8 +14,6 @@ public final class StreamDecoder {
   /** Longest candidate record considered, in bytes; older bytes are discarded. */
   public static final int MAX_CANDIDATE = 512;
 
-  /** Longest text line without its line end, body and checksum included. */
-  private static final int MAX_TEXT_BODY = 200;
   /** Longest record body (a 200-byte line less " ~XXXX"). */
   private static final int MAX_BODY = 194;
 
@@ -26,6 +24,7 @@ public final class StreamDecoder {
   private final byte[] buf = new byte[BUF + SampleFastPath.SLACK];
   private final SampleFastPath fast = new SampleFastPath();
   private final SampleFastPath.Fields slot = new SampleFastPath.Fields();
+  private final TextLineParser lines = new TextLineParser();
   private final byte[] frame = new byte[MAX_CANDIDATE];
   private int len;
   private int end; // just past the terminator being handled
@@ -220,7 +219,7 @@ public final class StreamDecoder {
       return;
     }
     for (int p = s + 1; p < e; p++) {
-      if (isUpper(buf[p]) && parseLine(p, e) == OK) {
+      if (TextLineParser.isUpper(buf[p]) && parseLine(p, e) == OK) {
         accepted(Encoding.TEXT);
         return;
       }
@@ -234,135 +233,27 @@ public final class StreamDecoder {
     }
   }
 
-  private static boolean isUpper(byte b) {
-    return b >= 'A' && b <= 'Z';
-  }
-
   private static final int OK = 0;
-  private static final int MALFORMED = 1;
-  private static final int BAD_CRC = 2;
+  private static final int MALFORMED = TextLineParser.MALFORMED;
+  private static final int BAD_CRC = TextLineParser.BAD_CRC;
 
   /** Parses and delivers one text line [s, e) without its line end. */
   private int parseLine(int s, int e) {
-    // body " ~" 4 hex
-    if (e - s < 8 || e - s > MAX_TEXT_BODY) {
-      return MALFORMED;
-    }
-    int tilde = e - 5;
-    if (buf[tilde] != '~' || buf[tilde - 1] != ' ') {
-      return MALFORMED;
-    }
-    int crc = 0;
-    for (int k = tilde + 1; k < e; k++) {
-      int h = hex(buf[k]);
-      if (h < 0) {
+    switch (lines.parse(buf, s, e, slot)) {
+      case TextLineParser.SAMPLE:
+        deliverSample(slot.seq, slot.us, slot.load, slot.hasPos, slot.pos);
+        return OK;
+      case TextLineParser.MESSAGE:
+        deliverMessage(lines.message());
+        return OK;
+      case TextLineParser.UNKNOWN:
+        unknown++;
+        return OK;
+      case TextLineParser.BAD_CRC:
+        return BAD_CRC;
+      default:
         return MALFORMED;
-      }
-      crc = (crc << 4) | h;
     }
-    int bodyEnd = tilde - 1;
-    int t = s;
-    while (t < bodyEnd && isUpper(buf[t])) {
-      t++;
-    }
-    int tagLen = t - s;
-    if (tagLen < 1 || tagLen > 3 || (t < bodyEnd && buf[t] != ' ')) {
-      return MALFORMED;
-    }
-    for (int k = s; k < bodyEnd; k++) {
-      if (buf[k] < 0x20 || buf[k] > 0x7E) {
-        return MALFORMED;
-      }
-    }
-    if (Crc16.compute(buf, s, bodyEnd - s) != crc) {
-      return BAD_CRC;
-    }
-    if (tagLen == 1 && buf[s] == 'S') {
-      return textSample(s + 1, bodyEnd) ? OK : MALFORMED;
-    }
-    return textMessage(s, bodyEnd) ? OK : MALFORMED;
-  }
-
-  private static int hex(byte b) {
-    if (b >= '0' && b <= '9') {
-      return b - '0';
-    }
-    if (b >= 'A' && b <= 'F') {
-      return b - 'A' + 10;
-    }
-    if (b >= 'a' && b <= 'f') {
-      return b - 'a' + 10;
-    }
-    return -1;
-  }
-
-  private final long[] fields = new long[4];
-
-  /** Parses " seq us load [pos]" from [p, e). */
-  private boolean textSample(int p, int e) {
-    int n = 0;
-    while (p < e) {
-      if (buf[p] != ' ' || n == 4) {
-        return false;
-      }
-      p++;
-      int q = p;
-      boolean neg = false;
-      if (q < e && buf[q] == '-') {
-        neg = true;
-        q++;
-      }
-      int digitsStart = q;
-      long v = 0;
-      while (q < e && buf[q] >= '0' && buf[q] <= '9') {
-        v = v * 10 + (buf[q] - '0');
-        if (v > 0x1_0000_0000L) {
-          return false;
-        }
-        q++;
-      }
-      if (q == digitsStart || (q < e && buf[q] != ' ')) {
-        return false;
-      }
-      if (buf[digitsStart] == '0' && (q - digitsStart > 1 || neg)) {
-        return false; // no leading zeros, no "-0"
-      }
-      fields[n++] = neg ? -v : v;
-      p = q;
-    }
-    if (n < 3) {
-      return false;
-    }
-    long seq = fields[0];
-    long us = fields[1];
-    if (seq < 0 || seq > RawSample.SEQ_MAX || us < 0 || us > RawSample.TIME_MAX_US) {
-      return false;
-    }
-    if (!fitsInt(fields[2]) || (n == 4 && !fitsInt(fields[3]))) {
-      return false;
-    }
-    deliverSample((int) seq, us, (int) fields[2], n == 4, n == 4 ? (int) fields[3] : 0);
-    return true;
-  }
-
-  private static boolean fitsInt(long v) {
-    return v >= Integer.MIN_VALUE && v <= Integer.MAX_VALUE;
-  }
-
-  private boolean textMessage(int s, int e) {
-    String body = new String(buf, s, e - s, StandardCharsets.US_ASCII);
-    int sp = body.indexOf(' ');
-    String tag = sp < 0 ? body : body.substring(0, sp);
-    if (!DeviceMessage.isKnownTag(tag)) {
-      unknown++;
-      return true;
-    }
-    Optional<DeviceMessage> m = DeviceMessage.parse(body);
-    if (m.isEmpty()) {
-      return false;
-    }
-    deliverMessage(m.get());
-    return true;
   }
 
   // ---------------------------------------------------------------- binary
