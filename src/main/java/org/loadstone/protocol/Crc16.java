@@ -72,38 +72,41 @@ public final class Crc16 {
       // one eight-byte step first, so no step is spent on a word of padding alone
       int pad = z - 8;
       long v = (long) BIG_ENDIAN_LONGS.get(data, off - pad) & (-1L >>> (pad << 3));
-      int x = START[pad] ^ (int) (v >>> 48);
-      int crc = word(T, v, 0) ^ T[7 * 256 + (x >>> 8)] ^ T[6 * 256 + (x & 0xFF)];
+      int crc = step8(START[pad], v);
       int next = off - pad + 8;
-      return next == off + len ? crc : steps(data, next, off + len, crc, -1L, -1L);
+      return next == off + len ? crc : steps(data, next, off + len, crc, -1L);
     }
     if (z < 8 && off >= z) {
-      return steps(data, off - z, off + len, START[z], -1L >>> (z << 3), -1L);
+      return steps(data, off - z, off + len, START[z], -1L >>> (z << 3));
     }
     int crc = INIT;
     int i = off;
     for (; i < off + (len & 15); i++) { // too near the array start for the padding words
       crc = ((crc << 8) ^ T[((crc >>> 8) ^ data[i]) & 0xFF]) & 0xFFFF;
     }
-    return i == off + len ? crc : steps(data, i, off + len, crc, -1L, -1L);
+    return i == off + len ? crc : steps(data, i, off + len, crc, -1L);
   }
 
   /**
-   * Sixteen-byte steps from {@code i} to {@code end}; the masks clear the padding of the first
-   * step. Only the first two bytes of a step depend on the register, so the other fourteen
+   * Sixteen-byte steps from {@code i} to {@code end}; {@code firstMask} clears the padding in the
+   * first word. Only the first two bytes of a step depend on the register, so the other fourteen
    * lookups run ahead of it.
    */
-  private static int steps(byte[] data, int i, int end, int crc, long firstMask, long secondMask) {
-    long m1 = firstMask;
-    long m2 = secondMask;
+  private static int steps(byte[] data, int i, int end, int crc, long firstMask) {
+    long mask = firstMask;
     do {
-      crc = step16(crc, (long) BIG_ENDIAN_LONGS.get(data, i) & m1,
-          (long) BIG_ENDIAN_LONGS.get(data, i + 8) & m2);
-      m1 = -1L;
-      m2 = -1L;
+      crc = step16(crc, (long) BIG_ENDIAN_LONGS.get(data, i) & mask,
+          (long) BIG_ENDIAN_LONGS.get(data, i + 8));
+      mask = -1L;
       i += 16;
     } while (i < end);
     return crc;
+  }
+
+  /** One eight-byte step: the register after the bytes of big-endian word {@code v}. */
+  private static int step8(int crc, long v) {
+    int x = crc ^ (int) (v >>> 48);
+    return word(T, v, 0) ^ T[7 * 256 + (x >>> 8)] ^ T[6 * 256 + (x & 0xFF)];
   }
 
   /**
@@ -126,7 +129,6 @@ public final class Crc16 {
   static int ofPadded16(long v, long w, int len) {
     return step16(START[16 - len], v, w);
   }
-
 
   /**
    * The contribution of bytes 2…7 of big-endian word {@code v} when followed by {@code k} zero

@@ -145,10 +145,10 @@ final class SampleFastPath {
     }
     int h = e + 2;
     int t = h + 4; // the hex digits are below t, and t is checked against limit below
-    int h0 = HEX[b[h] & 0xFF];
-    int h1 = HEX[b[h + 1] & 0xFF];
-    int h2 = HEX[b[h + 2] & 0xFF];
-    int h3 = HEX[b[h + 3] & 0xFF];
+    int h0 = hexValue(b[h]);
+    int h1 = hexValue(b[h + 1]);
+    int h2 = hexValue(b[h + 2]);
+    int h3 = hexValue(b[h + 3]);
     if ((h0 | h1 | h2 | h3) < 0) {
       return -1;
     }
@@ -175,7 +175,12 @@ final class SampleFastPath {
     return t + 1;
   }
 
-  private static boolean fitsInt(long v) {
+  /** @return the value of hex digit {@code c} (either case), or -1 when it is not one */
+  static int hexValue(byte c) {
+    return HEX[c & 0xFF];
+  }
+
+  static boolean fitsInt(long v) {
     return v >= Integer.MIN_VALUE && v <= Integer.MAX_VALUE;
   }
 

@@ -43,7 +43,7 @@ final class TextLineParser {
     }
     int crc = 0;
     for (int k = tilde + 1; k < e; k++) {
-      int h = hex(buf[k]);
+      int h = SampleFastPath.hexValue(buf[k]);
       if (h < 0) {
         return MALFORMED;
       }
@@ -70,19 +70,6 @@ final class TextLineParser {
       return sample(buf, s + 1, bodyEnd, out) ? SAMPLE : MALFORMED;
     }
     return message(buf, s, bodyEnd);
-  }
-
-  private static int hex(byte b) {
-    if (b >= '0' && b <= '9') {
-      return b - '0';
-    }
-    if (b >= 'A' && b <= 'F') {
-      return b - 'A' + 10;
-    }
-    if (b >= 'a' && b <= 'f') {
-      return b - 'a' + 10;
-    }
-    return -1;
   }
 
   private final long[] fields = new long[4];
@@ -127,7 +114,7 @@ final class TextLineParser {
     if (seq < 0 || seq > RawSample.SEQ_MAX || us < 0 || us > RawSample.TIME_MAX_US) {
       return false;
     }
-    if (!fitsInt(fields[2]) || (n == 4 && !fitsInt(fields[3]))) {
+    if (!SampleFastPath.fitsInt(fields[2]) || (n == 4 && !SampleFastPath.fitsInt(fields[3]))) {
       return false;
     }
     out.seq = (int) seq;
@@ -136,10 +123,6 @@ final class TextLineParser {
     out.hasPos = n == 4;
     out.pos = n == 4 ? (int) fields[3] : 0;
     return true;
-  }
-
-  private static boolean fitsInt(long v) {
-    return v >= Integer.MIN_VALUE && v <= Integer.MAX_VALUE;
   }
 
   private int message(byte[] buf, int s, int e) {
