@@ -34,7 +34,7 @@ final class TextLineParser {
    */
   int parse(byte[] buf, int s, int e, SampleFastPath.Fields out) {
     // body " ~" 4 hex
-    if (e - s < 8 || e - s > MAX_TEXT_BODY) {
+    if (e - s < 7 || e - s > MAX_TEXT_BODY) { // the shortest: a one-letter tag, " ~", four digits
       return MALFORMED;
     }
     int tilde = e - 5;
