@@ -187,17 +187,23 @@ final class SampleFastPath {
   /**
    * Parses a binary sample frame (type 0x01 or 0x02, COBS, CRC, 0x00 delimiter) starting at
    * {@code s}. The payload is decoded in registers: the words are read once and the bytes the
-   * COBS codes stand for are cleared by mask, so nothing is stored and read back. A frame with an
-   * LF byte inside is left to the general path, which must also look at the text candidate that
-   * LF ends.
+   * COBS codes stand for are cleared by mask, so nothing is stored and read back.
+   *
+   * <p>An LF byte inside a frame also ends a text candidate, which the general rules look at. The
+   * frame is taken here anyway only when that look cannot matter: the decoder follows the binary
+   * encoding (a failed text candidate then counts nothing) and the text candidate starts with the
+   * frame, and the bytes before the LF cannot end a text record (no {@code ~} five or six bytes
+   * back). Otherwise the frame is left to the general path.
    *
    * @param b buffer, with {@link #SLACK} readable bytes past {@code limit}
    * @param s first byte of the frame (a record boundary)
    * @param limit end of the valid bytes (exclusive)
+   * @param quietText true when the decoder follows the binary encoding and the text candidate
+   *     also starts at {@code s}
    * @param out receives the sample
    * @return the index just past the 0x00, or -1 when this is not a complete, valid sample frame
    */
-  int binary(byte[] b, int s, int limit, Fields out) {
+  int binary(byte[] b, int s, int limit, boolean quietText, Fields out) {
     if (s + 15 > limit || (b[s] & 0xFF) < 2) {
       return -1;
     }
@@ -211,9 +217,15 @@ final class SampleFastPath {
       return -1;
     }
     int z = s + encoded;
-    if (z >= limit || b[z] != 0
-        || (zeroOrLfBytes((long) LONGS.get(b, s)) | zeroOrLfBytes((long) LONGS.get(b, s + 6))
-            | zeroOrLfBytes((long) LONGS.get(b, z - 8))) != 0) {
+    if (z >= limit || b[z] != 0) {
+      return -1;
+    }
+    long w0 = (long) LONGS.get(b, s);
+    long w1 = (long) LONGS.get(b, s + 6);
+    long w2 = (long) LONGS.get(b, z - 8);
+    if ((zeroBytes(w0) | zeroBytes(w1) | zeroBytes(w2)) != 0
+        || ((zeroBytes(w0 ^ LFS) | zeroBytes(w1 ^ LFS) | zeroBytes(w2 ^ LFS)) != 0
+            && (!quietText || textMayEnd(b, s, z)))) {
       return -1;
     }
     int zeros = 0; // bit j: payload byte j is a zero that a COBS code stands for
@@ -258,6 +270,22 @@ final class SampleFastPath {
     out.load = load;
     out.hasPos = type == 0x02;
     return z + 1;
+  }
+
+  /** Non-zero when word {@code v} holds a 0x00 byte. */
+  private static long zeroBytes(long v) {
+    return (v - ONES) & ~v & HIGHS;
+  }
+
+  /** True when a text record could end at an LF in {@code b[s, z)}: "~" and four bytes, CR? LF. */
+  private static boolean textMayEnd(byte[] b, int s, int z) {
+    for (int i = s; i < z; i++) {
+      if (b[i] == '\n' && ((i - 5 >= s && b[i - 5] == '~')
+          || (i - 6 >= s && b[i - 1] == '\r' && b[i - 6] == '~'))) {
+        return true;
+      }
+    }
+    return false;
   }
 
   /** BYTE_MASK[m]: 0xFF in each byte i of the word where bit i of m is set. */

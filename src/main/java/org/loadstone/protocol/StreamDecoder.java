@@ -160,7 +160,7 @@ public final class StreamDecoder {
       q = fast.text(buf, p, n, slot);
     }
     if (q < 0 && p == frameStart) {
-      q = fast.binary(buf, p, n, slot);
+      q = fast.binary(buf, p, n, following == Encoding.BINARY && p == lineStart, slot);
       e = Encoding.BINARY;
     }
     if (q > 0) {

@@ -68,6 +68,37 @@ class FastPathEquivalenceTest {
         new RawSample(2, 1234567890L, 5, false, 0));
   }
 
+  /**
+   * An LF inside a binary frame also ends a text candidate. Whole frames with an LF are taken by
+   * the one-pass parser while the decoder follows binary, unless a text record could end there:
+   * this frame carries a complete text record ({@code Q ~XXXX}, an unknown tag with its CRC) in
+   * its time and load bytes, which the general rules find and follow.
+   */
+  @Test
+  void textRecordInsideABinaryFrameIsFoundAsTheGeneralRulesFindIt() {
+    byte[] q = line("Q", true, "\n"); // 8 bytes: Q, space, ~, four hex digits, LF
+    long us = (q[0] & 0xFF) | (q[1] & 0xFF) << 8 | (q[2] & 0xFF) << 16 | (long) (q[3] & 0xFF) << 24;
+    int load = (q[4] & 0xFF) | (q[5] & 0xFF) << 8 | (q[6] & 0xFF) << 16 | (q[7] & 0xFF) << 24;
+    WireEncoder bin = new WireEncoder(Encoding.BINARY);
+    byte[] tmp = new byte[WireEncoder.MAX_SAMPLE_BYTES];
+    ByteArrayOutputStream wire = new ByteArrayOutputStream();
+    for (int i = 0; i < 3; i++) {
+      wire.write(tmp, 0, bin.sample(tmp, 0, i, 1000L * i, 5000, true, 7));
+    }
+    wire.write(tmp, 0, bin.sample(tmp, 0, 3, us, load, true, 7)); // the text record inside
+    wire.write(tmp, 0, bin.sample(tmp, 0, 4, 0x0A0A0A0AL, 0x0A0A0A0A, true, 0x0A)); // LFs only
+    for (int i = 5; i < 8; i++) {
+      wire.write(tmp, 0, bin.sample(tmp, 0, i, 1000L * i, 5000, true, 7));
+    }
+    byte[] all = wire.toByteArray();
+    assertSameDecisions(all);
+    CollectingListener out = new CollectingListener();
+    StreamDecoder d = new StreamDecoder(out);
+    d.feed(all);
+    assertThat(d.counters().unknown()).isEqualTo(1);
+    assertThat(out.samples).extracting(RawSample::seq).doesNotContain(3).contains(4, 5, 6, 7);
+  }
+
   private static void assertSameDecisions(byte[] wire) {
     CollectingListener whole = new CollectingListener();
     StreamDecoder w = new StreamDecoder(whole);

@@ -18,6 +18,7 @@ class SampleFastPathTest {
     SampleFastPath.Fields out = new SampleFastPath.Fields();
     byte[] buf = new byte[WireEncoder.MAX_SAMPLE_BYTES + SampleFastPath.SLACK];
     int binaryTried = 0;
+    int lfFrames = 0;
     for (int i = 0; i < 20_000; i++) {
       boolean hasPos = r.nextBoolean();
       // small values put zero bytes in the frame, so COBS codes land all over it
@@ -36,9 +37,21 @@ class SampleFastPathTest {
       for (int k = 0; k < n; k++) {
         lfInside |= buf[k] == '\n';
       }
-      int got = fast.binary(buf, 0, n, out);
+      int got = fast.binary(buf, 0, n, false, out);
       if (lfInside) {
-        assertThat(got).as("frame with an LF is left to the general path").isEqualTo(-1);
+        assertThat(got).as("frame with an LF, text candidate to be looked at").isEqualTo(-1);
+        lfFrames++;
+        // following binary, with the text candidate starting at the frame: a frame with no "~"
+        // before its LF cannot end a text record, so it is taken here
+        boolean tilde = false;
+        for (int k = 0; k < n; k++) {
+          tilde |= buf[k] == '\n' && ((k >= 5 && buf[k - 5] == '~')
+              || (k >= 6 && buf[k - 1] == '\r' && buf[k - 6] == '~'));
+        }
+        assertThat(fast.binary(buf, 0, n, true, out)).as("binary %s", s).isEqualTo(tilde ? -1 : n);
+        if (!tilde) {
+          assertThat(read(out)).isEqualTo(s);
+        }
       } else {
         binaryTried++;
         assertThat(got).as("binary %s", s).isEqualTo(n);
@@ -46,6 +59,7 @@ class SampleFastPathTest {
       }
     }
     assertThat(binaryTried).isGreaterThan(15_000);
+    assertThat(lfFrames).isGreaterThan(500);
   }
 
   private static RawSample read(SampleFastPath.Fields f) {
