@@ -49,6 +49,7 @@ final class SampleFastPath {
   }
 
   private final long[] values = new long[4];
+  private final TextLayout layout = new TextLayout();
 
   /** @return true when word {@code v} holds a 0x00 or an LF byte (the "has a zero byte" trick) */
   static boolean hasZeroOrLf(long v) {
@@ -76,7 +77,7 @@ final class SampleFastPath {
    * the lowest byte (Lemire's eight-digit SWAR conversion; the digits are shifted to the top so
    * the bytes below read as leading zeros).
    */
-  private static long digitsValue(long w, int k) {
+  static long digitsValue(long w, int k) {
     int sh = (8 - k) << 3;
     long x = (w << sh) - (ZEROS_ASCII << sh);
     x = (x * 10) + (x >>> 8);
@@ -85,7 +86,9 @@ final class SampleFastPath {
   }
 
   /**
-   * Parses a text sample line {@code S seq us load [pos] ~XXXX CR? LF} starting at {@code s}.
+   * Parses a text sample line {@code S seq us load [pos] ~XXXX CR? LF} starting at {@code s}: by
+   * the shape of the previous sample line when it has that shape ({@link TextLayout}), otherwise
+   * field by field, learning the new shape.
    *
    * @param b buffer, with {@link #SLACK} readable bytes past {@code limit}
    * @param s first byte of the line (a record boundary)
@@ -94,6 +97,19 @@ final class SampleFastPath {
    * @return the index just past the LF, or -1 when this is not a complete, valid sample line
    */
   int text(byte[] b, int s, int limit, Fields out) {
+    int r = layout.parse(b, s, limit, out);
+    if (r != TextLayout.NO_FIT) {
+      return r;
+    }
+    r = textByFields(b, s, limit, out);
+    if (r > 0) {
+      layout.learn(b, s, r);
+    }
+    return r;
+  }
+
+  /** {@link #text} field by field, for a line of a shape not seen just before. */
+  private int textByFields(byte[] b, int s, int limit, Fields out) {
     if (s + 12 > limit || b[s] != 'S' || b[s + 1] != ' ') {
       return -1;
     }
