@@ -22,10 +22,9 @@ public final class Crc16 {
   /** T[k * 256 + i]: the CRC contribution of byte i followed by k zero bytes, k = 0…15. */
   private static final char[] T = new char[16 * 256];
   /**
-   * LOW_NIBBLES[j * 1024 + i * 256 + v], for the j-th eight-byte word counted back from a message's
-   * end and its i-th byte pair counted back from the word's end: the CRC, from a register of 0, of
-   * two bytes holding only low nibbles ({@code v >>> 4}, then {@code v & 15}) followed by
-   * {@code 8j + 2i} zero bytes. See {@link #lowNibbles}.
+   * LOW_NIBBLES[p * 256 + v]: the CRC, from a register of 0, of two bytes holding only low
+   * nibbles ({@code v & 15}, then {@code v >>> 4}) followed by {@code 2p} zero bytes. See {@link
+   * #lowNibbles}.
    */
   private static final char[] LOW_NIBBLES = new char[6 * 1024];
 
@@ -59,7 +58,7 @@ public final class Crc16 {
       s = beforeZero[s];
     }
     for (int v = 0; v < 256; v++) {
-      int pair = zeroByte(T[v >>> 4]) ^ T[v & 15]; // the two bytes, from a register of 0
+      int pair = zeroByte(T[v & 15]) ^ T[v >>> 4]; // the two bytes, from a register of 0
       for (int p = 0; p < LOW_NIBBLE_WORDS * 4; p++) {
         LOW_NIBBLES[p * 256 + v] = (char) pair;
         pair = zeroByte(zeroByte(pair));
@@ -149,24 +148,23 @@ public final class Crc16 {
   }
 
   /**
-   * The CRC is linear: the CRC of a message is the CRC of its bytes' high nibbles alone (from the
-   * usual start value) XOR the CRC of their low nibbles alone (from a register of 0). When the high
-   * nibbles are known in advance — as for a text line of a known layout, whose digits are all 0x3_ —
-   * only the low nibbles need table lookups, and two of them fit one lookup. This gives the
-   * low-nibble part for one word: the 8 bytes of big-endian word {@code w}, the {@code j}-th word
-   * counted back from the message end (0 for the last eight bytes). Bytes of the word that lie
-   * before the message must be masked to zero by the caller; the high nibbles of {@code w} are
-   * ignored.
+   * The CRC is linear: the CRC of a message is the CRC of the message with some bits cleared (from
+   * the usual start value) XOR the CRC of those bits alone (from a register of 0). When all but the
+   * low nibbles of some bytes are known in advance — as for a text line of a known layout, whose
+   * digits are all 0x3_ — the known part is a constant and only those low nibbles need table
+   * lookups, two of them per lookup. This gives the part of one word: the 8 bytes of
+   * little-endian word {@code w} (first byte lowest), the {@code j}-th word counted back from the
+   * message end (0 for the last eight bytes), with every bit outside the wanted low nibbles
+   * already cleared by the caller.
    *
    * @param j 0 to {@link #LOW_NIBBLE_WORDS} - 1
    */
   static int lowNibbles(long w, int j) {
-    long x = w & 0x0F0F_0F0F_0F0F_0F0FL;
-    long pairs = x | (x >>> 4); // bytes 0, 2, 4, 6 (from the bottom) hold the pairs
+    long pairs = w | (w >>> 4); // bytes 0, 2, 4, 6 hold the pairs, the later byte's nibble on top
     int o = j << 10;
     final char[] t = LOW_NIBBLES;
-    return t[o + ((int) pairs & 0xFF)] ^ t[o + 256 + ((int) (pairs >>> 16) & 0xFF)]
-        ^ t[o + 512 + ((int) (pairs >>> 32) & 0xFF)] ^ t[o + 768 + ((int) (pairs >>> 48) & 0xFF)];
+    return t[o + 768 + ((int) pairs & 0xFF)] ^ t[o + 512 + ((int) (pairs >>> 16) & 0xFF)]
+        ^ t[o + 256 + ((int) (pairs >>> 32) & 0xFF)] ^ t[o + ((int) (pairs >>> 48) & 0xFF)];
   }
 
   /**

@@ -50,6 +50,12 @@ final class SampleFastPath {
 
   private final long[] values = new long[4];
   private final TextLayout layout = new TextLayout();
+  private final Fields slot = new Fields();
+
+  /** Where the samples of a run go, in order. */
+  interface Sink {
+    void sample(int seq, long us, int load, boolean hasPos, int pos);
+  }
 
   /** @return true when word {@code v} holds a 0x00 or an LF byte (the "has a zero byte" trick) */
   static boolean hasZeroOrLf(long v) {
@@ -86,29 +92,39 @@ final class SampleFastPath {
   }
 
   /**
-   * Parses a text sample line {@code S seq us load [pos] ~XXXX CR? LF} starting at {@code s}: by
-   * the shape of the previous sample line when it has that shape ({@link TextLayout}), otherwise
-   * field by field, learning the new shape.
+   * Decodes the text sample lines {@code S seq us load [pos] ~XXXX CR? LF} that follow one
+   * another from {@code s}, each by the shape of the line before when it has that shape ({@link
+   * TextLayout}), otherwise field by field, learning the new shape. Stops before the first thing
+   * that is not a complete, valid sample line.
    *
    * @param b buffer, with {@link #SLACK} readable bytes past {@code limit}
-   * @param s first byte of the line (a record boundary)
+   * @param s first byte of a line (a record boundary)
    * @param limit end of the valid bytes (exclusive)
-   * @param out receives the sample
-   * @return the index just past the LF, or -1 when this is not a complete, valid sample line
+   * @param sink receives each sample, in order
+   * @return the index just past the last LF decoded, or {@code s} when none was
    */
-  int text(byte[] b, int s, int limit, Fields out) {
-    int r = layout.parse(b, s, limit, out);
-    if (r != TextLayout.NO_FIT) {
-      return r;
+  int textRun(byte[] b, int s, int limit, Sink sink) {
+    int p = s;
+    while (true) {
+      p = layout.run(b, p, limit, sink);
+      if (layout.refused()) {
+        return p;
+      }
+      int q = textByFields(b, p, limit, slot);
+      if (q < 0) {
+        return p;
+      }
+      sink.sample(slot.seq, slot.us, slot.load, slot.hasPos, slot.pos);
+      layout.learn(b, p, q);
+      p = q;
     }
-    r = textByFields(b, s, limit, out);
-    if (r > 0) {
-      layout.learn(b, s, r);
-    }
-    return r;
   }
 
-  /** {@link #text} field by field, for a line of a shape not seen just before. */
+  /**
+   * One line field by field, for a line of a shape not seen just before.
+   *
+   * @return the index just past the LF, or -1 when this is not a complete, valid sample line
+   */
   private int textByFields(byte[] b, int s, int limit, Fields out) {
     if (s + 12 > limit || b[s] != 'S' || b[s + 1] != ' ') {
       return -1;
@@ -201,91 +217,95 @@ final class SampleFastPath {
   }
 
   /**
-   * Parses a binary sample frame (type 0x01 or 0x02, COBS, CRC, 0x00 delimiter) starting at
-   * {@code s}. The payload is decoded in registers: the words are read once and the bytes the
-   * COBS codes stand for are cleared by mask, so nothing is stored and read back.
+   * Decodes the binary sample frames (type 0x01 or 0x02, COBS, CRC, 0x00 delimiter) that follow
+   * one another from {@code s}, stopping before the first thing that is not one. The payload is
+   * decoded in registers: the words are read once and the bytes the COBS codes stand for are
+   * cleared by mask, so nothing is stored and read back.
    *
    * <p>An LF byte inside a frame also ends a text candidate, which the general rules look at. The
    * frame is taken here anyway only when that look cannot matter: the decoder follows the binary
    * encoding (a failed text candidate then counts nothing) and the text candidate starts with the
    * frame, and the bytes before the LF cannot end a text record (no {@code ~} five or six bytes
-   * back). Otherwise the frame is left to the general path.
+   * back). Otherwise the frame is left to the general path. After one frame decoded here both
+   * hold for the next.
    *
    * @param b buffer, with {@link #SLACK} readable bytes past {@code limit}
-   * @param s first byte of the frame (a record boundary)
+   * @param s first byte of a frame (a record boundary)
    * @param limit end of the valid bytes (exclusive)
    * @param quietText true when the decoder follows the binary encoding and the text candidate
    *     also starts at {@code s}
-   * @param out receives the sample
-   * @return the index just past the 0x00, or -1 when this is not a complete, valid sample frame
+   * @param sink receives each sample, in order
+   * @return the index just past the last 0x00 decoded, or {@code s} when none was
    */
-  int binary(byte[] b, int s, int limit, boolean quietText, Fields out) {
-    if (s + 15 > limit || (b[s] & 0xFF) < 2) {
-      return -1;
-    }
-    int type = b[s + 1];
-    int encoded; // COBS bytes before the delimiter: payload + 1
-    if (type == 0x02) {
-      encoded = 18;
-    } else if (type == 0x01) {
-      encoded = 14;
-    } else {
-      return -1;
-    }
-    int z = s + encoded;
-    if (z >= limit || b[z] != 0) {
-      return -1;
-    }
-    long w0 = (long) LONGS.get(b, s);
-    long w1 = (long) LONGS.get(b, s + 6);
-    long w2 = (long) LONGS.get(b, z - 8);
-    if ((zeroBytes(w0) | zeroBytes(w1) | zeroBytes(w2)) != 0
-        || ((zeroBytes(w0 ^ LFS) | zeroBytes(w1 ^ LFS) | zeroBytes(w2 ^ LFS)) != 0
-            && (!quietText || textMayEnd(b, s, z)))) {
-      return -1;
-    }
-    int zeros = 0; // bit j: payload byte j is a zero that a COBS code stands for
-    int c = s;
+  int binaryRun(byte[] b, int s, int limit, boolean quietText, Sink sink) {
+    boolean quiet = quietText;
     while (true) {
-      int next = c + (b[c] & 0xFF);
-      if (next >= z) {
-        if (next != z) {
-          return -1; // a code runs past the delimiter
-        }
-        break;
+      if (s + 15 > limit || (b[s] & 0xFF) < 2) {
+        return s;
       }
-      zeros |= 1 << (next - s - 1);
-      c = next;
+      int type = b[s + 1];
+      int encoded; // COBS bytes before the delimiter: payload + 1
+      if (type == 0x02) {
+        encoded = 18;
+      } else if (type == 0x01) {
+        encoded = 14;
+      } else {
+        return s;
+      }
+      int z = s + encoded;
+      if (z >= limit || b[z] != 0) {
+        return s;
+      }
+      long w0 = (long) LONGS.get(b, s);
+      long w1 = (long) LONGS.get(b, s + 6);
+      long w2 = (long) LONGS.get(b, z - 8);
+      if ((zeroBytes(w0) | zeroBytes(w1) | zeroBytes(w2)) != 0
+          || ((zeroBytes(w0 ^ LFS) | zeroBytes(w1 ^ LFS) | zeroBytes(w2 ^ LFS)) != 0
+              && (!quiet || textMayEnd(b, s, z)))) {
+        return s;
+      }
+      int zeros = 0; // bit j: payload byte j is a zero that a COBS code stands for
+      int c = s;
+      while (true) {
+        int next = c + (b[c] & 0xFF);
+        if (next >= z) {
+          if (next != z) {
+            return s; // a code runs past the delimiter
+          }
+          break;
+        }
+        zeros |= 1 << (next - s - 1);
+        c = next;
+      }
+      // payload bytes 0…7 and 8…15, first byte lowest; byte 16 (type 0x02 only) apart
+      long p0 = (long) LONGS.get(b, s + 1) & ~BYTE_MASK[zeros & 0xFF];
+      long p1 = (long) LONGS.get(b, s + 9) & ~BYTE_MASK[(zeros >>> 8) & 0xFF];
+      int crc;
+      int sent;
+      int pos;
+      if (type == 0x02) {
+        // 15 bytes under the CRC, after one zero byte of padding
+        crc = Crc16.ofPadded16(Long.reverseBytes(p0 << 8),
+            Long.reverseBytes((p0 >>> 56) | (p1 << 8)), 15);
+        int last = (zeros & (1 << 16)) != 0 ? 0 : b[s + 17] & 0xFF;
+        sent = ((int) (p1 >>> 56) << 8) | last;
+        pos = (int) (p1 >>> 24);
+      } else {
+        // 11 bytes under the CRC, after five zero bytes of padding
+        crc = Crc16.ofPadded16(Long.reverseBytes(p0 << 40),
+            Long.reverseBytes((p0 >>> 24) | (p1 << 40)), 11);
+        sent = (int) (p1 >>> 24) & 0xFFFF;
+        sent = ((sent & 0xFF) << 8) | (sent >>> 8);
+        pos = 0;
+      }
+      if (crc != sent) {
+        return s;
+      }
+      sink.sample((int) (p0 >>> 8) & 0xFFFF, (p0 >>> 24) & 0xFFFF_FFFFL,
+          (int) ((p0 >>> 56) | (p1 << 8)), type == 0x02, pos);
+      s = z + 1;
+      quiet = true;
     }
-    // payload bytes 0…7 and 8…15, first byte lowest; byte 16 (type 0x02 only) apart
-    long p0 = (long) LONGS.get(b, s + 1) & ~BYTE_MASK[zeros & 0xFF];
-    long p1 = (long) LONGS.get(b, s + 9) & ~BYTE_MASK[(zeros >>> 8) & 0xFF];
-    int seq = (int) (p0 >>> 8) & 0xFFFF;
-    long us = (p0 >>> 24) & 0xFFFF_FFFFL;
-    int load = (int) ((p0 >>> 56) | (p1 << 8));
-    int crc;
-    int sent;
-    if (type == 0x02) {
-      // 15 bytes under the CRC, after one zero byte of padding
-      crc = Crc16.ofPadded16(Long.reverseBytes(p0 << 8), Long.reverseBytes((p0 >>> 56) | (p1 << 8)), 15);
-      int last = (zeros & (1 << 16)) != 0 ? 0 : b[s + 17] & 0xFF;
-      sent = ((int) (p1 >>> 56) << 8) | last;
-      out.pos = (int) (p1 >>> 24);
-    } else {
-      // 11 bytes under the CRC, after five zero bytes of padding
-      crc = Crc16.ofPadded16(Long.reverseBytes(p0 << 40), Long.reverseBytes((p0 >>> 24) | (p1 << 40)), 11);
-      sent = (int) (p1 >>> 24) & 0xFFFF;
-      sent = ((sent & 0xFF) << 8) | (sent >>> 8);
-      out.pos = 0;
-    }
-    if (crc != sent) {
-      return -1;
-    }
-    out.seq = seq;
-    out.us = us;
-    out.load = load;
-    out.hasPos = type == 0x02;
-    return z + 1;
   }
 
   /** Non-zero when word {@code v} holds a 0x00 byte. */

@@ -148,28 +148,51 @@ public final class StreamDecoder {
   }
 
   /**
-   * Tries the one-pass parser on a sample record starting at boundary {@code p}; what it accepts
-   * the general path would accept as the first record of the candidate.
+   * Tries the one-pass parser on the sample records starting at boundary {@code p}; what it
+   * accepts the general path would accept, record by record, as the first record of the candidate.
    *
-   * @return the index just past the record, or -1 to leave the bytes to the general path
+   * @return the index just past the last record decoded, or -1 to leave the bytes to the general
+   *     path
    */
   private int fastSample(int p, int n) {
-    Encoding e = Encoding.TEXT;
-    int q = -1;
     if (p == lineStart && buf[p] == 'S') {
-      q = fast.text(buf, p, n, slot);
+      int q = fast.textRun(buf, p, n, textSamples);
+      if (q > p) {
+        end = q;
+        accepted(Encoding.TEXT);
+        return q;
+      }
     }
-    if (q < 0 && p == frameStart) {
-      q = fast.binary(buf, p, n, following == Encoding.BINARY && p == lineStart, slot);
-      e = Encoding.BINARY;
+    if (p == frameStart) {
+      int q = fast.binaryRun(buf, p, n, following == Encoding.BINARY && p == lineStart,
+          binarySamples);
+      if (q > p) {
+        end = q;
+        accepted(Encoding.BINARY);
+        return q;
+      }
     }
-    if (q > 0) {
-      end = q;
-      deliverSample(slot.seq, slot.us, slot.load, slot.hasPos, slot.pos);
-      accepted(e);
-    }
-    return q;
+    return -1;
   }
+
+  /**
+   * Samples of a run of the one-pass parser: delivered, then the encoding followed, as a record
+   * decoded on its own would be. (The field is written only when it changes: a reference store
+   * costs a garbage-collector barrier on every sample.)
+   */
+  private final SampleFastPath.Sink textSamples = (seq, us, load, hasPos, pos) -> {
+    deliverSample(seq, us, load, hasPos, pos);
+    if (following != Encoding.TEXT) {
+      following = Encoding.TEXT;
+    }
+  };
+
+  private final SampleFastPath.Sink binarySamples = (seq, us, load, hasPos, pos) -> {
+    deliverSample(seq, us, load, hasPos, pos);
+    if (following != Encoding.BINARY) {
+      following = Encoding.BINARY;
+    }
+  };
 
   /** Keeps a text candidate ending at {@code at} (exclusive) to the newest MAX_CANDIDATE bytes. */
   private void capLine(int at) {

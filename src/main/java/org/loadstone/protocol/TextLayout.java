@@ -1,8 +1,6 @@
 package org.loadstone.protocol;
 
-import java.lang.invoke.MethodHandles;
 import java.lang.invoke.VarHandle;
-import java.nio.ByteOrder;
 
 /**
  * The shape of the text sample lines a device is sending, learnt from one valid line: which bytes
@@ -10,10 +8,10 @@ import java.nio.ByteOrder;
  * where the checksum digits are. A streaming device sends line after line of one shape — a field
  * gains or loses a digit only now and then — so the next line is checked against the shape eight
  * bytes at a time, its fields are read at known places, and its CRC needs table lookups only for
- * the digits' low nibbles ({@link Crc16#lowNibbles}).
+ * the digits' low nibbles, two per lookup ({@link Crc16#lowNibbles}).
  *
- * <p>A line that does not fit gives {@link #NO_FIT}, and the caller uses the one-pass parser, whose
- * success teaches the new shape. A line that fits gets the one-pass parser's verdict: it is
+ * <p>A run of lines stops at a line that does not fit, and the caller uses the one-pass parser,
+ * whose success teaches the new shape. A line that fits gets the one-pass parser's verdict: it is
  * exactly a well-formed sample line of that shape, so only its values, its range rules and its CRC
  * remain to decide, and they are decided the same way.
  *
@@ -24,18 +22,16 @@ import java.nio.ByteOrder;
  * {@code | y} catches bytes from 0x80 up, and no byte's sum carries into the next.
  */
 final class TextLayout {
-  /** {@link #parse}: the line does not have this shape; the one-pass parser must decide. */
-  static final int NO_FIT = -2;
-
   /** Longest line a shape covers, in bytes: seven words (a sample line is at most 50). */
   private static final int MAX_LINE = 56;
 
   private static final VarHandle LONGS = SampleFastPath.LONGS;
-  private static final VarHandle BIG_ENDIAN_LONGS =
-      MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.BIG_ENDIAN);
   private static final long LOW7 = 0x7F7F_7F7F_7F7F_7F7FL;
+  /** The check's adder for a digit byte. */
+  private static final int DIGIT_ADD = 0x76;
 
   private boolean known;
+  private boolean refused;
   /** Bytes in the line, LF included. */
   private int length;
   private boolean longLine;
@@ -55,65 +51,71 @@ final class TextLayout {
   private boolean wide;
   private int hexAt;
   private int bodyLength;
-  /** Words the CRC reads back from the body end, and the masks keeping only the body's low nibbles. */
+  /** Words the CRC reads back from the body end, and the masks keeping only digits' low nibbles. */
   private int crcWords;
   private long crcMask0, crcMask1, crcMask2, crcMask3, crcMask4, crcMask5;
-  /** The CRC of the body's high nibbles alone, from the usual start value. */
-  private int crcHigh;
+  /** The CRC, from the usual start value, of the body with every digit a '0'. */
+  private int crcFixed;
 
   /**
-   * Parses the line starting at {@code s} if it has the learnt shape.
+   * Decodes the lines from {@code s} on while they have the learnt shape.
    *
    * @param b buffer, with {@link SampleFastPath#SLACK} readable bytes past {@code limit}
+   * @param s first byte of a line (a record boundary)
    * @param limit end of the valid bytes (exclusive)
-   * @return the index just past the LF; -1 when the line has the shape but is not a valid sample;
-   *     {@link #NO_FIT} when no shape is known or the line does not have it
+   * @param sink receives each sample, in order
+   * @return the index just past the last line decoded, {@code s} when none was; {@link
+   *     #refused()} then tells whether the next line had the shape but is not a valid sample
    */
-  int parse(byte[] b, int s, int limit, SampleFastPath.Fields out) {
-    if (!known || s + length > limit) {
-      return NO_FIT;
+  int run(byte[] b, int s, int limit, SampleFastPath.Sink sink) {
+    refused = false;
+    if (!known) {
+      return s;
     }
-    long bad = check((long) LONGS.get(b, s), tpl0, add0, care0)
-        | check((long) LONGS.get(b, s + 8), tpl1, add1, care1)
-        | check((long) LONGS.get(b, s + 16), tpl2, add2, care2)
-        | check((long) LONGS.get(b, s + 24), tpl3, add3, care3);
-    if (longLine) {
-      bad |= check((long) LONGS.get(b, s + 32), tpl4, add4, care4)
-          | check((long) LONGS.get(b, s + 40), tpl5, add5, care5)
-          | check((long) LONGS.get(b, s + 48), tpl6, add6, care6);
+    for (; s + length <= limit; s += length) {
+      long bad = check((long) LONGS.get(b, s), tpl0, add0, care0)
+          | check((long) LONGS.get(b, s + 8), tpl1, add1, care1)
+          | check((long) LONGS.get(b, s + 16), tpl2, add2, care2)
+          | check((long) LONGS.get(b, s + 24), tpl3, add3, care3);
+      if (longLine) {
+        bad |= check((long) LONGS.get(b, s + 32), tpl4, add4, care4)
+            | check((long) LONGS.get(b, s + 40), tpl5, add5, care5)
+            | check((long) LONGS.get(b, s + 48), tpl6, add6, care6);
+      }
+      if (bad != 0) {
+        return s;
+      }
+      long seq = SampleFastPath.digitsValue((long) LONGS.get(b, s + at0), digits0);
+      long us;
+      long load;
+      long pos;
+      if (!wide) {
+        us = SampleFastPath.digitsValue((long) LONGS.get(b, s + at1), digits1);
+        load = SampleFastPath.digitsValue((long) LONGS.get(b, s + at2), digits2);
+        pos = hasPos ? SampleFastPath.digitsValue((long) LONGS.get(b, s + at3), digits3) : 0;
+      } else {
+        us = value(b, s + at1, digits1);
+        load = value(b, s + at2, digits2);
+        pos = hasPos ? value(b, s + at3, digits3) : 0;
+      }
+      int crc = s >= 8 * Crc16.LOW_NIBBLE_WORDS
+          ? crc(b, s + bodyLength) : Crc16.compute(b, s, bodyLength);
+      // the smallest magnitudes rule out leading zeros and "-0"
+      if (seq < min0 | seq > RawSample.SEQ_MAX | us < min1 | us > RawSample.TIME_MAX_US
+          | load < min2 | load > max2 | pos < min3 | pos > max3
+          || (SampleFastPath.le32(b, s + hexAt) != hexDigits(crc) && !sentAs(b, s + hexAt, crc))) {
+        refused = true;
+        return s;
+      }
+      sink.sample((int) seq, us, (int) ((load ^ sign2) - sign2), hasPos,
+          (int) ((pos ^ sign3) - sign3));
     }
-    if (bad != 0) {
-      return NO_FIT;
-    }
-    long seq = SampleFastPath.digitsValue((long) LONGS.get(b, s + at0), digits0);
-    long us;
-    long load;
-    long pos;
-    if (!wide) {
-      us = SampleFastPath.digitsValue((long) LONGS.get(b, s + at1), digits1);
-      load = SampleFastPath.digitsValue((long) LONGS.get(b, s + at2), digits2);
-      pos = hasPos ? SampleFastPath.digitsValue((long) LONGS.get(b, s + at3), digits3) : 0;
-    } else {
-      us = value(b, s + at1, digits1);
-      load = value(b, s + at2, digits2);
-      pos = hasPos ? value(b, s + at3, digits3) : 0;
-    }
-    // the smallest magnitudes rule out leading zeros and "-0"
-    if (seq < min0 | seq > RawSample.SEQ_MAX | us < min1 | us > RawSample.TIME_MAX_US
-        | load < min2 | load > max2 | pos < min3 | pos > max3) {
-      return -1;
-    }
-    int crc = s >= 8 * Crc16.LOW_NIBBLE_WORDS ? crc(b, s + bodyLength) : Crc16.compute(b, s, bodyLength);
-    int sent = SampleFastPath.le32(b, s + hexAt);
-    if (sent != hexDigits(crc) && !sentAs(b, s + hexAt, crc)) {
-      return -1;
-    }
-    out.seq = (int) seq;
-    out.us = us;
-    out.load = (int) ((load ^ sign2) - sign2);
-    out.hasPos = hasPos;
-    out.pos = (int) ((pos ^ sign3) - sign3);
-    return s + length;
+    return s;
+  }
+
+  /** @return true when the last {@link #run} stopped at a line of the shape that is not a sample */
+  boolean refused() {
+    return refused;
   }
 
   private static long check(long w, long tpl, long add, long care) {
@@ -131,29 +133,35 @@ final class TextLayout {
         + SampleFastPath.digitsValue((long) LONGS.get(b, p + 8), k - 8);
   }
 
-  /** The CRC of the body ending at {@code end}: its known high nibbles, then its low nibbles. */
+  /** The CRC of the body ending at {@code end}: a constant for its fixed part, then its digits. */
   private int crc(byte[] b, int end) {
-    int crc = crcHigh
-        ^ Crc16.lowNibbles((long) BIG_ENDIAN_LONGS.get(b, end - 8) & crcMask0, 0)
-        ^ Crc16.lowNibbles((long) BIG_ENDIAN_LONGS.get(b, end - 16) & crcMask1, 1);
-    if (crcWords > 2) {
-      crc ^= Crc16.lowNibbles((long) BIG_ENDIAN_LONGS.get(b, end - 24) & crcMask2, 2);
-      if (crcWords > 3) {
-        crc ^= Crc16.lowNibbles((long) BIG_ENDIAN_LONGS.get(b, end - 32) & crcMask3, 3);
-        if (crcWords > 4) {
-          crc ^= Crc16.lowNibbles((long) BIG_ENDIAN_LONGS.get(b, end - 40) & crcMask4, 4)
-              ^ Crc16.lowNibbles((long) BIG_ENDIAN_LONGS.get(b, end - 48) & crcMask5, 5);
-        }
+    int crc = crcFixed
+        ^ Crc16.lowNibbles((long) LONGS.get(b, end - 8) & crcMask0, 0)
+        ^ Crc16.lowNibbles((long) LONGS.get(b, end - 16) & crcMask1, 1)
+        ^ Crc16.lowNibbles((long) LONGS.get(b, end - 24) & crcMask2, 2);
+    if (crcWords > 3) {
+      crc ^= Crc16.lowNibbles((long) LONGS.get(b, end - 32) & crcMask3, 3);
+      if (crcWords > 4) {
+        crc ^= Crc16.lowNibbles((long) LONGS.get(b, end - 40) & crcMask4, 4)
+            ^ Crc16.lowNibbles((long) LONGS.get(b, end - 48) & crcMask5, 5);
       }
     }
     return crc;
   }
 
+  /** HEX_PAIRS[v]: the two upper-case hex digits of byte v, the first in the low byte. */
+  private static final int[] HEX_PAIRS = new int[256];
+
+  static {
+    byte[] digits = "0123456789ABCDEF".getBytes(java.nio.charset.StandardCharsets.US_ASCII);
+    for (int v = 0; v < 256; v++) {
+      HEX_PAIRS[v] = digits[v >>> 4] | digits[v & 15] << 8;
+    }
+  }
+
   /** The four upper-case hex digits of {@code crc} as a device sends them, first in the low byte. */
   static int hexDigits(int crc) {
-    int x = ((crc >>> 12) & 0xF) | (crc & 0xF00) | ((crc << 12) & 0xF0000) | ((crc << 24) & 0xF000000);
-    int letters = ((x + 0x0606_0606) >>> 4) & 0x0101_0101; // 1 in each byte holding 10…15
-    return x + 0x3030_3030 + letters * 7;
+    return HEX_PAIRS[(crc >>> 8) & 0xFF] | HEX_PAIRS[crc & 0xFF] << 16;
   }
 
   /** The general reading of the four checksum digits at {@code h} (either case). */
@@ -226,24 +234,29 @@ final class TextLayout {
     length = n;
     longLine = n > 32;
     bodyLength = p - 1;
-    learnCrc(b, s);
+    learnCrc(b, s, add);
     known = true;
   }
 
-  private void learnCrc(byte[] b, int s) {
-    crcWords = Math.max(2, (bodyLength + 7) / 8);
+  /**
+   * The CRC reads the words that hold digits, back from the body end, keeping only the digits'
+   * low nibbles; everything else of the body is fixed by the shape and is in {@link #crcFixed}.
+   */
+  private void learnCrc(byte[] b, int s, long[] add) {
+    crcWords = (bodyLength - at0 + 7) / 8;
     long[] mask = new long[Crc16.LOW_NIBBLE_WORDS];
-    for (int j = 0; j < mask.length; j++) {
-      int before = 8 * (j + 1) - bodyLength; // bytes of the j-th word back that precede the body
-      mask[j] = before <= 0 ? -1L : before >= 8 ? 0 : -1L >>> (before << 3);
+    byte[] fixed = new byte[bodyLength];
+    for (int i = 0; i < bodyLength; i++) {
+      boolean digit = ((add[i >>> 3] >>> ((i & 7) << 3)) & 0xFF) == DIGIT_ADD;
+      fixed[i] = digit ? (byte) '0' : b[s + i];
+      int back = bodyLength - 1 - i; // bytes after this one in the body
+      if (digit) {
+        mask[back >>> 3] |= 0x0FL << ((7 - (back & 7)) << 3);
+      }
     }
     crcMask0 = mask[0]; crcMask1 = mask[1]; crcMask2 = mask[2]; crcMask3 = mask[3];
     crcMask4 = mask[4]; crcMask5 = mask[5];
-    byte[] high = new byte[bodyLength];
-    for (int i = 0; i < bodyLength; i++) {
-      high[i] = (byte) (b[s + i] & 0xF0);
-    }
-    crcHigh = Crc16.compute(high, 0, bodyLength);
+    crcFixed = Crc16.compute(fixed, 0, bodyLength);
   }
 
   /** The smallest canonical magnitude of a field of {@code k} digits: no leading zero, no "-0". */
@@ -267,7 +280,7 @@ final class TextLayout {
   }
 
   private static void digit(long[] tpl, long[] add, long[] care, int i) {
-    put(tpl, add, care, i, '0', 0x76);
+    put(tpl, add, care, i, '0', DIGIT_ADD);
   }
 
   private static void put(long[] tpl, long[] add, long[] care, int i, int t, int a) {

@@ -2,6 +2,7 @@ package org.loadstone.protocol;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
+import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 
@@ -15,7 +16,6 @@ class SampleFastPathTest {
   void takesEveryValidSampleOfBothEncodings() {
     Random r = new Random(2026);
     SampleFastPath fast = new SampleFastPath();
-    SampleFastPath.Fields out = new SampleFastPath.Fields();
     byte[] buf = new byte[WireEncoder.MAX_SAMPLE_BYTES + SampleFastPath.SLACK];
     int binaryTried = 0;
     int lfFrames = 0;
@@ -29,17 +29,19 @@ class SampleFastPathTest {
       RawSample s = new RawSample(seq, us, load, hasPos, pos);
 
       int n = new WireEncoder(Encoding.TEXT).sample(buf, 0, s);
-      assertThat(fast.text(buf, 0, n, out)).as("text %s", s).isEqualTo(n);
-      assertThat(read(out)).isEqualTo(s);
+      SampleList got = new SampleList();
+      assertThat(fast.textRun(buf, 0, n, got)).as("text %s", s).isEqualTo(n);
+      assertThat(got.samples).containsExactly(s);
 
       n = new WireEncoder(Encoding.BINARY).sample(buf, 0, s);
       boolean lfInside = false;
       for (int k = 0; k < n; k++) {
         lfInside |= buf[k] == '\n';
       }
-      int got = fast.binary(buf, 0, n, false, out);
+      got = new SampleList();
+      int end = fast.binaryRun(buf, 0, n, false, got);
       if (lfInside) {
-        assertThat(got).as("frame with an LF, text candidate to be looked at").isEqualTo(-1);
+        assertThat(end).as("frame with an LF, text candidate to be looked at").isEqualTo(0);
         lfFrames++;
         // following binary, with the text candidate starting at the frame: a frame with no "~"
         // before its LF cannot end a text record, so it is taken here
@@ -48,21 +50,15 @@ class SampleFastPathTest {
           tilde |= buf[k] == '\n' && ((k >= 5 && buf[k - 5] == '~')
               || (k >= 6 && buf[k - 1] == '\r' && buf[k - 6] == '~'));
         }
-        assertThat(fast.binary(buf, 0, n, true, out)).as("binary %s", s).isEqualTo(tilde ? -1 : n);
-        if (!tilde) {
-          assertThat(read(out)).isEqualTo(s);
-        }
+        assertThat(fast.binaryRun(buf, 0, n, true, got)).as("binary %s", s).isEqualTo(tilde ? 0 : n);
+        assertThat(got.samples).isEqualTo(tilde ? List.of() : List.of(s));
       } else {
         binaryTried++;
-        assertThat(got).as("binary %s", s).isEqualTo(n);
-        assertThat(read(out)).isEqualTo(s);
+        assertThat(end).as("binary %s", s).isEqualTo(n);
+        assertThat(got.samples).containsExactly(s);
       }
     }
     assertThat(binaryTried).isGreaterThan(15_000);
     assertThat(lfFrames).isGreaterThan(500);
-  }
-
-  private static RawSample read(SampleFastPath.Fields f) {
-    return new RawSample(f.seq, f.us, f.load, f.hasPos, f.pos);
   }
 }

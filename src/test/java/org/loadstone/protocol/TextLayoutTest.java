@@ -28,7 +28,6 @@ class TextLayoutTest {
   void linesOfTheLearntShapeAreReadByIt() {
     Random r = new Random(7);
     TextLayout layout = new TextLayout();
-    SampleFastPath.Fields out = new SampleFastPath.Fields();
     byte[] first = line("S 12345 1234567 -12345 678", true, "\n");
     byte[] buf = new byte[64 + 64 + SampleFastPath.SLACK];
     r.nextBytes(buf); // whatever precedes a line must not count in its CRC
@@ -41,20 +40,20 @@ class TextLayoutTest {
       int pos = 100 + r.nextInt(900);
       byte[] next = line("S " + seq + " " + us + " " + load + " " + pos, r.nextBoolean(), "\n");
       System.arraycopy(next, 0, buf, 64, next.length);
-      assertThat(layout.parse(buf, 64, 64 + next.length, out)).isEqualTo(64 + next.length);
-      assertThat(new RawSample(out.seq, out.us, out.load, out.hasPos, out.pos))
-          .isEqualTo(new RawSample(seq, us, load, true, pos));
+      SampleList out = new SampleList();
+      assertThat(layout.run(buf, 64, 64 + next.length, out)).isEqualTo(64 + next.length);
+      assertThat(out.samples).containsExactly(new RawSample(seq, us, load, true, pos));
     }
     byte[] longer = line("S 12345 12345678 -12345 678", true, "\n");
     System.arraycopy(longer, 0, buf, 64, longer.length);
-    assertThat(layout.parse(buf, 64, 64 + longer.length, out)).isEqualTo(TextLayout.NO_FIT);
+    assertThat(layout.run(buf, 64, 64 + longer.length, new SampleList())).isEqualTo(64);
+    assertThat(layout.refused()).as("does not fit: the one-pass parser decides").isFalse();
   }
 
   /** The same for random shapes: ten-digit fields, three or four fields, CR LF, extreme values. */
   @Test
   void linesOfAnyLearntShapeAreReadByIt() {
     Random r = new Random(11);
-    SampleFastPath.Fields out = new SampleFastPath.Fields();
     byte[] buf = new byte[64 + 64 + SampleFastPath.SLACK];
     for (int shapes = 0; shapes < 300; shapes++) {
       String[] shape = randomShape(r);
@@ -69,10 +68,10 @@ class TextLayoutTest {
           layout.learn(buf, 64, 64 + next.length);
           continue;
         }
-        assertThat(layout.parse(buf, 64, 64 + next.length, out)).as(body).isEqualTo(64 + next.length);
+        SampleList out = new SampleList();
+        assertThat(layout.run(buf, 64, 64 + next.length, out)).as(body).isEqualTo(64 + next.length);
         String[] f = body.split(" ");
-        assertThat(new RawSample(out.seq, out.us, out.load, out.hasPos, out.pos)).as(body)
-            .isEqualTo(new RawSample(Integer.parseInt(f[1]), Long.parseLong(f[2]),
+        assertThat(out.samples).as(body).containsExactly(new RawSample(Integer.parseInt(f[1]), Long.parseLong(f[2]),
                 Integer.parseInt(f[3]), f.length == 5, f.length == 5 ? Integer.parseInt(f[4]) : 0));
       }
     }
@@ -86,7 +85,6 @@ class TextLayoutTest {
         new String[] {"S 1 1 2147483646 2147483646", "S 0 0 2147483647 2147483647"},
         new String[] {"S 1 2 -1 -9", "S 0 0 -9 -1"},
         new String[] {"S 10 1000000000 10 10", "S 99 9999999999 99 99"});
-    SampleFastPath.Fields out = new SampleFastPath.Fields();
     byte[] buf = new byte[64 + 64 + SampleFastPath.SLACK];
     for (String[] p : pairs) {
       TextLayout layout = new TextLayout();
@@ -96,8 +94,9 @@ class TextLayoutTest {
       byte[] next = line(p[1], true, "\n");
       System.arraycopy(next, 0, buf, 64, next.length);
       boolean valid = !p[1].contains("9999999999");
-      assertThat(layout.parse(buf, 64, 64 + next.length, out)).as(p[1])
-          .isEqualTo(valid ? 64 + next.length : -1);
+      assertThat(layout.run(buf, 64, 64 + next.length, new SampleList())).as(p[1])
+          .isEqualTo(valid ? 64 + next.length : 64);
+      assertThat(layout.refused()).as(p[1]).isEqualTo(!valid);
     }
   }
 
