@@ -264,18 +264,17 @@ final class SampleFastPath {
               && (!quiet || textMayEnd(b, s, z)))) {
         return s;
       }
-      int zeros = 0; // bit j: payload byte j is a zero that a COBS code stands for
-      int c = s;
-      while (true) {
-        int next = c + (b[c] & 0xFF);
-        if (next >= z) {
-          if (next != z) {
-            return s; // a code runs past the delimiter
-          }
-          break;
+      int zeros; // bit j: payload byte j is a zero that a COBS code stands for
+      if (type == codesType
+          && ((((long) LONGS.get(b, s) ^ codes0) & codeMask0)
+              | (((long) LONGS.get(b, s + 8) ^ codes1) & codeMask1)
+              | (((long) LONGS.get(b, s + 16) ^ codes2) & codeMask2)) == 0) {
+        zeros = codesZeros; // the codes of the frame before: the same chain, the same zeros
+      } else {
+        zeros = followCodes(b, s, z, type);
+        if (zeros < 0) {
+          return s; // a code runs past the delimiter
         }
-        zeros |= 1 << (next - s - 1);
-        c = next;
       }
       // payload bytes 0…7 and 8…15, first byte lowest; byte 16 (type 0x02 only) apart
       long p0 = (long) LONGS.get(b, s + 1) & ~BYTE_MASK[zeros & 0xFF];
@@ -306,6 +305,50 @@ final class SampleFastPath {
       s = z + 1;
       quiet = true;
     }
+  }
+
+  /**
+   * The COBS codes of the last frame followed code by code: their values by position (in three
+   * little-endian words from the frame start), which positions hold codes, and the zeros they
+   * stand for. Successive frames mostly have their zeros in the same places; a frame whose bytes
+   * at those places are the same codes has the same chain, checked without following it.
+   */
+  private int codesType;
+  private long codes0, codes1, codes2;
+  private long codeMask0, codeMask1, codeMask2;
+  private int codesZeros;
+
+  /**
+   * Follows the COBS codes of the frame {@code b[s, z)} and remembers them.
+   *
+   * @return bit j set when payload byte j is a zero a code stands for, or -1 when a code runs past
+   *     the delimiter
+   */
+  private int followCodes(byte[] b, int s, int z, int type) {
+    long[] codes = new long[3];
+    long[] mask = new long[3];
+    int zeros = 0;
+    int c = s;
+    while (true) {
+      int code = b[c] & 0xFF;
+      int at = c - s;
+      codes[at >>> 3] |= (long) code << ((at & 7) << 3);
+      mask[at >>> 3] |= 0xFFL << ((at & 7) << 3);
+      int next = c + code;
+      if (next >= z) {
+        if (next != z) {
+          return -1;
+        }
+        break;
+      }
+      zeros |= 1 << (next - s - 1);
+      c = next;
+    }
+    codes0 = codes[0]; codes1 = codes[1]; codes2 = codes[2];
+    codeMask0 = mask[0]; codeMask1 = mask[1]; codeMask2 = mask[2];
+    codesZeros = zeros;
+    codesType = type;
+    return zeros;
   }
 
   /** Non-zero when word {@code v} holds a 0x00 byte. */

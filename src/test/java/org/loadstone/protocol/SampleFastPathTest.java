@@ -61,4 +61,46 @@ class SampleFastPathTest {
     assertThat(binaryTried).isGreaterThan(15_000);
     assertThat(lfFrames).isGreaterThan(500);
   }
+
+
+  /**
+   * Frames are read with the COBS codes of the frame before when the same codes stand at the same
+   * places. Two frames alike but for their last CRC byte, zero in the second, so that only the
+   * codes in the last bytes differ: both must be taken, with their own values.
+   */
+  @Test
+  void framesWhoseZerosMoveAreReadWithTheirOwnCodes() {
+    WireEncoder bin = new WireEncoder(Encoding.BINARY);
+    byte[] a = null;
+    byte[] z = null;
+    RawSample sa = null;
+    RawSample sz = null;
+    byte[] f = new byte[WireEncoder.MAX_SAMPLE_BYTES];
+    byte[] payload = new byte[StreamDecoder.MAX_CANDIDATE];
+    for (int pos = 0x01010101; a == null || z == null; pos++) {
+      if ((pos & 0xFF) == 0 || (pos & 0xFF00) == 0 || (pos & 0xFF0000) == 0) {
+        continue;
+      }
+      RawSample s = new RawSample(7, 300, 5, true, pos); // zeros in time and load
+      int n = bin.sample(f, 0, s);
+      int p = Cobs.decode(f, 0, n - 1, payload);
+      if (payload[p - 2] != 0) {
+        continue; // both frames have a zero high CRC byte
+      }
+      if (payload[p - 1] == 0 && z == null) {
+        z = java.util.Arrays.copyOf(f, n);
+        sz = s;
+      } else if (payload[p - 1] != 0 && a == null) {
+        a = java.util.Arrays.copyOf(f, n);
+        sa = s;
+      }
+    }
+    SampleFastPath fast = new SampleFastPath();
+    for (byte[] frame : List.of(a, z, a, z)) {
+      byte[] buf = java.util.Arrays.copyOf(frame, frame.length + SampleFastPath.SLACK);
+      SampleList got = new SampleList();
+      assertThat(fast.binaryRun(buf, 0, frame.length, true, got)).isEqualTo(frame.length);
+      assertThat(got.samples).containsExactly(frame == a ? sa : sz);
+    }
+  }
 }
