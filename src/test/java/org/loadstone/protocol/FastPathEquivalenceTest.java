@@ -12,10 +12,10 @@ import net.jqwik.api.constraints.IntRange;
 import org.junit.jupiter.api.Test;
 
 /**
- * The one-pass sample parser must decide exactly as the general path. Bytes fed one at a time
- * never reach the one-pass parser (a record is never complete when its first byte arrives), so
- * that decoder is the reference; the same bytes fed whole go through the one-pass parser wherever
- * a record starts at a boundary. Records, order and every counter must agree.
+ * The one-pass sample parser must decide exactly as the general path. The reference is a decoder
+ * that applies the general rules only ({@link StreamDecoder#generalRulesOnly}); the same bytes
+ * fed whole, and in random chunks that cut records, go through the one-pass parser wherever a
+ * record starts at a boundary. Records, order and every counter must agree.
  */
 class FastPathEquivalenceTest {
 
@@ -100,16 +100,28 @@ class FastPathEquivalenceTest {
   }
 
   private static void assertSameDecisions(byte[] wire) {
-    CollectingListener whole = new CollectingListener();
-    StreamDecoder w = new StreamDecoder(whole);
-    w.feed(wire);
-    CollectingListener single = new CollectingListener();
-    StreamDecoder s = new StreamDecoder(single);
+    // the reference: the general rules only, fed one byte at a time
+    CollectingListener reference = new CollectingListener();
+    StreamDecoder r = StreamDecoder.generalRulesOnly(reference, null);
     for (int i = 0; i < wire.length; i++) {
-      s.feed(wire, i, 1);
+      r.feed(wire, i, 1);
     }
-    assertThat(whole.all).containsExactlyElementsOf(single.all);
-    assertThat(w.counters()).isEqualTo(s.counters());
+    // the decoder as used: fed whole, and in random chunks (records cut at the chunk ends)
+    CollectingListener whole = new CollectingListener();
+    StreamDecoder w = new StreamDecoder(whole, null);
+    w.feed(wire);
+    assertThat(whole.all).containsExactlyElementsOf(reference.all);
+    assertThat(w.counters()).isEqualTo(r.counters());
+    CollectingListener chunked = new CollectingListener();
+    StreamDecoder c = new StreamDecoder(chunked, null);
+    Random sizes = new Random(wire.length);
+    for (int i = 0; i < wire.length; ) {
+      int n = Math.min(wire.length - i, 1 + sizes.nextInt(40));
+      c.feed(wire, i, n);
+      i += n;
+    }
+    assertThat(chunked.all).containsExactlyElementsOf(reference.all);
+    assertThat(c.counters()).isEqualTo(r.counters());
   }
 
   /** A mix of valid samples (both encodings), near-valid text lines, damaged frames and noise. */
