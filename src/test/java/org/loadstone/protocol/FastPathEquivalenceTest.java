@@ -100,20 +100,28 @@ class FastPathEquivalenceTest {
   }
 
   private static void assertSameDecisions(byte[] wire) {
+    assertSameDecisions(wire, null);
+  }
+
+  /**
+   * The same bytes fed whole and in random chunks give the records and counters of the general
+   * rules, for a decoder starting in {@code start}.
+   */
+  static void assertSameDecisions(byte[] wire, Encoding start) {
     // the reference: the general rules only, fed one byte at a time
     CollectingListener reference = new CollectingListener();
-    StreamDecoder r = StreamDecoder.generalRulesOnly(reference, null);
+    StreamDecoder r = StreamDecoder.generalRulesOnly(reference, start);
     for (int i = 0; i < wire.length; i++) {
       r.feed(wire, i, 1);
     }
     // the decoder as used: fed whole, and in random chunks (records cut at the chunk ends)
     CollectingListener whole = new CollectingListener();
-    StreamDecoder w = new StreamDecoder(whole, null);
+    StreamDecoder w = new StreamDecoder(whole, start);
     w.feed(wire);
     assertThat(whole.all).containsExactlyElementsOf(reference.all);
     assertThat(w.counters()).isEqualTo(r.counters());
     CollectingListener chunked = new CollectingListener();
-    StreamDecoder c = new StreamDecoder(chunked, null);
+    StreamDecoder c = new StreamDecoder(chunked, start);
     Random sizes = new Random(wire.length);
     for (int i = 0; i < wire.length; ) {
       int n = Math.min(wire.length - i, 1 + sizes.nextInt(40));

@@ -138,7 +138,7 @@ class TextLayoutTest {
       d.feed(wire.toByteArray());
       assertThat(out.samples).as(p[1]).hasSize(5);
       assertThat(d.counters().resyncs()).as(p[1]).isEqualTo(1);
-      assertSameAsByteByByte(wire.toByteArray());
+      assertSameAsGeneralRules(wire.toByteArray());
     }
   }
 
@@ -181,7 +181,7 @@ class TextLayoutTest {
     }
     wire.writeBytes(damaged);
     wire.writeBytes(line(sameShape(shape, r), true, end));
-    assertSameAsByteByByte(wire.toByteArray());
+    assertSameAsGeneralRules(wire.toByteArray());
   }
 
   /** Field spellings of a valid line: digit counts and signs, with edge values mixed in. */
@@ -228,28 +228,7 @@ class TextLayoutTest {
     };
   }
 
-  private static void assertSameAsByteByByte(byte[] wire) {
-    // the reference: the general rules only, fed one byte at a time
-    CollectingListener reference = new CollectingListener();
-    StreamDecoder r = StreamDecoder.generalRulesOnly(reference, Encoding.TEXT);
-    for (int i = 0; i < wire.length; i++) {
-      r.feed(wire, i, 1);
-    }
-    // the decoder as used: fed whole, and in random chunks (records cut at the chunk ends)
-    CollectingListener whole = new CollectingListener();
-    StreamDecoder w = new StreamDecoder(whole, Encoding.TEXT);
-    w.feed(wire);
-    assertThat(whole.all).containsExactlyElementsOf(reference.all);
-    assertThat(w.counters()).isEqualTo(r.counters());
-    CollectingListener chunked = new CollectingListener();
-    StreamDecoder c = new StreamDecoder(chunked, Encoding.TEXT);
-    Random sizes = new Random(wire.length);
-    for (int i = 0; i < wire.length; ) {
-      int n = Math.min(wire.length - i, 1 + sizes.nextInt(40));
-      c.feed(wire, i, n);
-      i += n;
-    }
-    assertThat(chunked.all).containsExactlyElementsOf(reference.all);
-    assertThat(c.counters()).isEqualTo(r.counters());
+  private static void assertSameAsGeneralRules(byte[] wire) {
+    FastPathEquivalenceTest.assertSameDecisions(wire, Encoding.TEXT);
   }
 }
