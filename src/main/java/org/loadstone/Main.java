@@ -7,10 +7,6 @@ public final class Main {
   private Main() {}
 
   public static void main(String[] args) {
-    if (args.length == 0) {
-      org.loadstone.ui.ConsoleLauncher.launch(args);
-      return;
-    }
-    System.exit(LoadstoneCommand.run(args));
+    System.exit(LoadstoneCommand.run(args.length == 0 ? new String[] {"console"} : args));
   }
 }
