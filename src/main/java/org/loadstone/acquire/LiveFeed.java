@@ -4,15 +4,19 @@ import org.loadstone.protocol.DecoderCounters;
 import org.loadstone.units.Precondition;
 
 /**
- * The live view of one device for a display: current force, peak, position and a decimated
- * force–time trace, updated each time {@link #poll()} is called (by the GUI's frame timer or a
- * terminal status line). It reads the sample ring through its own cursor, so a slow display loses
+ * The live view of one device for a display: current force, peak, position, a decimated
+ * force–time trace of the last seconds and a decimated force–crosshead curve since it was last
+ * restarted, updated each time {@link #poll()} is called (by the GUI's frame timer or a terminal
+ * status line). It reads the sample ring through its own cursor, so a slow display loses
  * display points, never recorded samples. One polling thread.
  */
 public final class LiveFeed {
   private final DeviceReader reader;
   private final SampleRing.Cursor cursor;
   private final DisplayTrace trace;
+  private final CurveTrace curve = new CurveTrace(2400);
+  /** Crosshead position where the curve began, NaN until its first point. */
+  private double curveStart_mm = Double.NaN;
   private volatile ForceScale scale;
   private volatile double countsPerMm;
   private double zeroCounts;
@@ -73,6 +77,15 @@ public final class LiveFeed {
     peak_N = Double.NEGATIVE_INFINITY;
   }
 
+  /**
+   * Starts a new force–crosshead curve (for a new specimen): its travel counts from the crosshead's
+   * position at its first sample.
+   */
+  public void restartCurve() {
+    curve.clear();
+    curveStart_mm = Double.NaN;
+  }
+
   /** @return the zero offset in counts */
   public double zeroCounts() {
     return zeroCounts;
@@ -105,14 +118,25 @@ public final class LiveFeed {
       }
       position_mm = hasPos && cpm > 0 ? pos / cpm : Double.NaN;
       trace.add(time_s, force_N);
+      if (!Double.isNaN(position_mm)) {
+        if (Double.isNaN(curveStart_mm)) {
+          curveStart_mm = position_mm;
+        }
+        curve.add(position_mm - curveStart_mm, force_N);
+      }
     }, Integer.MAX_VALUE);
     int n = trace.size();
     double[] t = new double[n];
     double[] f = new double[n];
     int m = trace.copyTo(t, f);
+    int cn = curve.size();
+    double[] cx = new double[cn];
+    double[] cy = new double[cn];
+    int cm = curve.copyTo(cx, cy);
     return new Snapshot(force_N, peak_N == Double.NEGATIVE_INFINITY ? Double.NaN : peak_N,
-        position_mm, time_s, lastCounts, t, f, m, reader.measuredRateHz(), reader.samplesAccepted(),
-        reader.counters(), cursor.lost(), reader.lostReason().orElse(null), taring());
+        position_mm, time_s, lastCounts, t, f, m, cx, cy, cm, reader.measuredRateHz(),
+        reader.samplesAccepted(), reader.counters(), cursor.lost(),
+        reader.lostReason().orElse(null), taring());
   }
 
   /**
@@ -126,6 +150,10 @@ public final class LiveFeed {
    * @param traceTime_s decimated trace times (first {@code traceLength} valid)
    * @param traceForce_N decimated trace forces
    * @param traceLength valid points in the trace arrays
+   * @param curveTravel_mm decimated force–crosshead curve: crosshead travel since the curve began
+   *     (first {@code curveLength} valid; empty without a position channel)
+   * @param curveForce_N decimated force–crosshead curve: force
+   * @param curveLength valid points in the curve arrays
    * @param rateHz measured sample rate
    * @param samples samples received
    * @param counters decoder counters
@@ -135,7 +163,8 @@ public final class LiveFeed {
    * @param taring whether a tare is in progress
    */
   public record Snapshot(double force_N, double peak_N, double position_mm, double time_s,
-      long counts, double[] traceTime_s, double[] traceForce_N, int traceLength, double rateHz,
+      long counts, double[] traceTime_s, double[] traceForce_N, int traceLength,
+      double[] curveTravel_mm, double[] curveForce_N, int curveLength, double rateHz,
       long samples, DecoderCounters counters, long displayLost, String deviceLost,
       boolean taring) {}
 }

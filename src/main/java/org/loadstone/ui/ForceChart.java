@@ -10,23 +10,31 @@ import org.jfree.chart.fx.ChartViewer;
 import org.jfree.chart.plot.PlotOrientation;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
+import org.jfree.chart.title.TextTitle;
 import org.jfree.data.xy.XYSeries;
 import org.jfree.data.xy.XYSeriesCollection;
 
-/** The live force–time chart: one trace, redrawn from a decimated snapshot a few times a second. */
+/**
+ * The live chart: force against time or against crosshead travel, one trace, redrawn from a
+ * decimated snapshot a few times a second.
+ */
 final class ForceChart {
   static final Color BACKGROUND = new Color(0x17, 0x22, 0x26);
   static final Color GRID = new Color(0x2e, 0x3d, 0x42);
   static final Color INK = new Color(0xc9, 0xd6, 0xd2);
   static final Color TRACE = new Color(0xff, 0x8a, 0x5b);
 
+  static final String TIME = "time (s)";
+  static final String TRAVEL = "crosshead travel (mm)";
+
   private final XYSeries series = new XYSeries("force", false, true);
   private final JFreeChart chart;
   private final ChartViewer viewer;
+  private final TextTitle note = new TextTitle("");
 
-  ForceChart(String xLabel) {
+  ForceChart() {
     XYSeriesCollection data = new XYSeriesCollection(series);
-    chart = ChartFactory.createXYLineChart(null, xLabel, "force (N)", data,
+    chart = ChartFactory.createXYLineChart(null, TIME, "force (N)", data,
         PlotOrientation.VERTICAL, false, false, false);
     chart.setBackgroundPaint(BACKGROUND);
     chart.setAntiAlias(true);
@@ -50,7 +58,12 @@ final class ForceChart {
       a.setAxisLinePaint(GRID);
       a.setTickMarkPaint(GRID);
       a.setAutoRangeIncludesZero(true);
+      a.setAutoRangeMinimumSize(2.0);
     }
+    note.setPaint(INK);
+    note.setFont(label);
+    note.setVisible(false);
+    chart.addSubtitle(note);
     viewer = new ChartViewer(chart);
     viewer.setId("force-chart");
   }
@@ -64,7 +77,34 @@ final class ForceChart {
     return series.getItemCount();
   }
 
-  void show(double[] x, double[] y, int n) {
+  /** @return the quantity on the horizontal axis, {@link #TIME} or {@link #TRAVEL} */
+  String xAxis() {
+    return chart.getXYPlot().getDomainAxis().getLabel();
+  }
+
+  /** Force against time since the stream began. */
+  void showAgainstTime(double[] t_s, double[] force_N, int n) {
+    show(TIME, t_s, force_N, n, null);
+  }
+
+  /**
+   * Force against crosshead travel since the curve began.
+   *
+   * @param why shown over the chart when there is no curve to draw, or null
+   */
+  void showAgainstTravel(double[] travel_mm, double[] force_N, int n, String why) {
+    show(TRAVEL, travel_mm, force_N, n, why);
+  }
+
+  private void show(String xLabel, double[] x, double[] y, int n, String why) {
+    if (!xLabel.equals(xAxis())) {
+      NumberAxis axis = (NumberAxis) chart.getXYPlot().getDomainAxis();
+      axis.setLabel(xLabel);
+      // a still crosshead or a fresh stream must not blow a few nanometres up to the full width
+      axis.setAutoRangeMinimumSize(xLabel.equals(TRAVEL) ? 1.0 : 2.0);
+    }
+    note.setText(why == null ? "" : why);
+    note.setVisible(why != null);
     series.setNotify(false);
     series.clear();
     for (int i = 0; i < n; i++) {

@@ -39,13 +39,11 @@ final class LivePane {
   private final Label health = label("health-line", "");
   private final Label state = label("state-chip", "connecting");
   private final Button reconnect = new Button("Reconnect");
-  private final javafx.scene.control.TextField specimenField = new javafx.scene.control.TextField();
-  private final javafx.scene.control.TextField groupField = new javafx.scene.control.TextField();
-  private final Label runState = label("run-state", "no run armed");
-  private final Label runResult = label("run-result", "");
-  private volatile org.loadstone.acquire.Recorder recorder;
-  private int runCount;
-  private final ForceChart chart = new ForceChart("time (s)");
+  private final Button plotAxis = new Button();
+  private final RunPanel run;
+  private final ForceChart chart = new ForceChart();
+  /** Whether the chart shows force against crosshead travel (otherwise against time). */
+  private boolean againstTravel;
   private DeviceReader reader;
   private LiveFeed feed;
   private AnimationTimer timer;
@@ -53,6 +51,17 @@ final class LivePane {
 
   LivePane(ConsoleConfig config) {
     this.config = config;
+    this.run = new RunPanel(config, new RunPanel.Device() {
+      @Override
+      public DeviceReader reader() {
+        return reader;
+      }
+
+      @Override
+      public LiveFeed feed() {
+        return feed;
+      }
+    }, this::newSpecimen);
     build();
   }
 
@@ -60,7 +69,7 @@ final class LivePane {
     return root;
   }
 
-  private static Label label(String id, String text) {
+  static Label label(String id, String text) {
     Label l = new Label(text);
     l.setId(id);
     return l;
@@ -85,10 +94,10 @@ final class LivePane {
     root.setTop(header);
 
     Label forceCaption = label("force-caption", "FORCE  ·  N");
-    Button tare = new Button("Zero  [Z]");
+    Button tare = new Button("Zero [Z]");
     tare.setId("tare-button");
     tare.setOnAction(e -> tare());
-    Button clearPeak = new Button("Clear peak  [P]");
+    Button clearPeak = new Button("Clear peak [P]");
     clearPeak.setId("clear-peak-button");
     clearPeak.setOnAction(e -> clearPeak());
     tare.setMaxWidth(Double.MAX_VALUE);
@@ -98,30 +107,21 @@ final class LivePane {
     reconnect.setVisible(false);
     reconnect.setManaged(false);
     reconnect.setOnAction(e -> connect());
-    specimenField.setId("specimen-field");
-    specimenField.setPromptText("specimen id");
-    groupField.setId("group-field");
-    groupField.setPromptText("group (e.g. balsa)");
-    Button arm = new Button("Arm run  [A]");
-    arm.setId("arm-button");
-    arm.setOnAction(e -> arm());
-    Button stop = new Button("Stop run  [S]");
-    stop.setId("stop-button");
-    stop.setOnAction(e -> stopRun());
-    arm.setMaxWidth(Double.MAX_VALUE);
-    stop.setMaxWidth(Double.MAX_VALUE);
-    runResult.setWrapText(true);
-    Label runCaption = label("run-caption", "RUN");
-    HBox runButtons = new HBox(8, arm, stop);
-    HBox.setHgrow(arm, Priority.ALWAYS);
-    HBox.setHgrow(stop, Priority.ALWAYS);
-    VBox readout = new VBox(6, forceCaption, force, peak, position, raw, spacer(), runCaption,
-        specimenField, groupField, runButtons, runState, runResult, tare, clearPeak, reconnect);
+    plotAxis.setId("plot-axis-button");
+    plotAxis.setMaxWidth(Double.MAX_VALUE);
+    plotAxis.setOnAction(e -> togglePlot());
+    showPlotChoice();
+    HBox zeroAndPeak = new HBox(8, tare, clearPeak);
+    HBox.setHgrow(tare, Priority.ALWAYS);
+    HBox.setHgrow(clearPeak, Priority.ALWAYS);
+    VBox readout = new VBox(6, forceCaption, force, peak, position, raw, spacer(), run.node(),
+        spacer(), zeroAndPeak, plotAxis, reconnect);
     readout.getStyleClass().add("readout");
     readout.setPrefWidth(380);
     root.setLeft(readout);
 
     BorderPane chartBox = new BorderPane(chart.node());
+    chartBox.setBottom(run.figures());
     chartBox.getStyleClass().add("chart-box");
     BorderPane.setMargin(chartBox, new Insets(12, 12, 0, 0));
     root.setCenter(chartBox);
@@ -165,9 +165,11 @@ final class LivePane {
       } else if (e.getCode() == KeyCode.P) {
         clearPeak();
       } else if (e.getCode() == KeyCode.A) {
-        arm();
+        run.arm();
       } else if (e.getCode() == KeyCode.S) {
-        stopRun();
+        run.stop();
+      } else if (e.getCode() == KeyCode.X) {
+        togglePlot();
       }
     });
   }
@@ -175,85 +177,30 @@ final class LivePane {
   private void tare() {
     if (feed != null) {
       feed.tare(20);
+      feed.restartCurve();
     }
   }
 
   private void clearPeak() {
+    newSpecimen();
+  }
+
+  /** A new specimen: its own peak and its own force–crosshead curve. */
+  private void newSpecimen() {
     if (feed != null) {
       feed.resetPeak();
+      feed.restartCurve();
     }
   }
 
-  /**
-   * Arms a hands-free run: it starts when load reaches the start threshold, stops by itself at the
-   * load drop (or overload), and is stored in the archive through the journal.
-   */
-  void arm() {
-    org.loadstone.acquire.Recorder r = recorder;
-    if (reader == null || feed == null
-        || (r != null && r.status().state() != org.loadstone.acquire.RunControl.State.FINISHED
-            && r.failure().isEmpty() && !runEnded)) {
-      return;
-    }
-    if (feed.taring()) {
-      runResult.setText("wait for the zero to finish, then arm");
-      return;
-    }
-    try {
-      org.loadstone.acquire.RunSettings settings = org.loadstone.acquire.RunSettings.builder()
-          .ratedCapacity_N(config.ratedCapacity_N()).build();
-      org.loadstone.acquire.JournalRunStore store =
-          new org.loadstone.acquire.JournalRunStore(config.archive());
-      store.checkWritable();
-      String spec = specimenField.getText().isBlank() ? "specimen-" + (++runCount)
-          : specimenField.getText().trim();
-      double rate = reader.identity().map(id -> id.rateHz()).filter(x -> x > 0).orElse(80.0);
-      org.loadstone.archive.RunMetadata template = new org.loadstone.acquire.RunTemplate(spec,
-          groupField.getText().trim(), java.util.List.of(), "", "", null,
-          org.loadstone.archive.Geometry.NONE, org.loadstone.archive.TestType.THREE_POINT_BEND)
-          .build(config.archive(), reader, config.deviceFields(), rate, config.scale(),
-              feed.zeroCounts(), settings.pretrigger_s(), settings.startThreshold_N(),
-              String.valueOf(LivePane.class.getPackage().getImplementationVersion()));
-      runEnded = false;
-      recorder = new org.loadstone.acquire.Recorder(reader, config.scale().scale(),
-          feed.zeroCounts(), settings, template, store, new RunEvents());
-      recorder.arm();
-      runResult.setText(config.scale().warnings().isEmpty() ? ""
-          : "note: " + config.scale().warnings().get(0));
-    } catch (LoadstoneException e) {
-      runResult.setText(e.getMessage());
-    }
+  private void togglePlot() {
+    againstTravel = !againstTravel;
+    showPlotChoice();
+    lastChartNanos = 0; // redraw at the next frame
   }
 
-  private volatile boolean runEnded;
-
-  void stopRun() {
-    org.loadstone.acquire.Recorder r = recorder;
-    if (r != null) {
-      r.stop();
-    }
-  }
-
-  /** Run events arrive on the recorder's thread; labels change on the JavaFX thread. */
-  private final class RunEvents implements org.loadstone.acquire.Recorder.Listener {
-    @Override
-    public void onWarning(String text) {
-      javafx.application.Platform.runLater(() -> runResult.setText(text));
-    }
-
-    @Override
-    public void onFinished(org.loadstone.acquire.Recorder.Result r) {
-      runEnded = true;
-      String text = String.format(Locale.ROOT, "run %s: %s · peak %s N · %d samples",
-          r.stored().runId(), r.cause().wireName(), fmt(r.peak_N()), r.samples());
-      javafx.application.Platform.runLater(() -> runResult.setText(text));
-    }
-
-    @Override
-    public void onFailed(String why) {
-      runEnded = true;
-      javafx.application.Platform.runLater(() -> runResult.setText(why));
-    }
+  private void showPlotChoice() {
+    plotAxis.setText(againstTravel ? "Plot against time  [X]" : "Plot against crosshead  [X]");
   }
 
   /** Opens the device and starts the display timer. */
@@ -294,16 +241,7 @@ final class LivePane {
     if (timer != null) {
       timer.stop();
     }
-    org.loadstone.acquire.Recorder r = recorder;
-    if (r != null) {
-      r.stop();
-      try {
-        r.await(5, java.util.concurrent.TimeUnit.SECONDS);
-      } catch (InterruptedException e) {
-        Thread.currentThread().interrupt();
-      }
-      r.close();
-    }
+    run.close();
     if (reader != null) {
       reader.close();
       reader = null;
@@ -323,20 +261,15 @@ final class LivePane {
             + "resyncs %d%s",
         s.rateHz(), s.samples(), c.dropped(), c.checksumErrors(), c.resyncs(),
         s.displayLost() > 0 ? "   ·   display skipped " + s.displayLost() : ""));
-    org.loadstone.acquire.Recorder r = recorder;
-    if (r != null) {
-      org.loadstone.acquire.RunControl.State st = r.status().state();
-      runState.setText(switch (st) {
-        case IDLE -> "no run armed";
-        case ARMED -> "armed: waiting for load";
-        case RECORDING -> "recording";
-        case TAIL -> "break: recording the tail";
-        case FINISHED -> runEnded ? "run stored" : "finishing…";
-      });
-    }
+    run.refresh();
     if (now - lastChartNanos > 100_000_000L) {
       lastChartNanos = now;
-      chart.show(s.traceTime_s(), s.traceForce_N(), s.traceLength());
+      if (againstTravel) {
+        chart.showAgainstTravel(s.curveTravel_mm(), s.curveForce_N(), s.curveLength(),
+            Double.isNaN(s.position_mm()) ? "this device sends no crosshead position" : null);
+      } else {
+        chart.showAgainstTime(s.traceTime_s(), s.traceForce_N(), s.traceLength());
+      }
     }
     if (s.deviceLost() != null) {
       timer.stop();
@@ -367,7 +300,11 @@ final class LivePane {
   }
 
   Label runResult() {
-    return runResult;
+    return run.result();
+  }
+
+  RunPanel run() {
+    return run;
   }
 
   LiveFeed feed() {

@@ -87,6 +87,7 @@ class LivePaneTest {
     robot.interact(() -> {
       robot.lookup("#specimen-field").queryAs(javafx.scene.control.TextField.class).setText("gui-01");
       robot.lookup("#group-field").queryAs(javafx.scene.control.TextField.class).setText("test");
+      robot.lookup("#mass-field").queryAs(javafx.scene.control.TextField.class).setText("37,5");
     });
     robot.clickOn("#arm-button");
     WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
@@ -95,9 +96,47 @@ class LivePaneTest {
     WaitForAsyncUtils.waitFor(60, TimeUnit.SECONDS,
         () -> pane.runResult().getText().startsWith("run "));
     assertThat(pane.runResult().getText()).contains(": break").contains("gui-01");
+    java.nio.file.Path csv;
     try (var files = java.nio.file.Files.list(archive)) {
-      assertThat(files.map(f -> f.getFileName().toString()))
-          .anySatisfy(n -> assertThat(n).endsWith("gui-01.csv"));
+      csv = files.filter(f -> f.getFileName().toString().endsWith("gui-01.csv")).findFirst()
+          .orElseThrow();
     }
+    // the post-run figures are the archive's analysis of the stored run
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS,
+        () -> robot.lookup("#figure-stiffness").tryQuery().isPresent());
+    var run = org.loadstone.archive.RunReader.read(csv);
+    var m = org.loadstone.archive.RunMetrics.of(run.metadata(), run.data());
+    assertThat(robot.lookup("#figure-peak").queryAs(Label.class).getText())
+        .isEqualTo(RunPanel.fmt(m.analysis().peakForce_N(), "N"));
+    assertThat(robot.lookup("#figure-stiffness").queryAs(Label.class).getText())
+        .isEqualTo(RunPanel.fmt(m.analysis().stiffness_N_per_mm().getAsDouble(), "N/mm"));
+    assertThat(robot.lookup("#figure-energy").queryAs(Label.class).getText())
+        .isEqualTo(RunPanel.fmt(m.analysis().energyToBreak_J().getAsDouble(), "J"));
+    assertThat(run.metadata().mass_g()).isEqualTo(37.5);
+    assertThat(robot.lookup("#figure-per-gram").queryAs(Label.class).getText())
+        .isEqualTo(RunPanel.fmt(m.analysis().peakForce_N() / 37.5, "N/g"));
+  }
+
+  @Test
+  void plotsForceAgainstCrossheadTravelOnX(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> pane.chart().pointCount() > 20);
+    assertThat(pane.chart().xAxis()).isEqualTo(ForceChart.TIME);
+    robot.clickOn("#force-chart");
+    robot.type(javafx.scene.input.KeyCode.X);
+    WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
+        () -> pane.chart().xAxis().equals(ForceChart.TRAVEL) && pane.chart().pointCount() > 5);
+    assertThat(robot.lookup("#plot-axis-button").queryAs(javafx.scene.control.Button.class)
+        .getText()).contains("time");
+  }
+
+  @Test
+  void aMassThatIsNotANumberIsRefusedBeforeArming(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !pane.feed().taring());
+    robot.interact(() -> robot.lookup("#mass-field")
+        .queryAs(javafx.scene.control.TextField.class).setText("41.2g"));
+    robot.clickOn("#arm-button");
+    WaitForAsyncUtils.waitForFxEvents();
+    assertThat(pane.runResult().getText()).contains("mass '41.2g'").contains("grams");
+    assertThat(robot.lookup("#run-state").queryAs(Label.class).getText()).isEqualTo("no run armed");
   }
 }

@@ -1,0 +1,301 @@
+package org.loadstone.ui;
+
+import java.util.List;
+import java.util.Locale;
+import java.util.OptionalDouble;
+import java.util.concurrent.TimeUnit;
+import java.util.function.Supplier;
+import javafx.application.Platform;
+import javafx.scene.Parent;
+import javafx.scene.control.Button;
+import javafx.scene.control.Label;
+import javafx.scene.control.TextField;
+import javafx.scene.layout.FlowPane;
+import javafx.scene.layout.HBox;
+import javafx.scene.layout.Priority;
+import javafx.scene.layout.VBox;
+import org.loadstone.acquire.DeviceReader;
+import org.loadstone.acquire.JournalRunStore;
+import org.loadstone.acquire.LiveFeed;
+import org.loadstone.acquire.Recorder;
+import org.loadstone.acquire.RunControl;
+import org.loadstone.acquire.RunSettings;
+import org.loadstone.acquire.RunTemplate;
+import org.loadstone.archive.Geometry;
+import org.loadstone.archive.Run;
+import org.loadstone.archive.RunMetadata;
+import org.loadstone.archive.RunMetrics;
+import org.loadstone.archive.RunReader;
+import org.loadstone.archive.TestType;
+import org.loadstone.units.LoadstoneException;
+
+/**
+ * The run section of the console: specimen, group and mass; arm and stop; the run's state; and,
+ * once a run is stored, its post-run figures (peak, break, stiffness, energy, per gram) as the
+ * archive's analysis gives them. Thin: recording is {@link Recorder}'s, figures {@link
+ * RunMetrics}'.
+ */
+final class RunPanel {
+  /** Where the device and its live feed are, once connected. */
+  interface Device {
+    DeviceReader reader();
+
+    LiveFeed feed();
+  }
+
+  private final ConsoleConfig config;
+  private final Device device;
+  private final Runnable onArmed;
+  private final TextField specimenField = field("specimen-field", "specimen id");
+  private final TextField groupField = field("group-field", "group (e.g. balsa)");
+  private final TextField massField = field("mass-field", "mass (g)");
+  private final Label runState = LivePane.label("run-state", "no run armed");
+  private final Label runResult = LivePane.label("run-result", "");
+  /** The last run's figures, as tiles: a name over a large value. */
+  private final FlowPane figures = new FlowPane(28, 8);
+  private final VBox root;
+  private volatile Recorder recorder;
+  private volatile boolean runEnded;
+  private int runCount;
+
+  /**
+   * @param config the console's device and archive
+   * @param device the connected device, or nulls before it is
+   * @param onArmed run on the JavaFX thread when a run is armed (a new specimen: new peak, new
+   *     curve)
+   */
+  RunPanel(ConsoleConfig config, Device device, Runnable onArmed) {
+    this.config = config;
+    this.device = device;
+    this.onArmed = onArmed;
+    Button arm = new Button("Arm run  [A]");
+    arm.setId("arm-button");
+    arm.setOnAction(e -> arm());
+    Button stop = new Button("Stop run  [S]");
+    stop.setId("stop-button");
+    stop.setOnAction(e -> stop());
+    arm.setMaxWidth(Double.MAX_VALUE);
+    stop.setMaxWidth(Double.MAX_VALUE);
+    HBox buttons = new HBox(8, arm, stop);
+    HBox.setHgrow(arm, Priority.ALWAYS);
+    HBox.setHgrow(stop, Priority.ALWAYS);
+    HBox idLine = new HBox(8, groupField, massField);
+    HBox.setHgrow(groupField, Priority.ALWAYS);
+    massField.setPrefWidth(110);
+    runResult.setWrapText(true);
+    figures.setId("run-figures");
+    figures.getStyleClass().add("run-figures");
+    showFigures(false);
+    root = new VBox(6, LivePane.label("run-caption", "RUN"), specimenField, idLine, buttons,
+        runState, runResult);
+  }
+
+  private static TextField field(String id, String prompt) {
+    TextField f = new TextField();
+    f.setId(id);
+    f.setPromptText(prompt);
+    return f;
+  }
+
+  Parent node() {
+    return root;
+  }
+
+  Label result() {
+    return runResult;
+  }
+
+  /** The last run's figures, for a place of their own (empty until a run is stored). */
+  FlowPane figures() {
+    return figures;
+  }
+
+  /**
+   * Arms a hands-free run: it starts when load reaches the start threshold, stops by itself at the
+   * load drop (or overload), and is stored in the archive through the journal.
+   */
+  void arm() {
+    DeviceReader reader = device.reader();
+    LiveFeed feed = device.feed();
+    Recorder r = recorder;
+    if (reader == null || feed == null || (r != null && !runEnded
+        && r.status().state() != RunControl.State.FINISHED && r.failure().isEmpty())) {
+      return;
+    }
+    if (feed.taring()) {
+      runResult.setText("wait for the zero to finish, then arm");
+      return;
+    }
+    try {
+      Double mass_g = mass();
+      RunSettings settings = RunSettings.builder().ratedCapacity_N(config.ratedCapacity_N()).build();
+      JournalRunStore store = new JournalRunStore(config.archive());
+      store.checkWritable();
+      String specimen = specimenField.getText().isBlank() ? "specimen-" + (++runCount)
+          : specimenField.getText().trim();
+      double rate = reader.identity().map(id -> id.rateHz()).filter(x -> x > 0).orElse(80.0);
+      RunMetadata template = new RunTemplate(specimen, groupField.getText().trim(), List.of(),
+          "", "", mass_g, Geometry.NONE, TestType.THREE_POINT_BEND)
+          .build(config.archive(), reader, config.deviceFields(), rate, config.scale(),
+              feed.zeroCounts(), settings.pretrigger_s(), settings.startThreshold_N(),
+              String.valueOf(RunPanel.class.getPackage().getImplementationVersion()));
+      runEnded = false;
+      figures.getChildren().clear();
+      showFigures(false);
+      recorder = new Recorder(reader, config.scale().scale(), feed.zeroCounts(), settings,
+          template, store, new Events());
+      recorder.arm();
+      onArmed.run();
+      runResult.setText(config.scale().warnings().isEmpty() ? ""
+          : "note: " + config.scale().warnings().get(0));
+    } catch (LoadstoneException e) {
+      runResult.setText(e.getMessage());
+    }
+  }
+
+  /** The mass typed in, or null when the field is empty. */
+  private Double mass() {
+    String t = massField.getText().trim().replace(',', '.');
+    if (t.isEmpty()) {
+      return null;
+    }
+    try {
+      double v = Double.parseDouble(t);
+      if (v > 0 && Double.isFinite(v)) {
+        return v;
+      }
+    } catch (NumberFormatException e) {
+      // reported below
+    }
+    throw new LoadstoneException("mass '" + massField.getText().trim()
+        + "' is not a specimen mass in grams: type a positive number such as 38.5, or leave it "
+        + "empty");
+  }
+
+  void stop() {
+    Recorder r = recorder;
+    if (r != null) {
+      r.stop();
+    }
+  }
+
+  /** Called every display frame: the run's state in words. */
+  void refresh() {
+    Recorder r = recorder;
+    if (r != null) {
+      runState.setText(switch (r.status().state()) {
+        case IDLE -> "no run armed";
+        case ARMED -> "armed: waiting for load";
+        case RECORDING -> "recording";
+        case TAIL -> "break: recording the tail";
+        case FINISHED -> runEnded ? "run stored" : "finishing…";
+      });
+    }
+  }
+
+  /** Stops a run in progress, waits for it to be stored, and lets the recorder go. */
+  void close() {
+    Recorder r = recorder;
+    if (r != null) {
+      r.stop();
+      try {
+        r.await(5, TimeUnit.SECONDS);
+      } catch (InterruptedException e) {
+        Thread.currentThread().interrupt();
+      }
+      r.close();
+    }
+  }
+
+  /** Run events arrive on the recorder's thread; labels change on the JavaFX thread. */
+  private final class Events implements Recorder.Listener {
+    @Override
+    public void onWarning(String text) {
+      Platform.runLater(() -> runResult.setText(text));
+    }
+
+    @Override
+    public void onFinished(Recorder.Result r) {
+      runEnded = true;
+      String text = String.format(Locale.ROOT, "run %s: %s · %d samples", r.stored().runId(),
+          r.cause().wireName(), r.samples());
+      Platform.runLater(() -> runResult.setText(text));
+      analyse(r.stored().csv());
+    }
+
+    @Override
+    public void onFailed(String why) {
+      runEnded = true;
+      Platform.runLater(() -> runResult.setText(why));
+    }
+  }
+
+  /** Reads the stored run back and shows its figures; off the JavaFX thread. */
+  private void analyse(java.nio.file.Path csv) {
+    Supplier<Runnable> work = () -> {
+      try {
+        Run run = RunReader.read(csv);
+        RunMetrics m = RunMetrics.of(run.metadata(), run.data());
+        return () -> show(m);
+      } catch (LoadstoneException e) {
+        return () -> runResult.setText(runResult.getText() + " · not analysed: " + e.getMessage());
+      }
+    };
+    Thread t = new Thread(() -> Platform.runLater(work.get()), "post-run analysis");
+    t.setDaemon(true);
+    t.start();
+  }
+
+  private void showFigures(boolean on) {
+    figures.setVisible(on);
+    figures.setManaged(on);
+  }
+
+  private void show(RunMetrics m) {
+    figures.getChildren().clear();
+    showFigures(true);
+    var r = m.analysis();
+    tile("peak", fmt(r.peakForce_N(), "N"), at(r.displacementAtPeak_mm()));
+    r.breakPoint().ifPresent(b -> tile("break", fmt(b.force_N(), "N"),
+        at(r.displacementAtBreak_mm())));
+    tile("stiffness", r.stiffness().map(s -> fmt(s.slope_N_per_mm(), "N/mm")).orElse("—"),
+        r.stiffness().map(s -> String.format(Locale.ROOT, "R² %.4f", s.rSquared())).orElse(""));
+    tile("energy", opt(r.energyToBreak_J(), "J"), "to break · " + opt(r.energyToPeak_J(), "J")
+        + " to peak");
+    if (m.specificPeak_N_per_g().isPresent()) {
+      tile("per gram", opt(m.specificPeak_N_per_g(), "N/g"),
+          opt(m.specificEnergyToBreak_J_per_g(), "J/g") + " to break");
+    }
+    if (!m.notes().isEmpty()) {
+      Label note = LivePane.label("run-note", "note: " + m.notes().get(0));
+      note.setWrapText(true);
+      figures.getChildren().add(note);
+    }
+  }
+
+  private void tile(String name, String value, String detail) {
+    Label k = new Label(name.toUpperCase(Locale.ROOT));
+    k.getStyleClass().add("figure-name");
+    Label v = new Label(value);
+    v.getStyleClass().add("figure-value");
+    v.setId("figure-" + name.replace(' ', '-'));
+    Label d = new Label(detail);
+    d.getStyleClass().add("figure-detail");
+    figures.getChildren().add(new VBox(2, k, v, d));
+  }
+
+  private static String at(OptionalDouble travel_mm) {
+    return travel_mm.isPresent()
+        ? String.format(Locale.ROOT, "at %.2f mm", travel_mm.getAsDouble()) : "";
+  }
+
+  private static String opt(OptionalDouble v, String unit) {
+    return v.isPresent() ? fmt(v.getAsDouble(), unit) : "—";
+  }
+
+  static String fmt(double v, String unit) {
+    double a = Math.abs(v);
+    String f = a >= 1000 ? "%.0f" : a >= 100 ? "%.1f" : a >= 1 ? "%.2f" : "%.3g";
+    return String.format(Locale.ROOT, f, v) + " " + unit;
+  }
+}
