@@ -222,7 +222,7 @@ public final class RecordCommand implements Callable<Integer> {
         say(err, reader.lostReason().orElse("stopped before any load: no run recorded"));
         return reader.lostReason().isPresent() ? LoadstoneCommand.EXIT_DEVICE_LOST : 0;
       }
-      report(result.get(), out);
+      RecordSummary.print(result.get(), json, archive.archive, out);
       return 0;
     } finally {
       reader.close();
@@ -321,29 +321,6 @@ public final class RecordCommand implements Callable<Integer> {
       m.put("sim_seed", Long.toString(device.seed));
     }
     return m;
-  }
-
-  private void report(Recorder.Result r, PrintWriter out) throws Exception {
-    BreakDetector.Break b = r.breakDetail();
-    if (json) {
-      Map<String, Object> m = new LinkedHashMap<>();
-      m.put("run_id", r.stored().runId());
-      m.put("cause", r.cause().wireName());
-      m.put("peak_N", r.peak_N());
-      m.put("samples", r.samples());
-      m.put("dropped", r.dropped());
-      m.put("checksum_errors", r.checksumErrors());
-      m.put("break_drop_pct", b == null ? null : b.dropPct());
-      m.put("csv", r.stored().csv().toString());
-      m.put("json", r.stored().json().toString());
-      out.println(new ObjectMapper().writeValueAsString(m));
-    } else {
-      out.printf(Locale.ROOT, "run %s: %s, peak %.2f N, %d samples, %d dropped%n",
-          r.stored().runId(), r.cause().wireName(), r.peak_N(), r.samples(), r.dropped());
-      out.println("  " + r.stored().csv());
-      out.println("  " + r.stored().json());
-    }
-    out.flush();
   }
 
   static void say(PrintWriter err, String text) {

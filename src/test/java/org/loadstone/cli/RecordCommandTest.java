@@ -63,6 +63,14 @@ class RecordCommandTest {
     assertThat(run.data().size()).isEqualTo(j.get("samples").asInt());
     assertThat(Files.list(tmp.resolve(".journal")).count()).as("journal removed").isZero();
     assertThat(r.err()).contains("no calibration");
+    // the post-run figures are the archive's analysis of the stored run
+    var m = org.loadstone.archive.RunMetrics.of(run.metadata(), run.data());
+    assertThat(j.get("stiffness_N_per_mm").asDouble())
+        .isEqualTo(m.analysis().stiffness_N_per_mm().getAsDouble());
+    assertThat(j.get("energy_to_break_J").asDouble())
+        .isEqualTo(m.analysis().energyToBreak_J().getAsDouble());
+    assertThat(j.get("specific_peak_N_per_g").asDouble())
+        .isEqualTo(m.analysis().peakForce_N() / 61.5);
   }
 
   @Test

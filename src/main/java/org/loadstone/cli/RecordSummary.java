@@ -1,0 +1,84 @@
+package org.loadstone.cli;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.OptionalDouble;
+import org.loadstone.acquire.BreakDetector;
+import org.loadstone.acquire.Recorder;
+import org.loadstone.archive.Run;
+import org.loadstone.archive.RunMetrics;
+import org.loadstone.archive.RunReader;
+import org.loadstone.units.LoadstoneException;
+
+/**
+ * What {@code loadstone record} prints when a run is stored: the run, its files, and the post-run
+ * figures of the stored run as {@code loadstone analyze} computes them.
+ */
+final class RecordSummary {
+  private RecordSummary() {}
+
+  /**
+   * @param r the stored run
+   * @param json one JSON object instead of text
+   * @param archive the {@code --archive} given, or null
+   */
+  static void print(Recorder.Result r, boolean json, Path archive, PrintWriter out)
+      throws Exception {
+    BreakDetector.Break b = r.breakDetail();
+    RunMetrics metrics = null;
+    String notAnalysed = null;
+    try {
+      Run run = RunReader.read(r.stored().csv());
+      metrics = RunMetrics.of(run.metadata(), run.data());
+    } catch (LoadstoneException e) {
+      notAnalysed = e.getMessage();
+    }
+    if (json) {
+      Map<String, Object> m = new LinkedHashMap<>();
+      m.put("run_id", r.stored().runId());
+      m.put("cause", r.cause().wireName());
+      m.put("peak_N", r.peak_N());
+      m.put("samples", r.samples());
+      m.put("dropped", r.dropped());
+      m.put("checksum_errors", r.checksumErrors());
+      m.put("break_drop_pct", b == null ? null : b.dropPct());
+      m.put("csv", r.stored().csv().toString());
+      m.put("json", r.stored().json().toString());
+      if (metrics != null) {
+        Map<String, Object> a = metrics.toJsonMap();
+        for (String k : new String[] {"stiffness_N_per_mm", "energy_to_peak_J",
+            "energy_to_break_J", "specific_peak_N_per_g"}) {
+          m.put(k, a.get(k));
+        }
+      }
+      out.println(new ObjectMapper().writeValueAsString(m));
+    } else {
+      out.printf(Locale.ROOT, "run %s: %s, peak %.2f N, %d samples, %d dropped%n",
+          r.stored().runId(), r.cause().wireName(), r.peak_N(), r.samples(), r.dropped());
+      out.println("  " + r.stored().csv());
+      out.println("  " + r.stored().json());
+      if (metrics != null) {
+        var a = metrics.analysis();
+        out.printf(Locale.ROOT, "stiffness %s, energy %s to break, %s to peak%s%n",
+            a.stiffness().map(s -> String.format(Locale.ROOT, "%.4g N/mm (R² %.4f)",
+                s.slope_N_per_mm(), s.rSquared())).orElse("-"),
+            joules(a.energyToBreak_J()), joules(a.energyToPeak_J()),
+            metrics.specificPeak_N_per_g().isPresent() ? String.format(Locale.ROOT,
+                ", peak %.4g N/g", metrics.specificPeak_N_per_g().getAsDouble()) : "");
+        out.println("details: loadstone analyze " + r.stored().runId()
+            + (archive != null ? " --archive " + archive : ""));
+      } else {
+        out.println("not analysed: " + notAnalysed);
+      }
+    }
+    out.flush();
+  }
+
+  private static String joules(OptionalDouble e_J) {
+    return e_J.isPresent() ? String.format(Locale.ROOT, "%.4g J", e_J.getAsDouble()) : "-";
+  }
+}
