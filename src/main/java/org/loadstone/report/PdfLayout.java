@@ -35,6 +35,17 @@ final class PdfLayout implements AutoCloseable {
   private static final Color CAUTION = new Color(0xFB, 0xF3, 0xE6);
   private static final Color CAUTION_EDGE = new Color(0xB8, 0x86, 0x4B);
 
+  /**
+   * The standard PDF fonts are referenced, not embedded; PDFBox warns once per font that it would
+   * render them with a substitute from this machine, which does not affect the file written.
+   */
+  private static final java.util.logging.Logger FONT_LOG =
+      java.util.logging.Logger.getLogger("org.apache.pdfbox.pdmodel.font");
+
+  static {
+    FONT_LOG.setLevel(java.util.logging.Level.SEVERE);
+  }
+
   final PDDocument doc = new PDDocument();
   private final PDType1Font regular = new PDType1Font(Standard14Fonts.FontName.HELVETICA);
   private final PDType1Font bold = new PDType1Font(Standard14Fonts.FontName.HELVETICA_BOLD);
