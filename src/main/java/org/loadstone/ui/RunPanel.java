@@ -71,6 +71,9 @@ final class RunPanel {
     Button arm = new Button("Arm run  [A]");
     arm.setId("arm-button");
     arm.setOnAction(e -> arm());
+    for (TextField f : new TextField[] {specimenField, groupField, massField}) {
+      f.setOnAction(e -> arm()); // Enter after typing the specimen arms the run
+    }
     Button stop = new Button("Stop run  [S]");
     stop.setId("stop-button");
     stop.setOnAction(e -> stop());
@@ -145,6 +148,7 @@ final class RunPanel {
       recorder = new Recorder(reader, config.scale().scale(), feed.zeroCounts(), settings,
           template, store, new Events());
       recorder.arm();
+      root.requestFocus(); // out of the text fields, so the one-key commands (S: stop) work
       onArmed.run();
       runResult.setText(config.scale().warnings().isEmpty() ? ""
           : "note: " + config.scale().warnings().get(0));

@@ -89,7 +89,7 @@ class LivePaneTest {
       robot.lookup("#group-field").queryAs(javafx.scene.control.TextField.class).setText("test");
       robot.lookup("#mass-field").queryAs(javafx.scene.control.TextField.class).setText("37,5");
     });
-    robot.clickOn("#arm-button");
+    robot.clickOn("#specimen-field").type(javafx.scene.input.KeyCode.ENTER); // Enter arms
     WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
         () -> robot.lookup("#run-state").queryAs(Label.class).getText().contains("armed")
             || robot.lookup("#run-state").queryAs(Label.class).getText().contains("recording"));
