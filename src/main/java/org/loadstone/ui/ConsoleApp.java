@@ -2,9 +2,11 @@ package org.loadstone.ui;
 
 import javafx.application.Application;
 import javafx.scene.Scene;
+import javafx.scene.control.Tab;
+import javafx.scene.control.TabPane;
 import javafx.stage.Stage;
 
-/** The JavaFX application: one window with the live pane. */
+/** The JavaFX application: one window, the live pane and the archive review as tabs. */
 public final class ConsoleApp extends Application {
   private static volatile ConsoleConfig config;
   private LivePane live;
@@ -25,11 +27,25 @@ public final class ConsoleApp extends Application {
 
   @Override
   public void start(Stage stage) {
-    live = new LivePane(config());
-    Scene scene = new Scene(live.root(), 1280, 760);
+    ConsoleConfig c = config();
+    live = new LivePane(c);
+    ArchivePane archive = new ArchivePane(c.archive());
+    Tab liveTab = new Tab("Live", live.root());
+    Tab archiveTab = new Tab("Archive", archive.root());
+    liveTab.setId("live-tab");
+    archiveTab.setId("archive-tab");
+    TabPane tabs = new TabPane(liveTab, archiveTab);
+    tabs.setTabClosingPolicy(TabPane.TabClosingPolicy.UNAVAILABLE);
+    tabs.getStyleClass().add("console-tabs");
+    archiveTab.setOnSelectionChanged(e -> {
+      if (archiveTab.isSelected()) {
+        archive.reload(); // runs stored since it was last looked at
+      }
+    });
+    Scene scene = new Scene(tabs, 1280, 800);
     scene.getStylesheets().add(
         ConsoleApp.class.getResource("/org/loadstone/ui/console.css").toExternalForm());
-    live.installKeys(scene);
+    live.installKeys(scene, liveTab::isSelected);
     stage.setTitle("Loadstone — live");
     stage.setScene(scene);
     stage.setMinWidth(900);

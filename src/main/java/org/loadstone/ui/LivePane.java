@@ -156,9 +156,17 @@ final class LivePane {
   }
 
   void installKeys(Scene scene) {
+    installKeys(scene, () -> true);
+  }
+
+  /**
+   * The one-key commands (Z, P, A, S, X), active while {@code active} says so (the live view is
+   * the one shown) and not while typing in a field.
+   */
+  void installKeys(Scene scene, java.util.function.BooleanSupplier active) {
     scene.setOnKeyPressed(e -> {
-      if (e.getTarget() instanceof javafx.scene.control.TextField) {
-        return; // typing a specimen id, not a shortcut
+      if (!active.getAsBoolean() || e.getTarget() instanceof javafx.scene.control.TextInputControl) {
+        return; // typing a specimen id, or looking at the archive: not a shortcut
       }
       if (e.getCode() == KeyCode.Z) {
         tare();

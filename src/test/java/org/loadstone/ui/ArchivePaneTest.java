@@ -1,0 +1,96 @@
+package org.loadstone.ui;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import javafx.scene.Scene;
+import javafx.scene.control.Label;
+import javafx.scene.control.TableView;
+import javafx.stage.Stage;
+import org.jfree.chart.fx.ChartViewer;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.extension.ExtendWith;
+import org.loadstone.analysis.AnalysisSettings;
+import org.loadstone.analysis.stats.ComparisonResult;
+import org.loadstone.analysis.stats.GroupSummary;
+import org.loadstone.archive.ArchiveIndex;
+import org.loadstone.archive.GroupStudy;
+import org.loadstone.archive.RunMetrics;
+import org.testfx.api.FxRobot;
+import org.testfx.framework.junit5.ApplicationExtension;
+import org.testfx.framework.junit5.Start;
+import org.testfx.util.WaitForAsyncUtils;
+
+/** The archive review in a real JavaFX scene (headless Monocle), on the demo archive. */
+@ExtendWith(ApplicationExtension.class)
+class ArchivePaneTest {
+  private static final Path DEMO = Path.of("sample-runs");
+  private ArchivePane pane;
+
+  @Start
+  void start(Stage stage) {
+    pane = new ArchivePane(DEMO);
+    Scene scene = new Scene(pane.root(), 1200, 760);
+    scene.getStylesheets().add(
+        ArchivePane.class.getResource("/org/loadstone/ui/console.css").toExternalForm());
+    stage.setScene(scene);
+    stage.show();
+    pane.reload();
+  }
+
+  @Test
+  void listsTheRunsAndComparesTheGroupsAsTheArchiveStudyDoes(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> pane.table().getItems().size() == 15);
+    WaitForAsyncUtils.waitForFxEvents(); // the charts are drawn in the same step as the list
+    WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
+        () -> robot.lookup("#archive-groups").tryQuery().isPresent());
+    ComparisonResult expected = GroupStudy.compare(
+        GroupStudy.load(ArchiveIndex.scan(DEMO).entries(), AnalysisSettings.DEFAULTS),
+        GroupStudy.Metric.PEAK, 0.10).comparison();
+    @SuppressWarnings("unchecked")
+    TableView<GroupSummary> groups = robot.lookup("#archive-groups").queryAs(TableView.class);
+    assertThat(groups.getItems()).containsExactlyElementsOf(expected.groups());
+    assertThat(robot.lookup("#archive-sentence").queryAs(Label.class).getText())
+        .isEqualTo(expected.sentence());
+    assertThat(robot.lookup("#archive-test").queryAs(Label.class).getText())
+        .startsWith("one-way ANOVA, p = ");
+
+    // another figure: the stiffness comparison
+    robot.interact(() -> pane.metric().setValue(GroupStudy.Metric.STIFFNESS));
+    WaitForAsyncUtils.waitForFxEvents();
+    @SuppressWarnings("unchecked")
+    TableView<GroupSummary> byStiffness = robot.lookup("#archive-groups").queryAs(TableView.class);
+    assertThat(byStiffness.getItems().get(0).mean()).isEqualTo(GroupStudy.compare(
+        GroupStudy.load(ArchiveIndex.scan(DEMO).entries(), AnalysisSettings.DEFAULTS),
+        GroupStudy.Metric.STIFFNESS, 0.10).comparison().groups().get(0).mean());
+  }
+
+  @Test
+  void picksRunsToOverlayAndSaysWhyOneGroupCannotBeCompared(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> pane.table().getItems().size() == 15);
+    WaitForAsyncUtils.waitForFxEvents(); // the charts are drawn in the same step as the list
+    assertThat(seriesIn("#archive-curves", robot)).isEqualTo(15);
+    robot.interact(() -> {
+      pane.table().getSelectionModel().select(0);
+      pane.table().getSelectionModel().select(14);
+    });
+    WaitForAsyncUtils.waitForFxEvents();
+    List<RunMetrics> picked = pane.table().getSelectionModel().getSelectedItems();
+    assertThat(picked).hasSize(2);
+    assertThat(seriesIn("#archive-curves", robot)).isEqualTo(2);
+
+    robot.interact(() -> pane.group().setValue("balsa"));
+    WaitForAsyncUtils.waitForFxEvents();
+    assertThat(pane.table().getItems()).hasSize(5)
+        .allSatisfy(m -> assertThat(m.metadata().group()).isEqualTo("balsa"));
+    assertThat(robot.lookup("#archive-sentence").queryAs(Label.class).getText())
+        .contains("at least 2 groups");
+  }
+
+  private static int seriesIn(String id, FxRobot robot) {
+    ChartViewer v = robot.lookup(id).queryAs(ChartViewer.class);
+    return v.getChart().getXYPlot().getDataset().getSeriesCount();
+  }
+}
