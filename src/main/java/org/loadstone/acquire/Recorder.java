@@ -30,6 +30,14 @@ public final class Recorder implements AutoCloseable {
     default void onFinished(Result r) {}
 
     default void onFailed(String why) {}
+
+    /**
+     * The wait ended before load came on (stopped while armed, or the device was lost): there is
+     * no run.
+     *
+     * @param why in words
+     */
+    default void onDisarmed(String why) {}
   }
 
   /**
@@ -220,6 +228,11 @@ public final class Recorder implements AutoCloseable {
       failure = "recording failed: " + e;
       listener.onFailed(failure);
     } finally {
+      if (result == null && failure == null && started == null) {
+        listener.onDisarmed(reader.lostReason().isPresent()
+            ? "the device was lost before load came on: no run stored"
+            : "disarmed before load came on: no run stored");
+      }
       done.countDown();
     }
   }

@@ -96,12 +96,30 @@ public final class GroupStudy {
    */
   public static Map<String, List<RunMetrics>> load(List<ArchiveIndex.Entry> entries,
       AnalysisSettings settings) {
+    return load(entries, settings, null);
+  }
+
+  /**
+   * {@link #load(List, AnalysisSettings)}, going on past runs that cannot be read or analysed.
+   *
+   * @param problems receives one message per run left out (naming its file); null to stop at the
+   *     first such run with its {@link LoadstoneException}
+   */
+  public static Map<String, List<RunMetrics>> load(List<ArchiveIndex.Entry> entries,
+      AnalysisSettings settings, List<String> problems) {
     Map<String, List<RunMetrics>> out = new TreeMap<>();
     for (ArchiveIndex.Entry e : entries) {
-      Run run = RunReader.read(e.json());
-      String g = run.metadata().group().isBlank() ? "(none)" : run.metadata().group();
-      out.computeIfAbsent(g, k -> new ArrayList<>())
-          .add(RunMetrics.of(run.metadata(), run.data(), settings));
+      try {
+        Run run = RunReader.read(e.json());
+        String g = run.metadata().group().isBlank() ? "(none)" : run.metadata().group();
+        out.computeIfAbsent(g, k -> new ArrayList<>())
+            .add(RunMetrics.of(run.metadata(), run.data(), settings));
+      } catch (LoadstoneException ex) {
+        if (problems == null) {
+          throw ex;
+        }
+        problems.add(e.json().getFileName() + ": " + ex.getMessage());
+      }
     }
     return out;
   }

@@ -155,21 +155,24 @@ final class ArchivePane {
     status.setText("reading " + dir + " …");
     Thread t = new Thread(() -> {
       try {
+        if (!java.nio.file.Files.isDirectory(dir)) {
+          Platform.runLater(() -> {
+            show(Map.of());
+            status.setText("no runs yet: " + dir + " does not exist (runs stored from the Live "
+                + "tab go there); type another folder above and press Load");
+          });
+          return;
+        }
         ArchiveIndex index = ArchiveIndex.scan(dir);
+        List<String> problems = new ArrayList<>(index.problems());
         Map<String, List<RunMetrics>> loaded =
-            GroupStudy.load(index.entries(), AnalysisSettings.DEFAULTS);
+            GroupStudy.load(index.entries(), AnalysisSettings.DEFAULTS, problems);
         int n = loaded.values().stream().mapToInt(List::size).sum();
-        String text = n + " runs in " + dir + (index.problems().isEmpty() ? ""
-            : " · not read: " + String.join("; ", index.problems()));
+        String text = n + " runs in " + dir + (problems.isEmpty() ? ""
+            : " · left out: " + String.join("; ", problems));
         Platform.runLater(() -> {
-          runs = loaded;
-          List<String> groups = new ArrayList<>();
-          groups.add(ALL);
-          groups.addAll(loaded.keySet());
-          group.setItems(FXCollections.observableArrayList(groups));
-          group.setValue(ALL);
+          show(loaded);
           status.setText(text);
-          showRuns();
         });
       } catch (LoadstoneException e) {
         Platform.runLater(() -> status.setText(e.getMessage()));
@@ -180,6 +183,16 @@ final class ArchivePane {
   }
 
   private static final String ALL = "all groups";
+
+  private void show(Map<String, List<RunMetrics>> loaded) {
+    runs = loaded;
+    List<String> groups = new ArrayList<>();
+    groups.add(ALL);
+    groups.addAll(loaded.keySet());
+    group.setItems(FXCollections.observableArrayList(groups));
+    group.setValue(ALL);
+    showRuns();
+  }
 
   /** The runs of the chosen group (or all), by group. */
   private Map<String, List<RunMetrics>> shown() {

@@ -56,6 +56,8 @@ final class RunPanel {
   private final VBox root;
   private volatile Recorder recorder;
   private volatile boolean runEnded;
+  /** The last run was disarmed before it started: nothing was stored. */
+  private volatile boolean disarmed;
   private int runCount;
 
   /**
@@ -143,6 +145,7 @@ final class RunPanel {
               feed.zeroCounts(), settings.pretrigger_s(), settings.startThreshold_N(),
               String.valueOf(RunPanel.class.getPackage().getImplementationVersion()));
       runEnded = false;
+      disarmed = false;
       figures.getChildren().clear();
       showFigures(false);
       recorder = new Recorder(reader, config.scale().scale(), feed.zeroCounts(), settings,
@@ -192,7 +195,7 @@ final class RunPanel {
         case ARMED -> "armed: waiting for load";
         case RECORDING -> "recording";
         case TAIL -> "break: recording the tail";
-        case FINISHED -> runEnded ? "run stored" : "finishing…";
+        case FINISHED -> !runEnded ? "finishing…" : disarmed ? "no run armed" : "run stored";
       });
     }
   }
@@ -230,6 +233,13 @@ final class RunPanel {
     @Override
     public void onFailed(String why) {
       runEnded = true;
+      Platform.runLater(() -> runResult.setText(why));
+    }
+
+    @Override
+    public void onDisarmed(String why) {
+      runEnded = true;
+      disarmed = true;
       Platform.runLater(() -> runResult.setText(why));
     }
   }

@@ -26,6 +26,35 @@ class RecorderSimTest {
   }
 
   @Test
+  @Timeout(30)
+  void stoppedBeforeLoadComesOnItSaysSoAndStoresNothing() throws Exception {
+    SimSetup setup = new SimSetup("brittle", 5, 1000, false, 1);
+    DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
+    reader.start();
+    double zero = Recorder.tare(reader, 100, 5000);
+    // a start level the specimen never reaches
+    RunSettings s = RunSettings.builder().startThreshold_N(1e6).ratedCapacity_N(2e6).build();
+    MemoryRunStore store = new MemoryRunStore();
+    java.util.concurrent.atomic.AtomicReference<String> why =
+        new java.util.concurrent.atomic.AtomicReference<>();
+    Recorder rec = new Recorder(reader, ForceScale.linear(setup.nominalCountsPerN(), "nominal"),
+        zero, s, template("never", 1000), store, new Recorder.Listener() {
+          @Override
+          public void onDisarmed(String text) {
+            why.set(text);
+          }
+        });
+    rec.arm();
+    Thread.sleep(300);
+    rec.stop();
+    assertThat(rec.await(10, TimeUnit.SECONDS)).isEmpty();
+    reader.close();
+    assertThat(why.get()).isEqualTo("disarmed before load came on: no run stored");
+    assertThat(store.startMeta).as("no run begun").isNull();
+    assertThat(store.finalMeta).isNull();
+  }
+
+  @Test
   @Timeout(60)
   void brittleRunStopsAtTheBreakWithTheTruePeakAndKeepsThePretrigger() throws Exception {
     int rate = 1000;
