@@ -114,8 +114,18 @@ final class LivePane {
     HBox zeroAndPeak = new HBox(8, tare, clearPeak);
     HBox.setHgrow(tare, Priority.ALWAYS);
     HBox.setHgrow(clearPeak, Priority.ALWAYS);
-    VBox readout = new VBox(6, forceCaption, force, peak, position, raw, spacer(), run.node(),
-        spacer(), zeroAndPeak, plotAxis, reconnect);
+    // the readout stays put; the controls below it scroll when the specimen sizes are open
+    VBox controls = new VBox(6, run.node(), spacer(), zeroAndPeak, plotAxis, reconnect);
+    controls.getStyleClass().add("controls");
+    javafx.scene.control.ScrollPane scroll = new javafx.scene.control.ScrollPane(controls);
+    scroll.setFitToWidth(true);
+    // at least as tall as the view (so Zero and Clear peak sit at the bottom), taller when needed
+    controls.minHeightProperty().bind(javafx.beans.binding.Bindings.createDoubleBinding(
+        () -> scroll.getViewportBounds().getHeight(), scroll.viewportBoundsProperty()));
+    scroll.setHbarPolicy(javafx.scene.control.ScrollPane.ScrollBarPolicy.NEVER);
+    scroll.getStyleClass().add("controls-scroll");
+    VBox.setVgrow(scroll, Priority.ALWAYS);
+    VBox readout = new VBox(6, forceCaption, force, peak, position, raw, scroll);
     readout.getStyleClass().add("readout");
     readout.setPrefWidth(380);
     root.setLeft(readout);

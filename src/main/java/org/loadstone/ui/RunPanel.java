@@ -21,12 +21,10 @@ import org.loadstone.acquire.Recorder;
 import org.loadstone.acquire.RunControl;
 import org.loadstone.acquire.RunSettings;
 import org.loadstone.acquire.RunTemplate;
-import org.loadstone.archive.Geometry;
 import org.loadstone.archive.Run;
 import org.loadstone.archive.RunMetadata;
 import org.loadstone.archive.RunMetrics;
 import org.loadstone.archive.RunReader;
-import org.loadstone.archive.TestType;
 import org.loadstone.units.LoadstoneException;
 
 /**
@@ -53,6 +51,7 @@ final class RunPanel {
   private final Label runResult = LivePane.label("run-result", "");
   /** The last run's figures, as tiles: a name over a large value. */
   private final FlowPane figures = new FlowPane(28, 8);
+  private final SpecimenFields specimenFields = new SpecimenFields();
   private final VBox root;
   private volatile Recorder recorder;
   private volatile boolean runEnded;
@@ -91,8 +90,8 @@ final class RunPanel {
     figures.setId("run-figures");
     figures.getStyleClass().add("run-figures");
     showFigures(false);
-    root = new VBox(6, LivePane.label("run-caption", "RUN"), specimenField, idLine, buttons,
-        runState, runResult);
+    root = new VBox(6, LivePane.label("run-caption", "RUN"), specimenField, idLine,
+        specimenFields.node(), buttons, runState, runResult);
   }
 
   private static TextField field(String id, String prompt) {
@@ -133,6 +132,7 @@ final class RunPanel {
     }
     try {
       Double mass_g = mass();
+      specimenFields.geometry(); // refused here, before arming, when a size is not a number
       RunSettings settings = RunSettings.builder().ratedCapacity_N(config.ratedCapacity_N()).build();
       JournalRunStore store = new JournalRunStore(config.archive());
       store.checkWritable();
@@ -140,7 +140,7 @@ final class RunPanel {
           : specimenField.getText().trim();
       double rate = reader.identity().map(id -> id.rateHz()).filter(x -> x > 0).orElse(80.0);
       RunMetadata template = new RunTemplate(specimen, groupField.getText().trim(), List.of(),
-          "", "", mass_g, Geometry.NONE, TestType.THREE_POINT_BEND)
+          "", "", mass_g, specimenFields.geometry(), specimenFields.testType())
           .build(config.archive(), reader, config.deviceFields(), rate, config.scale(),
               feed.zeroCounts(), settings.pretrigger_s(), settings.startThreshold_N(),
               String.valueOf(RunPanel.class.getPackage().getImplementationVersion()));
@@ -162,21 +162,7 @@ final class RunPanel {
 
   /** The mass typed in, or null when the field is empty. */
   private Double mass() {
-    String t = massField.getText().trim().replace(',', '.');
-    if (t.isEmpty()) {
-      return null;
-    }
-    try {
-      double v = Double.parseDouble(t);
-      if (v > 0 && Double.isFinite(v)) {
-        return v;
-      }
-    } catch (NumberFormatException e) {
-      // reported below
-    }
-    throw new LoadstoneException("mass '" + massField.getText().trim()
-        + "' is not a specimen mass in grams: type a positive number such as 38.5, or leave it "
-        + "empty");
+    return SpecimenFields.number(massField, "mass", "grams");
   }
 
   void stop() {
@@ -276,6 +262,17 @@ final class RunPanel {
         r.stiffness().map(s -> String.format(Locale.ROOT, "R² %.4f", s.rSquared())).orElse(""));
     tile("energy", opt(r.energyToBreak_J(), "J"), "to break · " + opt(r.energyToPeak_J(), "J")
         + " to peak");
+    if (m.flexuralStressAtPeak_MPa().isPresent()) {
+      tile("flexural stress", opt(m.flexuralStressAtPeak_MPa(), "MPa"), "at peak · modulus "
+          + opt(m.flexuralModulus_MPa(), "MPa"));
+    }
+    if (m.coreShearStressAtPeak_MPa().isPresent()) {
+      tile("core shear", opt(m.coreShearStressAtPeak_MPa(), "MPa"), "at peak · facing "
+          + opt(m.facingStressAtPeak_MPa(), "MPa"));
+    }
+    if (m.compressionStressAtPeak_MPa().isPresent()) {
+      tile("compression", opt(m.compressionStressAtPeak_MPa(), "MPa"), "stress at peak");
+    }
     if (m.specificPeak_N_per_g().isPresent()) {
       tile("per gram", opt(m.specificPeak_N_per_g(), "N/g"),
           opt(m.specificEnergyToBreak_J_per_g(), "J/g") + " to break");

@@ -88,6 +88,9 @@ class LivePaneTest {
       robot.lookup("#specimen-field").queryAs(javafx.scene.control.TextField.class).setText("gui-01");
       robot.lookup("#group-field").queryAs(javafx.scene.control.TextField.class).setText("test");
       robot.lookup("#mass-field").queryAs(javafx.scene.control.TextField.class).setText("37,5");
+      robot.lookup("#span-field").queryAs(javafx.scene.control.TextField.class).setText("200");
+      robot.lookup("#width-field").queryAs(javafx.scene.control.TextField.class).setText("50");
+      robot.lookup("#depth-field").queryAs(javafx.scene.control.TextField.class).setText("12");
     });
     robot.clickOn("#specimen-field").type(javafx.scene.input.KeyCode.ENTER); // Enter arms
     WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
@@ -115,6 +118,14 @@ class LivePaneTest {
     assertThat(run.metadata().mass_g()).isEqualTo(37.5);
     assertThat(robot.lookup("#figure-per-gram").queryAs(Label.class).getText())
         .isEqualTo(RunPanel.fmt(m.analysis().peakForce_N() / 37.5, "N/g"));
+    assertThat(run.metadata().geometry().span_mm()).isEqualTo(200.0);
+    assertThat(run.metadata().testType()).isEqualTo(org.loadstone.archive.TestType.THREE_POINT_BEND);
+    // flexural stress at peak 3PL/(2bd²) (ASTM D790), from the sizes typed
+    double sigma = 3 * m.analysis().peakForce_N() * 200 / (2 * 50 * 12.0 * 12.0);
+    assertThat(m.flexuralStressAtPeak_MPa().getAsDouble())
+        .isCloseTo(sigma, org.assertj.core.data.Offset.offset(1e-9));
+    assertThat(robot.lookup("#figure-flexural-stress").queryAs(Label.class).getText())
+        .isEqualTo(RunPanel.fmt(sigma, "MPa"));
   }
 
   @Test
@@ -127,6 +138,17 @@ class LivePaneTest {
         () -> pane.chart().xAxis().equals(ForceChart.TRAVEL) && pane.chart().pointCount() > 5);
     assertThat(robot.lookup("#plot-axis-button").queryAs(javafx.scene.control.Button.class)
         .getText()).contains("time");
+  }
+
+  @Test
+  void aSizeThatIsNotANumberIsRefusedBeforeArming(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !pane.feed().taring());
+    robot.interact(() -> robot.lookup("#depth-field")
+        .queryAs(javafx.scene.control.TextField.class).setText("-12"));
+    robot.clickOn("#arm-button");
+    WaitForAsyncUtils.waitForFxEvents();
+    assertThat(pane.runResult().getText()).contains("depth '-12'").contains("mm");
+    assertThat(robot.lookup("#run-state").queryAs(Label.class).getText()).isEqualTo("no run armed");
   }
 
   @Test
