@@ -141,24 +141,24 @@ class LivePaneTest {
   }
 
   @Test
-  void aSizeThatIsNotANumberIsRefusedBeforeArming(FxRobot robot) throws Exception {
+  void aSizeOrMassThatIsNotANumberIsRefusedBeforeArming(FxRobot robot) throws Exception {
     WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !pane.feed().taring());
-    robot.interact(() -> robot.lookup("#depth-field")
-        .queryAs(javafx.scene.control.TextField.class).setText("-12"));
-    robot.clickOn("#arm-button");
-    WaitForAsyncUtils.waitForFxEvents();
-    assertThat(pane.runResult().getText()).contains("depth '-12'").contains("mm");
-    assertThat(robot.lookup("#run-state").queryAs(Label.class).getText()).isEqualTo("no run armed");
+    refusedBeforeArming(robot, "#depth-field", "-12", "depth '-12'", "mm");
+    refusedBeforeArming(robot, "#depth-field", "", null, null);
+    refusedBeforeArming(robot, "#mass-field", "41.2g", "mass '41.2g'", "grams");
   }
 
-  @Test
-  void aMassThatIsNotANumberIsRefusedBeforeArming(FxRobot robot) throws Exception {
-    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !pane.feed().taring());
-    robot.interact(() -> robot.lookup("#mass-field")
-        .queryAs(javafx.scene.control.TextField.class).setText("41.2g"));
+  /** Types {@code text} into a field and arms: refused with a message naming the field. */
+  private void refusedBeforeArming(FxRobot robot, String field, String text, String names,
+      String unit) {
+    robot.interact(() -> robot.lookup(field)
+        .queryAs(javafx.scene.control.TextField.class).setText(text));
+    if (names == null) {
+      return; // cleared, for the next case
+    }
     robot.clickOn("#arm-button");
     WaitForAsyncUtils.waitForFxEvents();
-    assertThat(pane.runResult().getText()).contains("mass '41.2g'").contains("grams");
+    assertThat(pane.runResult().getText()).contains(names).contains(unit);
     assertThat(robot.lookup("#run-state").queryAs(Label.class).getText()).isEqualTo("no run armed");
   }
 }
