@@ -38,6 +38,7 @@ import org.loadstone.archive.ArchiveIndex;
 import org.loadstone.archive.GroupStudy;
 import org.loadstone.archive.RunMetrics;
 import org.loadstone.report.Charts;
+import org.loadstone.report.PdfReport;
 import org.loadstone.units.LoadstoneException;
 
 /**
@@ -100,9 +101,12 @@ final class ArchivePane {
       }
     });
     metric.setOnAction(e -> compare());
+    Button report = new Button("Report (PDF)");
+    report.setId("archive-report");
+    report.setOnAction(e -> writeReport());
     HBox bar = new HBox(10, LivePane.label("archive-caption", "ARCHIVE"), folder, load,
         LivePane.label("group-caption", "group"), group, LivePane.label("metric-caption",
-            "compare"), metric);
+            "compare"), metric, report);
     bar.setAlignment(Pos.CENTER_LEFT);
     bar.getStyleClass().add("archive-bar");
     root.setTop(bar);
@@ -192,6 +196,37 @@ final class ArchivePane {
     group.setItems(FXCollections.observableArrayList(groups));
     group.setValue(ALL);
     showRuns();
+  }
+
+  /**
+   * Writes a PDF into the archive folder (a new file, named by the time): the report of the run
+   * picked when one is, otherwise the comparison of the groups shown.
+   */
+  private void writeReport() {
+    List<RunMetrics> picked = List.copyOf(table.getSelectionModel().getSelectedItems());
+    Map<String, List<RunMetrics>> groups = shown();
+    Path dir = Path.of(folder.getText().trim());
+    Path file = dir.resolve("report-" + java.time.LocalDateTime.now().format(
+        DateTimeFormatter.ofPattern("yyyyMMdd-HHmmss", Locale.ROOT)) + ".pdf");
+    status.setText("writing " + file + " …");
+    Thread t = new Thread(() -> {
+      String done;
+      try {
+        if (picked.size() == 1) {
+          PdfReport.writeRun(picked.get(0), file);
+        } else {
+          PdfReport.writeGroups("Comparison of " + String.join(", ", groups.keySet()), groups,
+              PdfReport.DEFAULT_METRICS, file);
+        }
+        done = "report written to " + file;
+      } catch (LoadstoneException e) {
+        done = "no report: " + e.getMessage();
+      }
+      String text = done;
+      Platform.runLater(() -> status.setText(text));
+    }, "archive report");
+    t.setDaemon(true);
+    t.start();
   }
 
   /** The runs of the chosen group (or all), by group. */

@@ -89,6 +89,35 @@ class ArchivePaneTest {
         .contains("at least 2 groups");
   }
 
+  @Test
+  void writesTheGroupComparisonAsAPdfBesideTheRuns(FxRobot robot) throws Exception {
+    Path copy = java.nio.file.Files.createTempDirectory("loadstone-review");
+    try (var files = java.nio.file.Files.list(DEMO)) {
+      for (Path f : (Iterable<Path>) files::iterator) {
+        java.nio.file.Files.copy(f, copy.resolve(f.getFileName()));
+      }
+    }
+    robot.interact(() -> {
+      robot.lookup("#archive-folder").queryAs(javafx.scene.control.TextField.class)
+          .setText(copy.toString());
+      pane.reload();
+    });
+    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS,
+        () -> pane.table().getItems().size() == 15 && robot.lookup("#archive-status")
+            .queryAs(Label.class).getText().contains(copy.toString()));
+    robot.clickOn("#archive-report");
+    WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS,
+        () -> robot.lookup("#archive-status").queryAs(Label.class).getText()
+            .startsWith("report written to "));
+    try (var files = java.nio.file.Files.list(copy)) {
+      Path pdf = files.filter(f -> f.toString().endsWith(".pdf")).findFirst().orElseThrow();
+      try (var doc = org.apache.pdfbox.Loader.loadPDF(pdf.toFile())) {
+        String text = new org.apache.pdfbox.text.PDFTextStripper().getText(doc);
+        assertThat(text).contains("Comparison of balsa, board, foam").contains("Peak force");
+      }
+    }
+  }
+
   private static int seriesIn(String id, FxRobot robot) {
     ChartViewer v = robot.lookup(id).queryAs(ChartViewer.class);
     return v.getChart().getXYPlot().getDataset().getSeriesCount();
