@@ -1,6 +1,5 @@
 package org.loadstone.protocol;
 
-import java.nio.charset.StandardCharsets;
 import java.util.Optional;
 import org.loadstone.units.Precondition;
 
@@ -14,9 +13,6 @@ public final class StreamDecoder {
   /** Longest candidate record considered, in bytes; older bytes are discarded. */
   public static final int MAX_CANDIDATE = 512;
 
-  /** Longest record body (a 200-byte line less " ~XXXX"). */
-  private static final int MAX_BODY = 194;
-
   private final DecodeListener listener;
   private final boolean fastPath;
   /** Bytes kept between feeds; the buffer has {@link SampleFastPath#SLACK} spare bytes beyond. */
@@ -26,7 +22,7 @@ public final class StreamDecoder {
   private final SampleFastPath fast = new SampleFastPath();
   private final SampleFastPath.Fields slot = new SampleFastPath.Fields();
   private final TextLineParser lines = new TextLineParser();
-  private final byte[] frame = new byte[MAX_CANDIDATE];
+  private final FrameParser frames = new FrameParser();
   private int len;
   private int end; // just past the terminator being handled
   private int lineStart;
@@ -76,8 +72,8 @@ public final class StreamDecoder {
   }
 
   /** @return the encoding of the last valid record (or the start encoding); empty in auto mode before the first record */
-  public java.util.Optional<Encoding> following() {
-    return java.util.Optional.ofNullable(following);
+  public Optional<Encoding> following() {
+    return Optional.ofNullable(following);
   }
 
   /** @return a snapshot of the counters */
@@ -284,12 +280,17 @@ public final class StreamDecoder {
 
   /** Parses and delivers one text line [s, e) without its line end. */
   private int parseLine(int s, int e) {
-    switch (lines.parse(buf, s, e, slot)) {
+    return delivered(lines.parse(buf, s, e, slot), lines.message());
+  }
+
+  /** Delivers or counts what a parser classified; @return OK, BAD_CRC or MALFORMED */
+  private int delivered(int kind, DeviceMessage message) {
+    switch (kind) {
       case TextLineParser.SAMPLE:
         deliverSample(slot.seq, slot.us, slot.load, slot.hasPos, slot.pos);
         return OK;
       case TextLineParser.MESSAGE:
-        deliverMessage(lines.message());
+        deliverMessage(message);
         return OK;
       case TextLineParser.UNKNOWN:
         unknown++;
@@ -332,57 +333,7 @@ public final class StreamDecoder {
   }
 
   private int parseFrame(int s, int e) {
-    int n = Cobs.decode(buf, s, e - s, frame);
-    if (n < 3) {
-      return MALFORMED;
-    }
-    int type = frame[0] & 0xFF;
-    int bodyLen = n - 3;
-    boolean knownShape =
-        (type == 0x01 && bodyLen == 10) || (type == 0x02 && bodyLen == 14) || (type == 0x10);
-    int crc = ((frame[n - 2] & 0xFF) << 8) | (frame[n - 1] & 0xFF);
-    if (Crc16.compute(frame, 0, n - 2) != crc) {
-      return knownShape ? BAD_CRC : MALFORMED;
-    }
-    if (type == 0x01 || type == 0x02) {
-      if (!knownShape) {
-        return MALFORMED;
-      }
-      int seq = (frame[1] & 0xFF) | ((frame[2] & 0xFF) << 8);
-      long us = SampleFastPath.le32(frame, 3) & 0xFFFF_FFFFL;
-      int load = SampleFastPath.le32(frame, 7);
-      boolean pos = type == 0x02;
-      deliverSample(seq, us, load, pos, pos ? SampleFastPath.le32(frame, 11) : 0);
-      return OK;
-    }
-    if (type == 0x10) {
-      if (bodyLen < 1 || bodyLen > MAX_BODY) {
-        return MALFORMED;
-      }
-      for (int k = 1; k < n - 2; k++) {
-        if (frame[k] < 0x20 || frame[k] > 0x7E) {
-          return MALFORMED;
-        }
-      }
-      String body = new String(frame, 1, bodyLen, StandardCharsets.US_ASCII);
-      int sp = body.indexOf(' ');
-      String tag = sp < 0 ? body : body.substring(0, sp);
-      if (tag.equals("S")) {
-        return MALFORMED; // samples travel in 0x01/0x02 frames only
-      }
-      if (!DeviceMessage.isKnownTag(tag)) {
-        unknown++;
-        return OK;
-      }
-      Optional<DeviceMessage> m = DeviceMessage.parse(body);
-      if (m.isEmpty()) {
-        return MALFORMED;
-      }
-      deliverMessage(m.get());
-      return OK;
-    }
-    unknown++;
-    return OK;
+    return delivered(frames.parse(buf, s, e, slot), frames.message());
   }
 
   // ---------------------------------------------------------------- delivery
