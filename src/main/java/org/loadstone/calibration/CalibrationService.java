@@ -173,6 +173,39 @@ public final class CalibrationService {
     return d;
   }
 
+  /** @return {@code base} when no calibration has that id in {@code dir}, else base-2, base-3, … */
+  public static String unusedId(Path dir, String base) {
+    return java.nio.file.Files.exists(CalibrationFiles.fileFor(dir, base))
+        || java.nio.file.Files.exists(dir.resolve(base + ".points.csv"))
+        ? CalibrationFiles.freeId(dir, base) : base;
+  }
+
+  /**
+   * Saves the points of a calibration beside it, as {@code <id>.points.csv} ({@link
+   * PointsCsv#format}), never over another file.
+   *
+   * @return the file written
+   * @throws LoadstoneException when the file exists (suggesting a free id) or cannot be written
+   */
+  public static Path savePoints(Path dir, String id, List<CalibrationPoint> points,
+      String comment) {
+    Path f = dir.resolve(id + ".points.csv");
+    try {
+      java.nio.file.Files.createDirectories(dir);
+      java.nio.file.Files.writeString(f, PointsCsv.format(points, comment),
+          java.nio.charset.StandardCharsets.UTF_8, java.nio.file.StandardOpenOption.CREATE_NEW,
+          java.nio.file.StandardOpenOption.WRITE);
+      return f;
+    } catch (java.nio.file.FileAlreadyExistsException e) {
+      throw new LoadstoneException("points file " + f + " exists and is never overwritten:"
+          + " save under another calibration id, e.g. '" + CalibrationFiles.freeId(dir, id)
+          + "'");
+    } catch (java.io.IOException e) {
+      throw new LoadstoneException("cannot save points to " + f + ": " + e.getMessage()
+          + ": check the folder and its permissions", e);
+    }
+  }
+
   /** @return the plain-text fit table of {@link FitTable#format} */
   public static String fitTable(CalibrationReport report) {
     return FitTable.format(report);

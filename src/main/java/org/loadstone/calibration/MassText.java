@@ -1,5 +1,9 @@
 package org.loadstone.calibration;
 
+import java.math.BigDecimal;
+import java.math.RoundingMode;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -39,5 +43,62 @@ public final class MassText {
       };
     }
     return total;
+  }
+
+  /**
+   * The weights of a calibration as a person lists them: masses separated by commas, semicolons
+   * or line breaks, each one or a sum ("1 kg + 500 g"), in any order.
+   *
+   * @param text the list
+   * @param where what the list is, for messages (e.g. "--loads")
+   * @return the loads in kg, ascending
+   * @throws LoadstoneException when an item is not a mass, is zero, or repeats, or there is none;
+   *     the message names the item
+   */
+  public static List<Double> parseList_kg(String text, String where) {
+    List<String> items = new ArrayList<>();
+    for (String part : (text == null ? "" : text).split("[,;\\n]")) {
+      if (!part.isBlank()) {
+        items.add(part.strip());
+      }
+    }
+    List<Double> out = new ArrayList<>();
+    for (int i = 0; i < items.size(); i++) {
+      String item = items.get(i);
+      double kg;
+      try {
+        kg = parse_kg(item);
+      } catch (LoadstoneException e) {
+        throw new LoadstoneException(where + ", weight " + (i + 1) + ": " + e.getMessage());
+      }
+      if (kg == 0) {
+        throw new LoadstoneException(where + ", weight " + (i + 1) + " ('" + item + "') is"
+            + " zero: the zero point is always read, list only the weights");
+      }
+      if (out.contains(kg)) {
+        throw new LoadstoneException(where + ": '" + item + "' is listed twice: give each"
+            + " load once (repeat the whole set as another series)");
+      }
+      out.add(kg);
+    }
+    if (out.isEmpty()) {
+      throw new LoadstoneException(where + " lists no weights: give at least two, e.g."
+          + " \"1 kg, 2 kg, 5 kg\"");
+    }
+    out.sort(null);
+    return out;
+  }
+
+  /** @return e.g. "2 kg", "0.5 kg", "250 g" */
+  public static String format(double kg) {
+    if (kg >= 1 || kg == 0) {
+      return plain(kg) + " kg";
+    }
+    return plain(kg * 1000) + " g";
+  }
+
+  private static String plain(double v) {
+    BigDecimal b = new BigDecimal(v).setScale(9, RoundingMode.HALF_EVEN).stripTrailingZeros();
+    return b.scale() < 0 ? b.setScale(0).toPlainString() : b.toPlainString();
   }
 }

@@ -42,6 +42,40 @@ public final class StabilityDetector {
       }
       Precondition.positive(sampleRate_Hz, "sampleRate_Hz");
     }
+
+    /** Seconds of samples judged together by default. */
+    public static final double DEFAULT_WINDOW_S = 1;
+    /** Largest standard deviation accepted by default, counts. */
+    public static final double DEFAULT_MAX_SD_COUNTS = 100;
+    /** Largest drift accepted by default, counts per second. */
+    public static final double DEFAULT_MAX_DRIFT_COUNTS_PER_S = 50;
+    /** Seconds to wait for a settled reading by default. */
+    public static final double DEFAULT_TIMEOUT_S = 30;
+
+    /**
+     * Settings in seconds, for a device sampling at {@code rate_Hz}.
+     *
+     * @throws org.loadstone.units.LoadstoneException when a value is out of range
+     */
+    public static Settings ofSeconds(double window_s, double maxSd_counts,
+        double maxDrift_counts_per_s, double timeout_s, double rate_Hz) {
+      if (!(window_s > 0) || !(timeout_s >= window_s) || !(maxSd_counts >= 0)
+          || !(maxDrift_counts_per_s >= 0) || !(rate_Hz > 0)) {
+        throw new org.loadstone.units.LoadstoneException("stability settings out of range: the"
+            + " window must be > 0 s, the time-out at least the window, the largest SD and"
+            + " drift 0 or more");
+      }
+      int window = (int) Math.max(3, Math.min(100_000, Math.round(window_s * rate_Hz)));
+      int timeout = (int) Math.max(window,
+          Math.min(Integer.MAX_VALUE, Math.round(timeout_s * rate_Hz)));
+      return new Settings(window, maxSd_counts, maxDrift_counts_per_s, timeout, rate_Hz);
+    }
+
+    /** The default settings for a device sampling at {@code rate_Hz}. */
+    public static Settings defaults(double rate_Hz) {
+      return ofSeconds(DEFAULT_WINDOW_S, DEFAULT_MAX_SD_COUNTS, DEFAULT_MAX_DRIFT_COUNTS_PER_S,
+          DEFAULT_TIMEOUT_S, rate_Hz);
+    }
   }
 
   /** What {@link #offer} found. */

@@ -5,11 +5,8 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintWriter;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardOpenOption;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -26,7 +23,6 @@ import org.loadstone.calibration.CalibrationService;
 import org.loadstone.calibration.CalibrationSettings;
 import org.loadstone.calibration.FitKind;
 import org.loadstone.calibration.ForceFromMass;
-import org.loadstone.calibration.PointsCsv;
 import org.loadstone.units.LoadstoneException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -301,18 +297,6 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
 
   private static Path savePoints(Path dir, String calId, List<CalibrationPoint> points,
       String comment) {
-    Path f = dir.resolve(calId + ".points.csv");
-    try {
-      Files.createDirectories(dir);
-      Files.writeString(f, PointsCsv.format(points, comment), StandardCharsets.UTF_8,
-          StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
-      return f;
-    } catch (FileAlreadyExistsException e) {
-      throw new LoadstoneException("points file " + f + " exists and is never overwritten:"
-          + " give another --id, e.g. '" + freeId(dir, calId) + "'");
-    } catch (IOException e) {
-      throw new LoadstoneException("cannot save points to " + f + ": " + e.getMessage()
-          + ": check that the folder is writable", e);
-    }
+    return CalibrationService.savePoints(dir, calId, points, comment);
   }
 }

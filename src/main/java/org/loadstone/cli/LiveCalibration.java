@@ -1,7 +1,6 @@
 package org.loadstone.cli;
 
 import java.io.PrintWriter;
-import java.math.BigDecimal;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -142,15 +141,6 @@ final class LiveCalibration {
 
   /** @return e.g. "2 kg", "0.5 kg", "250 g" */
   static String massText(double kg) {
-    if (kg >= 1 || kg == 0) {
-      return plain(kg) + " kg";
-    }
-    return plain(kg * 1000) + " g";
-  }
-
-  private static String plain(double v) {
-    BigDecimal b = new BigDecimal(v).setScale(9, java.math.RoundingMode.HALF_EVEN)
-        .stripTrailingZeros();
-    return b.scale() < 0 ? b.setScale(0).toPlainString() : b.toPlainString();
+    return MassText.format(kg);
   }
 }

@@ -31,14 +31,12 @@ final class StabilityOptions {
    * @throws LoadstoneException when a value is out of range
    */
   StabilityDetector.Settings settings(double rateHz) {
-    if (!(window_s > 0) || !(timeout_s >= window_s) || !(maxSd_counts >= 0)
-        || !(maxDrift_counts_per_s >= 0)) {
+    try {
+      return StabilityDetector.Settings.ofSeconds(window_s, maxSd_counts, maxDrift_counts_per_s,
+          timeout_s, rateHz);
+    } catch (LoadstoneException e) {
       throw new LoadstoneException("stability options out of range: --window-s must be > 0,"
           + " --timeout-s at least --window-s, --max-sd-counts and --max-drift 0 or more");
     }
-    int window = (int) Math.max(3, Math.min(100_000, Math.round(window_s * rateHz)));
-    int timeout = (int) Math.max(window, Math.min(Integer.MAX_VALUE, Math.round(timeout_s * rateHz)));
-    return new StabilityDetector.Settings(window, maxSd_counts, maxDrift_counts_per_s, timeout,
-        rateHz);
   }
 }

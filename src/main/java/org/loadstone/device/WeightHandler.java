@@ -1,8 +1,5 @@
-package org.loadstone.cli;
+package org.loadstone.device;
 
-import org.loadstone.device.FrameSampleSource;
-import org.loadstone.device.SimTransport;
-import org.loadstone.device.Transport;
 import org.loadstone.device.sim.SimulatedFrame;
 import org.loadstone.units.LoadstoneException;
 
@@ -11,7 +8,7 @@ import org.loadstone.units.LoadstoneException;
  * does, and the program only waits; on the built-in simulated frame the program stands in for
  * the operator's hands and puts the mass on the model.
  */
-interface WeightHandler {
+public interface WeightHandler {
   /**
    * Makes {@code total_kg} the whole mass on the cell (0 removes every weight).
    *
@@ -57,8 +54,9 @@ interface WeightHandler {
               frame.placeMass(total_kg);
             }
           } catch (IllegalStateException e) {
-            throw new LoadstoneException(e.getMessage() + ": use --scenario dead-weight (the"
-                + " default for calibrate and verify) to put weights on the simulated cell", e);
+            throw new LoadstoneException(e.getMessage() + ": use the dead-weight scenario"
+                + " (--scenario dead-weight, the default for calibrate and verify) to put"
+                + " weights on the simulated cell", e);
           }
         });
       }
