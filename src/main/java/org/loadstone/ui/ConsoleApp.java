@@ -6,10 +6,11 @@ import javafx.scene.control.Tab;
 import javafx.scene.control.TabPane;
 import javafx.stage.Stage;
 
-/** The JavaFX application: one window, the live pane and the archive review as tabs. */
+/** The JavaFX application: one window with the live pane, calibration and archive review as tabs. */
 public final class ConsoleApp extends Application {
   private static volatile ConsoleConfig config;
   private LivePane live;
+  private CalibratePane calibrate;
 
   /** Sets what the next launched console connects to. */
   public static void configure(ConsoleConfig c) {
@@ -30,11 +31,14 @@ public final class ConsoleApp extends Application {
     ConsoleConfig c = config();
     live = new LivePane(c);
     ArchivePane archive = new ArchivePane(c.archive());
+    calibrate = new CalibratePane(live::reader, file -> live.useCalibration(file));
     Tab liveTab = new Tab("Live", live.root());
+    Tab calibrateTab = new Tab("Calibrate", calibrate.root());
     Tab archiveTab = new Tab("Archive", archive.root());
     liveTab.setId("live-tab");
+    calibrateTab.setId("calibrate-tab");
     archiveTab.setId("archive-tab");
-    TabPane tabs = new TabPane(liveTab, archiveTab);
+    TabPane tabs = new TabPane(liveTab, calibrateTab, archiveTab);
     tabs.setTabClosingPolicy(TabPane.TabClosingPolicy.UNAVAILABLE);
     tabs.getStyleClass().add("console-tabs");
     archiveTab.setOnSelectionChanged(e -> {
@@ -46,6 +50,7 @@ public final class ConsoleApp extends Application {
     scene.getStylesheets().add(
         ConsoleApp.class.getResource("/org/loadstone/ui/console.css").toExternalForm());
     live.installKeys(scene, liveTab::isSelected);
+    calibrate.installKeys(scene, calibrateTab::isSelected);
     stage.setTitle("Loadstone — live");
     stage.setScene(scene);
     stage.setMinWidth(900);
@@ -57,6 +62,9 @@ public final class ConsoleApp extends Application {
 
   @Override
   public void stop() {
+    if (calibrate != null) {
+      calibrate.close();
+    }
     if (live != null) {
       live.disconnect();
     }

@@ -17,6 +17,7 @@ import javafx.scene.layout.VBox;
 import org.loadstone.acquire.DeviceReader;
 import org.loadstone.acquire.LiveFeed;
 import org.loadstone.acquire.SampleRing;
+import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.device.Transport;
 import org.loadstone.protocol.DecoderCounters;
 import org.loadstone.units.LoadstoneException;
@@ -42,6 +43,8 @@ final class LivePane {
   private final Button plotAxis = new Button();
   private final RunPanel run;
   private final ForceChart chart = new ForceChart();
+  /** How counts become force: the configured scale until a calibration is chosen here. */
+  private ScaleChoice scale;
   /** Whether the chart shows force against crosshead travel (otherwise against time). */
   private boolean againstTravel;
   private DeviceReader reader;
@@ -51,6 +54,7 @@ final class LivePane {
 
   LivePane(ConsoleConfig config) {
     this.config = config;
+    this.scale = config.scale();
     this.run = new RunPanel(config, new RunPanel.Device() {
       @Override
       public DeviceReader reader() {
@@ -60,6 +64,11 @@ final class LivePane {
       @Override
       public LiveFeed feed() {
         return feed;
+      }
+
+      @Override
+      public ScaleChoice scale() {
+        return scale;
       }
     }, this::newSpecimen);
     build();
@@ -174,7 +183,7 @@ final class LivePane {
    * the one shown) and not while typing in a field.
    */
   void installKeys(Scene scene, java.util.function.BooleanSupplier active) {
-    scene.setOnKeyPressed(e -> {
+    scene.addEventHandler(javafx.scene.input.KeyEvent.KEY_PRESSED, e -> {
       if (!active.getAsBoolean() || e.getTarget() instanceof javafx.scene.control.TextInputControl) {
         return; // typing a specimen id, or looking at the archive: not a shortcut
       }
@@ -240,7 +249,7 @@ final class LivePane {
         }
       }
     });
-    feed = new LiveFeed(reader, config.scale().scale(), WINDOW_S);
+    feed = new LiveFeed(reader, scale.scale(), WINDOW_S);
     feed.tare(20); // zero on connect, as the specimen is not yet loaded
     reader.start();
     reconnect.setVisible(false);
@@ -315,6 +324,25 @@ final class LivePane {
 
   ForceChart chart() {
     return chart;
+  }
+
+  /** The connected device, or null. */
+  DeviceReader reader() {
+    return reader;
+  }
+
+  /**
+   * Makes a calibration file the scale of the live force and of the next runs.
+   *
+   * @throws LoadstoneException when the file cannot be used (the message says why)
+   */
+  void useCalibration(java.nio.file.Path file) {
+    ScaleChoice c = ScaleChoice.fromCalibration(file, java.time.LocalDate.now());
+    scale = c;
+    if (feed != null) {
+      feed.setScale(c.scale());
+    }
+    device.setText(config.deviceLabel() + "  ·  force from " + c.description());
   }
 
   Label runResult() {

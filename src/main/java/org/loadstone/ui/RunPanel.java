@@ -21,6 +21,7 @@ import org.loadstone.acquire.Recorder;
 import org.loadstone.acquire.RunControl;
 import org.loadstone.acquire.RunSettings;
 import org.loadstone.acquire.RunTemplate;
+import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.archive.Run;
 import org.loadstone.archive.RunMetadata;
 import org.loadstone.archive.RunMetrics;
@@ -39,6 +40,9 @@ final class RunPanel {
     DeviceReader reader();
 
     LiveFeed feed();
+
+    /** How counts become force for the next run. */
+    ScaleChoice scale();
   }
 
   private final ConsoleConfig config;
@@ -94,7 +98,8 @@ final class RunPanel {
         specimenFields.node(), buttons, runState, runResult);
   }
 
-  private static TextField field(String id, String prompt) {
+  /** A text field with an id (for tests and styles) and a prompt. */
+  static TextField field(String id, String prompt) {
     TextField f = new TextField();
     f.setId(id);
     f.setPromptText(prompt);
@@ -134,6 +139,7 @@ final class RunPanel {
       Double mass_g = mass();
       specimenFields.geometry(); // refused here, before arming, when a size is not a number
       RunSettings settings = RunSettings.builder().ratedCapacity_N(config.ratedCapacity_N()).build();
+      ScaleChoice scale = device.scale();
       JournalRunStore store = new JournalRunStore(config.archive());
       store.checkWritable();
       String specimen = specimenField.getText().isBlank() ? "specimen-" + (++runCount)
@@ -141,20 +147,19 @@ final class RunPanel {
       double rate = reader.identity().map(id -> id.rateHz()).filter(x -> x > 0).orElse(80.0);
       RunMetadata template = new RunTemplate(specimen, groupField.getText().trim(), List.of(),
           "", "", mass_g, specimenFields.geometry(), specimenFields.testType())
-          .build(config.archive(), reader, config.deviceFields(), rate, config.scale(),
+          .build(config.archive(), reader, config.deviceFields(), rate, scale,
               feed.zeroCounts(), settings.pretrigger_s(), settings.startThreshold_N(),
               String.valueOf(RunPanel.class.getPackage().getImplementationVersion()));
       runEnded = false;
       disarmed = false;
       figures.getChildren().clear();
       showFigures(false);
-      recorder = new Recorder(reader, config.scale().scale(), feed.zeroCounts(), settings,
+      recorder = new Recorder(reader, scale.scale(), feed.zeroCounts(), settings,
           template, store, new Events());
       recorder.arm();
       root.requestFocus(); // out of the text fields, so the one-key commands (S: stop) work
       onArmed.run();
-      runResult.setText(config.scale().warnings().isEmpty() ? ""
-          : "note: " + config.scale().warnings().get(0));
+      runResult.setText(scale.warnings().isEmpty() ? "" : "note: " + scale.warnings().get(0));
     } catch (LoadstoneException e) {
       runResult.setText(e.getMessage());
     }

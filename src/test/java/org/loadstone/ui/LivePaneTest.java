@@ -141,6 +141,29 @@ class LivePaneTest {
   }
 
   @Test
+  void aCalibrationChosenInTheConsoleScalesTheForceAndTheNextRun(FxRobot robot) throws Exception {
+    Path file = Path.of("calibration", "shelf-rig-500N-2026-12-02.json");
+    var choice = org.loadstone.acquire.ScaleChoice.fromCalibration(file, java.time.LocalDate.now());
+    robot.interact(() -> pane.useCalibration(file));
+    assertThat(robot.lookup("#device-line").queryAs(Label.class).getText())
+        .contains(choice.description());
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !pane.feed().taring());
+    robot.clickOn("#arm-button");
+    WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
+        () -> !robot.lookup("#run-state").queryAs(Label.class).getText().equals("no run armed"));
+    assertThat(pane.runResult().getText()).contains(choice.warnings().isEmpty() ? ""
+        : choice.warnings().get(0));
+    // the brittle specimen loads and breaks by itself (whatever the calibration makes of it)
+    WaitForAsyncUtils.waitFor(60, TimeUnit.SECONDS,
+        () -> pane.runResult().getText().startsWith("run "));
+    try (var files = Files.list(archive)) {
+      Path json = files.filter(f -> f.toString().endsWith(".json")).findFirst().orElseThrow();
+      assertThat(org.loadstone.archive.RunReader.readMetadata(json).calibrationId())
+          .isEqualTo(choice.calibrationId());
+    }
+  }
+
+  @Test
   void aSizeOrMassThatIsNotANumberIsRefusedBeforeArming(FxRobot robot) throws Exception {
     WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !pane.feed().taring());
     refusedBeforeArming(robot, "#depth-field", "-12", "depth '-12'", "mm");
