@@ -36,17 +36,21 @@ class ConsoleAppTest extends FxRobot {
     FxToolkit.cleanupStages();
   }
 
+  private static javafx.scene.control.Tab tab(TabPane tabs, String id) {
+    return tabs.getTabs().stream().filter(t -> id.equals(t.getId())).findFirst().orElseThrow();
+  }
+
   @Test
   void oneKeyCommandsActOnTheLiveTabOnly() throws Exception {
     TabPane tabs = lookup(".console-tabs").queryAs(TabPane.class);
     WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS,
         () -> lookup("#health-line").queryAs(Label.class).getText().contains("samples/s"));
-    interact(() -> tabs.getSelectionModel().select(1));
+    interact(() -> tabs.getSelectionModel().select(tab(tabs, "archive-tab")));
     WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS,
         () -> lookup("#archive-status").queryAs(Label.class).getText().startsWith("no runs yet"));
     clickOn("#archive-status").type(KeyCode.A); // on the Archive tab: not a command
     WaitForAsyncUtils.waitForFxEvents();
-    interact(() -> tabs.getSelectionModel().select(0));
+    interact(() -> tabs.getSelectionModel().select(tab(tabs, "live-tab")));
     Label state = lookup("#run-state").queryAs(Label.class);
     assertThat(state.getText()).isEqualTo("no run armed");
     WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS,
