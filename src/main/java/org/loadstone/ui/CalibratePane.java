@@ -152,8 +152,9 @@ final class CalibratePane {
     HBox.setHgrow(results, Priority.ALWAYS);
     root.setCenter(body);
     Label hint = LivePane.label("cal-hint", "Place each weight gently and keep the press "
-        + "still; the reading is taken once it has settled. On the simulated frame start the "
-        + "console with --scenario dead-weight and the weights are placed for you.");
+        + "still; the reading is taken once it has settled. Keep hands and feet clear of hanging "
+        + "weights and never load the cell beyond its rated capacity. On the simulated frame "
+        + "start the console with --scenario dead-weight and the weights are placed for you.");
     hint.setWrapText(true);
     HBox bottom = new HBox(hint);
     bottom.getStyleClass().add("bottom-bar");
