@@ -96,32 +96,27 @@ public final class GroupStudy {
    */
   public static Map<String, List<RunMetrics>> load(List<ArchiveIndex.Entry> entries,
       AnalysisSettings settings) {
-    return load(entries, settings, null);
+    Map<String, List<RunMetrics>> out = new TreeMap<>();
+    for (ArchiveIndex.Entry e : entries) {
+      RunMetrics m = analyse(e, settings);
+      out.computeIfAbsent(groupOf(m.metadata()), k -> new ArrayList<>()).add(m);
+    }
+    return out;
   }
 
   /**
-   * {@link #load(List, AnalysisSettings)}, going on past runs that cannot be read or analysed.
+   * Reads one run and analyses it.
    *
-   * @param problems receives one message per run left out (naming its file); null to stop at the
-   *     first such run with its {@link LoadstoneException}
+   * @throws LoadstoneException when it cannot be read or analysed
    */
-  public static Map<String, List<RunMetrics>> load(List<ArchiveIndex.Entry> entries,
-      AnalysisSettings settings, List<String> problems) {
-    Map<String, List<RunMetrics>> out = new TreeMap<>();
-    for (ArchiveIndex.Entry e : entries) {
-      try {
-        Run run = RunReader.read(e.json());
-        String g = run.metadata().group().isBlank() ? "(none)" : run.metadata().group();
-        out.computeIfAbsent(g, k -> new ArrayList<>())
-            .add(RunMetrics.of(run.metadata(), run.data(), settings));
-      } catch (LoadstoneException ex) {
-        if (problems == null) {
-          throw ex;
-        }
-        problems.add(e.json().getFileName() + ": " + ex.getMessage());
-      }
-    }
-    return out;
+  public static RunMetrics analyse(ArchiveIndex.Entry e, AnalysisSettings settings) {
+    Run run = RunReader.read(e.json());
+    return RunMetrics.of(run.metadata(), run.data(), settings);
+  }
+
+  /** @return the group a run is compared in: its group name, {@code (none)} when it has none */
+  public static String groupOf(RunMetadata m) {
+    return m.group().isBlank() ? "(none)" : m.group();
   }
 
   /**

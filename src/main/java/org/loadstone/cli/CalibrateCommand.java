@@ -17,12 +17,10 @@ import java.util.concurrent.Callable;
 import org.loadstone.calibration.CalibrationDocument;
 import org.loadstone.calibration.CalibrationFiles;
 import org.loadstone.calibration.CalibrationPlan;
-import org.loadstone.calibration.CalibrationPoint;
 import org.loadstone.calibration.CalibrationReport;
 import org.loadstone.calibration.CalibrationService;
 import org.loadstone.calibration.CalibrationSettings;
 import org.loadstone.calibration.FitKind;
-import org.loadstone.calibration.ForceFromMass;
 import org.loadstone.units.LoadstoneException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -180,7 +178,8 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
         "captured live on %s: loads %s kg, %d series%s%s", identity, plan.loads_kg(), series,
         descending ? " up and down" : " up",
         o.skipped() > 0 ? ", " + o.skipped() + " step(s) skipped" : "");
-    Path pointsFile = saveDir == null ? null : savePoints(saveDir, calId, o.points(), desc);
+    Path pointsFile = saveDir == null ? null
+        : CalibrationService.savePoints(saveDir, calId, o.points(), desc);
     CalibrationReport report = CalibrationService.fitFromPoints(o.points(), settings);
     finish(report, calId, today, desc, pointsFile);
     return 0;
@@ -293,10 +292,5 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
         return calId + "-" + i;
       }
     }
-  }
-
-  private static Path savePoints(Path dir, String calId, List<CalibrationPoint> points,
-      String comment) {
-    return CalibrationService.savePoints(dir, calId, points, comment);
   }
 }

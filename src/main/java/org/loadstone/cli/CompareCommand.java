@@ -83,11 +83,7 @@ public final class CompareCommand implements Callable<Integer> {
               + num(g.ci95High().getAsDouble()) : "needs n ≥ 2");
     }
     out.println();
-    String test = switch (r.test()) {
-      case WELCH_T -> "Welch's t-test";
-      case ONE_WAY_ANOVA -> "one-way ANOVA";
-      case NONE -> "none (a group has fewer than 2 specimens, or no scatter)";
-    };
+    String test = r.test().words();
     out.printf(Locale.ROOT, "test: %s%s%n", test,
         r.pValue().isPresent() ? String.format(Locale.ROOT, ", p = %.3g", r.pValue().getAsDouble())
             : "");

@@ -58,7 +58,7 @@ final class LiveCalibration {
       }
       device.weights().load(mass);
       if (device.weights().automatic()) {
-        out.println("  (simulator: " + (mass == 0 ? "all weights removed" : massText(mass)
+        out.println("  (simulator: " + (mass == 0 ? "all weights removed" : MassText.format(mass)
             + " now on the simulated cell") + ")");
       }
       while (true) {
@@ -68,7 +68,7 @@ final class LiveCalibration {
               CalibrationPoint.ofMass(mass, model, step.direction(), step.series(), r);
           points.add(p);
           out.printf(Locale.ROOT, "  captured %s (%.6g N): mean %.1f counts, sd %.1f, %d"
-              + " samples%n", mass == 0 ? "zero" : massText(mass), p.force_N(), r.mean_counts(),
+              + " samples%n", mass == 0 ? "zero" : MassText.format(mass), p.force_N(), r.mean_counts(),
               r.sd_counts(), r.samples());
           break;
         } catch (LiveDevice.DeviceLostException e) {
@@ -94,7 +94,7 @@ final class LiveCalibration {
   /** @return the mass placed for {@code step}, or null when the operator quits */
   private Double askMass(CalibrationPlan.Step step, int total, List<CalibrationPoint> done) {
     String what = step.mass_kg() == 0 ? "remove all weights (zero point)"
-        : "place " + massText(step.mass_kg()) + " (sum of weights allowed, e.g. '1 kg + 500 g')";
+        : "place " + MassText.format(step.mass_kg()) + " (sum of weights allowed, e.g. '1 kg + 500 g')";
     String prompt = String.format(Locale.ROOT, "[%d/%d] series %d, %s: %s, then press Enter%s: ",
         step.number(), total, step.series(), step.direction().label(), what,
         step.mass_kg() == 0 ? " (q quits)" : " (or type the mass placed; q quits)");
@@ -130,17 +130,12 @@ final class LiveCalibration {
       boolean repeat = done.stream().anyMatch(p -> p.series() == step.series()
           && p.direction() == step.direction() && p.force_N() == force);
       if (repeat) {
-        out.println("  " + massText(mass) + " was already read in series " + step.series()
+        out.println("  " + MassText.format(mass) + " was already read in series " + step.series()
             + ", " + step.direction().label() + ": place a different mass, or press Enter for"
-            + " the planned " + massText(step.mass_kg()));
+            + " the planned " + MassText.format(step.mass_kg()));
         continue;
       }
       return mass;
     }
-  }
-
-  /** @return e.g. "2 kg", "0.5 kg", "250 g" */
-  static String massText(double kg) {
-    return MassText.format(kg);
   }
 }

@@ -14,6 +14,7 @@ import java.util.concurrent.Callable;
 import org.loadstone.calibration.CalibrationDocument;
 import org.loadstone.calibration.CalibrationStatus;
 import org.loadstone.calibration.CapturedReading;
+import org.loadstone.calibration.MassText;
 import org.loadstone.calibration.CheckWeightResult;
 import org.loadstone.calibration.CheckWeights;
 import org.loadstone.calibration.StabilityDetector;
@@ -115,7 +116,7 @@ public final class VerifyCommand implements Callable<Integer>, CommandInput.Read
       }
       double placed_kg = simPlaced_g != null ? simPlaced_g / 1000 : mass_kg;
       loaded = reading(dev, answers, out, settings, placed_kg, "place the check weight of "
-          + LiveCalibration.massText(mass_kg) + ", then press Enter (q quits): ");
+          + MassText.format(mass_kg) + ", then press Enter (q quits): ");
       if (loaded == null) {
         return stopped(out);
       }
@@ -128,7 +129,7 @@ public final class VerifyCommand implements Callable<Integer>, CommandInput.Read
         loaded.mean_counts() - zero.mean_counts(), tolerance_pct, Instant.now());
     CheckWeights.append(calFile, r);
     out.printf(Locale.ROOT, "Check weight %s: expected %.6g N, indicated %.6g N, error %+.4f %%"
-            + " (tolerance ±%s %%): %s%n", LiveCalibration.massText(mass_kg), r.expected_N(),
+            + " (tolerance ±%s %%): %s%n", MassText.format(mass_kg), r.expected_N(),
         r.indicated_N(), r.error_pct(), trim(r.tolerance_pct()), r.pass() ? "PASS" : "FAIL");
     out.println("Logged in " + CheckWeights.logFile(calFile));
     if (json) {

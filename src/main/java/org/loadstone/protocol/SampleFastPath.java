@@ -177,11 +177,8 @@ final class SampleFastPath {
     }
     int h = e + 2;
     int t = h + 4; // the hex digits are below t, and t is checked against limit below
-    int h0 = hexValue(b[h]);
-    int h1 = hexValue(b[h + 1]);
-    int h2 = hexValue(b[h + 2]);
-    int h3 = hexValue(b[h + 3]);
-    if ((h0 | h1 | h2 | h3) < 0) {
+    int sent = hex4(b, h);
+    if (sent < 0) {
       return -1;
     }
     if (b[t] == '\r') {
@@ -196,7 +193,7 @@ final class SampleFastPath {
         || (n == 4 && !fitsInt(f[3]))) {
       return -1;
     }
-    if (Crc16.compute(b, s, e - s) != ((h0 << 12) | (h1 << 8) | (h2 << 4) | h3)) {
+    if (Crc16.compute(b, s, e - s) != sent) {
       return -1;
     }
     out.seq = (int) seq;
@@ -205,6 +202,18 @@ final class SampleFastPath {
     out.hasPos = n == 4;
     out.pos = n == 4 ? (int) f[3] : 0;
     return t + 1;
+  }
+
+  /**
+   * @return the value of the four hex digits (either case) at {@code h}, first digit highest, or
+   *     -1 when one is not a hex digit
+   */
+  static int hex4(byte[] b, int h) {
+    int h0 = hexValue(b[h]);
+    int h1 = hexValue(b[h + 1]);
+    int h2 = hexValue(b[h + 2]);
+    int h3 = hexValue(b[h + 3]);
+    return (h0 | h1 | h2 | h3) < 0 ? -1 : (h0 << 12) | (h1 << 8) | (h2 << 4) | h3;
   }
 
   /** @return the value of hex digit {@code c} (either case), or -1 when it is not one */
@@ -266,7 +275,7 @@ final class SampleFastPath {
       }
       int zeros; // bit j: payload byte j is a zero that a COBS code stands for
       if (type == codesType
-          && ((((long) LONGS.get(b, s) ^ codes0) & codeMask0)
+          && (((w0 ^ codes0) & codeMask0)
               | (((long) LONGS.get(b, s + 8) ^ codes1) & codeMask1)
               | (((long) LONGS.get(b, s + 16) ^ codes2) & codeMask2)) == 0) {
         zeros = codesZeros; // the codes of the frame before: the same chain, the same zeros

@@ -27,8 +27,6 @@ final class TextLayout {
 
   private static final VarHandle LONGS = SampleFastPath.LONGS;
   private static final long LOW7 = 0x7F7F_7F7F_7F7F_7F7FL;
-  /** The check's adder for a digit byte. */
-  private static final int DIGIT_ADD = 0x76;
 
   private boolean known;
   private boolean refused;
@@ -103,7 +101,8 @@ final class TextLayout {
       // the smallest magnitudes rule out leading zeros and "-0"
       if (seq < min0 | seq > RawSample.SEQ_MAX | us < min1 | us > RawSample.TIME_MAX_US
           | load < min2 | load > max2 | pos < min3 | pos > max3
-          || (SampleFastPath.le32(b, s + hexAt) != hexDigits(crc) && !sentAs(b, s + hexAt, crc))) {
+          || (SampleFastPath.le32(b, s + hexAt) != hexDigits(crc)
+              && SampleFastPath.hex4(b, s + hexAt) != crc)) { // else lower case, or wrong
         refused = true;
         return s;
       }
@@ -162,15 +161,6 @@ final class TextLayout {
   /** The four upper-case hex digits of {@code crc} as a device sends them, first in the low byte. */
   static int hexDigits(int crc) {
     return HEX_PAIRS[(crc >>> 8) & 0xFF] | HEX_PAIRS[crc & 0xFF] << 16;
-  }
-
-  /** The general reading of the four checksum digits at {@code h} (either case). */
-  private static boolean sentAs(byte[] b, int h, int crc) {
-    int h0 = SampleFastPath.hexValue(b[h]);
-    int h1 = SampleFastPath.hexValue(b[h + 1]);
-    int h2 = SampleFastPath.hexValue(b[h + 2]);
-    int h3 = SampleFastPath.hexValue(b[h + 3]);
-    return (h0 | h1 | h2 | h3) >= 0 && ((h0 << 12) | (h1 << 8) | (h2 << 4) | h3) == crc;
   }
 
   /**
@@ -234,7 +224,7 @@ final class TextLayout {
     length = n;
     longLine = n > 32;
     bodyLength = p - 1;
-    learnCrc(b, s, add);
+    learnCrc(b, s, at, k, fields);
     known = true;
   }
 
@@ -242,15 +232,14 @@ final class TextLayout {
    * The CRC reads the words that hold digits, back from the body end, keeping only the digits'
    * low nibbles; everything else of the body is fixed by the shape and is in {@link #crcFixed}.
    */
-  private void learnCrc(byte[] b, int s, long[] add) {
+  private void learnCrc(byte[] b, int s, int[] at, int[] k, int fields) {
     crcWords = (bodyLength - at0 + 7) / 8;
     long[] mask = new long[Crc16.LOW_NIBBLE_WORDS];
-    byte[] fixed = new byte[bodyLength];
-    for (int i = 0; i < bodyLength; i++) {
-      boolean digit = ((add[i >>> 3] >>> ((i & 7) << 3)) & 0xFF) == DIGIT_ADD;
-      fixed[i] = digit ? (byte) '0' : b[s + i];
-      int back = bodyLength - 1 - i; // bytes after this one in the body
-      if (digit) {
+    byte[] fixed = java.util.Arrays.copyOfRange(b, s, s + bodyLength);
+    for (int f = 0; f < fields; f++) {
+      for (int i = at[f]; i < at[f] + k[f]; i++) {
+        fixed[i] = '0';
+        int back = bodyLength - 1 - i; // bytes after this digit in the body
         mask[back >>> 3] |= 0x0FL << ((7 - (back & 7)) << 3);
       }
     }
@@ -280,7 +269,7 @@ final class TextLayout {
   }
 
   private static void digit(long[] tpl, long[] add, long[] care, int i) {
-    put(tpl, add, care, i, '0', DIGIT_ADD);
+    put(tpl, add, care, i, '0', 0x76);
   }
 
   private static void put(long[] tpl, long[] add, long[] care, int i, int t, int a) {

@@ -41,13 +41,9 @@ final class TextLineParser {
     if (buf[tilde] != '~' || buf[tilde - 1] != ' ') {
       return MALFORMED;
     }
-    int crc = 0;
-    for (int k = tilde + 1; k < e; k++) {
-      int h = SampleFastPath.hexValue(buf[k]);
-      if (h < 0) {
-        return MALFORMED;
-      }
-      crc = (crc << 4) | h;
+    int crc = SampleFastPath.hex4(buf, tilde + 1);
+    if (crc < 0) {
+      return MALFORMED;
     }
     int bodyEnd = tilde - 1;
     int t = s;

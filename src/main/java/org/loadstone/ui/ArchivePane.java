@@ -63,6 +63,8 @@ final class ArchivePane {
   private final BorderPane strip = new BorderPane();
   private final VBox statistics = new VBox(6);
   private final Label status = LivePane.label("archive-status", "");
+  /** Runs read and analysed so far, by sidecar file. */
+  private final Map<Path, RunMetrics> analysed = new java.util.concurrent.ConcurrentHashMap<>();
   /** Every run of the folder, analysed, by group (group order). */
   private Map<String, List<RunMetrics>> runs = Map.of();
 
@@ -169,8 +171,24 @@ final class ArchivePane {
         }
         ArchiveIndex index = ArchiveIndex.scan(dir);
         List<String> problems = new ArrayList<>(index.problems());
-        Map<String, List<RunMetrics>> loaded =
-            GroupStudy.load(index.entries(), AnalysisSettings.DEFAULTS, problems);
+        // stored runs are never rewritten: read and analyse only those not seen before
+        for (ArchiveIndex.Entry e : index.entries()) {
+          if (!analysed.containsKey(e.json())) {
+            try {
+              analysed.put(e.json(), GroupStudy.analyse(e, AnalysisSettings.DEFAULTS));
+            } catch (LoadstoneException ex) {
+              problems.add(e.json().getFileName() + ": " + ex.getMessage());
+            }
+          }
+        }
+        Map<String, List<RunMetrics>> loaded = new TreeMap<>();
+        for (ArchiveIndex.Entry e : index.entries()) {
+          RunMetrics m = analysed.get(e.json());
+          if (m != null) {
+            loaded.computeIfAbsent(GroupStudy.groupOf(m.metadata()), k -> new ArrayList<>())
+                .add(m);
+          }
+        }
         int n = loaded.values().stream().mapToInt(List::size).sum();
         String text = n + " runs in " + dir + (problems.isEmpty() ? ""
             : " · left out: " + String.join("; ", problems));
@@ -292,11 +310,8 @@ final class ArchivePane {
       strip.setCenter(viewer("archive-strip",
           Charts.strip(r, values, m.label() + " (" + m.unit() + ")")));
       statistics.getChildren().add(groupTable(r, m.unit()));
-      statistics.getChildren().add(LivePane.label("archive-test", switch (r.test()) {
-        case WELCH_T -> "Welch's t-test";
-        case ONE_WAY_ANOVA -> "one-way ANOVA";
-        case NONE -> "no test: a group has fewer than 2 specimens, or no scatter";
-      } + (r.pValue().isPresent()
+      statistics.getChildren().add(LivePane.label("archive-test", r.test().words()
+          + (r.pValue().isPresent()
           ? String.format(Locale.ROOT, ", p = %.3g", r.pValue().getAsDouble()) : "")));
       Label sentence = LivePane.label("archive-sentence", r.sentence());
       sentence.setWrapText(true);

@@ -49,14 +49,14 @@ final class CalibratePane {
   private final Supplier<DeviceReader> reader;
   private final Consumer<Path> useCalibration;
   private final BorderPane root = new BorderPane();
-  private final TextField cell = field("cal-cell", "cell id, e.g. beam-500N");
-  private final TextField loads = field("cal-loads", "");
+  private final TextField cell = RunPanel.field("cal-cell", "cell id, e.g. beam-500N");
+  private final TextField loads = RunPanel.field("cal-loads", "");
   private final Spinner<Integer> series = new Spinner<>(1, 3, 1);
   private final CheckBox descending = new CheckBox("up and down");
-  private final TextField folder = field("cal-folder", "");
-  private final TextField gravity = field("cal-gravity", "9.80665 (standard)");
+  private final TextField folder = RunPanel.field("cal-folder", "");
+  private final TextField gravity = RunPanel.field("cal-gravity", "9.80665 (standard)");
   private CalibrationSettings settings = CalibrationSettings.defaults();
-  private final TextField placed = field("cal-placed", "mass placed, if not as planned");
+  private final TextField placed = RunPanel.field("cal-placed", "mass placed, if not as planned");
   private final Label step = LivePane.label("cal-step", "set the plan, then Start");
   private final Label counts = LivePane.label("cal-counts", "—");
   private final Label steadiness = LivePane.label("cal-steadiness", "");
@@ -89,10 +89,6 @@ final class CalibratePane {
     loads.setText("0.5 kg, 1 kg, 2 kg, 5 kg");
     folder.setText(Path.of("calibration").toAbsolutePath().toString());
     build();
-  }
-
-  private static TextField field(String id, String prompt) {
-    return RunPanel.field(id, prompt);
   }
 
   Parent root() {

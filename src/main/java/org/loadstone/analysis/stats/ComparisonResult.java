@@ -39,7 +39,16 @@ public record ComparisonResult(
     /** three or more groups: one-way analysis of variance */
     ONE_WAY_ANOVA,
     /** no test: a group has fewer than 2 specimens, or there is no scatter */
-    NONE
+    NONE;
+
+    /** @return the test in words, as reports and the command line name it */
+    public String words() {
+      return switch (this) {
+        case WELCH_T -> "Welch's t-test";
+        case ONE_WAY_ANOVA -> "one-way ANOVA";
+        case NONE -> "none (a group has fewer than 2 specimens, or no scatter)";
+      };
+    }
   }
 
   /** Copies the lists. */
