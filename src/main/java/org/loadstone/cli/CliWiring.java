@@ -6,7 +6,7 @@ import java.nio.file.Path;
 import java.time.Instant;
 import java.util.Optional;
 import org.loadstone.archive.ArchiveIndex;
-import org.loadstone.archive.ImportedRun;
+import org.loadstone.intake.ImportedRun;
 import org.loadstone.archive.Run;
 import org.loadstone.archive.RunIds;
 import org.loadstone.archive.RunMetadata;

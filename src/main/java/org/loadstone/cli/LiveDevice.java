@@ -8,7 +8,7 @@ import org.loadstone.calibration.CapturedReading;
 import org.loadstone.calibration.StabilityDetector;
 import org.loadstone.device.Transport;
 import org.loadstone.device.WeightHandler;
-import org.loadstone.device.sim.Scenario;
+import org.loadstone.sim.Scenario;
 import org.loadstone.protocol.DeviceMessage;
 import org.loadstone.units.LoadstoneException;
 

@@ -10,7 +10,7 @@ import java.util.OptionalDouble;
 import org.loadstone.acquire.BreakDetector;
 import org.loadstone.acquire.Recorder;
 import org.loadstone.archive.Run;
-import org.loadstone.archive.RunMetrics;
+import org.loadstone.study.RunMetrics;
 import org.loadstone.archive.RunReader;
 import org.loadstone.units.LoadstoneException;
 

@@ -12,7 +12,7 @@ import org.loadstone.device.FrameSampleSource;
 import org.loadstone.device.SampleSource;
 import org.loadstone.device.SimSetup;
 import org.loadstone.device.SimTransport;
-import org.loadstone.device.sim.Scenario;
+import org.loadstone.sim.Scenario;
 import org.loadstone.protocol.Encoding;
 import org.loadstone.protocol.WireEncoder;
 import org.loadstone.units.LoadstoneException;

@@ -1,13 +1,13 @@
 package org.loadstone.device;
 
-import org.loadstone.device.sim.SimulatedFrame;
+import org.loadstone.sim.SimulatedFrame;
 import org.loadstone.units.Precondition;
 
 /** Adapts the simulated frame's physical model to the {@link SampleSource} a transport streams. */
 public final class FrameSampleSource implements SampleSource {
   private final SimulatedFrame frame;
   private SampleSlot target;
-  private final org.loadstone.device.sim.SampleSink sink = (seq, us, load, pos) -> {
+  private final org.loadstone.sim.SampleSink sink = (seq, us, load, pos) -> {
     target.seq = seq;
     target.deviceUs = us;
     target.counts = load;

@@ -1,8 +1,8 @@
 package org.loadstone.device;
 
-import org.loadstone.device.sim.Scenario;
-import org.loadstone.device.sim.SimulatedFrame;
-import org.loadstone.device.sim.SimulatedFrameBuilder;
+import org.loadstone.sim.Scenario;
+import org.loadstone.sim.SimulatedFrame;
+import org.loadstone.sim.SimulatedFrameBuilder;
 import org.loadstone.units.LoadstoneException;
 
 /**
@@ -51,7 +51,7 @@ public record SimSetup(String scenario, long seed, double rateHz, boolean hand, 
   }
 
   /** @return the simulated load cell (sensitivity, capacity, offset, noise, non-linearity) */
-  public org.loadstone.device.sim.LoadCell cell() {
+  public org.loadstone.sim.LoadCell cell() {
     return buildFrame().truth().loadCell();
   }
 }

@@ -1,6 +1,6 @@
 package org.loadstone.device;
 
-import org.loadstone.device.sim.SimulatedFrame;
+import org.loadstone.sim.SimulatedFrame;
 import org.loadstone.units.LoadstoneException;
 
 /**

@@ -26,7 +26,7 @@ import org.loadstone.analysis.RunResult;
 import org.loadstone.analysis.StiffnessFit;
 import org.loadstone.analysis.stats.ComparisonResult;
 import org.loadstone.analysis.stats.GroupSummary;
-import org.loadstone.archive.RunMetrics;
+import org.loadstone.study.RunMetrics;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 

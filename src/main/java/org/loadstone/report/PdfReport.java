@@ -16,7 +16,7 @@ import org.loadstone.analysis.stats.GroupComparison;
 import org.loadstone.analysis.stats.GroupSummary;
 import org.loadstone.archive.Geometry;
 import org.loadstone.archive.RunMetadata;
-import org.loadstone.archive.RunMetrics;
+import org.loadstone.study.RunMetrics;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 

@@ -24,7 +24,7 @@ import org.loadstone.acquire.RunTemplate;
 import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.archive.Run;
 import org.loadstone.archive.RunMetadata;
-import org.loadstone.archive.RunMetrics;
+import org.loadstone.study.RunMetrics;
 import org.loadstone.archive.RunReader;
 import org.loadstone.units.LoadstoneException;
 

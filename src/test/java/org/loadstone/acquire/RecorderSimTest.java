@@ -13,8 +13,8 @@ import org.loadstone.archive.RunMetadata;
 import org.loadstone.archive.ScaleSpec;
 import org.loadstone.device.SimSetup;
 import org.loadstone.device.SimTransport;
-import org.loadstone.device.sim.SimTruth;
-import org.loadstone.device.sim.SimulatedFrame;
+import org.loadstone.sim.SimTruth;
+import org.loadstone.sim.SimulatedFrame;
 
 /** Hands-free runs end to end on the simulated frame: bytes, decoder, ring, run control. */
 class RecorderSimTest {

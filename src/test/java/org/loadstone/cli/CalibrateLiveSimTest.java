@@ -17,8 +17,8 @@ import org.loadstone.calibration.CalibrationStatus;
 import org.loadstone.calibration.CheckWeightResult;
 import org.loadstone.calibration.CheckWeights;
 import org.loadstone.device.SimSetup;
-import org.loadstone.device.sim.LoadCell;
-import org.loadstone.device.sim.SimTruth;
+import org.loadstone.sim.LoadCell;
+import org.loadstone.sim.SimTruth;
 
 /**
  * Live calibration and check-weight verification against the built-in simulator, driven through

@@ -12,11 +12,11 @@ import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.api.io.TempDir;
-import org.loadstone.archive.FrameProfile;
+import org.loadstone.study.FrameProfile;
 import org.loadstone.archive.Run;
 import org.loadstone.archive.RunReader;
 import org.loadstone.device.SimSetup;
-import org.loadstone.device.sim.SimTruth;
+import org.loadstone.sim.SimTruth;
 
 /**
  * Re-analysis of stored runs: frame compliance measured on a rigid block and removed, another

@@ -24,7 +24,7 @@ import org.loadstone.archive.RunReader;
 import org.loadstone.archive.StoredRun;
 import org.loadstone.device.SimSetup;
 import org.loadstone.device.SocatPair;
-import org.loadstone.device.sim.SimulatedFrame;
+import org.loadstone.sim.SimulatedFrame;
 
 /** {@code loadstone record} end to end: the simulated frame, a pseudo-terminal cable, a crash. */
 class RecordCommandTest {
@@ -64,7 +64,7 @@ class RecordCommandTest {
     assertThat(Files.list(tmp.resolve(".journal")).count()).as("journal removed").isZero();
     assertThat(r.err()).contains("no calibration");
     // the post-run figures are the archive's analysis of the stored run
-    var m = org.loadstone.archive.RunMetrics.of(run.metadata(), run.data());
+    var m = org.loadstone.study.RunMetrics.of(run.metadata(), run.data());
     assertThat(j.get("stiffness_N_per_mm").asDouble())
         .isEqualTo(m.analysis().stiffness_N_per_mm().getAsDouble());
     assertThat(j.get("energy_to_break_J").asDouble())

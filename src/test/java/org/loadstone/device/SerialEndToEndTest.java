@@ -11,7 +11,7 @@ import org.junit.jupiter.params.provider.CsvSource;
 import org.loadstone.acquire.DeviceReader;
 import org.loadstone.acquire.SampleRing;
 import org.loadstone.cli.LoadstoneCommand;
-import org.loadstone.device.sim.SimulatedFrame;
+import org.loadstone.sim.SimulatedFrame;
 import org.loadstone.units.LoadstoneException;
 import org.assertj.core.api.Assertions;
 

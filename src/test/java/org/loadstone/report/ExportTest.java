@@ -17,12 +17,12 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.loadstone.analysis.stats.ComparisonResult;
 import org.loadstone.analysis.stats.GroupComparison;
-import org.loadstone.archive.ColumnMap;
-import org.loadstone.archive.CsvImport;
-import org.loadstone.archive.ImportSettings;
-import org.loadstone.archive.ImportedRun;
+import org.loadstone.intake.ColumnMap;
+import org.loadstone.intake.CsvImport;
+import org.loadstone.intake.ImportSettings;
+import org.loadstone.intake.ImportedRun;
 import org.loadstone.archive.RunData;
-import org.loadstone.archive.RunMetrics;
+import org.loadstone.study.RunMetrics;
 import org.loadstone.archive.TestRuns;
 import org.loadstone.units.LoadstoneException;
 

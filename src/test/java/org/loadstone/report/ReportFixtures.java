@@ -4,7 +4,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import org.loadstone.archive.RunMetrics;
+import org.loadstone.study.RunMetrics;
 import org.loadstone.archive.TestRuns;
 
 /** Three groups of synthetic shelf-panel runs (foam, balsa, corrugated-board cores). */

@@ -19,7 +19,7 @@ import org.loadstone.acquire.DeviceReader;
 import org.loadstone.acquire.SampleRing;
 import org.loadstone.calibration.CalibrationFiles;
 import org.loadstone.device.SimSetup;
-import org.loadstone.device.sim.SimTruth;
+import org.loadstone.sim.SimTruth;
 import org.testfx.api.FxRobot;
 import org.testfx.framework.junit5.ApplicationExtension;
 import org.testfx.framework.junit5.Start;

@@ -108,7 +108,7 @@ class LivePaneTest {
     WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS,
         () -> robot.lookup("#figure-stiffness").tryQuery().isPresent());
     var run = org.loadstone.archive.RunReader.read(csv);
-    var m = org.loadstone.archive.RunMetrics.of(run.metadata(), run.data());
+    var m = org.loadstone.study.RunMetrics.of(run.metadata(), run.data());
     assertThat(robot.lookup("#figure-peak").queryAs(Label.class).getText())
         .isEqualTo(RunPanel.fmt(m.analysis().peakForce_N(), "N"));
     assertThat(robot.lookup("#figure-stiffness").queryAs(Label.class).getText())

@@ -1,0 +1,411 @@
+package org.loadstone.intake;
+
+import org.loadstone.archive.FinishCause;
+import org.loadstone.archive.Geometry;
+import org.loadstone.archive.RunData;
+import org.loadstone.archive.RunMetadata;
+import org.loadstone.archive.ScaleSpec;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Iterator;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVParser;
+import org.apache.commons.csv.CSVRecord;
+import org.loadstone.units.DurationUnit;
+import org.loadstone.units.ForceUnit;
+import org.loadstone.units.LengthUnit;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
+
+/**
+ * Reads force–time or force–displacement CSV files written elsewhere into {@link RunData}.
+ *
+ * <p>Every refusal is a {@link LoadstoneException} naming the file, the line (1-based, counted
+ * in the whole file) and the column, with the fix: unknown unit, empty or NaN cell, text that is
+ * not a number, time that does not increase, fewer than 2 data rows, missing column.
+ */
+public final class CsvImport {
+  private CsvImport() {}
+
+  private static final Pattern UNIT_IN_HEADER = Pattern.compile("[\\[(]\\s*([^\\])]+?)\\s*[\\])]\\s*$");
+  private static final Pattern NUMBER =
+      Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
+
+  /**
+   * Reads a CSV with columns {@code time_s, force_N} and optionally {@code position_mm} (other
+   * columns are ignored), as written for every Loadstone run and by {@code CsvExport} with the
+   * default marks. The delimiter is detected; numbers use a decimal point, or either mark when
+   * the delimiter is ';' or tab (as {@code CsvExport} writes for spreadsheets). A position column
+   * with only empty cells means the run has no position.
+   *
+   * @param file the CSV, not null
+   * @return the run with partial metadata
+   * @throws LoadstoneException when the file cannot be read or a value is refused
+   */
+  public static ImportedRun plain(Path file) {
+    ImportSettings s = ImportSettings.of(ColumnMap.PLAIN).withForceUnit(ForceUnit.N)
+        .withLengthUnit(LengthUnit.MM).withTimeUnit(DurationUnit.S);
+    return read(file, s, true);
+  }
+
+  /**
+   * Reads a foreign CSV.
+   *
+   * @param file the CSV, not null
+   * @param settings column map, units, delimiter, decimal mark, lines to skip; not null
+   * @return the run in seconds, newtons and millimetres, time shifted to start at 0
+   * @throws LoadstoneException when the file cannot be read or a value is refused
+   */
+  public static ImportedRun read(Path file, ImportSettings settings) {
+    return read(file, settings, false);
+  }
+
+  private static ImportedRun read(Path file, ImportSettings s, boolean plain) {
+    Precondition.notNull(file, "file");
+    Precondition.notNull(s, "settings");
+    String name = file.getFileName().toString();
+    String text = readText(file);
+    int[] lineStarts = lineStarts(text);
+    if (s.skipLines() >= lineStarts.length) {
+      throw new LoadstoneException("File " + name + " has " + lineStarts.length + " line(s) but "
+          + s.skipLines() + " are to be skipped before the header; lower the skip count.");
+    }
+    int bodyStart = lineStarts[s.skipLines()];
+    String body = text.substring(bodyStart);
+    char delim = s.delimiter() != null ? s.delimiter()
+        : detectDelimiter(body, s.decimalComma(), name, s.skipLines() + 1);
+    // a plain file separated by ';' or tab may use either decimal mark (a spreadsheet export)
+    boolean decimalComma = s.decimalComma() || (plain && delim != ',');
+    List<String> notes = new ArrayList<>();
+    CSVFormat fmt = CSVFormat.DEFAULT.builder().setDelimiter(delim).setIgnoreEmptyLines(true)
+        .setTrim(true).build();
+    List<String[]> rows = new ArrayList<>();
+    List<Integer> rowLines = new ArrayList<>();
+    List<String> header;
+    int headerLine;
+    try (CSVParser p = CSVParser.parse(body, fmt)) {
+      Iterator<CSVRecord> it = p.iterator();
+      if (!it.hasNext()) {
+        throw new LoadstoneException("File " + name + " has no rows after line " + s.skipLines()
+            + "; check the skip count and that the file is a CSV.");
+      }
+      CSVRecord h = it.next();
+      headerLine = lineOf(text, lineStarts, bodyStart + (int) h.getCharacterPosition());
+      header = h.toList();
+      while (it.hasNext()) {
+        CSVRecord r = it.next();
+        rows.add(r.toList().toArray(new String[0]));
+        rowLines.add(lineOf(text, lineStarts, bodyStart + (int) r.getCharacterPosition()));
+      }
+    } catch (IOException | UncheckedIOException e) {
+      throw new LoadstoneException("File " + name + " is not a readable CSV: " + e.getMessage()
+          + ". Check quotes and the delimiter.", e);
+    }
+    int ti = column(s.columns().time(), header, name, headerLine, false);
+    int fi = column(s.columns().force(), header, name, headerLine, false);
+    int pi = s.columns().position() == null ? -1
+        : column(s.columns().position(), header, name, headerLine, plain);
+    if (isIndex(s.columns().time()) && isIndex(s.columns().force())
+        && numeric(header, ti, decimalComma) && numeric(header, fi, decimalComma)) {
+      rows.add(0, header.toArray(new String[0])); // no header row: the first line is data
+      rowLines.add(0, headerLine);
+      header = null;
+      notes.add("No header row: the first line was read as data.");
+    }
+    if (pi >= 0 && plain && allBlank(rows, pi)) {
+      pi = -1;
+      notes.add("The position column is empty: the run has no position.");
+    }
+    if (rows.size() < 2) {
+      throw new LoadstoneException("File " + name + " has " + rows.size() + " data row(s); a run "
+          + "needs at least 2. Check the skip count and that the whole file was saved.");
+    }
+    DurationUnit tu = unit(s.timeUnit(), header, ti, "time", DurationUnit.S, DurationUnit::parse,
+        DurationUnit::symbol, name, headerLine, notes, "--time-unit");
+    ForceUnit fu = unit(s.forceUnit(), header, fi, "force", ForceUnit.N, ForceUnit::parse,
+        ForceUnit::symbol, name, headerLine, notes, "--force-unit");
+    LengthUnit lu = pi < 0 ? null : unit(s.lengthUnit(), header, pi, "position", LengthUnit.MM,
+        LengthUnit::parse, LengthUnit::symbol, name, headerLine, notes, "--length-unit");
+
+    int n = rows.size();
+    double[] t = new double[n];
+    double[] f = new double[n];
+    double[] x = pi < 0 ? null : new double[n];
+    Cells c = new Cells(name, header, decimalComma);
+    for (int i = 0; i < n; i++) {
+      String[] row = rows.get(i);
+      int line = rowLines.get(i);
+      t[i] = tu.toSeconds(c.number(row, ti, line));
+      f[i] = fu.toNewtons(c.number(row, fi, line));
+      if (x != null) {
+        x[i] = lu.toMm(c.number(row, pi, line));
+      }
+      if (i > 0 && !(t[i] > t[i - 1])) {
+        throw new LoadstoneException(String.format(Locale.ROOT,
+            "File %s line %d column %s: time %s s does not come after %s s on line %d. Time must "
+                + "strictly increase; remove repeated or out-of-order rows, or map the right "
+                + "column as time.", name, line, c.label(ti), t[i], t[i - 1], rowLines.get(i - 1)));
+      }
+    }
+    double t0 = t[0];
+    if (t0 != 0) {
+      for (int i = 0; i < n; i++) {
+        t[i] -= t0;
+      }
+      notes.add(String.format(Locale.ROOT, "Time shifted by %.6g s to start at 0.", -t0));
+    }
+    RunData data = plain && header != null
+        ? withRaw(t, f, x, rows, rowLines, header, c, notes)
+        : null;
+    if (data == null) {
+      notes.add("No raw data: raw counts are 0 and seq is the row index.");
+      int[] seq = new int[n];
+      Arrays.setAll(seq, i -> i);
+      data = new RunData(t, f, x, new int[n], x == null ? null : new int[n], seq);
+    }
+    List<String> cols = new ArrayList<>();
+    cols.add(describe("time", c.label(ti), ti, tu.symbol()));
+    cols.add(describe("force", c.label(fi), fi, fu.symbol()));
+    if (pi >= 0) {
+      cols.add(describe("position", c.label(pi), pi, lu.symbol()));
+    }
+    boolean raw = notes.stream().anyMatch(x2 -> x2.startsWith("Raw counts"));
+    return new ImportedRun(metadata(file, name, data, cols, raw), data, delim, cols, notes);
+  }
+
+  /** A run CSV's own raw columns, kept when present (raw is truth); null when absent. */
+  private static RunData withRaw(double[] t, double[] f, double[] x, List<String[]> rows,
+      List<Integer> lines, List<String> header, Cells c, List<String> notes) {
+    int rc = column("raw_counts", header, "", 0, true);
+    int sq = column("seq", header, "", 0, true);
+    int rp = x == null ? -1 : column("raw_position", header, "", 0, true);
+    if (rc < 0 || sq < 0 || (x != null && rp < 0)) {
+      return null;
+    }
+    int n = rows.size();
+    int[] raw = new int[n];
+    int[] seq = new int[n];
+    int[] rawPos = x == null ? null : new int[n];
+    for (int i = 0; i < n; i++) {
+      raw[i] = c.integer(rows.get(i), rc, lines.get(i));
+      seq[i] = c.integer(rows.get(i), sq, lines.get(i));
+      if (rawPos != null) {
+        rawPos[i] = c.integer(rows.get(i), rp, lines.get(i));
+      }
+    }
+    notes.add("Raw counts and sequence numbers read from the file.");
+    return new RunData(t, f, x, raw, rawPos, seq);
+  }
+
+  private static String describe(String role, String label, int index, String unit) {
+    return role + ": " + label + " (column " + (index + 1) + ") in " + unit;
+  }
+
+  private static RunMetadata metadata(Path file, String name, RunData d, List<String> cols,
+      boolean raw) {
+    String stem = name.contains(".") ? name.substring(0, name.lastIndexOf('.')) : name;
+    Instant started;
+    try {
+      started = Files.getLastModifiedTime(file).toInstant();
+    } catch (IOException e) {
+      started = Instant.EPOCH;
+    }
+    double span = d.time_s()[d.size() - 1] - d.time_s()[0];
+    double rate = (d.size() - 1) / span;
+    String version = CsvImport.class.getPackage().getImplementationVersion();
+    return new RunMetadata("import-" + stem.replaceAll("[^A-Za-z0-9._-]", "_"), started, stem, "",
+        List.of("imported"), "", "Imported from " + name + ".", null, Geometry.NONE, null,
+        Map.of("source", name), rate, null, null,
+        "imported: force read from " + name + (raw ? "" : ", no raw counts"),
+        new ScaleSpec("imported", List.of(0.0), null, null), 0, 0, 0, FinishCause.IMPORTED, null,
+        null, null, null, 0, null, null,
+        raw ? List.of() : List.of("No raw data: raw counts are 0."),
+        version == null ? "dev" : version, Map.of("import_columns", String.join("; ", cols)));
+  }
+
+  private static String readText(Path file) {
+    byte[] bytes;
+    try {
+      bytes = Files.readAllBytes(file);
+    } catch (IOException e) {
+      throw new LoadstoneException("Cannot read " + file + ": " + e.getMessage()
+          + ". Check the path and permissions.", e);
+    }
+    String text;
+    try {
+      text = StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+    } catch (CharacterCodingException notUtf8) {
+      text = new String(bytes, StandardCharsets.ISO_8859_1); // older spreadsheet exports
+    }
+    return text.startsWith("\uFEFF") ? text.substring(1) : text;
+  }
+
+  private static int[] lineStarts(String text) {
+    List<Integer> starts = new ArrayList<>();
+    starts.add(0);
+    for (int i = 0; i < text.length(); i++) {
+      char ch = text.charAt(i);
+      if (ch == '\n' || (ch == '\r' && (i + 1 >= text.length() || text.charAt(i + 1) != '\n'))) {
+        if (i + 1 < text.length()) {
+          starts.add(i + 1);
+        }
+      }
+    }
+    return starts.stream().mapToInt(Integer::intValue).toArray();
+  }
+
+  /** @return the 1-based line holding a character offset */
+  private static int lineOf(String text, int[] starts, int offset) {
+    // the parser reports where it started looking, before any empty lines it skipped
+    while (offset < text.length() && (text.charAt(offset) == '\n' || text.charAt(offset) == '\r')) {
+      offset++;
+    }
+    int k = Arrays.binarySearch(starts, offset);
+    return (k >= 0 ? k : -k - 2) + 1;
+  }
+
+  private static char detectDelimiter(String body, boolean decimalComma, String name, int line) {
+    int end = body.indexOf('\n');
+    String first = end < 0 ? body : body.substring(0, end);
+    char best = 0;
+    long bestCount = 0;
+    for (char d : new char[] {';', '\t', ','}) {
+      if (d == ',' && decimalComma) {
+        continue;
+      }
+      long count = first.chars().filter(ch -> ch == d).count();
+      if (count > bestCount) {
+        best = d;
+        bestCount = count;
+      }
+    }
+    if (best == 0) {
+      throw new LoadstoneException("File " + name + " line " + line + ": no comma, semicolon or "
+          + "tab found, so the columns cannot be told apart. Give the delimiter (--delimiter) or "
+          + "check the skip count.");
+    }
+    return best;
+  }
+
+  private static boolean isIndex(String ref) {
+    return ref.chars().allMatch(Character::isDigit);
+  }
+
+  private static int column(String ref, List<String> header, String name, int line,
+      boolean optional) {
+    if (isIndex(ref)) {
+      int k = Integer.parseInt(ref);
+      if (k < 1 || k > header.size()) {
+        throw new LoadstoneException("File " + name + " line " + line + " has " + header.size()
+            + " column(s); column number " + ref + " does not exist. Columns count from 1.");
+      }
+      return k - 1;
+    }
+    for (int i = 0; i < header.size(); i++) {
+      if (header.get(i).trim().equalsIgnoreCase(ref)) {
+        return i;
+      }
+    }
+    if (optional) {
+      return -1;
+    }
+    throw new LoadstoneException("File " + name + " line " + line + " has no column named '" + ref
+        + "'; its columns are " + header + ". Map by one of these names or by number.");
+  }
+
+  private static boolean numeric(List<String> header, int i, boolean decimalComma) {
+    String v = header.get(i).trim();
+    return NUMBER.matcher(decimalComma ? v.replace(',', '.') : v).matches();
+  }
+
+  private static boolean allBlank(List<String[]> rows, int col) {
+    for (String[] r : rows) {
+      if (col < r.length && !r[col].isBlank()) {
+        return false;
+      }
+    }
+    return true;
+  }
+
+  private static <U> U unit(U given, List<String> header, int col, String role, U fallback,
+      java.util.function.Function<String, U> parse, java.util.function.Function<U, String> symbol,
+      String file, int line, List<String> notes, String option) {
+    String fromHeader = null;
+    if (header != null) {
+      Matcher m = UNIT_IN_HEADER.matcher(header.get(col).trim());
+      if (m.find()) {
+        fromHeader = m.group(1);
+      }
+    }
+    if (given != null) {
+      if (fromHeader != null && !fromHeader.equalsIgnoreCase(symbol.apply(given))) {
+        notes.add("The " + role + " header says '" + fromHeader + "' but " + option + " "
+            + symbol.apply(given) + " was given; the given unit is used.");
+      }
+      return given;
+    }
+    if (fromHeader != null) {
+      try {
+        return parse.apply(fromHeader);
+      } catch (LoadstoneException e) {
+        throw new LoadstoneException("File " + file + " line " + line + " column '"
+            + header.get(col).trim() + "': " + e.getMessage() + ". Give the " + role
+            + " unit with " + option + ".", e);
+      }
+    }
+    notes.add("No " + role + " unit given or in the header: " + symbol.apply(fallback)
+        + " assumed.");
+    return fallback;
+  }
+
+  /** Turns cells into numbers with messages naming file, line and column. */
+  private record Cells(String file, List<String> header, boolean decimalComma) {
+    String label(int col) {
+      return header == null ? "#" + (col + 1) : "'" + header.get(col).trim() + "'";
+    }
+
+    double number(String[] row, int col, int line) {
+      String where = "File " + file + " line " + line + " column " + label(col);
+      if (col >= row.length || row[col].isBlank()) {
+        throw new LoadstoneException(where + ": the cell is empty. Fill it or remove the row.");
+      }
+      String raw = row[col].trim();
+      String low = raw.toLowerCase(Locale.ROOT);
+      if (low.equals("nan") || low.contains("inf")) {
+        throw new LoadstoneException(where + ": the cell holds '" + raw + "', not a measured "
+            + "value. Remove or repair that row.");
+      }
+      String v = decimalComma ? raw.replace(',', '.') : raw;
+      if (!NUMBER.matcher(v).matches()) {
+        String hint = !decimalComma && raw.matches("[+-]?\\d+,\\d+")
+            ? " The file seems to use a decimal comma: add --decimal-comma."
+            : " Check the column mapping and the skip count.";
+        throw new LoadstoneException(where + ": '" + raw + "' is not a number." + hint);
+      }
+      return Double.parseDouble(v);
+    }
+
+    int integer(String[] row, int col, int line) {
+      double v = number(row, col, line);
+      if (v != Math.rint(v) || Math.abs(v) > Integer.MAX_VALUE) {
+        throw new LoadstoneException("File " + file + " line " + line + " column " + label(col)
+            + ": " + row[col].trim() + " is not a whole number of counts. Repair the cell or "
+            + "drop the raw columns.");
+      }
+      return (int) v;
+    }
+  }
+}

@@ -1,0 +1,132 @@
+package org.loadstone.study;
+
+import org.loadstone.archive.FinishCause;
+import org.loadstone.archive.Geometry;
+import org.loadstone.archive.RunData;
+import org.loadstone.archive.RunMetadata;
+import org.loadstone.archive.TestRuns;
+import org.loadstone.archive.TestType;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+
+class RunMetricsTest {
+
+  @Test
+  void threePointModulusRecoversTheBeamModulus() {
+    // Simply supported beam, centre load: k = 48EI/L³ with I = bd³/12 (any strength-of-materials
+    // text, e.g. Gere & Timoshenko, Mechanics of Materials, beam deflection table).
+    double e_MPa = 3200;
+    double span = 200;
+    double b = 40;
+    double d = 8;
+    double k = 48 * e_MPa * (b * d * d * d / 12) / (span * span * span);
+    RunData data = TestRuns.bend(k, 300);
+    Geometry g = new Geometry(span, null, b, d, null, null, null);
+    RunMetrics m = RunMetrics.of(TestRuns.meta("B-01", "balsa", g, 41.0), data);
+    assertThat(m.flexuralModulus_MPa().getAsDouble()).isCloseTo(e_MPa, within(0.005 * e_MPa));
+    // σ = 3PL/(2bd²) (ASTM D790): 3·300·200/(2·40·64) = 35.15625 MPa
+    assertThat(m.flexuralStressAtPeak_MPa().getAsDouble()).isCloseTo(35.15625, within(1e-9));
+    assertThat(m.coreShearStressAtPeak_MPa()).isEmpty();
+    // per gram: 300 N / 41 g
+    assertThat(m.specificPeak_N_per_g().getAsDouble()).isCloseTo(300 / 41.0, within(1e-12));
+  }
+
+  @Test
+  void sandwichCoreShearAndFacingStressAsAstmC393() {
+    // ASTM C393: τ = P/((d + c)b), σ_f = PL/(2t(d + c)b). Hand-computed for P = 460 N,
+    // d = 26, c = 20, t = 3, b = 50, L = 400 mm: τ = 460/(46·50) = 0.2 MPa,
+    // σ_f = 460·400/(2·3·46·50) = 184000/13800 = 13.3333 MPa.
+    RunMetrics m = RunMetrics.of(TestRuns.meta("F-03", "foam", TestRuns.panel(), 52.0),
+        TestRuns.bend(60, 460));
+    assertThat(m.analysis().peakForce_N()).isEqualTo(460.0);
+    assertThat(m.coreShearStressAtPeak_MPa().getAsDouble()).isCloseTo(0.2, within(1e-12));
+    assertThat(m.facingStressAtPeak_MPa().getAsDouble()).isCloseTo(184000 / 13800.0,
+        within(1e-9));
+    assertThat(m.notes()).anyMatch(n -> n.contains("apparent"));
+  }
+
+  @Test
+  void fourPointModulusRecoversTheBeamModulus() {
+    // Two loads P/2 at a = (L − load span)/2 from the supports: midspan deflection
+    // δ = P·a·(3L² − 4a²)/(48EI) (standard beam table, e.g. Roark's Formulas for Stress and
+    // Strain), so k = 48EI/(a(3L² − 4a²)). Stress σ = 3P(L − load span)/(2bd²) (ASTM D6272).
+    double e = 2800;
+    double l = 240;
+    double ls = 80;
+    double a = (l - ls) / 2;
+    double b = 50;
+    double d = 12;
+    double k = 48 * e * (b * d * d * d / 12) / (a * (3 * l * l - 4 * a * a));
+    Geometry g = new Geometry(l, ls, b, d, null, null, null);
+    RunMetadata meta = TestRuns.meta("B-4P", "balsa", g, null);
+    meta = new RunMetadata(meta.runId(), meta.startedAt(), meta.specimen(), meta.group(),
+        meta.tags(), meta.operator(), meta.notes(), null, g, TestType.FOUR_POINT_BEND,
+        meta.device(), meta.sampleRate_Hz(), null, null, meta.scale(), meta.scaleSpec(), 0, 0, 0,
+        FinishCause.BREAK, null, null, null, null, 0, null, null, null, "t", null);
+    RunMetrics m = RunMetrics.of(meta, TestRuns.bend(k, 500));
+    assertThat(m.flexuralModulus_MPa().getAsDouble()).isCloseTo(e, within(0.005 * e));
+    // 3·500·160/(2·50·144) = 16.6667 MPa
+    assertThat(m.flexuralStressAtPeak_MPa().getAsDouble()).isCloseTo(240000 / 14400.0,
+        within(1e-9));
+  }
+
+  @Test
+  void compressionStressIsForceOverArea() {
+    // σ = P/A: 460 N on 50 mm × 50 mm = 2500 mm² gives 0.184 MPa (hand-computed)
+    Geometry g = new Geometry(null, null, null, null, null, null, 2500.0);
+    RunMetadata base = TestRuns.meta("C-01", "foam", g, null);
+    RunMetadata meta = new RunMetadata(base.runId(), base.startedAt(), base.specimen(),
+        base.group(), base.tags(), base.operator(), base.notes(), null, g, TestType.COMPRESSION,
+        base.device(), base.sampleRate_Hz(), null, null, base.scale(), base.scaleSpec(), 0, 0, 0,
+        FinishCause.BREAK, null, null, null, null, 0, null, null, null, "t", null);
+    RunMetrics m = RunMetrics.of(meta, TestRuns.bend(60, 460));
+    assertThat(m.compressionStressAtPeak_MPa().getAsDouble()).isCloseTo(0.184, within(1e-12));
+    assertThat(m.flexuralStressAtPeak_MPa()).isEmpty();
+  }
+
+  @Test
+  void jsonMapHasTheAgreedKeysAndNullsForAbsentValues() {
+    RunData d = TestRuns.bend(60, 460);
+    RunData noPos = new RunData(d.time_s(), d.force_N(), null, d.rawCounts(), null, d.seq());
+    RunMetrics m = RunMetrics.of(TestRuns.meta("C-01", "board", Geometry.NONE, null), noPos);
+    Map<String, Object> j = m.toJsonMap();
+    assertThat(j).containsKeys("peak_N", "peak_time_s", "stiffness_N_per_mm",
+        "energy_to_peak_J", "energy_to_break_J", "break_index");
+    assertThat(j.get("peak_N")).isEqualTo(460.0);
+    assertThat(j.get("stiffness_N_per_mm")).isNull();
+    assertThat(j.get("energy_to_peak_J")).isNull();
+    assertThat(j.get("break_index")).isNotNull();
+    assertThat(m.notes()).anyMatch(n -> n.contains("No position"))
+        .anyMatch(n -> n.contains("No specimen mass"))
+        .anyMatch(n -> n.contains("span_mm"));
+  }
+
+  @Test
+  void recordedBreakIndexIsUsedAndABadOneIsNoted() {
+    RunData d = TestRuns.bend(60, 460);
+    int last = d.size() - 1;
+    RunMetadata base = TestRuns.meta("F-04", "foam", TestRuns.panel(), null);
+    RunMetrics given = RunMetrics.of(withBreak(base, last), d);
+    assertThat(given.analysis().breakPoint().get().index()).isEqualTo(last);
+    assertThat(given.analysis().breakPoint().get().detected()).isFalse();
+    RunMetrics bad = RunMetrics.of(withBreak(base, 3), d);
+    assertThat(bad.analysis().breakPoint().get().detected()).isTrue();
+    assertThat(bad.notes()).anyMatch(n -> n.contains("recorded break index 3"));
+    // energy to break is the trapezoid area to the break: more than to the peak
+    assertThat(given.analysis().energyToBreak_J().getAsDouble())
+        .isGreaterThan(given.analysis().energyToPeak_J().getAsDouble());
+  }
+
+  private static RunMetadata withBreak(RunMetadata m, int index) {
+    return new RunMetadata(m.runId(), m.startedAt(), m.specimen(), m.group(), m.tags(),
+        m.operator(), m.notes(), m.mass_g(), m.geometry(), m.testType(), m.device(),
+        m.sampleRate_Hz(), m.calibrationId(), m.calibrationSha256(), m.scale(), m.scaleSpec(),
+        m.zeroOffset_counts(), m.dropped(), m.checksumErrors(), m.cause(), index, null, null,
+        null, m.pretrigger_s(), m.startThreshold_N(), m.checkWeight(), m.warnings(),
+        m.softwareVersion(), m.extra());
+  }
+}
