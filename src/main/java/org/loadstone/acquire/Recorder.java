@@ -294,14 +294,38 @@ public final class Recorder implements AutoCloseable {
       w = List.copyOf(warnings);
     }
     Double breakRelative = breakTime_s == null ? null : breakTime_s - runStartTime_s;
-    return new RunMetadata(t.runId(), startedAt != null ? startedAt : t.startedAt(),
-        t.specimen(), t.group(), t.tags(), t.operator(), t.notes(), t.mass_g(), t.geometry(),
-        t.testType(), t.device(), deviceRate_Hz > 0 ? deviceRate_Hz : t.sampleRate_Hz(),
-        t.calibrationId(), t.calibrationSha256(), t.scale(),
-        t.scaleSpec(), zero_counts, dropped, crc, cause, breakIndex, breakRelative, peakBefore,
-        dropPct, control.settings().pretrigger_s(),
-        s != null && s.manual() ? null : control.settings().startThreshold_N(), t.checkWeight(),
-        w, t.softwareVersion(), t.extra());
+    return RunMetadata.builder()
+        .runId(t.runId())
+        .startedAt(startedAt != null ? startedAt : t.startedAt())
+        .specimen(t.specimen())
+        .group(t.group())
+        .tags(t.tags())
+        .operator(t.operator())
+        .notes(t.notes())
+        .mass_g(t.mass_g())
+        .geometry(t.geometry())
+        .testType(t.testType())
+        .device(t.device())
+        .sampleRate_Hz(deviceRate_Hz > 0 ? deviceRate_Hz : t.sampleRate_Hz())
+        .calibrationId(t.calibrationId())
+        .calibrationSha256(t.calibrationSha256())
+        .scale(t.scale())
+        .scaleSpec(t.scaleSpec())
+        .zeroOffset_counts(zero_counts)
+        .dropped(dropped)
+        .checksumErrors(crc)
+        .cause(cause)
+        .breakIndex(breakIndex)
+        .breakTime_s(breakRelative)
+        .peakBeforeBreak_N(peakBefore)
+        .dropAtBreak_pct(dropPct)
+        .pretrigger_s(control.settings().pretrigger_s())
+        .startThreshold_N(s != null && s.manual() ? null : control.settings().startThreshold_N())
+        .checkWeight(t.checkWeight())
+        .warnings(w)
+        .softwareVersion(t.softwareVersion())
+        .extra(t.extra())
+        .build();
   }
 
   /** Sample rate by the device's own clock over the run, or 0 when it cannot be read. */

@@ -47,10 +47,33 @@ public record RunTemplate(String specimen, String group, List<String> tags, Stri
     reader.identity().ifPresent(id -> device.putAll(id.fields()));
     device.put("port", reader.transport().name());
     device.putAll(extraDevice);
-    return new RunMetadata(RunIds.newId(archive, now, specimen), now, specimen, group, tags,
-        operator, notes, mass_g, geometry, testType, device, rate_Hz, scale.calibrationId(),
-        scale.calibrationSha256(), scale.description(), scale.spec(), zero_counts, 0, 0,
-        FinishCause.MANUAL, null, null, null, null, pretrigger_s, startAt_N, scale.checkWeight(),
-        scale.warnings(), softwareVersion, Map.of());
+    return RunMetadata.builder()
+        .runId(RunIds.newId(archive, now, specimen))
+        .startedAt(now)
+        .specimen(specimen)
+        .group(group)
+        .tags(tags)
+        .operator(operator)
+        .notes(notes)
+        .mass_g(mass_g)
+        .geometry(geometry)
+        .testType(testType)
+        .device(device)
+        .sampleRate_Hz(rate_Hz)
+        .calibrationId(scale.calibrationId())
+        .calibrationSha256(scale.calibrationSha256())
+        .scale(scale.description())
+        .scaleSpec(scale.spec())
+        .zeroOffset_counts(zero_counts)
+        .dropped(0)
+        .checksumErrors(0)
+        .cause(FinishCause.MANUAL)
+        .pretrigger_s(pretrigger_s)
+        .startThreshold_N(startAt_N)
+        .checkWeight(scale.checkWeight())
+        .warnings(scale.warnings())
+        .softwareVersion(softwareVersion)
+        .extra(Map.of())
+        .build();
   }
 }

@@ -169,12 +169,34 @@ public final class JournalRecovery {
       w.add("position was present on only some records and was left out; the journal is kept"
           + " in .journal/damaged");
     }
-    return new RunMetadata(id, h.startedAt(), h.specimen(), h.group(), h.tags(), h.operator(),
-        h.notes(), h.mass_g(), h.geometry(), h.testType(), h.device(), h.sampleRate_Hz(),
-        h.calibrationId(), h.calibrationSha256(), h.scale(), h.scaleSpec(),
-        h.zeroOffset_counts(), h.dropped() + c.seqGaps(), h.checksumErrors(),
-        FinishCause.RECOVERED, null, null, null, null, h.pretrigger_s(), h.startThreshold_N(),
-        h.checkWeight(), w, h.softwareVersion(), h.extra());
+    return RunMetadata.builder()
+        .runId(id)
+        .startedAt(h.startedAt())
+        .specimen(h.specimen())
+        .group(h.group())
+        .tags(h.tags())
+        .operator(h.operator())
+        .notes(h.notes())
+        .mass_g(h.mass_g())
+        .geometry(h.geometry())
+        .testType(h.testType())
+        .device(h.device())
+        .sampleRate_Hz(h.sampleRate_Hz())
+        .calibrationId(h.calibrationId())
+        .calibrationSha256(h.calibrationSha256())
+        .scale(h.scale())
+        .scaleSpec(h.scaleSpec())
+        .zeroOffset_counts(h.zeroOffset_counts())
+        .dropped(h.dropped() + c.seqGaps())
+        .checksumErrors(h.checksumErrors())
+        .cause(FinishCause.RECOVERED)
+        .pretrigger_s(h.pretrigger_s())
+        .startThreshold_N(h.startThreshold_N())
+        .checkWeight(h.checkWeight())
+        .warnings(w)
+        .softwareVersion(h.softwareVersion())
+        .extra(h.extra())
+        .build();
   }
 
   /** The header could not be read. */

@@ -158,37 +158,38 @@ final class RunJson {
     @SuppressWarnings("unchecked")
     Map<String, Object> checkWeight = cw == null || cw.isNull() ? null
         : LINE.convertValue(f.object("check_weight"), Map.class);
-    return f.wrap("(top level)", () -> new RunMetadata(
-        f.string("run_id"),
-        f.instant("started_at"),
-        f.string("specimen"),
-        f.optString("group"),
-        f.strings("tags"),
-        f.optString("operator"),
-        f.optString("notes"),
-        f.optDouble("mass_g"),
-        geometry,
-        testType == null ? null : f.wrap("test_type", () -> TestType.parse(testType)),
-        device,
-        f.number("sample_rate_hz"),
-        f.optString("calibration_id"),
-        f.optString("calibration_sha256"),
-        f.optString("scale"),
-        spec,
-        f.number("zero_offset_counts"),
-        f.optLong("dropped"),
-        f.optLong("checksum_errors"),
-        cause,
-        causeOverride != null ? null : f.optInt("break_index"),
-        causeOverride != null ? null : f.optDouble("break_time_s"),
-        causeOverride != null ? null : f.optDouble("peak_before_break_N"),
-        causeOverride != null ? null : f.optDouble("drop_at_break_pct"),
-        f.optDoubleOr("pretrigger_s", 0),
-        f.optDouble("start_threshold_N"),
-        checkWeight,
-        f.strings("warnings"),
-        f.optString("software_version"),
-        extra));
+    return f.wrap("(top level)", () -> RunMetadata.builder()
+        .runId(f.string("run_id"))
+        .startedAt(f.instant("started_at"))
+        .specimen(f.string("specimen"))
+        .group(f.optString("group"))
+        .tags(f.strings("tags"))
+        .operator(f.optString("operator"))
+        .notes(f.optString("notes"))
+        .mass_g(f.optDouble("mass_g"))
+        .geometry(geometry)
+        .testType(testType == null ? null : f.wrap("test_type", () -> TestType.parse(testType)))
+        .device(device)
+        .sampleRate_Hz(f.number("sample_rate_hz"))
+        .calibrationId(f.optString("calibration_id"))
+        .calibrationSha256(f.optString("calibration_sha256"))
+        .scale(f.optString("scale"))
+        .scaleSpec(spec)
+        .zeroOffset_counts(f.number("zero_offset_counts"))
+        .dropped(f.optLong("dropped"))
+        .checksumErrors(f.optLong("checksum_errors"))
+        .cause(cause)
+        .breakIndex(causeOverride != null ? null : f.optInt("break_index"))
+        .breakTime_s(causeOverride != null ? null : f.optDouble("break_time_s"))
+        .peakBeforeBreak_N(causeOverride != null ? null : f.optDouble("peak_before_break_N"))
+        .dropAtBreak_pct(causeOverride != null ? null : f.optDouble("drop_at_break_pct"))
+        .pretrigger_s(f.optDoubleOr("pretrigger_s", 0))
+        .startThreshold_N(f.optDouble("start_threshold_N"))
+        .checkWeight(checkWeight)
+        .warnings(f.strings("warnings"))
+        .softwareVersion(f.optString("software_version"))
+        .extra(extra)
+        .build());
   }
 
   /** Typed access to one JSON object's fields, with messages naming the file and field. */

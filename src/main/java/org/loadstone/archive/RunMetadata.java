@@ -96,38 +96,258 @@ public record RunMetadata(
 
   /** @return a copy with these warnings instead */
   public RunMetadata withWarnings(List<String> w) {
-    return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g,
-        geometry, testType, device, sampleRate_Hz, calibrationId, calibrationSha256, scale,
-        scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s,
-        peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, checkWeight, w,
-        softwareVersion, extra);
+    return toBuilder().warnings(w).build();
   }
 
   /** @return a copy with another run id, specimen and group (e.g. an imported run) */
   public RunMetadata withIdentity(String newRunId, String newSpecimen, String newGroup) {
-    return new RunMetadata(newRunId, startedAt, newSpecimen, newGroup, tags, operator, notes,
-        mass_g, geometry, testType, device, sampleRate_Hz, calibrationId, calibrationSha256, scale,
-        scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s,
-        peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, checkWeight, warnings,
-        softwareVersion, extra);
+    return toBuilder().runId(newRunId).specimen(newSpecimen).group(newGroup).build();
   }
 
   /** @return a copy whose force comes from another scale (another calibration) */
   public RunMetadata withScale(String newCalibrationId, String newSha256, String newScale,
       ScaleSpec newSpec) {
-    return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g,
-        geometry, testType, device, sampleRate_Hz, newCalibrationId, newSha256, newScale, newSpec,
-        zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s,
-        peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, checkWeight, warnings,
-        softwareVersion, extra);
+    return toBuilder().calibrationId(newCalibrationId).calibrationSha256(newSha256)
+        .scale(newScale).scaleSpec(newSpec).build();
   }
 
   /** @return a copy with another break sample (null: none) and break time */
   public RunMetadata withBreak(Integer newBreakIndex, Double newBreakTime_s) {
-    return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g,
-        geometry, testType, device, sampleRate_Hz, calibrationId, calibrationSha256, scale,
-        scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, newBreakIndex,
-        newBreakTime_s, peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N,
-        checkWeight, warnings, softwareVersion, extra);
+    return toBuilder().breakIndex(newBreakIndex).breakTime_s(newBreakTime_s).build();
+  }
+
+  /** @return an empty builder; run id, start time, specimen, scale spec and cause are required */
+  public static Builder builder() {
+    return new Builder();
+  }
+
+  /** @return a builder holding every field of this record, to change some and build a copy */
+  public Builder toBuilder() {
+    Builder b = new Builder();
+    b.runId = runId;
+    b.startedAt = startedAt;
+    b.specimen = specimen;
+    b.group = group;
+    b.tags = tags;
+    b.operator = operator;
+    b.notes = notes;
+    b.mass_g = mass_g;
+    b.geometry = geometry;
+    b.testType = testType;
+    b.device = device;
+    b.sampleRate_Hz = sampleRate_Hz;
+    b.calibrationId = calibrationId;
+    b.calibrationSha256 = calibrationSha256;
+    b.scale = scale;
+    b.scaleSpec = scaleSpec;
+    b.zeroOffset_counts = zeroOffset_counts;
+    b.dropped = dropped;
+    b.checksumErrors = checksumErrors;
+    b.cause = cause;
+    b.breakIndex = breakIndex;
+    b.breakTime_s = breakTime_s;
+    b.peakBeforeBreak_N = peakBeforeBreak_N;
+    b.dropAtBreak_pct = dropAtBreak_pct;
+    b.pretrigger_s = pretrigger_s;
+    b.startThreshold_N = startThreshold_N;
+    b.checkWeight = checkWeight;
+    b.warnings = warnings;
+    b.softwareVersion = softwareVersion;
+    b.extra = extra;
+    return b;
+  }
+
+  /**
+   * Builds a {@link RunMetadata} field by field, so that no two fields of one type can be swapped by
+   * position. Setters are named after the record's components; {@link #build()} validates.
+   */
+  public static final class Builder {
+    private String runId;
+    private Instant startedAt;
+    private String specimen;
+    private String group;
+    private List<String> tags;
+    private String operator;
+    private String notes;
+    private Double mass_g;
+    private Geometry geometry;
+    private TestType testType;
+    private Map<String, String> device;
+    private double sampleRate_Hz;
+    private String calibrationId;
+    private String calibrationSha256;
+    private String scale;
+    private ScaleSpec scaleSpec;
+    private double zeroOffset_counts;
+    private long dropped;
+    private long checksumErrors;
+    private FinishCause cause;
+    private Integer breakIndex;
+    private Double breakTime_s;
+    private Double peakBeforeBreak_N;
+    private Double dropAtBreak_pct;
+    private double pretrigger_s;
+    private Double startThreshold_N;
+    private Map<String, Object> checkWeight;
+    private List<String> warnings;
+    private String softwareVersion;
+    private Map<String, Object> extra;
+
+    private Builder() {}
+
+    public Builder runId(String v) {
+      runId = v;
+      return this;
+    }
+
+    public Builder startedAt(Instant v) {
+      startedAt = v;
+      return this;
+    }
+
+    public Builder specimen(String v) {
+      specimen = v;
+      return this;
+    }
+
+    public Builder group(String v) {
+      group = v;
+      return this;
+    }
+
+    public Builder tags(List<String> v) {
+      tags = v;
+      return this;
+    }
+
+    public Builder operator(String v) {
+      operator = v;
+      return this;
+    }
+
+    public Builder notes(String v) {
+      notes = v;
+      return this;
+    }
+
+    public Builder mass_g(Double v) {
+      mass_g = v;
+      return this;
+    }
+
+    public Builder geometry(Geometry v) {
+      geometry = v;
+      return this;
+    }
+
+    public Builder testType(TestType v) {
+      testType = v;
+      return this;
+    }
+
+    public Builder device(Map<String, String> v) {
+      device = v;
+      return this;
+    }
+
+    public Builder sampleRate_Hz(double v) {
+      sampleRate_Hz = v;
+      return this;
+    }
+
+    public Builder calibrationId(String v) {
+      calibrationId = v;
+      return this;
+    }
+
+    public Builder calibrationSha256(String v) {
+      calibrationSha256 = v;
+      return this;
+    }
+
+    public Builder scale(String v) {
+      scale = v;
+      return this;
+    }
+
+    public Builder scaleSpec(ScaleSpec v) {
+      scaleSpec = v;
+      return this;
+    }
+
+    public Builder zeroOffset_counts(double v) {
+      zeroOffset_counts = v;
+      return this;
+    }
+
+    public Builder dropped(long v) {
+      dropped = v;
+      return this;
+    }
+
+    public Builder checksumErrors(long v) {
+      checksumErrors = v;
+      return this;
+    }
+
+    public Builder cause(FinishCause v) {
+      cause = v;
+      return this;
+    }
+
+    public Builder breakIndex(Integer v) {
+      breakIndex = v;
+      return this;
+    }
+
+    public Builder breakTime_s(Double v) {
+      breakTime_s = v;
+      return this;
+    }
+
+    public Builder peakBeforeBreak_N(Double v) {
+      peakBeforeBreak_N = v;
+      return this;
+    }
+
+    public Builder dropAtBreak_pct(Double v) {
+      dropAtBreak_pct = v;
+      return this;
+    }
+
+    public Builder pretrigger_s(double v) {
+      pretrigger_s = v;
+      return this;
+    }
+
+    public Builder startThreshold_N(Double v) {
+      startThreshold_N = v;
+      return this;
+    }
+
+    public Builder checkWeight(Map<String, Object> v) {
+      checkWeight = v;
+      return this;
+    }
+
+    public Builder warnings(List<String> v) {
+      warnings = v;
+      return this;
+    }
+
+    public Builder softwareVersion(String v) {
+      softwareVersion = v;
+      return this;
+    }
+
+    public Builder extra(Map<String, Object> v) {
+      extra = v;
+      return this;
+    }
+
+    /** @return the record; throws as the record's constructor does when a required field is missing */
+    public RunMetadata build() {
+      return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g, geometry, testType, device, sampleRate_Hz, calibrationId, calibrationSha256, scale, scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s, peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, checkWeight, warnings, softwareVersion, extra);
+    }
   }
 }

@@ -226,14 +226,28 @@ public final class CsvImport {
     double span = d.time_s()[d.size() - 1] - d.time_s()[0];
     double rate = (d.size() - 1) / span;
     String version = CsvImport.class.getPackage().getImplementationVersion();
-    return new RunMetadata("import-" + stem.replaceAll("[^A-Za-z0-9._-]", "_"), started, stem, "",
-        List.of("imported"), "", "Imported from " + name + ".", null, Geometry.NONE, null,
-        Map.of("source", name), rate, null, null,
-        "imported: force read from " + name + (raw ? "" : ", no raw counts"),
-        new ScaleSpec("imported", List.of(0.0), null, null), 0, 0, 0, FinishCause.IMPORTED, null,
-        null, null, null, 0, null, null,
-        raw ? List.of() : List.of("No raw data: raw counts are 0."),
-        version == null ? "dev" : version, Map.of("import_columns", String.join("; ", cols)));
+    return RunMetadata.builder()
+        .runId("import-" + stem.replaceAll("[^A-Za-z0-9._-]", "_"))
+        .startedAt(started)
+        .specimen(stem)
+        .group("")
+        .tags(List.of("imported"))
+        .operator("")
+        .notes("Imported from " + name + ".")
+        .geometry(Geometry.NONE)
+        .device(Map.of("source", name))
+        .sampleRate_Hz(rate)
+        .scale("imported: force read from " + name + (raw ? "" : ", no raw counts"))
+        .scaleSpec(new ScaleSpec("imported", List.of(0.0), null, null))
+        .zeroOffset_counts(0)
+        .dropped(0)
+        .checksumErrors(0)
+        .cause(FinishCause.IMPORTED)
+        .pretrigger_s(0)
+        .warnings(raw ? List.of() : List.of("No raw data: raw counts are 0."))
+        .softwareVersion(version == null ? "dev" : version)
+        .extra(Map.of("import_columns", String.join("; ", cols)))
+        .build();
   }
 
   private static String readText(Path file) {

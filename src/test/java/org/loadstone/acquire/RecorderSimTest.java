@@ -20,9 +20,27 @@ import org.loadstone.sim.SimulatedFrame;
 class RecorderSimTest {
 
   static RunMetadata template(String specimen, double rate) {
-    return new RunMetadata("test-" + specimen, Instant.now(), specimen, "g", List.of(), "", "",
-        null, null, null, Map.of(), rate, null, null, "nominal", ScaleSpec.nominal(1), 0, 0, 0,
-        FinishCause.MANUAL, null, null, null, null, 1.0, null, null, List.of(), "test", Map.of());
+    return RunMetadata.builder()
+        .runId("test-" + specimen)
+        .startedAt(Instant.now())
+        .specimen(specimen)
+        .group("g")
+        .tags(List.of())
+        .operator("")
+        .notes("")
+        .device(Map.of())
+        .sampleRate_Hz(rate)
+        .scale("nominal")
+        .scaleSpec(ScaleSpec.nominal(1))
+        .zeroOffset_counts(0)
+        .dropped(0)
+        .checksumErrors(0)
+        .cause(FinishCause.MANUAL)
+        .pretrigger_s(1.0)
+        .warnings(List.of())
+        .softwareVersion("test")
+        .extra(Map.of())
+        .build();
   }
 
   @Test

@@ -206,13 +206,34 @@ class JournalRecoveryTest {
         .json()).metadata();
     List<String> warnings = new ArrayList<>(full.warnings());
     warnings.add(got.warnings().get(got.warnings().size() - 1));
-    RunMetadata expected = new RunMetadata(full.runId(), full.startedAt(), full.specimen(),
-        full.group(), full.tags(), full.operator(), full.notes(), full.mass_g(), full.geometry(),
-        full.testType(), full.device(), full.sampleRate_Hz(), full.calibrationId(),
-        full.calibrationSha256(), full.scale(), full.scaleSpec(), full.zeroOffset_counts(),
-        full.dropped(), full.checksumErrors(), FinishCause.RECOVERED, null, null, null, null,
-        full.pretrigger_s(), full.startThreshold_N(), full.checkWeight(), warnings,
-        full.softwareVersion(), full.extra());
+    RunMetadata expected = RunMetadata.builder()
+        .runId(full.runId())
+        .startedAt(full.startedAt())
+        .specimen(full.specimen())
+        .group(full.group())
+        .tags(full.tags())
+        .operator(full.operator())
+        .notes(full.notes())
+        .mass_g(full.mass_g())
+        .geometry(full.geometry())
+        .testType(full.testType())
+        .device(full.device())
+        .sampleRate_Hz(full.sampleRate_Hz())
+        .calibrationId(full.calibrationId())
+        .calibrationSha256(full.calibrationSha256())
+        .scale(full.scale())
+        .scaleSpec(full.scaleSpec())
+        .zeroOffset_counts(full.zeroOffset_counts())
+        .dropped(full.dropped())
+        .checksumErrors(full.checksumErrors())
+        .cause(FinishCause.RECOVERED)
+        .pretrigger_s(full.pretrigger_s())
+        .startThreshold_N(full.startThreshold_N())
+        .checkWeight(full.checkWeight())
+        .warnings(warnings)
+        .softwareVersion(full.softwareVersion())
+        .extra(full.extra())
+        .build();
     assertThat(got).isEqualTo(expected);
     assertThat(warnings.get(warnings.size() - 1)).contains("recovered from journal j10.journal");
   }

@@ -27,13 +27,38 @@ public final class RunFixtures {
     Map<String, Object> extra = new LinkedHashMap<>();
     extra.put("humidity_pct", 48.5);
     extra.put("rig", Map.of("name", "bench-2", "fixtures", List.of("rollers-10mm", "nose-10mm")));
-    return new RunMetadata(runId, Instant.parse("2026-12-02T18:12:33.417Z"), "Balsa core #7",
-        "balsa-12mm", List.of("batch-A", "dry"), "kim", "first panel of the batch\nedge chipped",
-        186.4, new Geometry(200.0, null, 50.0, 14.2, 1.1, 12.0, null), TestType.THREE_POINT_BEND,
-        device, 80.02, "cal-500N-2026-11", "ab".repeat(32), "linear 8590 counts/N (calibration)",
-        new ScaleSpec("calibration", List.of(1.5, 8590.25, -0.0031), 0.0, 500.0), -1234.5, 3, 1,
-        FinishCause.BREAK, 2, 0.025, 412.7, 38.5, 1.5, 5.0, check,
-        List.of("calibration expires in 9 days"), "0.1.0-SNAPSHOT", extra);
+    return RunMetadata.builder()
+        .runId(runId)
+        .startedAt(Instant.parse("2026-12-02T18:12:33.417Z"))
+        .specimen("Balsa core #7")
+        .group("balsa-12mm")
+        .tags(List.of("batch-A", "dry"))
+        .operator("kim")
+        .notes("first panel of the batch\nedge chipped")
+        .mass_g(186.4)
+        .geometry(new Geometry(200.0, null, 50.0, 14.2, 1.1, 12.0, null))
+        .testType(TestType.THREE_POINT_BEND)
+        .device(device)
+        .sampleRate_Hz(80.02)
+        .calibrationId("cal-500N-2026-11")
+        .calibrationSha256("ab".repeat(32))
+        .scale("linear 8590 counts/N (calibration)")
+        .scaleSpec(new ScaleSpec("calibration", List.of(1.5, 8590.25, -0.0031), 0.0, 500.0))
+        .zeroOffset_counts(-1234.5)
+        .dropped(3)
+        .checksumErrors(1)
+        .cause(FinishCause.BREAK)
+        .breakIndex(2)
+        .breakTime_s(0.025)
+        .peakBeforeBreak_N(412.7)
+        .dropAtBreak_pct(38.5)
+        .pretrigger_s(1.5)
+        .startThreshold_N(5.0)
+        .checkWeight(check)
+        .warnings(List.of("calibration expires in 9 days"))
+        .softwareVersion("0.1.0-SNAPSHOT")
+        .extra(extra)
+        .build();
   }
 
   /** Start-of-run metadata with a nominal linear scale (no cause yet: MANUAL as placeholder). */
@@ -41,11 +66,30 @@ public final class RunFixtures {
     ScaleSpec spec = curved
         ? new ScaleSpec("calibration", List.of(3.0, 8590.25, -0.0031), 0.0, 500.0)
         : ScaleSpec.nominal(8590.0);
-    return new RunMetadata(runId, Instant.parse("2026-12-02T18:12:33.417Z"), "Foam core 3",
-        "foam-20mm", List.of(), "kim", "", null, Geometry.NONE, TestType.THREE_POINT_BEND,
-        Map.of("cpm", "400", "port", "sim"), 1000.0, null, null, "linear 8590 counts/N (nominal)",
-        spec, 812.0, 0, 0, FinishCause.MANUAL, null, null, null, null, 0.5, 5.0, null,
-        List.of(), "0.1.0-SNAPSHOT", Map.of());
+    return RunMetadata.builder()
+        .runId(runId)
+        .startedAt(Instant.parse("2026-12-02T18:12:33.417Z"))
+        .specimen("Foam core 3")
+        .group("foam-20mm")
+        .tags(List.of())
+        .operator("kim")
+        .notes("")
+        .geometry(Geometry.NONE)
+        .testType(TestType.THREE_POINT_BEND)
+        .device(Map.of("cpm", "400", "port", "sim"))
+        .sampleRate_Hz(1000.0)
+        .scale("linear 8590 counts/N (nominal)")
+        .scaleSpec(spec)
+        .zeroOffset_counts(812.0)
+        .dropped(0)
+        .checksumErrors(0)
+        .cause(FinishCause.MANUAL)
+        .pretrigger_s(0.5)
+        .startThreshold_N(5.0)
+        .warnings(List.of())
+        .softwareVersion("0.1.0-SNAPSHOT")
+        .extra(Map.of())
+        .build();
   }
 
   /** Random but valid columns from a fixed seed. */

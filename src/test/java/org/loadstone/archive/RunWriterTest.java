@@ -178,10 +178,19 @@ class RunWriterTest {
   @Test
   void refusesNonFiniteMetadataNumbersThatJsonCannotHold() {
     RunMetadata ok = RunFixtures.startMetadata("r9", false);
-    RunMetadata nanRate = new RunMetadata("r9", ok.startedAt(), ok.specimen(), null, null, null,
-        null, null, null, null, null, Double.NaN, null, null, null, ok.scaleSpec(), 0, 0, 0,
-        FinishCause.MANUAL, null, null, null, null, 0, null, null, null, null,
-        java.util.Map.of("rig", java.util.Map.of("temp_C", Double.POSITIVE_INFINITY)));
+    RunMetadata nanRate = RunMetadata.builder()
+        .runId("r9")
+        .startedAt(ok.startedAt())
+        .specimen(ok.specimen())
+        .sampleRate_Hz(Double.NaN)
+        .scaleSpec(ok.scaleSpec())
+        .zeroOffset_counts(0)
+        .dropped(0)
+        .checksumErrors(0)
+        .cause(FinishCause.MANUAL)
+        .pretrigger_s(0)
+        .extra(java.util.Map.of("rig", java.util.Map.of("temp_C", Double.POSITIVE_INFINITY)))
+        .build();
     assertThatThrownBy(() -> RunWriter.write(tmp, nanRate, RunFixtures.randomData(1, 2, false)))
         .isInstanceOf(LoadstoneException.class)
         .hasMessageContaining("field 'sample_rate_hz' is NaN");

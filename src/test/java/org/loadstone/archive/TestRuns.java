@@ -58,14 +58,33 @@ public final class TestRuns {
 
   /** Metadata with every field filled, for a three-point bend of a sandwich panel. */
   public static RunMetadata meta(String specimen, String group, Geometry g, Double mass_g) {
-    return new RunMetadata("20261202-101500-" + specimen, Instant.parse("2026-12-02T10:15:00Z"),
-        specimen, group, List.of("shelf", "batch-7"), "R. Okafor", "edge glued by hand", mass_g,
-        g, TestType.THREE_POINT_BEND,
-        Map.of("name", "bench-frame", "fw", "0.4.1", "adc", "hx711", "port", "/dev/ttyACM0"),
-        80.0, "cal-2026-11-20-500N", CAL_HASH, "linear 8590 counts/N (calibration)",
-        new ScaleSpec("calibration", List.of(12.0, 8590.0), 0.0, 500.0), 1234.5, 0, 1,
-        FinishCause.BREAK, null, null, null, null, 0.5, 5.0, null,
-        List.of("calibration is 12 days old"), "0.1.0-test", Map.of());
+    return RunMetadata.builder()
+        .runId("20261202-101500-" + specimen)
+        .startedAt(Instant.parse("2026-12-02T10:15:00Z"))
+        .specimen(specimen)
+        .group(group)
+        .tags(List.of("shelf", "batch-7"))
+        .operator("R. Okafor")
+        .notes("edge glued by hand")
+        .mass_g(mass_g)
+        .geometry(g)
+        .testType(TestType.THREE_POINT_BEND)
+        .device(Map.of("name", "bench-frame", "fw", "0.4.1", "adc", "hx711", "port", "/dev/ttyACM0"))
+        .sampleRate_Hz(80.0)
+        .calibrationId("cal-2026-11-20-500N")
+        .calibrationSha256(CAL_HASH)
+        .scale("linear 8590 counts/N (calibration)")
+        .scaleSpec(new ScaleSpec("calibration", List.of(12.0, 8590.0), 0.0, 500.0))
+        .zeroOffset_counts(1234.5)
+        .dropped(0)
+        .checksumErrors(1)
+        .cause(FinishCause.BREAK)
+        .pretrigger_s(0.5)
+        .startThreshold_N(5.0)
+        .warnings(List.of("calibration is 12 days old"))
+        .softwareVersion("0.1.0-test")
+        .extra(Map.of())
+        .build();
   }
 
   /** A sandwich panel geometry: span 400, width 50, depth 26, core 20, facings 3 (mm). */

@@ -63,10 +63,27 @@ class RunMetricsTest {
     double k = 48 * e * (b * d * d * d / 12) / (a * (3 * l * l - 4 * a * a));
     Geometry g = new Geometry(l, ls, b, d, null, null, null);
     RunMetadata meta = TestRuns.meta("B-4P", "balsa", g, null);
-    meta = new RunMetadata(meta.runId(), meta.startedAt(), meta.specimen(), meta.group(),
-        meta.tags(), meta.operator(), meta.notes(), null, g, TestType.FOUR_POINT_BEND,
-        meta.device(), meta.sampleRate_Hz(), null, null, meta.scale(), meta.scaleSpec(), 0, 0, 0,
-        FinishCause.BREAK, null, null, null, null, 0, null, null, null, "t", null);
+    meta = RunMetadata.builder()
+        .runId(meta.runId())
+        .startedAt(meta.startedAt())
+        .specimen(meta.specimen())
+        .group(meta.group())
+        .tags(meta.tags())
+        .operator(meta.operator())
+        .notes(meta.notes())
+        .geometry(g)
+        .testType(TestType.FOUR_POINT_BEND)
+        .device(meta.device())
+        .sampleRate_Hz(meta.sampleRate_Hz())
+        .scale(meta.scale())
+        .scaleSpec(meta.scaleSpec())
+        .zeroOffset_counts(0)
+        .dropped(0)
+        .checksumErrors(0)
+        .cause(FinishCause.BREAK)
+        .pretrigger_s(0)
+        .softwareVersion("t")
+        .build();
     RunMetrics m = RunMetrics.of(meta, TestRuns.bend(k, 500));
     assertThat(m.flexuralModulus_MPa().getAsDouble()).isCloseTo(e, within(0.005 * e));
     // 3·500·160/(2·50·144) = 16.6667 MPa
@@ -79,10 +96,27 @@ class RunMetricsTest {
     // σ = P/A: 460 N on 50 mm × 50 mm = 2500 mm² gives 0.184 MPa (hand-computed)
     Geometry g = new Geometry(null, null, null, null, null, null, 2500.0);
     RunMetadata base = TestRuns.meta("C-01", "foam", g, null);
-    RunMetadata meta = new RunMetadata(base.runId(), base.startedAt(), base.specimen(),
-        base.group(), base.tags(), base.operator(), base.notes(), null, g, TestType.COMPRESSION,
-        base.device(), base.sampleRate_Hz(), null, null, base.scale(), base.scaleSpec(), 0, 0, 0,
-        FinishCause.BREAK, null, null, null, null, 0, null, null, null, "t", null);
+    RunMetadata meta = RunMetadata.builder()
+        .runId(base.runId())
+        .startedAt(base.startedAt())
+        .specimen(base.specimen())
+        .group(base.group())
+        .tags(base.tags())
+        .operator(base.operator())
+        .notes(base.notes())
+        .geometry(g)
+        .testType(TestType.COMPRESSION)
+        .device(base.device())
+        .sampleRate_Hz(base.sampleRate_Hz())
+        .scale(base.scale())
+        .scaleSpec(base.scaleSpec())
+        .zeroOffset_counts(0)
+        .dropped(0)
+        .checksumErrors(0)
+        .cause(FinishCause.BREAK)
+        .pretrigger_s(0)
+        .softwareVersion("t")
+        .build();
     RunMetrics m = RunMetrics.of(meta, TestRuns.bend(60, 460));
     assertThat(m.compressionStressAtPeak_MPa().getAsDouble()).isCloseTo(0.184, within(1e-12));
     assertThat(m.flexuralStressAtPeak_MPa()).isEmpty();
@@ -122,11 +156,34 @@ class RunMetricsTest {
   }
 
   private static RunMetadata withBreak(RunMetadata m, int index) {
-    return new RunMetadata(m.runId(), m.startedAt(), m.specimen(), m.group(), m.tags(),
-        m.operator(), m.notes(), m.mass_g(), m.geometry(), m.testType(), m.device(),
-        m.sampleRate_Hz(), m.calibrationId(), m.calibrationSha256(), m.scale(), m.scaleSpec(),
-        m.zeroOffset_counts(), m.dropped(), m.checksumErrors(), m.cause(), index, null, null,
-        null, m.pretrigger_s(), m.startThreshold_N(), m.checkWeight(), m.warnings(),
-        m.softwareVersion(), m.extra());
+    return RunMetadata.builder()
+        .runId(m.runId())
+        .startedAt(m.startedAt())
+        .specimen(m.specimen())
+        .group(m.group())
+        .tags(m.tags())
+        .operator(m.operator())
+        .notes(m.notes())
+        .mass_g(m.mass_g())
+        .geometry(m.geometry())
+        .testType(m.testType())
+        .device(m.device())
+        .sampleRate_Hz(m.sampleRate_Hz())
+        .calibrationId(m.calibrationId())
+        .calibrationSha256(m.calibrationSha256())
+        .scale(m.scale())
+        .scaleSpec(m.scaleSpec())
+        .zeroOffset_counts(m.zeroOffset_counts())
+        .dropped(m.dropped())
+        .checksumErrors(m.checksumErrors())
+        .cause(m.cause())
+        .breakIndex(index)
+        .pretrigger_s(m.pretrigger_s())
+        .startThreshold_N(m.startThreshold_N())
+        .checkWeight(m.checkWeight())
+        .warnings(m.warnings())
+        .softwareVersion(m.softwareVersion())
+        .extra(m.extra())
+        .build();
   }
 }
