@@ -91,7 +91,8 @@ final class LiveCalibration {
   /** @return the mass placed for {@code step}, or null when the operator quits */
   private Double askMass(CalibrationSession session, CalibrationPlan.Step step) {
     String what = step.mass_kg() == 0 ? "remove all weights (zero point)"
-        : "place " + MassText.format(step.mass_kg()) + " (sum of weights allowed, e.g. '1 kg + 500 g')";
+        : "place " + MassText.format(step.mass_kg())
+            + " (sum of weights allowed, e.g. '1 kg + 500 g')";
     String prompt = String.format(Locale.ROOT, "[%d/%d] series %d, %s: %s, then press Enter%s: ",
         step.number(), session.stepCount(), step.series(), step.direction().label(), what,
         step.mass_kg() == 0 ? " (q quits)" : " (or type the mass placed; q quits)");
