@@ -13,7 +13,10 @@ import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVPrinter;
 import org.apache.commons.csv.CSVRecord;
+import org.loadstone.units.CsvInput;
+import org.loadstone.units.InputException;
 import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.TextFiles;
 
 /**
  * The sample file: RFC 4180 CSV with the header {@value #HEADER_TEXT} and "\n" line ends.
@@ -82,7 +85,7 @@ final class RunCsv {
       for (String need : List.of("time_s", "force_N", "raw_counts", "seq")) {
         if (!cols.containsKey(need)) {
           throw new LoadstoneException("run file " + file + ", line 1: column '" + need
-              + "' is missing (header is " + parser.getHeaderNames() + "): the file must start"
+              + "' is missing (header is " + InputException.shown(String.join(",", parser.getHeaderNames())) + "): the file must start"
               + " with " + HEADER_TEXT);
         }
       }
@@ -135,18 +138,18 @@ final class RunCsv {
       }
       return c.toData(hasPos != null && hasPos);
     } catch (IOException e) {
-      throw new LoadstoneException("run file " + file + " cannot be read: " + e.getMessage(), e);
+      throw TextFiles.unreadable(file, "run file", e);
     } catch (UncheckedIOException | IllegalStateException | IllegalArgumentException e) {
-      throw new LoadstoneException("run file " + file + " is not valid CSV: " + e.getMessage()
-          + ": correct the file or restore it from a backup", e);
+      throw CsvInput.translate(e, InputException.in("run file", file),
+          "correct the file or restore it from a backup");
     }
   }
 
   /** One line's cells, parsed with messages that name file, line and column. */
   private record Cell(Path file, long line, Map<String, Integer> cols, CSVRecord r) {
     LoadstoneException bad(String col, String what) {
-      return new LoadstoneException("run file " + file + ", line " + line + ", column "
-          + (cols.get(col) + 1) + " (" + col + "): " + what);
+      return InputException.in("run file", file).line(line).column(cols.get(col) + 1, col)
+          .fault(what, null);
     }
 
     double decimal(String col) {
@@ -155,12 +158,12 @@ final class RunCsv {
         throw bad(col, "the cell is empty: every sample needs a " + col + " value");
       }
       if (!DECIMAL.matcher(v).matches()) {
-        throw bad(col, "'" + v + "' is not a number (NaN and infinity are refused): correct"
+        throw bad(col, InputException.shown(v) + " is not a number (NaN and infinity are refused): correct"
             + " the cell or restore the file");
       }
       double d = Double.parseDouble(v);
       if (!Double.isFinite(d)) {
-        throw bad(col, "'" + v + "' is out of range: correct the cell");
+        throw bad(col, InputException.shown(v) + " is out of range: correct the cell");
       }
       return d;
     }
@@ -171,12 +174,12 @@ final class RunCsv {
         throw bad(col, "the cell is empty: every sample needs a " + col + " value");
       }
       if (!INTEGER.matcher(v).matches()) {
-        throw bad(col, "'" + v + "' is not a whole number: raw values are integers as the"
+        throw bad(col, InputException.shown(v) + " is not a whole number: raw values are integers as the"
             + " device sent them");
       }
       long x = Long.parseLong(v);
       if (x < Integer.MIN_VALUE || x > Integer.MAX_VALUE) {
-        throw bad(col, "'" + v + "' is outside the 32-bit range of raw values");
+        throw bad(col, InputException.shown(v) + " is outside the 32-bit range of raw values");
       }
       return (int) x;
     }

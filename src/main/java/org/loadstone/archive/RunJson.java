@@ -13,6 +13,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import org.loadstone.units.InputException;
 import org.loadstone.units.LoadstoneException;
 
 /**
@@ -231,7 +232,7 @@ final class RunJson {
     JsonNode object(String name) {
       JsonNode n = present(name);
       if (!n.isObject()) {
-        throw bad(name, "must be an object, was " + n);
+        throw bad(name, "must be an object, was " + InputException.shown(n.toString()));
       }
       return n;
     }
@@ -239,7 +240,7 @@ final class RunJson {
     String string(String name) {
       JsonNode n = present(name);
       if (!n.isTextual()) {
-        throw bad(name, "must be text, was " + n);
+        throw bad(name, "must be text, was " + InputException.shown(n.toString()));
       }
       return n.asText();
     }
@@ -252,7 +253,7 @@ final class RunJson {
     double number(String name) {
       JsonNode n = present(name);
       if (!n.isNumber() || !Double.isFinite(n.asDouble())) {
-        throw bad(name, "must be a number, was " + n);
+        throw bad(name, "must be a number, was " + InputException.shown(n.toString()));
       }
       return n.asDouble();
     }
@@ -273,7 +274,7 @@ final class RunJson {
         return 0;
       }
       if (!n.canConvertToLong() || !n.isIntegralNumber() || n.asLong() < 0) {
-        throw bad(name, "must be a whole number ≥ 0, was " + n);
+        throw bad(name, "must be a whole number ≥ 0, was " + InputException.shown(n.toString()));
       }
       return n.asLong();
     }
@@ -284,7 +285,7 @@ final class RunJson {
         return null;
       }
       if (!n.isIntegralNumber() || !n.canConvertToInt() || n.asInt() < 0) {
-        throw bad(name, "must be a whole number ≥ 0, was " + n);
+        throw bad(name, "must be a whole number ≥ 0, was " + InputException.shown(n.toString()));
       }
       return n.asInt();
     }
@@ -294,7 +295,7 @@ final class RunJson {
       try {
         return Instant.parse(s);
       } catch (DateTimeParseException e) {
-        throw bad(name, "must be a UTC time like 2026-12-02T18:12:33.417Z, was '" + s + "'");
+        throw bad(name, "must be a UTC time like 2026-12-02T18:12:33.417Z, was " + InputException.shown(s));
       }
     }
 
@@ -304,12 +305,12 @@ final class RunJson {
         return List.of();
       }
       if (!n.isArray()) {
-        throw bad(name, "must be a list of text, was " + n);
+        throw bad(name, "must be a list of text, was " + InputException.shown(n.toString()));
       }
       List<String> out = new ArrayList<>();
       for (JsonNode e : n) {
         if (!e.isTextual()) {
-          throw bad(name, "must be a list of text, has " + e);
+          throw bad(name, "must be a list of text, has " + InputException.shown(e.toString()));
         }
         out.add(e.asText());
       }
@@ -319,12 +320,12 @@ final class RunJson {
     List<Double> doubles(String name) {
       JsonNode n = present(name);
       if (!n.isArray() || n.isEmpty()) {
-        throw bad(name, "must be a non-empty list of numbers, was " + n);
+        throw bad(name, "must be a non-empty list of numbers, was " + InputException.shown(n.toString()));
       }
       List<Double> out = new ArrayList<>();
       for (JsonNode e : n) {
         if (!e.isNumber() || !Double.isFinite(e.asDouble())) {
-          throw bad(name, "must be a list of numbers, has " + e);
+          throw bad(name, "must be a list of numbers, has " + InputException.shown(e.toString()));
         }
         out.add(e.asDouble());
       }

@@ -1,14 +1,13 @@
 package org.loadstone.archive;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import java.io.IOException;
 import java.io.Reader;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
+import org.loadstone.units.JsonInput;
 import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.TextFiles;
 import org.loadstone.units.Precondition;
 
 /** Reads a stored run back, checking it strictly. */
@@ -29,13 +28,13 @@ public final class RunReader {
     Path json = stem.resolveSibling(name + ".json");
     RunMetadata meta = readMetadata(json);
     RunData data;
-    try (Reader r = Files.newBufferedReader(csv, StandardCharsets.UTF_8)) {
-      data = RunCsv.read(r, csv);
-    } catch (NoSuchFileException e) {
+    if (!Files.exists(csv)) {
       throw missing(csv, json);
+    }
+    try (Reader r = TextFiles.open(csv, "run file")) {
+      data = RunCsv.read(r, csv);
     } catch (IOException e) {
-      throw new LoadstoneException("run file " + csv + " cannot be read: " + e.getMessage()
-          + ": check the file's permissions", e);
+      throw TextFiles.unreadable(csv, "run file", e);
     }
     if (meta.breakIndex() != null && meta.breakIndex() >= data.size()) {
       throw new LoadstoneException("run file " + json + ": field 'break_index' is "
@@ -50,30 +49,11 @@ public final class RunReader {
    * @throws LoadstoneException naming the file and the field when missing or invalid
    */
   public static RunMetadata readMetadata(Path json) {
-    byte[] bytes;
-    try {
-      bytes = Files.readAllBytes(json);
-    } catch (NoSuchFileException e) {
+    if (!Files.exists(json)) {
       throw missing(json, json);
-    } catch (IOException e) {
-      throw new LoadstoneException("run file " + json + " cannot be read: " + e.getMessage()
-          + ": check the file's permissions", e);
     }
-    JsonNode root;
-    try {
-      root = RunJson.LINE.readTree(bytes);
-    } catch (JsonProcessingException e) {
-      String loc = e.getLocation() == null ? "" : ", line " + e.getLocation().getLineNr()
-          + ", column " + e.getLocation().getColumnNr();
-      throw new LoadstoneException("run file " + json + loc + ": not valid JSON ("
-          + e.getOriginalMessage() + "): correct the file or restore it from a backup", e);
-    } catch (IOException e) {
-      throw new LoadstoneException("run file " + json + " cannot be read: " + e.getMessage(), e);
-    }
-    if (root == null || !root.isObject()) {
-      throw new LoadstoneException("run file " + json + ": expected one JSON object: correct the"
-          + " file or restore it from a backup");
-    }
+    JsonNode root = JsonInput.readObject(json, "run file",
+        "correct the file (keep a copy) or restore it from a backup");
     return RunJson.fromTree(root, "run file " + json, null);
   }
 

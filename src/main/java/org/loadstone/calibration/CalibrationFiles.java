@@ -2,7 +2,6 @@ package org.loadstone.calibration;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.DeserializationFeature;
-import com.fasterxml.jackson.databind.JsonMappingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
@@ -13,7 +12,6 @@ import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
 import java.security.MessageDigest;
@@ -21,8 +19,8 @@ import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
 import java.util.HexFormat;
 import java.util.List;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
+import org.loadstone.units.InputException;
+import org.loadstone.units.JsonInput;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -44,8 +42,6 @@ public final class CalibrationFiles {
   private static final ObjectMapper COMPACT = new ObjectMapper();
   static final ObjectMapper COMPACT_LINE = new ObjectMapper();
   private static final String HASH_FIELD = "content_sha256";
-  private static final Pattern MISSING =
-      Pattern.compile("Missing (?:required )?creator property '([^']+)'");
 
   private CalibrationFiles() {}
 
@@ -126,61 +122,10 @@ public final class CalibrationFiles {
 
   static <T> T read(Path file, Class<T> type, String what) {
     Precondition.notNull(file, "file");
-    byte[] bytes;
-    try {
-      bytes = Files.readAllBytes(file);
-    } catch (NoSuchFileException e) {
-      throw new LoadstoneException(what + " " + file + " does not exist: check the path or id");
-    } catch (IOException e) {
-      throw new LoadstoneException(what + " " + file + " cannot be read: " + e.getMessage(), e);
+    if (!Files.exists(file)) {
+      throw InputException.in(what, file).fault("does not exist", "check the path or id");
     }
-    try {
-      return MAPPER.readValue(bytes, type);
-    } catch (JsonMappingException e) {
-      String f = field(e);
-      String r = reason(e);
-      String where = f.isEmpty() ? "" : "field '" + f + "': ";
-      if (f.isEmpty() && !r.startsWith("field")) {
-        where = "field '(top level)': ";
-      }
-      throw new LoadstoneException(what + " " + file + ": " + where + r
-          + "; correct the file or recalibrate", e);
-    } catch (IOException e) {
-      String loc = e instanceof JsonProcessingException j && j.getLocation() != null
-          ? " at line " + j.getLocation().getLineNr() + ", column " + j.getLocation().getColumnNr()
-          : "";
-      throw new LoadstoneException(what + " " + file + " is not valid JSON" + loc
-          + ": correct the file or recalibrate", e);
-    }
-  }
-
-  private static String field(JsonMappingException e) {
-    StringBuilder sb = new StringBuilder();
-    for (JsonMappingException.Reference r : e.getPath()) {
-      if (r.getFieldName() != null) {
-        sb.append(sb.length() == 0 ? "" : ".").append(r.getFieldName());
-      } else if (r.getIndex() >= 0) {
-        sb.append('[').append(r.getIndex()).append(']');
-      }
-    }
-    Matcher m = MISSING.matcher(String.valueOf(e.getOriginalMessage()));
-    if (m.find() && !sb.toString().endsWith(m.group(1))) {
-      sb.append(sb.length() == 0 ? "" : ".").append(m.group(1));
-    }
-    return sb.toString();
-  }
-
-  private static String reason(JsonMappingException e) {
-    Throwable c = e.getCause();
-    if (c instanceof LoadstoneException || c instanceof IllegalArgumentException) {
-      return c.getMessage();
-    }
-    String m = String.valueOf(e.getOriginalMessage());
-    if (MISSING.matcher(m).find()) {
-      return "missing: add the field";
-    }
-    int cut = m.indexOf(" (");
-    return cut > 0 ? m.substring(0, cut) : m;
+    return JsonInput.readValue(MAPPER, file, type, what, "correct the file or recalibrate");
   }
 
   private static Path save(Path dir, String id, Object value) {

@@ -10,7 +10,10 @@ import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.loadstone.units.InputException;
+import org.loadstone.units.JsonInput;
 import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.TextFiles;
 import org.loadstone.units.Precondition;
 
 /**
@@ -84,23 +87,17 @@ public final class CheckWeights {
     if (!Files.exists(log)) {
       return out;
     }
-    try {
-      List<String> lines = Files.readAllLines(log, StandardCharsets.UTF_8);
-      for (int i = 0; i < lines.size(); i++) {
-        if (lines.get(i).isBlank()) {
-          continue;
-        }
-        try {
-          out.add(CalibrationFiles.MAPPER.readValue(lines.get(i), CheckWeightResult.class));
-        } catch (JsonProcessingException e) {
-          throw new LoadstoneException(String.format(Locale.ROOT,
-              "check-weight log %s line %d is not a valid entry: %s", log, i + 1,
-              e.getOriginalMessage()), e);
-        }
+    List<String> lines = TextFiles.read(log, "check-weight log").lines().toList();
+    for (int i = 0; i < lines.size(); i++) {
+      if (lines.get(i).isBlank()) {
+        continue;
       }
-    } catch (IOException e) {
-      throw new LoadstoneException(
-          "cannot read check-weight log " + log + ": " + e.getMessage(), e);
+      try {
+        out.add(CalibrationFiles.MAPPER.readValue(lines.get(i), CheckWeightResult.class));
+      } catch (JsonProcessingException e) {
+        throw JsonInput.translate(e, InputException.in("check-weight log", log).line(i + 1),
+            "remove or correct that line (each line is one check)");
+      }
     }
     return out;
   }

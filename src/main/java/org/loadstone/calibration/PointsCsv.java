@@ -2,9 +2,6 @@ package org.loadstone.calibration;
 
 import java.io.IOException;
 import java.io.Reader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashSet;
@@ -14,8 +11,11 @@ import java.util.Set;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
+import org.loadstone.units.CsvInput;
+import org.loadstone.units.InputException;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
+import org.loadstone.units.TextFiles;
 
 /**
  * Reads calibration points typed or collected offline.
@@ -43,12 +43,10 @@ public final class PointsCsv {
   public static List<CalibrationPoint> read(Path file, ForceFromMass model) {
     Precondition.notNull(file, "file");
     Precondition.notNull(model, "model");
-    try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+    try (Reader r = TextFiles.open(file, "points file")) {
       return read(r, file.toString(), model);
-    } catch (NoSuchFileException e) {
-      throw new LoadstoneException("points file " + file + " does not exist: check the path");
     } catch (IOException e) {
-      throw new LoadstoneException("points file " + file + " cannot be read: " + e.getMessage(), e);
+      throw TextFiles.unreadable(file, "points file", e);
     }
   }
 
@@ -68,7 +66,7 @@ public final class PointsCsv {
       boolean mass = loadCol.equals("mass_g");
       if (!mass && !loadCol.equals("force_N".toLowerCase(Locale.ROOT))) {
         throw new LoadstoneException("points file " + name + ": the first column is '"
-            + header.get(0) + "': it must be 'mass_g' or 'force_N'");
+            + InputException.shown(header.get(0)) + ": it must be 'mass_g' or 'force_N'");
       }
       if (header.size() < 2 || !header.get(1).equalsIgnoreCase("counts")) {
         throw new LoadstoneException("points file " + name + ": the second column must be"
@@ -76,8 +74,8 @@ public final class PointsCsv {
       }
       for (String h : header.subList(2, header.size())) {
         if (!OPTIONAL.contains(h.toLowerCase(Locale.ROOT))) {
-          throw new LoadstoneException("points file " + name + ": unknown column '" + h
-              + "': allowed after the load and counts are direction, series, counts_sd,"
+          throw new LoadstoneException("points file " + name + ": unknown column " + InputException.shown(h)
+              + ": allowed after the load and counts are direction, series, counts_sd,"
               + " samples");
         }
       }
@@ -107,7 +105,7 @@ public final class PointsCsv {
             }
           } catch (NumberFormatException | LoadstoneException e) {
             throw new LoadstoneException("points file " + name + " line " + line + " column '"
-                + header.get(c) + "': '" + rec.get(c) + "' is not valid: "
+                + header.get(c) + "': " + InputException.shown(rec.get(c)) + " is not valid: "
                 + (e instanceof LoadstoneException ? e.getMessage() : "write a whole number"));
           }
         }
@@ -121,7 +119,7 @@ public final class PointsCsv {
         }
         if (!seen.add(series + "/" + dir + "/" + load)) {
           throw new LoadstoneException("points file " + name + " line " + line + ": load "
-              + rec.get(0) + " appears twice in series " + series + ", direction "
+              + InputException.shown(rec.get(0)) + " appears twice in series " + series + ", direction "
               + dir.label() + ": keep one reading per load, or give the repeat its own series");
         }
         try {
@@ -132,9 +130,9 @@ public final class PointsCsv {
         }
       }
       return out;
-    } catch (IllegalArgumentException | java.io.UncheckedIOException e) {
-      throw new LoadstoneException("points file " + name + " is not valid CSV: " + e.getMessage()
-          + ": check the header for duplicate or empty column names", e);
+    } catch (IllegalArgumentException | IllegalStateException | java.io.UncheckedIOException e) {
+      throw CsvInput.translate(e, InputException.in("points file " + name, null),
+          "correct the file; its format is described in calibration/README.md");
     }
   }
 
@@ -172,16 +170,17 @@ public final class PointsCsv {
       v = Double.parseDouble(t);
     } catch (NumberFormatException e) {
       throw new LoadstoneException("points file " + name + " line " + line + " column '"
-          + header.get(c) + "': '" + t + "' is not a number: use digits with a decimal point"
+          + header.get(c) + "': " + InputException.shown(t) + " is not a number: use digits with a decimal point"
           + " (e.g. 1250.5), no unit and no thousands separator");
     }
     if (!Double.isFinite(v)) {
       throw new LoadstoneException("points file " + name + " line " + line + " column '"
-          + header.get(c) + "': '" + t + "' is not a finite number");
+          + header.get(c) + "': " + InputException.shown(t)
+          + " is out of range: counts and loads are finite numbers");
     }
     if (c != 1 && v < 0) {
       throw new LoadstoneException("points file " + name + " line " + line + " column '"
-          + header.get(c) + "': " + t + " is negative: loads and SDs are zero or more (put"
+          + header.get(c) + "': " + InputException.shown(t) + " is negative: loads and SDs are zero or more (put"
           + " compression and tension in separate calibrations)");
     }
     return v;

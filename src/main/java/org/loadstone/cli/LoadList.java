@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.loadstone.calibration.MassText;
 import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.TextFiles;
 
 /**
  * The weights of a live calibration as the operator lists them: masses separated by commas,
@@ -34,14 +35,7 @@ final class LoadList {
       return MassText.parseList_kg(text, "--loads");
     }
     String where = "loads file " + file;
-    List<String> lines;
-    try {
-      lines = Files.readAllLines(file, StandardCharsets.UTF_8);
-    } catch (NoSuchFileException e) {
-      throw new LoadstoneException(where + " does not exist: check the path");
-    } catch (IOException e) {
-      throw new LoadstoneException(where + " cannot be read: " + e.getMessage(), e);
-    }
+    List<String> lines = TextFiles.read(file, "loads file").lines().toList();
     StringBuilder all = new StringBuilder();
     for (String line : lines) {
       int hash = line.indexOf('#');

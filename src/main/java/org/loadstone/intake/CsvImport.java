@@ -8,8 +8,6 @@ import org.loadstone.archive.ScaleSpec;
 
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.nio.charset.CharacterCodingException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
@@ -27,8 +25,11 @@ import org.apache.commons.csv.CSVRecord;
 import org.loadstone.units.DurationUnit;
 import org.loadstone.units.ForceUnit;
 import org.loadstone.units.LengthUnit;
+import org.loadstone.units.CsvInput;
+import org.loadstone.units.InputException;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
+import org.loadstone.units.TextFiles;
 
 /**
  * Reads force–time or force–displacement CSV files written elsewhere into {@link RunData}.
@@ -110,9 +111,10 @@ public final class CsvImport {
         rows.add(r.toList().toArray(new String[0]));
         rowLines.add(lineOf(text, lineStarts, bodyStart + (int) r.getCharacterPosition()));
       }
-    } catch (IOException | UncheckedIOException e) {
-      throw new LoadstoneException("File " + name + " is not a readable CSV: " + e.getMessage()
-          + ". Check quotes and the delimiter.", e);
+    } catch (IOException | UncheckedIOException | IllegalStateException
+        | IllegalArgumentException e) {
+      throw CsvInput.translate(e, InputException.in("import file", file),
+          "check quotes and the delimiter");
     }
     int ti = column(s.columns().time(), header, name, headerLine, false);
     int fi = column(s.columns().force(), header, name, headerLine, false);
@@ -251,20 +253,7 @@ public final class CsvImport {
   }
 
   private static String readText(Path file) {
-    byte[] bytes;
-    try {
-      bytes = Files.readAllBytes(file);
-    } catch (IOException e) {
-      throw new LoadstoneException("Cannot read " + file + ": " + e.getMessage()
-          + ". Check the path and permissions.", e);
-    }
-    String text;
-    try {
-      text = StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
-    } catch (CharacterCodingException notUtf8) {
-      text = new String(bytes, StandardCharsets.ISO_8859_1); // older spreadsheet exports
-    }
-    return text.startsWith("\uFEFF") ? text.substring(1) : text;
+    return TextFiles.read(file, "import file");
   }
 
   private static int[] lineStarts(String text) {
@@ -375,8 +364,8 @@ public final class CsvImport {
       try {
         return parse.apply(fromHeader);
       } catch (LoadstoneException e) {
-        throw new LoadstoneException("File " + file + " line " + line + " column '"
-            + header.get(col).trim() + "': " + e.getMessage() + ". Give the " + role
+        throw new LoadstoneException("File " + file + " line " + line + " column "
+            + InputException.shown(header.get(col).trim()) + ": " + e.getMessage() + ". Give the " + role
             + " unit with " + option + ".", e);
       }
     }
@@ -388,7 +377,7 @@ public final class CsvImport {
   /** Turns cells into numbers with messages naming file, line and column. */
   private record Cells(String file, List<String> header, boolean decimalComma) {
     String label(int col) {
-      return header == null ? "#" + (col + 1) : "'" + header.get(col).trim() + "'";
+      return header == null ? "#" + (col + 1) : InputException.shown(header.get(col).trim());
     }
 
     double number(String[] row, int col, int line) {
@@ -399,7 +388,8 @@ public final class CsvImport {
       String raw = row[col].trim();
       String low = raw.toLowerCase(Locale.ROOT);
       if (low.equals("nan") || low.contains("inf")) {
-        throw new LoadstoneException(where + ": the cell holds '" + raw + "', not a measured "
+        throw new LoadstoneException(where + ": the cell holds " + InputException.shown(raw)
+            + ", not a measured "
             + "value. Remove or repair that row.");
       }
       String v = decimalComma ? raw.replace(',', '.') : raw;
@@ -407,16 +397,22 @@ public final class CsvImport {
         String hint = !decimalComma && raw.matches("[+-]?\\d+,\\d+")
             ? " The file seems to use a decimal comma: add --decimal-comma."
             : " Check the column mapping and the skip count.";
-        throw new LoadstoneException(where + ": '" + raw + "' is not a number." + hint);
+        throw new LoadstoneException(where + ": " + InputException.shown(raw)
+            + " is not a number." + hint);
       }
-      return Double.parseDouble(v);
+      double d = Double.parseDouble(v);
+      if (!Double.isFinite(d)) {
+        throw new LoadstoneException(where + ": " + InputException.shown(raw) + " is out of the"
+            + " range of numbers. Repair the cell or remove the row.");
+      }
+      return d;
     }
 
     int integer(String[] row, int col, int line) {
       double v = number(row, col, line);
       if (v != Math.rint(v) || Math.abs(v) > Integer.MAX_VALUE) {
         throw new LoadstoneException("File " + file + " line " + line + " column " + label(col)
-            + ": " + row[col].trim() + " is not a whole number of counts. Repair the cell or "
+            + ": " + InputException.shown(row[col].trim()) + " is not a whole number of counts. Repair the cell or "
             + "drop the raw columns.");
       }
       return (int) v;

@@ -2,8 +2,6 @@ package org.loadstone.intake;
 
 import java.io.IOException;
 import java.io.Reader;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -14,7 +12,10 @@ import org.apache.commons.csv.CSVRecord;
 import org.loadstone.analysis.position.PositionTable;
 import org.loadstone.units.DurationUnit;
 import org.loadstone.units.LengthUnit;
+import org.loadstone.units.CsvInput;
+import org.loadstone.units.InputException;
 import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.TextFiles;
 
 /**
  * Reads a position–time table from elsewhere (a video-tracking program's export, a dial-gauge
@@ -35,13 +36,7 @@ public final class PositionTableCsv {
    */
   public static PositionTable read(Path file, String timeColumn, String positionColumn,
       DurationUnit timeUnit, LengthUnit lengthUnit, boolean decimalComma) {
-    String text;
-    try {
-      text = Files.readString(file, StandardCharsets.UTF_8);
-    } catch (IOException e) {
-      throw new LoadstoneException("position table " + file + " cannot be read: "
-          + e.getMessage() + ": check the path", e);
-    }
+    String text = TextFiles.read(file, "position table");
     String first = text.lines().findFirst().orElse("");
     char delim = first.contains("\t") ? '\t' : first.contains(";") ? ';' : ',';
     if (decimalComma && delim == ',') {
@@ -61,9 +56,10 @@ public final class PositionTableCsv {
         t.add(timeUnit.toSeconds(number(rec, ti, header, file, line, decimalComma)));
         x.add(lengthUnit.toMm(number(rec, xi, header, file, line, decimalComma)));
       }
-    } catch (IOException | IllegalStateException e) {
-      throw new LoadstoneException("position table " + file + " is not a readable CSV: "
-          + e.getMessage(), e);
+    } catch (IOException | IllegalStateException | IllegalArgumentException
+        | java.io.UncheckedIOException e) {
+      throw CsvInput.translate(e, InputException.in("position table", file),
+          "check quotes and the delimiter");
     }
     for (int i = 1; i < t.size(); i++) {
       if (!(t.get(i) > t.get(i - 1))) {
@@ -88,8 +84,9 @@ public final class PositionTableCsv {
         return i;
       }
     }
-    throw new LoadstoneException("position table " + file + " has no " + what + " column '"
-        + name + "': its columns are " + header);
+    throw new LoadstoneException("position table " + file + " has no " + what + " column "
+        + InputException.shown(name) + ": its columns are "
+        + InputException.shown(String.join(", ", header)));
   }
 
   private static double number(CSVRecord rec, int i, List<String> header, Path file, long line,
@@ -105,8 +102,8 @@ public final class PositionTableCsv {
       // reported below
     }
     throw new LoadstoneException(String.format(Locale.ROOT,
-        "position table %s, line %d, column '%s': '%s' is not a number%s", file, line,
-        header.get(i), cell, cell.contains(",") && !decimalComma
+        "position table %s, line %d, column %s: %s is not a number%s", file, line,
+        InputException.shown(header.get(i)), InputException.shown(cell), cell.contains(",") && !decimalComma
             ? " (for a decimal comma use --table-decimal-comma)" : ""));
   }
 }

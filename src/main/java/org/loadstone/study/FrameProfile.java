@@ -9,6 +9,7 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import org.loadstone.units.JsonInput;
 import org.loadstone.units.LoadstoneException;
 
 /**
@@ -43,15 +44,8 @@ public record FrameProfile(
 
   /** @throws LoadstoneException naming the file and the fault */
   public static FrameProfile read(Path file) {
-    try {
-      return JSON.readValue(file.toFile(), FrameProfile.class);
-    } catch (com.fasterxml.jackson.databind.JsonMappingException e) {
-      Throwable c = e.getCause() instanceof LoadstoneException ? e.getCause() : e;
-      throw new LoadstoneException("frame profile " + file + ": " + c.getMessage(), e);
-    } catch (IOException e) {
-      throw new LoadstoneException("frame profile " + file + " cannot be read: " + e.getMessage(),
-          e);
-    }
+    return JsonInput.readValue(JSON, file, FrameProfile.class, "frame profile",
+        "correct the file or measure the frame again");
   }
 
   /**
