@@ -83,9 +83,12 @@ public final class RunSetup {
    * @param zero_counts the fresh zero
    * @param rate the sample rate and where it comes from
    * @param warnings to show before the run; also stored with it
+   * @param decideFrom ring index of the first sample after the zero: the run is decided from
+   *     there (arm with {@code recorder.arm(decideFrom)}), so load that comes on while the run is
+   *     being set up is not missed
    */
   public record Prepared(RunSettings settings, RunMetadata metadata, ScaleChoice scale,
-      double zero_counts, SampleRate rate, List<String> warnings) {}
+      double zero_counts, SampleRate rate, List<String> warnings, long decideFrom) {}
 
   /** @return the simulated frame, or null for a real device */
   public SimSetup simulated() {
@@ -156,7 +159,6 @@ public final class RunSetup {
    */
   public Prepared prepare(Request r, Consumer<String> say) {
     RunSettings settings = check(r, reader.transport().name());
-    ScaleChoice scale = r.scale();
     ZeroCheck check = ZeroCheck.of(r.zeroDriftLimit_N(), settings.ratedCapacity_N());
     RunTemplate t = r.template();
     String notes = t.notes();
@@ -169,6 +171,8 @@ public final class RunSetup {
           d.geometry(), t.testType());
     }
     SampleRate rateNow = sampleRate();
+    // a calibration made for another cell than the connected one is warned about
+    ScaleChoice scale = r.scale().forDevice(reader.identity());
     if (lastTare == null) {
       lastTare = LastTare.fromArchive(archive, reader.transport().name(),
           reader.identity().map(id -> id.fields().get("name")).orElse(null));
@@ -176,7 +180,8 @@ public final class RunSetup {
     int n = r.zeroSamples() != null ? r.zeroSamples()
         : rateNow.samplesIn(ZERO_S, ZERO_MIN_SAMPLES);
     say.accept("zeroing on " + n + " samples: keep the specimen unloaded");
-    double zero = Recorder.tare(reader, n, 10_000 + (long) (n / rateNow.rate_Hz() * 2000));
+    Recorder.Zero taken = Recorder.zero(reader, n, 10_000 + (long) (n / rateNow.rate_Hz() * 2000));
+    double zero = taken.counts();
     ZeroCheck.Tare fresh = new ZeroCheck.Tare(zero, clock.instant());
     List<String> warnings = new ArrayList<>(scale.warnings());
     if (rateNow.source() == SampleRate.Source.DEVICE_CLOCK) {
@@ -188,14 +193,16 @@ public final class RunSetup {
     RunMetadata meta = t.build(archive, reader, fields, rateNow, scale, zero,
         settings.pretrigger_s(), r.manualStart() ? null : settings.startThreshold_N(),
         r.softwareVersion(), warnings);
-    return new Prepared(settings, meta, scale, zero, rateNow, List.copyOf(warnings));
+    return new Prepared(settings, meta, scale, zero, rateNow, List.copyOf(warnings),
+        taken.nextIndex());
   }
 
   /**
    * @param p a prepared run
    * @param store where the run goes
    * @param listener progress, may be null
-   * @return the recorder for the run, not yet armed
+   * @return the recorder for the run, not yet armed: arm it with {@code
+   *     arm(p.decideFrom())}
    */
   public Recorder recorder(Prepared p, RunStore store, Recorder.Listener listener) {
     return new Recorder(reader, p.scale().scale(), p.zero_counts(), p.settings(), p.metadata(),

@@ -182,7 +182,7 @@ public final class RecordCommand implements Callable<Integer> {
         say(err, String.format(Locale.ROOT, "armed: recording starts at %.4g N; the run stops "
             + "by itself at a %.0f %% drop from the peak (Ctrl-C stops it by hand)",
             startAt, dropPct));
-        rec.arm();
+        rec.arm(run.decideFrom());
       }
       boolean tty = System.console() != null && !json;
       java.util.Optional<Recorder.Result> result = java.util.Optional.empty();

@@ -190,7 +190,7 @@ final class RunPanel {
       feed.useZero(p.zero_counts());
       Recorder rec = setup.recorder(p, store, new Events());
       recorder = rec;
-      rec.arm();
+      rec.arm(p.decideFrom());
       if (stopWhilePreparing) {
         rec.stop();
       }
