@@ -16,6 +16,7 @@ import org.loadstone.analysis.stats.GroupComparison;
 import org.loadstone.analysis.stats.GroupSummary;
 import org.loadstone.archive.Geometry;
 import org.loadstone.archive.RunMetadata;
+import org.loadstone.files.FilePublisher;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
@@ -278,7 +279,7 @@ public final class PdfReport {
 
   private static void save(PdfLayout p, Path file) {
     try {
-      SafeFiles.write(file, "PDF report", p::save);
+      FilePublisher.publish(file, "PDF report", p::save);
     } catch (UncheckedIOException e) {
       throw new LoadstoneException("Cannot build the PDF report " + file + ": "
           + e.getCause().getMessage(), e);
