@@ -4,7 +4,6 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.stream.Collectors;
@@ -12,9 +11,6 @@ import org.loadstone.units.LoadstoneException;
 
 /** The computations behind {@link CalibrationService#fitFromPoints}; package-private. */
 final class CurveFitting {
-  /** A higher degree must cut the residual SD (in N) to this fraction of the lower one's. */
-  static final double SD_RATIO = 0.7;
-
   private CurveFitting() {}
 
   /**
@@ -61,6 +57,35 @@ final class CurveFitting {
     int dof = ls.degreesOfFreedom();
     return new FitResult(kind, ls.polynomial(), inv, dof, ls.residualSd(),
         dof > 0 ? Math.sqrt(ss / dof) : Double.NaN, worst, res);
+  }
+
+  /**
+   * The fit of {@code kind} to the ascending points alone (all series together, counts relative
+   * to each series' zero), as ASTM E74 bases its figures on: descending readings carry the
+   * hysteresis, which is reported on its own and must not widen the standard deviation of the
+   * fit.
+   *
+   * @return the fit, or null when the ascending points cannot carry it (too few distinct loads,
+   *     no degree of freedom left, or not monotonic)
+   */
+  static FitResult ascendingFit(
+      FitKind kind, List<CalibrationPoint> points, double[] net, double fs_N) {
+    List<CalibrationPoint> up = new ArrayList<>();
+    List<Double> upNet = new ArrayList<>();
+    for (int i = 0; i < points.size(); i++) {
+      if (points.get(i).direction() == Direction.UP) {
+        up.add(points.get(i));
+        upNet.add(net[i]);
+      }
+    }
+    if (distinctLoads(up) < kind.parameters() + 1L) {
+      return null;
+    }
+    try {
+      return fit(kind, up, upNet.stream().mapToDouble(Double::doubleValue).toArray(), fs_N);
+    } catch (LoadstoneException e) {
+      return null;
+    }
   }
 
   static LinearityMetrics linearity(List<CalibrationPoint> points, double[] net, double fs_N) {
@@ -118,52 +143,6 @@ final class CurveFitting {
     }
     return new LinearityMetrics(slope, 100 * nonlin / fs_N,
         hyst == null ? null : 100 * hyst / fs_N, rep == null ? null : 100 * rep / fs_N);
-  }
-
-  /**
-   * The rule: start from the straight line with offset. Step up one degree (to quadratic, then
-   * cubic) only while all of these hold: (1) there are at least degree + 2 distinct loads for the
-   * higher degree, so that it keeps one distinct load more than it has coefficients; (2) the
-   * higher-degree fit exists and is monotonic over the range; (3) the current fit's residual SD
-   * in N is larger than one count expressed in N — below that, a higher degree fits noise; (4) the
-   * higher degree cuts the residual SD (with n − p degrees of freedom, in N) to at most 0.7 of
-   * the current one. With 10 or so degrees of freedom, (4) is stricter than an F-test at 95 %
-   * for one added coefficient, which by itself would accept a cut to about 0.8.
-   */
-  static FitRecommendation recommend(
-      Map<FitKind, FitResult> fits, long distinctLoads, double sensitivity_counts_per_N) {
-    FitResult best = fits.get(FitKind.LINEAR);
-    double oneCount_N = 1 / Math.abs(sensitivity_counts_per_N);
-    String why = "linear with offset is the starting point";
-    for (FitKind next : List.of(FitKind.QUADRATIC, FitKind.CUBIC)) {
-      FitResult cand = fits.get(next);
-      if (distinctLoads < next.degree() + 2L) {
-        why += String.format(Locale.ROOT, "; %s not considered: it needs at least %d distinct"
-            + " loads, there are %d", next.label(), next.degree() + 2, distinctLoads);
-        break;
-      }
-      if (cand == null) {
-        why += "; " + next.label() + " not available (not monotonic over the range or rank"
-            + " deficient)";
-        break;
-      }
-      if (best.residualSd_N() <= oneCount_N) {
-        why += String.format(Locale.ROOT, "; %s residual SD %.3g N is already within one count"
-            + " (%.3g N), a higher degree would fit noise", best.kind().label(),
-            best.residualSd_N(), oneCount_N);
-        break;
-      }
-      double ratio = cand.residualSd_N() / best.residualSd_N();
-      if (ratio > SD_RATIO) {
-        why += String.format(Locale.ROOT, "; %s cuts the residual SD only to %.2f of %s's"
-            + " (needs ≤ %.2f)", next.label(), ratio, best.kind().label(), SD_RATIO);
-        break;
-      }
-      why += String.format(Locale.ROOT, "; %s cuts the residual SD to %.2f of %s's",
-          next.label(), ratio, best.kind().label());
-      best = cand;
-    }
-    return new FitRecommendation(best.kind(), "recommended " + best.kind().label() + ": " + why);
   }
 
   static long distinctLoads(List<CalibrationPoint> points) {

@@ -46,15 +46,17 @@ class CalibrationServiceTest {
     assertThat(r.astm().classALowerLimit_N()).isCloseTo(96, within(1e-8));
     assertThat(r.astm().classAALowerLimit_N()).isCloseTo(480, within(1e-8));
     assertThat(r.astm().note()).contains("not a substitute for an accredited calibration");
+    // one ascending series only: the E74 style figures are those of the adopted line
+    assertThat(r.astm().residualSd_N()).isCloseTo(lin.residualSd_N(), within(1e-12));
     // best straight line = 10·F: largest deviation 1 count = 0.1 N = 0.02 % of 500 N
     assertThat(r.linearity().nonlinearity_pct_fs()).isCloseTo(0.02, within(1e-10));
     assertThat(r.linearity().hysteresis_pct_fs()).isNull();
     assertThat(r.linearity().repeatability_pct_fs()).isNull();
     // one series: ISO 7500-1 repeatability cannot be assessed, so no class
     assertThat(r.iso().systemClass()).isEqualTo("none");
-    // residual SD 0.1 N = one count at 10 counts/N: the rule stops at the straight line
+    // the deviations are noise about the line: no added term is significant
     assertThat(r.recommendation().kind()).isEqualTo(FitKind.LINEAR);
-    assertThat(r.recommendation().reason()).contains("within one count");
+    assertThat(r.recommendation().reason()).contains("quadratic's added term is not significant");
 
     Map<String, Object> s = CalibrationService.summary(r);
     assertThat(s).containsKeys("degree", "coefficients", "sensitivity_counts_per_N",
@@ -155,8 +157,8 @@ class CalibrationServiceTest {
     CalibrationReport r = CalibrationService.fitFromPoints(pts, CalibrationSettings.defaults());
     assertThat(r.recommendation().kind()).isEqualTo(FitKind.QUADRATIC);
     assertThat(r.chosen()).isEqualTo(FitKind.QUADRATIC);
-    assertThat(r.recommendation().reason()).contains("quadratic cuts the residual SD")
-        .contains("cubic");
+    assertThat(r.recommendation().reason()).contains("quadratic's added term is significant")
+        .contains("cubic's added term is not significant");
     assertThat(r.chosenFit().countsOfForce().coefficient(2)).isCloseTo(0.002, within(2e-5));
     // the straight line leaves the bow: 0.002·F² over 0…500 N deviates by 0.002·250²/2 ≈ 62
     // counts at mid-range from the chord, about 1 % FS; the quadratic's errors are ~0.1 N

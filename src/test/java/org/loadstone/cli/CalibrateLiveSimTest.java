@@ -169,6 +169,22 @@ class CalibrateLiveSimTest {
   }
 
   @Test
+  void theCommandFollowsTheSessionsRuleOnARepeatedLoad() {
+    // the walk's rules are CalibrationSession's: 2 kg typed at the 1 kg step, then the planned
+    // 2 kg is refused as a repeat with the session's own words, before any weight is placed
+    CliRun r = CliRun.run("\n" + "2 kg\n" + "\n" + "q\n", "calibrate", "--port", "sim",
+        "--cell", "c1", "--loads", "1 kg, 2 kg, 5 kg", "--window-s", "0.5", "--max-drift", "200",
+        "--sim-speed", "40");
+    assertThat(r.exit()).as(r.toString()).isEqualTo(CalibrateCommand.EXIT_STOPPED);
+    assertThat(r.out()).contains("captured 2 kg", "series 1, up: weights totalling 2.0 kg on the"
+        + " cell: 2 kg was already read in this series and direction",
+        "Stopped: 2 reading(s) discarded");
+    // the refused 2 kg was never placed nor read a second time
+    assertThat(r.out().split("2 kg now on the simulated cell", -1)).hasSize(2);
+    assertThat(r.out().split("captured 2 kg", -1)).hasSize(2);
+  }
+
+  @Test
   void refusesASimulatedScenarioWithoutWeightsAndAnExistingCalibrationId() {
     CliRun scen = CliRun.run("\n", "calibrate", "--port", "sim", "--scenario", "panel-foam",
         "--cell", "c1", "--loads", "1 kg, 2 kg");

@@ -40,7 +40,7 @@ class CalibrateOfflineCommandTest {
   void exampleFitPrintsTheTableAndEndsWithTheServiceSummaryAsJson() throws Exception {
     CliRun r = CliRun.run("", args("--json"));
     assertThat(r.exit()).as(r.toString()).isZero();
-    assertThat(r.out()).contains("Residuals of linear", "ASTM E74 style", "ISO 7500-1 style",
+    assertThat(r.out()).contains("Residuals of quadratic", "ASTM E74 style", "ISO 7500-1 style",
         "Corrections at 50.0000 kg: gravity", "buoyancy",
         "not a substitute for an accredited calibration");
     JsonNode j = r.lastJson();

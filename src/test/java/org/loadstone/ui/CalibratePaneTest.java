@@ -69,15 +69,34 @@ class CalibratePaneTest {
     });
     robot.clickOn("#cal-start");
     Label step = robot.lookup("#cal-step").queryAs(Label.class);
+    Label message = robot.lookup("#cal-message").queryAs(Label.class);
     for (int i = 1; i <= 5; i++) {
       int n = i;
       WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
           () -> step.getText().startsWith("[" + n + "/5]"));
+      if (n == 1) {
+        // the session's rule, as on the command line: a zero step cannot be skipped
+        assertThat(robot.lookup("#cal-skip").queryButton().isDisabled()).isTrue();
+      }
+      if (n == 3) {
+        robot.clickOn("#cal-skip"); // 20 kg skipped: the session allows it for a load step
+        WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS, () -> step.getText().startsWith("[4/5]"));
+        continue;
+      }
+      if (n == 4) {
+        // 10 kg was read already in this series, going up: the session refuses the repeat
+        robot.interact(() -> text(robot, "#cal-placed").setText("10 kg"));
+        robot.clickOn("#cal-step").type(javafx.scene.input.KeyCode.C);
+        WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS,
+            () -> message.getText().contains("already read in this series and direction"));
+        assertThat(step.getText()).startsWith("[4/5]");
+        robot.interact(() -> text(robot, "#cal-placed").clear());
+      }
       robot.clickOn("#cal-step").type(javafx.scene.input.KeyCode.C); // capture once steady
       WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS,
           () -> !step.getText().startsWith("[" + n + "/5]"));
     }
-    assertThat(step.getText()).isEqualTo("all readings taken: 5 points");
+    assertThat(step.getText()).isEqualTo("all readings taken: 4 points, 1 step(s) skipped");
     String fit = robot.lookup("#cal-result").queryAs(TextArea.class).getText();
     // the simulator's own sensitivity (its ground truth), within 0.05 % (standard gravity as the
     // simulator's; the conventional air buoyancy adds 0.015 %)
