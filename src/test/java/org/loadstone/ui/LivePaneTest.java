@@ -108,6 +108,9 @@ class LivePaneTest {
     // the post-run figures are the archive's analysis of the stored run
     WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS,
         () -> robot.lookup("#figure-stiffness").tryQuery().isPresent());
+    // the wait looks from this thread while the FX thread may still be adding the other figures
+    // in the same step: let that step finish before reading them
+    WaitForAsyncUtils.waitForFxEvents();
     var run = org.loadstone.archive.RunReader.read(csv);
     var m = org.loadstone.study.RunMetrics.of(run.metadata(), run.data());
     assertThat(robot.lookup("#figure-peak").queryAs(Label.class).getText())
