@@ -31,8 +31,8 @@ public final class RunReader {
     if (!Files.exists(csv)) {
       throw missing(csv, json);
     }
-    try (Reader r = TextFiles.open(csv, "run file")) {
-      data = RunCsv.read(r, csv);
+    try {
+      data = readSamples(csv);
     } catch (IOException e) {
       throw TextFiles.unreadable(csv, "run file", e);
     }
@@ -42,6 +42,22 @@ public final class RunReader {
           + " samples: the two files do not belong together; restore them from a backup");
     }
     return new Run(meta, data, csv, json);
+  }
+
+  /**
+   * The samples: the fast reader for the writer's own format, the strict reader for anything
+   * else (and for every fault, so that the message names the line and column).
+   */
+  static RunData readSamples(Path csv) throws IOException {
+    RunData fast = RunCsvFast.read(csv);
+    return fast != null ? fast : readStrict(csv);
+  }
+
+  /** The reference path: Commons CSV and a check of every cell. */
+  static RunData readStrict(Path csv) throws IOException {
+    try (Reader r = TextFiles.open(csv, "run file")) {
+      return RunCsv.read(r, csv);
+    }
   }
 
   /**
