@@ -14,7 +14,6 @@ import org.loadstone.units.DurationUnit;
 import org.loadstone.units.LengthUnit;
 import java.util.concurrent.Callable;
 import org.loadstone.analysis.AnalysisSettings;
-import org.loadstone.analysis.AnalysisSettings.StiffnessBounds;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.cli.RunResolver.ResolvedRun;
 import picocli.CommandLine;
@@ -36,12 +35,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Parameters(paramLabel = "RUN", description = "A run id (or id prefix) in the archive, a run's CSV, or any CSV with columns time_s, force_N, position_mm.")
   String run;
 
-  @Option(names = "--stiffness-from-N", paramLabel = "A",
-      description = "Fit the stiffness between these forces instead of searching (with --stiffness-to-N).")
-  Double fromN;
-
-  @Option(names = "--stiffness-to-N", paramLabel = "B", description = "Upper force of the stiffness fit.")
-  Double toN;
+  @picocli.CommandLine.Mixin StiffnessOptions stiffness;
 
   @Option(names = "--cal", paramLabel = "FILE", description = "Derive force again from the raw counts with this calibration (the stored run is not changed).")
   Path cal;
@@ -83,7 +77,13 @@ public final class AnalyzeCommand implements Callable<Integer> {
     {"peak force", "peak_N", "N"}, {"time of peak", "peak_time_s", "s"},
     {"break sample", "break_index", ""}, {"break time", "break_time_s", "s"},
     {"break force", "break_force_N", "N"}, {"stiffness", "stiffness_N_per_mm", "N/mm"},
-    {"stiffness fit R2", "stiffness_r_squared", ""}, {"toe offset", "toe_offset_mm", "mm"},
+    {"stiffness fit R2", "stiffness_r_squared", ""},
+    {"stiffness 95% from", "stiffness_ci95_low_N_per_mm", "N/mm"},
+    {"stiffness 95% to", "stiffness_ci95_high_N_per_mm", "N/mm"},
+    {"stiffness window from", "stiffness_window_from_N", "N"},
+    {"stiffness window to", "stiffness_window_to_N", "N"},
+    {"stiffness chosen by", "stiffness_method", ""},
+    {"toe offset", "toe_offset_mm", "mm"},
     {"displacement at peak", "displacement_at_peak_mm", "mm"},
     {"displacement at break", "displacement_at_break_mm", "mm"},
     {"energy to peak", "energy_to_peak_J", "J"}, {"energy to break", "energy_to_break_J", "J"},
@@ -140,14 +140,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    if ((fromN == null) != (toN == null)) {
-      throw new CommandLine.ParameterException(spec.commandLine(),
-          "--stiffness-from-N and --stiffness-to-N go together; give both or neither.");
-    }
-    AnalysisSettings settings = AnalysisSettings.DEFAULTS;
-    if (fromN != null) {
-      settings = settings.withStiffnessBounds(StiffnessBounds.force_N(fromN, toN));
-    }
+    AnalysisSettings settings = stiffness.apply(AnalysisSettings.DEFAULTS);
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
     RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()));
     RunMetrics m = RunMetrics.of(adj.metadata(), adj.data(), settings);
