@@ -1,7 +1,5 @@
 package org.loadstone.analysis;
 
-import java.util.Arrays;
-
 /**
  * The rise of a run (first sample to the peak) as the stiffness search and bands read it: the force
  * noise estimated from the data, a lightly smoothed force used only to find where the loading path
@@ -50,8 +48,8 @@ final class RiseProfile {
     for (int i = from + 1; i < to; i++) {
       d[i - from - 1] = Math.abs(y[i + 1] - 2 * y[i] + y[i - 1]);
     }
-    Arrays.sort(d);
-    double median = m % 2 == 1 ? d[m / 2] : 0.5 * (d[m / 2 - 1] + d[m / 2]);
+    double median = m % 2 == 1 ? Selection.kth(d, m, m / 2)
+        : 0.5 * (Selection.kth(d, m, m / 2 - 1) + Selection.kth(d, m, m / 2));
     return 1.4826 * median / Math.sqrt(6);
   }
 

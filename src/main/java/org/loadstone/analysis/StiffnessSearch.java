@@ -53,7 +53,8 @@ final class StiffnessSearch {
       return refuse(p, "the rise has only " + (p.peak + 1) + " samples; a stiffness needs a "
           + "straight stretch of at least 6", 0, p.peak);
     }
-    RiseEnd first = firstRiseEnd(p);
+    LinearWindows sums = new LinearWindows(p.x, p.y, p.peak + 1);
+    RiseEnd first = firstRiseEnd(p, sums);
     int end = first.index();
     double base = p.smooth[0];
     double rise = p.smooth[end] - base;
@@ -61,7 +62,6 @@ final class StiffnessSearch {
       return refuse(p, "the force does not rise before the first peak", 0, end);
     }
     int[] at = crossings(p, base, rise, LEVELS, end);
-    LinearWindows sums = new LinearWindows(p.x, p.y, end + 1);
     LinearWindows.Line best = null;
     double bestScore = Double.POSITIVE_INFINITY;
     LinearWindows.Line nearest = null;
@@ -164,7 +164,7 @@ final class StiffnessSearch {
    * The last sample of the first rise: the peak, or an earlier local maximum that the force
    * leaves by more than the noise, or where the local slope first falls below half.
    */
-  static RiseEnd firstRiseEnd(RiseProfile p) {
+  static RiseEnd firstRiseEnd(RiseProfile p, LinearWindows sums) {
     double base = p.smooth[0];
     double rise = p.smooth[p.peak] - base;
     double smoothNoise = p.noise_N / Math.sqrt(2 * p.halfWidth + 1);
@@ -185,7 +185,6 @@ final class StiffnessSearch {
     }
     int levels = 20;
     int[] at = crossings(p, base, r, levels, end);
-    LinearWindows sums = new LinearWindows(p.x, p.y, end + 1);
     double reference = 0;
     for (int l = 1; l < levels; l++) {
       int from = at[l - 1];

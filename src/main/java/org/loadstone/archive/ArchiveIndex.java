@@ -28,11 +28,19 @@ public final class ArchiveIndex {
    */
   public record Entry(RunMetadata metadata, Path json, Path csv) {}
 
+  /**
+   * A sidecar that could not be read.
+   *
+   * @param json the file
+   * @param message what is wrong with it, naming the file and the field
+   */
+  public record Unreadable(Path json, String message) {}
+
   private final Path dir;
   private final List<Entry> entries;
-  private final List<String> problems;
+  private final List<Unreadable> problems;
 
-  private ArchiveIndex(Path dir, List<Entry> entries, List<String> problems) {
+  private ArchiveIndex(Path dir, List<Entry> entries, List<Unreadable> problems) {
     this.dir = dir;
     this.entries = List.copyOf(entries);
     this.problems = List.copyOf(problems);
@@ -50,7 +58,7 @@ public final class ArchiveIndex {
           + "first, or pass --archive DIR for another folder");
     }
     List<Entry> found = new ArrayList<>();
-    List<String> problems = new ArrayList<>();
+    List<Unreadable> problems = new ArrayList<>();
     try (Stream<Path> s = Files.list(dir)) {
       for (Path json : (Iterable<Path>) s.filter(p -> p.toString().endsWith(".json")).sorted()::iterator) {
         try {
@@ -58,7 +66,7 @@ public final class ArchiveIndex {
           String stem = json.getFileName().toString().replaceFirst("\\.json$", "");
           found.add(new Entry(m, json, json.resolveSibling(stem + ".csv")));
         } catch (LoadstoneException e) {
-          problems.add(e.getMessage());
+          problems.add(new Unreadable(json, e.getMessage()));
         }
       }
     } catch (IOException e) {
@@ -82,6 +90,11 @@ public final class ArchiveIndex {
 
   /** @return sidecars that could not be read, as messages naming the file and the field */
   public List<String> problems() {
+    return problems.stream().map(Unreadable::message).toList();
+  }
+
+  /** @return sidecars that could not be read, with their files */
+  public List<Unreadable> unreadable() {
     return problems;
   }
 

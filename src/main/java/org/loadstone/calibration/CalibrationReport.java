@@ -15,7 +15,8 @@ import java.util.Map;
  * @param recommendation the lowest-degree fit judged good enough
  * @param chosen the adopted fit: the settings' choice or the recommendation
  * @param linearity sensitivity, non-linearity, hysteresis, repeatability
- * @param astm ASTM E74 style figures of the adopted fit
+ * @param astm ASTM E74 style figures from the ascending readings, or null when they cannot
+ *     carry the adopted kind of fit
  * @param iso ISO 7500-1 style figures of the adopted fit
  * @param notes fits left out and why
  */

@@ -11,6 +11,8 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import org.loadstone.files.FileExistsException;
+import org.loadstone.files.FilePublisher;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -29,8 +31,9 @@ public final class CalibrationService {
    * Fits every curve the points allow, recommends one, and computes the metrics.
    *
    * <p>Counts are taken relative to the ascending zero point of their series. Each series must
-   * have one; loads must not repeat within a series and direction; at least three distinct loads
-   * (zero and two more) are needed.
+   * have one; loads must not repeat within a series and direction. The curves are fitted to the
+   * ascending readings of every series (at least three distinct loads: zero and two more); the
+   * descending readings give the hysteresis, the reversibility and the zero return.
    *
    * @param points calibration points, not null, not empty
    * @param settings force model, full scale and chosen fit; not null
@@ -55,8 +58,8 @@ public final class CalibrationService {
     long distinct = CurveFitting.distinctLoads(pts);
     if (distinct < 3) {
       throw new LoadstoneException("fewer points than the fit needs: " + distinct + " distinct"
-          + " load(s) given, a straight-line calibration needs at least 3 (zero and two loads);"
-          + " add points across the range");
+          + " ascending load(s) given, a straight-line calibration needs at least 3 (zero and two"
+          + " loads, read going up); add points across the range");
     }
     Map<Integer, Double> zero = CurveFitting.zeroCounts(pts);
     double[] net = new double[pts.size()];
@@ -71,7 +74,7 @@ public final class CalibrationService {
     for (FitKind kind : FitKind.values()) {
       if (distinct < kind.parameters() + 1L) {
         notes.add(kind.label() + " not fitted: needs at least " + (kind.parameters() + 1)
-            + " distinct loads, there are " + distinct);
+            + " distinct ascending loads, there are " + distinct);
         continue;
       }
       try {
@@ -85,8 +88,7 @@ public final class CalibrationService {
           + String.join("; ", notes));
     }
     LinearityMetrics lin = CurveFitting.linearity(pts, net, fs);
-    FitRecommendation rec =
-        CurveFitting.recommend(fits, distinct, lin.sensitivity_counts_per_N());
+    FitRecommendation rec = FitChoice.recommend(fits);
     FitKind chosen = settings.chosenFit() != null ? settings.chosenFit() : rec.kind();
     FitResult chosenFit = fits.get(chosen);
     if (chosenFit == null) {
@@ -95,9 +97,14 @@ public final class CalibrationService {
               .orElse("not fitted") + "; choose another fit or leave the choice to the"
               + " recommendation (" + rec.kind().label() + ")");
     }
-    AstmE74Result astm = AstmE74Result.of(chosenFit.residualSd_N(), maxForce);
-    Iso7500Result iso =
-        Iso7500Style.evaluate(chosenFit.residuals(), lin.sensitivity_counts_per_N(), fs);
+    AstmE74Result astm = null;
+    if (chosenFit.degreesOfFreedom() > 0) {
+      astm = AstmE74Result.of(chosenFit, maxForce);
+    } else {
+      notes.add("ASTM E74 style figures not assessed: the " + chosen.label() + " fit leaves no"
+          + " degree of freedom in the ascending readings; add ascending loads");
+    }
+    Iso7500Result iso = Iso7500Style.evaluate(chosenFit, lin.sensitivity_counts_per_N(), fs);
     return new CalibrationReport(pts, zero, settings, fs, maxForce,
         new ArrayList<>(fits.values()), rec, chosen, lin, astm, iso, notes);
   }
@@ -117,9 +124,11 @@ public final class CalibrationService {
    * {@code degree}, {@code coefficients} (net counts as a polynomial in N, lowest order first),
    * {@code sensitivity_counts_per_N}, {@code residual_sd_N}, {@code nonlinearity_pct_fs},
    * {@code hysteresis_pct_fs} and {@code repeatability_pct_fs} (null when not assessed),
-   * {@code full_scale_N}, {@code llf_N}, {@code class_a_lower_limit_N},
-   * {@code class_aa_lower_limit_N}, {@code iso7500_class}, {@code gravity_correction_relative}
-   * ((g − 9.80665)/9.80665), {@code buoyancy_correction_relative} (−ρ_air/ρ_weight), {@code note}.
+   * {@code full_scale_N}, {@code astm_sd_N} (standard deviation of the ascending readings about
+   * their curve), {@code llf_N}, {@code class_a_lower_limit_N}, {@code class_aa_lower_limit_N}
+   * (these four null when not assessed), {@code iso7500_class}, {@code gravity_correction_relative}
+   * ((g − 9.80665)/9.80665), {@code buoyancy_correction_relative} (F/(m·g) − 1 for a conventional mass m, see
+   * {@link ForceFromMass}), {@code note}.
    */
   public static Map<String, Object> summary(CalibrationReport report) {
     Precondition.notNull(report, "report");
@@ -134,9 +143,11 @@ public final class CalibrationService {
     m.put("hysteresis_pct_fs", report.linearity().hysteresis_pct_fs());
     m.put("repeatability_pct_fs", report.linearity().repeatability_pct_fs());
     m.put("full_scale_N", report.fullScale_N());
-    m.put("llf_N", report.astm().llf_N());
-    m.put("class_a_lower_limit_N", report.astm().classALowerLimit_N());
-    m.put("class_aa_lower_limit_N", report.astm().classAALowerLimit_N());
+    AstmE74Result astm = report.astm();
+    m.put("astm_sd_N", astm == null ? null : astm.residualSd_N());
+    m.put("llf_N", astm == null ? null : astm.llf_N());
+    m.put("class_a_lower_limit_N", astm == null ? null : astm.classALowerLimit_N());
+    m.put("class_aa_lower_limit_N", astm == null ? null : astm.classAALowerLimit_N());
     m.put("iso7500_class", report.iso().systemClass());
     ForceFromMass.Corrections c = report.settings().forceModel().corrections(1.0);
     m.put("gravity_correction_relative", c.gravityRelative());
@@ -191,18 +202,12 @@ public final class CalibrationService {
       String comment) {
     Path f = dir.resolve(id + ".points.csv");
     try {
-      java.nio.file.Files.createDirectories(dir);
-      java.nio.file.Files.writeString(f, PointsCsv.format(points, comment),
-          java.nio.charset.StandardCharsets.UTF_8, java.nio.file.StandardOpenOption.CREATE_NEW,
-          java.nio.file.StandardOpenOption.WRITE);
-      return f;
-    } catch (java.nio.file.FileAlreadyExistsException e) {
+      return FilePublisher.publish(f, "points file",
+          PointsCsv.format(points, comment).getBytes(java.nio.charset.StandardCharsets.UTF_8));
+    } catch (FileExistsException e) {
       throw new LoadstoneException("points file " + f + " exists and is never overwritten:"
           + " save under another calibration id, e.g. '" + CalibrationFiles.freeId(dir, id)
           + "'");
-    } catch (java.io.IOException e) {
-      throw new LoadstoneException("cannot save points to " + f + ": " + e.getMessage()
-          + ": check the folder and its permissions", e);
     }
   }
 

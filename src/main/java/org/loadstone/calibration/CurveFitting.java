@@ -1,10 +1,10 @@
 package org.loadstone.calibration;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.stream.Collectors;
@@ -12,9 +12,6 @@ import org.loadstone.units.LoadstoneException;
 
 /** The computations behind {@link CalibrationService#fitFromPoints}; package-private. */
 final class CurveFitting {
-  /** A higher degree must cut the residual SD (in N) to this fraction of the lower one's. */
-  static final double SD_RATIO = 0.7;
-
   private CurveFitting() {}
 
   /**
@@ -40,36 +37,57 @@ final class CurveFitting {
     return zero;
   }
 
+  /**
+   * Fits {@code kind} to the ascending readings (every series together) and evaluates it at
+   * every reading. The curve, its degrees of freedom and its residual SDs come from the
+   * ascending readings alone, as ASTM E74 takes them: a test loads the cell upwards, and the
+   * descending readings carry the hysteresis, reported on its own. The residuals of descending
+   * readings are listed too (they show the hysteresis through the curve).
+   *
+   * @throws LoadstoneException when the ascending readings have too few distinct loads, or the
+   *     curve is not monotonic over their range
+   */
   static FitResult fit(FitKind kind, List<CalibrationPoint> points, double[] net, double fs_N) {
-    double[] x = points.stream().mapToDouble(CalibrationPoint::force_N).toArray();
-    LeastSquares.Result ls = LeastSquares.polynomial(x, net, kind.degree(), kind.hasOffset());
-    double max = points.stream().mapToDouble(CalibrationPoint::force_N).max().orElseThrow();
-    double min = points.stream().mapToDouble(CalibrationPoint::force_N).min().orElseThrow();
+    List<Integer> up = ascending(points);
+    double[] x = up.stream().mapToDouble(i -> points.get(i).force_N()).toArray();
+    double[] y = up.stream().mapToDouble(i -> net[i]).toArray();
+    LeastSquares.Result ls = LeastSquares.polynomial(x, y, kind.degree(), kind.hasOffset());
+    double max = Arrays.stream(x).max().orElseThrow();
+    double min = Arrays.stream(x).min().orElseThrow();
     CountsToForce inv = new CountsToForce(ls.polynomial(), min, max);
     List<PointResidual> res = new ArrayList<>();
     double ss = 0;
     double worst = 0;
-    for (int i = 0; i < x.length; i++) {
+    for (int i = 0; i < points.size(); i++) {
+      double f = points.get(i).force_N();
       double ind = inv.force_N(net[i]);
-      double err = ind - x[i];
-      ss += err * err;
+      double err = ind - f;
       double pctFs = 100 * err / fs_N;
-      worst = Math.max(worst, Math.abs(pctFs));
+      if (points.get(i).direction() == Direction.UP) {
+        ss += err * err;
+        worst = Math.max(worst, Math.abs(pctFs));
+      }
       res.add(new PointResidual(points.get(i), net[i], ind, err,
-          x[i] == 0 ? null : 100 * err / x[i], pctFs));
+          f == 0 ? null : 100 * err / f, pctFs));
     }
     int dof = ls.degreesOfFreedom();
     return new FitResult(kind, ls.polynomial(), inv, dof, ls.residualSd(),
         dof > 0 ? Math.sqrt(ss / dof) : Double.NaN, worst, res);
   }
 
-  static LinearityMetrics linearity(List<CalibrationPoint> points, double[] net, double fs_N) {
-    List<Integer> upIdx = new ArrayList<>();
+  /** @return the indices of the ascending readings, in order */
+  static List<Integer> ascending(List<CalibrationPoint> points) {
+    List<Integer> up = new ArrayList<>();
     for (int i = 0; i < points.size(); i++) {
       if (points.get(i).direction() == Direction.UP) {
-        upIdx.add(i);
+        up.add(i);
       }
     }
+    return up;
+  }
+
+  static LinearityMetrics linearity(List<CalibrationPoint> points, double[] net, double fs_N) {
+    List<Integer> upIdx = ascending(points);
     double[] x = upIdx.stream().mapToDouble(i -> points.get(i).force_N()).toArray();
     double[] y = upIdx.stream().mapToDouble(i -> net[i]).toArray();
     Polynomial line = LeastSquares.polynomial(x, y, 1, true).polynomial();
@@ -120,54 +138,10 @@ final class CurveFitting {
         hyst == null ? null : 100 * hyst / fs_N, rep == null ? null : 100 * rep / fs_N);
   }
 
-  /**
-   * The rule: start from the straight line with offset. Step up one degree (to quadratic, then
-   * cubic) only while all of these hold: (1) there are at least degree + 2 distinct loads for the
-   * higher degree, so that it keeps one distinct load more than it has coefficients; (2) the
-   * higher-degree fit exists and is monotonic over the range; (3) the current fit's residual SD
-   * in N is larger than one count expressed in N — below that, a higher degree fits noise; (4) the
-   * higher degree cuts the residual SD (with n − p degrees of freedom, in N) to at most 0.7 of
-   * the current one. With 10 or so degrees of freedom, (4) is stricter than an F-test at 95 %
-   * for one added coefficient, which by itself would accept a cut to about 0.8.
-   */
-  static FitRecommendation recommend(
-      Map<FitKind, FitResult> fits, long distinctLoads, double sensitivity_counts_per_N) {
-    FitResult best = fits.get(FitKind.LINEAR);
-    double oneCount_N = 1 / Math.abs(sensitivity_counts_per_N);
-    String why = "linear with offset is the starting point";
-    for (FitKind next : List.of(FitKind.QUADRATIC, FitKind.CUBIC)) {
-      FitResult cand = fits.get(next);
-      if (distinctLoads < next.degree() + 2L) {
-        why += String.format(Locale.ROOT, "; %s not considered: it needs at least %d distinct"
-            + " loads, there are %d", next.label(), next.degree() + 2, distinctLoads);
-        break;
-      }
-      if (cand == null) {
-        why += "; " + next.label() + " not available (not monotonic over the range or rank"
-            + " deficient)";
-        break;
-      }
-      if (best.residualSd_N() <= oneCount_N) {
-        why += String.format(Locale.ROOT, "; %s residual SD %.3g N is already within one count"
-            + " (%.3g N), a higher degree would fit noise", best.kind().label(),
-            best.residualSd_N(), oneCount_N);
-        break;
-      }
-      double ratio = cand.residualSd_N() / best.residualSd_N();
-      if (ratio > SD_RATIO) {
-        why += String.format(Locale.ROOT, "; %s cuts the residual SD only to %.2f of %s's"
-            + " (needs ≤ %.2f)", next.label(), ratio, best.kind().label(), SD_RATIO);
-        break;
-      }
-      why += String.format(Locale.ROOT, "; %s cuts the residual SD to %.2f of %s's",
-          next.label(), ratio, best.kind().label());
-      best = cand;
-    }
-    return new FitRecommendation(best.kind(), "recommended " + best.kind().label() + ": " + why);
-  }
-
+  /** @return how many distinct loads the ascending readings have */
   static long distinctLoads(List<CalibrationPoint> points) {
-    return points.stream().map(CalibrationPoint::force_N).distinct().count();
+    return points.stream().filter(p -> p.direction() == Direction.UP)
+        .map(CalibrationPoint::force_N).distinct().count();
   }
 
   static List<CalibrationPoint> sorted(List<CalibrationPoint> points) {

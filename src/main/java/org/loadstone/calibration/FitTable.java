@@ -58,10 +58,14 @@ public final class FitTable {
               : String.format(Locale.ROOT, "%.4f", r.error_pct_reading()), r.error_pct_fs()));
     }
     AstmE74Result a = report.astm();
-    sb.append(String.format(Locale.ROOT,
-        "%nASTM E74 style: LLF %.4g N, Class A lower limit %.4g N, Class AA lower limit %.4g N%n",
-        a.llf_N(), a.classALowerLimit_N(), a.classAALowerLimit_N()));
-    sb.append("  ").append(a.note()).append(System.lineSeparator());
+    if (a == null) {
+      sb.append(String.format(Locale.ROOT, "%nASTM E74 style: not assessed (see the notes)%n"));
+    } else {
+      sb.append(String.format(Locale.ROOT, "%nASTM E74 style, ascending readings: SD %.4g N,"
+          + " LLF %.4g N, Class A lower limit %.4g N, Class AA lower limit %.4g N%n",
+          a.residualSd_N(), a.llf_N(), a.classALowerLimit_N(), a.classAALowerLimit_N()));
+      sb.append("  ").append(a.note()).append(System.lineSeparator());
+    }
     Iso7500Result iso = report.iso();
     sb.append(String.format(Locale.ROOT, "ISO 7500-1 style: class %s, f0 %s%n",
         iso.systemClass(), pct(iso.f0_pct())));

@@ -8,7 +8,8 @@ import java.util.List;
  * system" is the load cell with the adopted curve, and the "true force" is the dead-weight force.
  *
  * @param points the relative errors at each non-zero load, ascending order
- * @param f0_pct relative zero error after unloading, % of the largest load; null without a
+ * @param f0_pct relative zero error: the indication after unloading against the zero set at the
+ *     series' start, % of full scale, the largest in magnitude over the series; null without a
  *     descending zero point
  * @param systemClass "0.5", "1", "2", "3" or "none"
  * @param notes what was not assessed and why the class is what it is

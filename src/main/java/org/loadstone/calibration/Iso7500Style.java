@@ -20,6 +20,10 @@ import java.util.TreeMap;
  * 3       ±3.0          3.0          ±4.5         ±0.3       1.5
  * </pre>
  *
+ * <p>Zero error f0 (ISO 7500-1's relative zero error, from memory): the indication after the
+ * force is removed, relative to the zero set before the series, in % of full scale; the largest
+ * in magnitude over the series. Not the adopted curve's intercept.
+ *
  * <p>Resolution r of our digital indication: one count, or when the reading fluctuates, half the
  * fluctuation range, taken here as 2 × the standard deviation of the captured counts (a ±2 SD band
  * holds about 95 % of the samples); converted to N with the sensitivity. ISO 7500-1 asks for three
@@ -35,8 +39,18 @@ final class Iso7500Style {
 
   private Iso7500Style() {}
 
+  /**
+   * @param fit the adopted fit, with a residual for every point
+   * @param sensitivity_counts_per_N slope of the best straight line, for the resolution
+   * @param fullScale_N reference of the zero error
+   */
   static Iso7500Result evaluate(
-      List<PointResidual> residuals, double sensitivity_counts_per_N, double fullScale_N) {
+      FitResult fit, double sensitivity_counts_per_N, double fullScale_N) {
+    List<PointResidual> residuals = fit.residuals();
+    // the indicator is zeroed at each series' start (its ascending zero reading, net counts 0),
+    // so the indication after unloading is the curve's force at the returned counts less its
+    // force at the start: the curve's own intercept is no zero error
+    double indicatedAtStart_N = fit.inverse().force_N(0);
     List<String> notes = new ArrayList<>();
     notes.add("computed in the style of ISO 7500-1 — not a substitute for an accredited"
         + " calibration; class limits quoted from memory");
@@ -48,7 +62,7 @@ final class Iso7500Style {
       CalibrationPoint p = r.point();
       if (p.isZero()) {
         if (p.direction() == Direction.DOWN) {
-          double v = 100 * r.indicated_N() / fullScale_N;
+          double v = 100 * (r.indicated_N() - indicatedAtStart_N) / fullScale_N;
           f0 = f0 == null || Math.abs(v) > Math.abs(f0) ? v : f0;
         }
         continue;

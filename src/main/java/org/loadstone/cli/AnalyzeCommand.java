@@ -14,6 +14,7 @@ import org.loadstone.units.DurationUnit;
 import org.loadstone.units.LengthUnit;
 import java.util.concurrent.Callable;
 import org.loadstone.analysis.AnalysisSettings;
+import org.loadstone.study.Metric;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.cli.RunResolver.ResolvedRun;
 import picocli.CommandLine;
@@ -72,32 +73,6 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
-  /** Label, key of {@link RunMetrics#toJsonMap()}, unit. */
-  private static final String[][] ROWS = {
-    {"peak force", "peak_N", "N"}, {"time of peak", "peak_time_s", "s"},
-    {"break sample", "break_index", ""}, {"break time", "break_time_s", "s"},
-    {"break force", "break_force_N", "N"}, {"stiffness", "stiffness_N_per_mm", "N/mm"},
-    {"stiffness fit R2", "stiffness_r_squared", ""},
-    {"stiffness 95% from", "stiffness_ci95_low_N_per_mm", "N/mm"},
-    {"stiffness 95% to", "stiffness_ci95_high_N_per_mm", "N/mm"},
-    {"stiffness window from", "stiffness_window_from_N", "N"},
-    {"stiffness window to", "stiffness_window_to_N", "N"},
-    {"stiffness chosen by", "stiffness_method", ""},
-    {"toe offset", "toe_offset_mm", "mm"},
-    {"displacement at peak", "displacement_at_peak_mm", "mm"},
-    {"displacement at break", "displacement_at_break_mm", "mm"},
-    {"energy to peak", "energy_to_peak_J", "J"}, {"energy to break", "energy_to_break_J", "J"},
-    {"flexural stress at peak", "flexural_stress_at_peak_MPa", "MPa"},
-    {"flexural modulus", "flexural_modulus_MPa", "MPa"},
-    {"core shear stress at peak", "core_shear_stress_at_peak_MPa", "MPa"},
-    {"facing stress at peak", "facing_stress_at_peak_MPa", "MPa"},
-    {"compression stress at peak", "compression_stress_at_peak_MPa", "MPa"},
-    {"specific peak force", "specific_peak_N_per_g", "N/g"},
-    {"specific energy to peak", "specific_energy_to_peak_J_per_g", "J/g"},
-    {"specific energy to break", "specific_energy_to_break_J_per_g", "J/g"},
-    {"specific stiffness", "specific_stiffness_N_per_mm_per_g", "N/mm per g"},
-  };
-
   private RunAdjust adjust(RunAdjust a) {
     if (cal != null) {
       ScaleChoice c = ScaleChoice.fromCalibration(cal, java.time.LocalDate.now());
@@ -148,13 +123,13 @@ public final class AnalyzeCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     out.printf(Locale.ROOT, "run %s, specimen %s, %d samples (%s)%n", m.metadata().runId(),
         m.metadata().specimen(), m.analysis().sampleCount(), r.source());
-    for (String[] row : ROWS) {
-      Object v = j.get(row[1]);
-      String text = v == null ? "-"
-          : v instanceof Double d ? (Math.abs(d) < 1e-12 ? "0" : String.format(Locale.ROOT, "%.5g", d))
-          : v.toString();
-      out.printf(Locale.ROOT, "  %-28s %14s %s%n", row[0], text, v == null ? "" : row[2]);
+    for (Metric metric : Metric.values()) {
+      java.util.OptionalDouble v = metric.of(m);
+      out.printf(Locale.ROOT, "  %-28s %14s %s%n", metric.label(), metric.format(v),
+          v.isPresent() ? metric.unit() : "");
     }
+    m.analysis().stiffness().ifPresent(s -> out.printf(Locale.ROOT, "  %-28s %14s%n",
+        "stiffness chosen by", s.method().words()));
     for (String note : adj.notes()) {
       out.println("derived: " + note);
     }

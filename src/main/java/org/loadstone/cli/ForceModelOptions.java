@@ -27,7 +27,9 @@ final class ForceModelOptions {
   double airDensity_kg_per_m3;
 
   @Option(names = "--weight-density", paramLabel = "KG_M3",
-      description = "Density of the weights in kg/m³ (default: ${DEFAULT-VALUE}, steel).",
+      description = "Actual density of the weights in kg/m³ (default: ${DEFAULT-VALUE}, steel). Masses are "
+          + "conventional masses (OIML R 111), so this matters only when --air-density is not "
+          + "1.2.",
       defaultValue = "8000")
   double weightDensity_kg_per_m3;
 

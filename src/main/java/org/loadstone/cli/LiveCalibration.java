@@ -1,22 +1,22 @@
 package org.loadstone.cli;
 
 import java.io.PrintWriter;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import org.loadstone.calibration.CalibrationPlan;
 import org.loadstone.calibration.CalibrationPoint;
-import org.loadstone.calibration.CapturedReading;
+import org.loadstone.calibration.CalibrationSession;
 import org.loadstone.calibration.ForceFromMass;
 import org.loadstone.calibration.MassText;
 import org.loadstone.calibration.StabilityDetector;
 import org.loadstone.units.LoadstoneException;
 
 /**
- * Walks the operator through a {@link CalibrationPlan} on a live device: asks for each weight,
- * waits for a settled reading and records the point. The operator may type the mass actually
- * placed instead of pressing Enter; after a time-out they choose to wait again, skip the step
- * (load steps only) or quit.
+ * The command line's face of the calibration walk: asks for each weight, waits for a settled
+ * reading and shows it. The walk and its rules (masses that fit the step, no repeated load,
+ * which steps may be skipped) are {@link CalibrationSession}'s, as in the console. The operator
+ * may type the mass actually placed instead of pressing Enter; after a time-out they choose to
+ * wait again, skip the step (when the session allows it) or quit.
  */
 final class LiveCalibration {
   /**
@@ -48,13 +48,12 @@ final class LiveCalibration {
    * @throws LiveDevice.DeviceLostException when the device goes away
    */
   Outcome walk(CalibrationPlan plan) {
-    List<CalibrationPlan.Step> steps = plan.steps();
-    List<CalibrationPoint> points = new ArrayList<>();
-    int skipped = 0;
-    for (CalibrationPlan.Step step : steps) {
-      Double mass = askMass(step, steps.size(), points);
+    CalibrationSession session = new CalibrationSession(plan, model, stability);
+    while (!session.done()) {
+      CalibrationPlan.Step step = session.current();
+      Double mass = askMass(session, step);
       if (mass == null) {
-        return new Outcome(points, true, skipped);
+        return new Outcome(session.points(), true, session.skipped());
       }
       device.weights().load(mass);
       if (device.weights().automatic()) {
@@ -63,24 +62,22 @@ final class LiveCalibration {
       }
       while (true) {
         try {
-          CapturedReading r = device.settle(new StabilityDetector(stability));
-          CalibrationPoint p =
-              CalibrationPoint.ofMass(mass, model, step.direction(), step.series(), r);
-          points.add(p);
+          device.settle(session.detector(), session::offer);
+          CalibrationPoint p = session.capture(mass);
           out.printf(Locale.ROOT, "  captured %s (%.6g N): mean %.1f counts, sd %.1f, %d"
-              + " samples%n", mass == 0 ? "zero" : MassText.format(mass), p.force_N(), r.mean_counts(),
-              r.sd_counts(), r.samples());
+              + " samples%n", mass == 0 ? "zero" : MassText.format(mass), p.force_N(),
+              p.counts_mean(), p.counts_sd(), p.samples());
           break;
         } catch (LiveDevice.DeviceLostException e) {
           throw e;
         } catch (LoadstoneException e) {
-          out.println("  " + step.prompt() + ": " + e.getMessage());
-          char c = answers.afterTimeout(mass != 0);
+          out.println("  " + e.getMessage());
+          char c = answers.afterTimeout(session.canSkip());
           if (c == 'q') {
-            return new Outcome(points, true, skipped);
+            return new Outcome(session.points(), true, session.skipped());
           }
           if (c == 's') {
-            skipped++;
+            session.skip();
             out.println("  step skipped");
             break;
           }
@@ -88,54 +85,34 @@ final class LiveCalibration {
       }
       out.flush();
     }
-    return new Outcome(points, false, skipped);
+    return new Outcome(session.points(), false, session.skipped());
   }
 
   /** @return the mass placed for {@code step}, or null when the operator quits */
-  private Double askMass(CalibrationPlan.Step step, int total, List<CalibrationPoint> done) {
+  private Double askMass(CalibrationSession session, CalibrationPlan.Step step) {
     String what = step.mass_kg() == 0 ? "remove all weights (zero point)"
-        : "place " + MassText.format(step.mass_kg()) + " (sum of weights allowed, e.g. '1 kg + 500 g')";
+        : "place " + MassText.format(step.mass_kg())
+            + " (sum of weights allowed, e.g. '1 kg + 500 g')";
     String prompt = String.format(Locale.ROOT, "[%d/%d] series %d, %s: %s, then press Enter%s: ",
-        step.number(), total, step.series(), step.direction().label(), what,
+        step.number(), session.stepCount(), step.series(), step.direction().label(), what,
         step.mass_kg() == 0 ? " (q quits)" : " (or type the mass placed; q quits)");
     while (true) {
       String a = answers.ask(prompt);
       if (a == null) {
         throw new LoadstoneException("the answers ended at step " + step.number() + " of "
-            + total + " (" + step.prompt() + "): nothing was fitted or saved; run the"
-            + " calibration again and answer every step (q quits)");
+            + session.stepCount() + " (" + step.prompt() + "): nothing was fitted or saved; run"
+            + " the calibration again and answer every step (q quits)");
       }
       if (Answers.isQuit(a)) {
         return null;
       }
-      double mass = step.mass_kg();
-      if (!a.isEmpty()) {
-        try {
-          mass = MassText.parse_kg(a);
-          model.force_N(mass);
-        } catch (LoadstoneException e) {
-          out.println("  " + e.getMessage());
-          continue;
-        }
+      try {
+        double mass = a.isEmpty() ? step.mass_kg() : MassText.parse_kg(a);
+        session.checkMass(mass);
+        return mass;
+      } catch (LoadstoneException e) {
+        out.println("  " + e.getMessage());
       }
-      if (step.mass_kg() == 0 && mass != 0) {
-        out.println("  this is the zero point: remove all weights and press Enter");
-        continue;
-      }
-      if (step.mass_kg() != 0 && mass == 0) {
-        out.println("  a load step needs a mass above zero: place the weights, or q to quit");
-        continue;
-      }
-      double force = model.force_N(mass);
-      boolean repeat = done.stream().anyMatch(p -> p.series() == step.series()
-          && p.direction() == step.direction() && p.force_N() == force);
-      if (repeat) {
-        out.println("  " + MassText.format(mass) + " was already read in series " + step.series()
-            + ", " + step.direction().label() + ": place a different mass, or press Enter for"
-            + " the planned " + MassText.format(step.mass_kg()));
-        continue;
-      }
-      return mass;
     }
   }
 }

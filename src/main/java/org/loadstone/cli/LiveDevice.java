@@ -130,12 +130,21 @@ final class LiveDevice implements AutoCloseable {
    * @throws DeviceLostException when the device goes away
    */
   CapturedReading settle(StabilityDetector detector) {
+    return settle(detector, detector::offer);
+  }
+
+  /**
+   * As {@link #settle(StabilityDetector)}, with each sample going through {@code judge} (e.g. a
+   * calibration session's offer, which feeds {@code detector} and names its step in a time-out).
+   */
+  CapturedReading settle(StabilityDetector detector,
+      java.util.function.DoubleFunction<StabilityDetector.State> judge) {
     SampleRing.Cursor cursor = reader.ring().cursorAtEnd();
     StabilityDetector.State[] state = {StabilityDetector.State.FILLING};
     int[] last = new int[1];
     SampleRing.Consumer feed = (i, s, d, tu, c, hp, p) -> {
       last[0] = c;
-      state[0] = detector.offer(c);
+      state[0] = judge.apply(c);
     };
     long lastSample = System.nanoTime();
     long lastLine = 0;

@@ -1,15 +1,11 @@
 package org.loadstone.cli;
 
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.LinkedHashMap;
-import java.util.List;
-import java.util.Map;
 import java.util.concurrent.Callable;
-import org.loadstone.analysis.AnalysisSettings;
-import org.loadstone.archive.ArchiveIndex;
-import org.loadstone.archive.FinishCause;
+import org.loadstone.analysis.stats.GroupComparison;
+import org.loadstone.study.ArchiveRuns;
 import org.loadstone.study.GroupStudy;
+import org.loadstone.study.Selection;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.cli.RunResolver.ResolvedRun;
 import org.loadstone.report.Charts;
@@ -36,8 +32,7 @@ public final class ReportCommand implements Callable<Integer> {
   @Parameters(arity = "0..1", paramLabel = "RUN", description = "A run id (or id prefix) in the archive, a run's CSV, or any CSV with columns time_s, force_N, position_mm.")
   String run;
 
-  @Option(names = "--group", split = ",", paramLabel = "G", description = "Groups to compare (comma separated or repeated); one group is compared with all the others.")
-  List<String> groups;
+  @picocli.CommandLine.Mixin SelectionOptions select;
 
   @Option(names = "--out", paramLabel = "FILE.pdf", description = "Target PDF (must not exist).")
   Path out;
@@ -62,7 +57,7 @@ public final class ReportCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    if ((run == null) == (groups == null || groups.isEmpty())) {
+    if ((run == null) == (select.groups == null || select.groups.isEmpty())) {
       throw new LoadstoneException("give either one RUN or --group G: a run report or a group "
           + "report");
     }
@@ -81,30 +76,27 @@ public final class ReportCommand implements Callable<Integer> {
         PdfReport.writeRun(m, out);
       }
     } else {
-      ArchiveIndex idx = ArchiveIndex.scan(archive.folder());
-      List<ArchiveIndex.Entry> broken = idx.entries().stream()
-          .filter(e -> e.metadata().cause() == FinishCause.BREAK
-              || e.metadata().cause() == FinishCause.IMPORTED)
-          .toList();
-      Map<String, List<RunMetrics>> all = GroupStudy.load(broken, AnalysisSettings.DEFAULTS);
-      Map<String, List<RunMetrics>> chosen = new LinkedHashMap<>();
-      for (String g : groups) {
-        List<RunMetrics> list = all.entrySet().stream()
-            .filter(x -> x.getKey().equalsIgnoreCase(g.trim())).map(Map.Entry::getValue)
-            .findFirst().orElseThrow(() -> new LoadstoneException("no runs of group '" + g
-                + "' in " + idx.folder() + ": groups there are " + all.keySet()));
-        chosen.put(g.trim(), list);
+      Selection sel = ArchiveRuns.scan(archive.folder()).select(select.selection());
+      GroupStudy.Report study;
+      try {
+        study = GroupStudy.compareEach(sel, PdfReport.DEFAULT_METRICS,
+            GroupComparison.DEFAULT_TARGET_DIFFERENCE);
+      } catch (LoadstoneException e) {
+        throw new LoadstoneException(e.getMessage()
+            + SelectionOptions.includeHint(sel.leftOut()), e);
       }
-      if (chosen.size() == 1) {
-        all.forEach((k, v) -> chosen.putIfAbsent(k, v));
-      }
-      String title = "Comparison of " + String.join(", ", new ArrayList<>(chosen.keySet()));
+      String title = "Comparison of " + String.join(", ", sel.groups().keySet());
       if (png != null) {
-        PngExport.write(Charts.overlay(title, chosen), png, size[0], size[1]);
+        PngExport.write(Charts.overlay(title, sel.groups()), png, size[0], size[1]);
         spec.commandLine().getOut().println("chart written to " + png);
       }
       if (out != null) {
-        PdfReport.writeGroups(title, chosen, PdfReport.DEFAULT_METRICS, out);
+        PdfReport.writeGroups(title, study, out);
+      }
+      if (!sel.leftOut().isEmpty()) {
+        spec.commandLine().getOut().println(sel.leftOut().size() + " runs left out ("
+            + GroupStudy.tally(sel.leftOut()) + ")" + (out != null ? ", listed in the report" : "")
+            + SelectionOptions.includeHint(sel.leftOut()));
       }
     }
     if (out != null) {

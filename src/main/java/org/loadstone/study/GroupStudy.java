@@ -1,155 +1,143 @@
 package org.loadstone.study;
 
-import org.loadstone.archive.ArchiveIndex;
-import org.loadstone.archive.Run;
-import org.loadstone.archive.RunMetadata;
-import org.loadstone.archive.RunReader;
-
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.OptionalDouble;
 import java.util.TreeMap;
-import org.loadstone.analysis.AnalysisSettings;
 import org.loadstone.analysis.stats.ComparisonResult;
 import org.loadstone.analysis.stats.GroupComparison;
+import org.loadstone.study.LeftOut.Kind;
 import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Precondition;
 
 /**
- * Compares groups of archived runs on one metric: loads the runs, analyses each (raw data is not
- * touched), collects the metric per group and hands it to {@link GroupComparison}. Runs without
- * the metric (no position channel, no mass) are left out and named.
+ * Compares groups of archived runs: the one service behind {@code loadstone compare}, {@code
+ * loadstone report --group}, the console's archive review and the group report. Runs are chosen
+ * by {@link RunSelection} ({@link ArchiveRuns#select}); each counted run's figure is taken through
+ * the {@link Metric} catalogue and the groups are handed to {@link GroupComparison}.
  */
 public final class GroupStudy {
   private GroupStudy() {}
 
-  /** The metrics one can compare, by command-line name. */
-  public enum Metric {
-    PEAK("peak", "peak_N", "peak force", "N"),
-    STIFFNESS("stiffness", "stiffness_N_per_mm", "stiffness", "N/mm"),
-    ENERGY("energy", "energy_to_peak_J", "energy to peak", "J"),
-    ENERGY_TO_BREAK("energy-to-break", "energy_to_break_J", "energy to break", "J"),
-    SPECIFIC_PEAK("specific-peak", "specific_peak_N_per_g", "peak force per gram", "N/g"),
-    SPECIFIC_ENERGY("specific-energy", "specific_energy_to_peak_J_per_g", "energy to peak per gram",
-        "J/g"),
-    SPECIFIC_STIFFNESS("specific-stiffness", "specific_stiffness_N_per_mm_per_g",
-        "stiffness per gram", "N/mm/g"),
-    FLEXURAL_MODULUS("flexural-modulus", "flexural_modulus_MPa", "flexural modulus", "MPa"),
-    CORE_SHEAR("core-shear", "core_shear_stress_at_peak_MPa", "core shear stress at peak", "MPa");
-
-    private final String cliName;
-    private final String key;
-    private final String label;
-    private final String unit;
-
-    Metric(String cliName, String key, String label, String unit) {
-      this.cliName = cliName;
-      this.key = key;
-      this.label = label;
-      this.unit = unit;
-    }
-
-    public String cliName() {
-      return cliName;
-    }
-
-    /** @return the key in {@link RunMetrics#toJsonMap()} */
-    public String key() {
-      return key;
-    }
-
-    public String label() {
-      return label;
-    }
-
-    public String unit() {
-      return unit;
-    }
-
-    /** @throws LoadstoneException naming the text and the accepted names */
-    public static Metric parse(String text) {
-      String t = text == null ? "" : text.trim().toLowerCase(Locale.ROOT);
-      for (Metric m : values()) {
-        if (m.cliName.equals(t) || m.key.equals(t)) {
-          return m;
-        }
-      }
-      StringBuilder names = new StringBuilder();
-      for (Metric m : values()) {
-        names.append(names.length() == 0 ? "" : ", ").append(m.cliName);
-      }
-      throw new LoadstoneException("unknown metric '" + text + "': use one of " + names);
-    }
-  }
-
   /**
-   * The outcome.
+   * The outcome of comparing on several figures, for a group report.
    *
-   * @param metric what was compared
-   * @param runs the analysed runs by group (group name order)
-   * @param comparison the statistics
-   * @param leftOut runs without this metric, with the reason
+   * @param selection the runs counted and left out
+   * @param results one result per figure that could be compared, in the order asked
+   * @param notCompared figures that could not be compared, each with the reason
    */
-  public record Outcome(Metric metric, Map<String, List<RunMetrics>> runs,
-      ComparisonResult comparison, List<String> leftOut) {}
-
-  /**
-   * Loads and analyses the runs, grouped by their group name (runs with no group are grouped as
-   * {@code (none)}).
-   */
-  public static Map<String, List<RunMetrics>> load(List<ArchiveIndex.Entry> entries,
-      AnalysisSettings settings) {
-    Map<String, List<RunMetrics>> out = new TreeMap<>();
-    for (ArchiveIndex.Entry e : entries) {
-      RunMetrics m = analyse(e, settings);
-      out.computeIfAbsent(groupOf(m.metadata()), k -> new ArrayList<>()).add(m);
+  public record Report(Selection selection, List<StudyResult> results, List<String> notCompared) {
+    /** Copies the lists. */
+    public Report {
+      Precondition.notNull(selection, "selection");
+      results = List.copyOf(results);
+      notCompared = List.copyOf(notCompared);
     }
-    return out;
   }
 
   /**
-   * Reads one run and analyses it.
+   * Reads an archive folder, selects its runs and compares the groups: {@code
+   * compare(ArchiveRuns.scan(folder).select(sel), metric, targetDifference)}.
    *
-   * @throws LoadstoneException when it cannot be read or analysed
+   * @throws LoadstoneException as {@link ArchiveRuns#scan}, {@link ArchiveRuns#select} and
+   *     {@link #compare} do
    */
-  public static RunMetrics analyse(ArchiveIndex.Entry e, AnalysisSettings settings) {
-    Run run = RunReader.read(e.json());
-    return RunMetrics.of(run.metadata(), run.data(), settings);
-  }
-
-  /** @return the group a run is compared in: its group name, {@code (none)} when it has none */
-  public static String groupOf(RunMetadata m) {
-    return m.group().isBlank() ? "(none)" : m.group();
-  }
-
-  /**
-   * Compares the groups on a metric.
-   *
-   * @throws LoadstoneException when fewer than 2 groups have the metric
-   */
-  public static Outcome compare(Map<String, List<RunMetrics>> runs, Metric metric,
+  public static StudyResult study(Path folder, RunSelection sel, Metric metric,
       double targetDifference) {
-    Map<String, List<Double>> values = new LinkedHashMap<>();
-    List<String> leftOut = new ArrayList<>();
-    runs.forEach((g, list) -> {
-      for (RunMetrics m : list) {
-        OptionalDouble v = m.value(metric.key());
+    return compare(ArchiveRuns.scan(folder).select(sel), metric, targetDifference);
+  }
+
+  /**
+   * Compares the selected groups on one figure. Counted runs that lack it are left out with the
+   * reason from their analysis notes.
+   *
+   * @param sel the selected runs, not null
+   * @param metric a {@linkplain Metric#comparable() comparable} figure, not null
+   * @param targetDifference relative difference the sample-size advice aims at, e.g. 0.10
+   * @return the statistics with outliers by run and every left-out run
+   * @throws LoadstoneException when fewer than 2 groups have counted runs with the figure (the
+   *     message names the groups found and how many runs were left out, by kind)
+   */
+  public static StudyResult compare(Selection sel, Metric metric, double targetDifference) {
+    Precondition.notNull(sel, "selection");
+    Precondition.notNull(metric, "metric");
+    if (!metric.comparable()) {
+      throw new IllegalArgumentException(metric.word() + " is not a figure to compare groups on");
+    }
+    Map<String, List<StudyResult.Value>> values = new LinkedHashMap<>();
+    List<LeftOut> leftOut = new ArrayList<>(sel.leftOut());
+    sel.groups().forEach((g, runs) -> {
+      for (RunMetrics m : runs) {
+        OptionalDouble v = metric.of(m);
         if (v.isPresent()) {
-          values.computeIfAbsent(g, k -> new ArrayList<>()).add(v.getAsDouble());
+          values.computeIfAbsent(g, k -> new ArrayList<>()).add(new StudyResult.Value(
+              m.metadata().runId(), m.metadata().specimen(), v.getAsDouble()));
         } else {
-          leftOut.add(m.metadata().runId() + " (" + m.metadata().specimen() + "): no "
-              + metric.label() + (m.notes().isEmpty() ? "" : " — " + m.notes().get(0)));
+          leftOut.add(new LeftOut(m.metadata().runId(), m.metadata().specimen(),
+              m.metadata().group(), Kind.NO_VALUE, "no " + metric.label()
+                  + (m.notes().isEmpty() ? "" : " (" + String.join(" ", m.notes()) + ")")));
         }
       }
     });
     if (values.size() < 2) {
-      throw new LoadstoneException("comparing " + metric.label() + " needs runs from at least 2 "
-          + "groups that have it; found " + values.size() + " (" + String.join(", ",
-              values.keySet()) + "): record runs with --group, or pick another --metric");
+      throw new LoadstoneException("comparing " + metric.label() + " needs counted runs with it "
+          + "from at least 2 groups; found " + (values.isEmpty() ? "none"
+              : values.size() + " (" + String.join(", ", values.keySet()) + ")")
+          + (leftOut.isEmpty() ? "" : "; left out: " + tally(leftOut)));
     }
-    ComparisonResult r = GroupComparison.compare(metric.label(), values, targetDifference);
-    return new Outcome(metric, runs, r, leftOut);
+    Map<String, List<Double>> plain = new LinkedHashMap<>();
+    values.forEach((g, list) -> plain.put(g, list.stream().map(StudyResult.Value::value)
+        .toList()));
+    ComparisonResult r = GroupComparison.compare(metric.label(), plain, targetDifference);
+    List<StudyResult.Outlier> outliers = new ArrayList<>();
+    for (ComparisonResult.FlaggedValue f : r.outliers()) {
+      StudyResult.Value v = values.get(f.group()).get(f.outlier().index());
+      outliers.add(new StudyResult.Outlier(f.group(), v.runId(), v.specimen(), v.value(),
+          f.outlier().g(), f.outlier().critical()));
+    }
+    return new StudyResult(metric, values, r, outliers, leftOut);
+  }
+
+  /**
+   * Compares the selected groups on each figure in turn, for a group report.
+   *
+   * @param sel the selected runs, not null
+   * @param metrics comparable figures, not null
+   * @param targetDifference relative difference the sample-size advice aims at, e.g. 0.10
+   * @return the results of the figures that could be compared, and why the others could not
+   * @throws LoadstoneException when fewer than 2 groups have counted runs
+   */
+  public static Report compareEach(Selection sel, List<Metric> metrics,
+      double targetDifference) {
+    Precondition.notNull(sel, "selection");
+    Precondition.notNull(metrics, "metrics");
+    if (sel.groups().size() < 2) {
+      throw new LoadstoneException("a comparison needs counted runs from at least 2 groups; found "
+          + (sel.groups().isEmpty() ? "none"
+              : sel.groups().size() + " (" + String.join(", ", sel.groups().keySet()) + ")")
+          + (sel.leftOut().isEmpty() ? "" : "; left out: " + tally(sel.leftOut())));
+    }
+    List<StudyResult> results = new ArrayList<>();
+    List<String> notCompared = new ArrayList<>();
+    for (Metric m : metrics) {
+      try {
+        results.add(compare(sel, m, targetDifference));
+      } catch (LoadstoneException e) {
+        notCompared.add(e.getMessage());
+      }
+    }
+    return new Report(sel, results, notCompared);
+  }
+
+  /** @return the left-out runs counted by kind, e.g. "3 uncalibrated, 1 manual" */
+  public static String tally(List<LeftOut> leftOut) {
+    Map<Kind, Integer> n = new TreeMap<>();
+    leftOut.forEach(l -> n.merge(l.kind(), 1, Integer::sum));
+    List<String> parts = new ArrayList<>();
+    n.forEach((k, c) -> parts.add(c + " " + k.word()));
+    return String.join(", ", parts);
   }
 }

@@ -25,9 +25,9 @@ import org.loadstone.units.Precondition;
  * Everything analysis says about one stored run: the {@link RunAnalyzer} figures plus the values
  * that need the specimen's geometry and mass. Pure: no files are read.
  *
- * <p>It lives in {@code archive} rather than {@code analysis} because it reads the archive's
- * {@link RunMetadata} and {@link RunData}; the package map lets archive use analysis, not the
- * reverse.
+ * <p>It lives in {@code study} rather than {@code analysis} because it reads the archive's
+ * {@link RunMetadata} and {@link RunData}; the package map lets study use analysis and archive,
+ * not the reverse. Its figures are named, with units and digits, by the {@link Metric} catalogue.
  *
  * <p>Stresses and moduli are in MPa (N/mm²), computed at the peak force. Empty values are
  * explained in {@link #notes()}.
@@ -125,7 +125,7 @@ public record RunMetrics(
    */
   public static Curve curveOf(RunData data) {
     Precondition.notNull(data, "data");
-    return new Curve(data.time_s(), data.force_N(), data.position_mm());
+    return Curve.over(data.time_s(), data.force_N(), data.position_mm());
   }
 
   private static int firstPeak(double[] f) {
@@ -139,9 +139,13 @@ public record RunMetrics(
   }
 
   /**
-   * A JSON-friendly view with units in the keys. Always holds {@code peak_N, peak_time_s,
-   * stiffness_N_per_mm, energy_to_peak_J, energy_to_break_J, break_index} and the other figures;
-   * absent values are {@code null}. Key order is fixed.
+   * A JSON-friendly view with units in the keys: the run's identity ({@code run_id, specimen,
+   * group, test_type}), {@code sample_count, peak_index, break_detected}, then every figure of the
+   * {@link Metric} catalogue under its {@link Metric#key()} (always present, {@code null} when
+   * absent; a count as a whole number), then how the stiffness was taken ({@code
+   * stiffness_method, stiffness_se_N_per_mm}, the window in mm and samples, {@code
+   * stiffness_refused} with the reason when there is none), {@code notes} and the {@code
+   * analysis_settings}. Key order is fixed.
    */
   public Map<String, Object> toJsonMap() {
     RunResult r = analysis;
@@ -151,58 +155,23 @@ public record RunMetrics(
     m.put("group", metadata.group());
     m.put("test_type", metadata.testType().wireName());
     m.put("sample_count", r.sampleCount());
-    m.put("peak_N", r.peakForce_N());
-    m.put("peak_time_s", r.peakTime_s());
     m.put("peak_index", r.peakIndex());
-    m.put("break_index", r.breakPoint().map(b -> b.index()).orElse(null));
-    m.put("break_time_s", r.breakPoint().map(b -> b.time_s()).orElse(null));
-    m.put("break_force_N", r.breakPoint().map(b -> b.force_N()).orElse(null));
     m.put("break_detected", r.breakPoint().map(b -> b.detected()).orElse(null));
-    m.put("stiffness_N_per_mm", box(r.stiffness_N_per_mm()));
-    m.put("stiffness_r_squared", r.stiffness().map(s -> s.rSquared()).orElse(null));
+    for (Metric metric : Metric.values()) {
+      OptionalDouble v = metric.of(this);
+      m.put(metric.key(), v.isEmpty() ? null
+          : metric.digits() == 0 ? (Object) Math.round(v.getAsDouble()) : v.getAsDouble());
+    }
     m.put("stiffness_method", r.stiffness().map(s -> s.method().words()).orElse(null));
     m.put("stiffness_se_N_per_mm", r.stiffness().map(s -> s.slopeSe_N_per_mm()).orElse(null));
-    m.put("stiffness_ci95_low_N_per_mm", r.stiffness().map(s -> s.ci95Low_N_per_mm()).orElse(null));
-    m.put("stiffness_ci95_high_N_per_mm",
-        r.stiffness().map(s -> s.ci95High_N_per_mm()).orElse(null));
-    m.put("stiffness_window_from_N", r.stiffness().map(s -> s.fromForce_N()).orElse(null));
-    m.put("stiffness_window_to_N", r.stiffness().map(s -> s.toForce_N()).orElse(null));
     m.put("stiffness_window_from_mm", r.stiffness().map(s -> s.fromDisplacement_mm()).orElse(null));
     m.put("stiffness_window_to_mm", r.stiffness().map(s -> s.toDisplacement_mm()).orElse(null));
     m.put("stiffness_window_from_index", r.stiffness().map(s -> s.fromIndex()).orElse(null));
     m.put("stiffness_window_to_index", r.stiffness().map(s -> s.toIndex()).orElse(null));
     m.put("stiffness_refused", r.stiffnessRefusal().map(s -> s.reason()).orElse(null));
-    m.put("toe_offset_mm", box(r.toeOffset_mm()));
-    m.put("displacement_at_peak_mm", box(r.displacementAtPeak_mm()));
-    m.put("displacement_at_break_mm", box(r.displacementAtBreak_mm()));
-    m.put("energy_to_peak_J", box(r.energyToPeak_J()));
-    m.put("energy_to_break_J", box(r.energyToBreak_J()));
-    m.put("flexural_stress_at_peak_MPa", box(flexuralStressAtPeak_MPa));
-    m.put("flexural_modulus_MPa", box(flexuralModulus_MPa));
-    m.put("core_shear_stress_at_peak_MPa", box(coreShearStressAtPeak_MPa));
-    m.put("facing_stress_at_peak_MPa", box(facingStressAtPeak_MPa));
-    m.put("compression_stress_at_peak_MPa", box(compressionStressAtPeak_MPa));
-    m.put("specific_peak_N_per_g", box(specificPeak_N_per_g));
-    m.put("specific_energy_to_peak_J_per_g", box(specificEnergyToPeak_J_per_g));
-    m.put("specific_energy_to_break_J_per_g", box(specificEnergyToBreak_J_per_g));
-    m.put("specific_stiffness_N_per_mm_per_g", box(specificStiffness_N_per_mm_per_g));
     m.put("notes", notes);
     m.put("analysis_settings", settings.toMap());
     return m;
-  }
-
-  /**
-   * One number of {@link #toJsonMap()} by key, for group comparisons.
-   *
-   * @return the value, empty when absent or when the key names no number
-   */
-  public OptionalDouble value(String key) {
-    Object v = toJsonMap().get(key);
-    return v instanceof Number n ? OptionalDouble.of(n.doubleValue()) : OptionalDouble.empty();
-  }
-
-  private static Double box(OptionalDouble v) {
-    return v.isPresent() ? v.getAsDouble() : null;
   }
 
   /** Collects the geometry-dependent values and their notes. */

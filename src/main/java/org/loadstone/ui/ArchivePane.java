@@ -4,20 +4,19 @@ import java.nio.file.Path;
 import java.time.ZoneId;
 import java.time.format.DateTimeFormatter;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
+import java.util.EnumMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.OptionalDouble;
 import java.util.TreeMap;
 import javafx.application.Platform;
-import javafx.beans.property.ReadOnlyObjectWrapper;
 import javafx.beans.property.ReadOnlyStringWrapper;
 import javafx.collections.FXCollections;
 import javafx.geometry.Insets;
 import javafx.geometry.Pos;
 import javafx.scene.Parent;
 import javafx.scene.control.Button;
+import javafx.scene.control.CheckBox;
 import javafx.scene.control.ComboBox;
 import javafx.scene.control.Label;
 import javafx.scene.control.SelectionMode;
@@ -31,12 +30,15 @@ import javafx.scene.layout.Priority;
 import javafx.scene.layout.VBox;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.fx.ChartViewer;
-import org.loadstone.analysis.AnalysisSettings;
-import org.loadstone.analysis.stats.ComparisonResult;
-import org.loadstone.analysis.stats.GroupSummary;
-import org.loadstone.archive.ArchiveIndex;
+import org.loadstone.analysis.stats.GroupComparison;
+import org.loadstone.study.ArchiveRuns;
 import org.loadstone.study.GroupStudy;
+import org.loadstone.study.LeftOut;
+import org.loadstone.study.Metric;
 import org.loadstone.study.RunMetrics;
+import org.loadstone.study.RunSelection;
+import org.loadstone.study.Selection;
+import org.loadstone.study.StudyResult;
 import org.loadstone.report.Charts;
 import org.loadstone.report.PdfReport;
 import org.loadstone.units.LoadstoneException;
@@ -45,28 +47,30 @@ import org.loadstone.units.LoadstoneException;
  * Reviewing the archive after a day of testing: the runs of a folder, their curves overlaid (the
  * runs picked, or all shown), and the groups compared on a chosen figure — means with their
  * scatter, the test, the plain sentence and the sample-size advice, as {@code loadstone compare}
- * and the group report give them. Thin: figures come from {@link GroupStudy}, charts from {@link
- * Charts}.
+ * and the group report give them. Which runs count is the one rule of {@link RunSelection}: by
+ * default broken, calibrated runs; check boxes let the other kinds in, and the runs left out are
+ * listed with the reason. Thin: figures come from {@link GroupStudy}, charts from {@link Charts}.
  */
 final class ArchivePane {
   /** The comparison's sample-size advice aims at this difference, as the command line's default. */
-  private static final double TARGET_DIFFERENCE = 0.10;
+  private static final double TARGET_DIFFERENCE = GroupComparison.DEFAULT_TARGET_DIFFERENCE;
   private static final DateTimeFormatter WHEN =
       DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm", Locale.ROOT).withZone(ZoneId.systemDefault());
 
   private final BorderPane root = new BorderPane();
   private final TextField folder = new TextField();
   private final ComboBox<String> group = new ComboBox<>();
-  private final ComboBox<GroupStudy.Metric> metric = new ComboBox<>();
+  private final ComboBox<Metric> metric = new ComboBox<>();
+  private final Map<LeftOut.Kind, CheckBox> include = new EnumMap<>(LeftOut.Kind.class);
   private final TableView<RunMetrics> table = new TableView<>();
   private final BorderPane curves = new BorderPane();
   private final BorderPane strip = new BorderPane();
   private final VBox statistics = new VBox(6);
   private final Label status = LivePane.label("archive-status", "");
-  /** Runs read and analysed so far, by sidecar file. */
-  private final Map<Path, RunMetrics> analysed = new java.util.concurrent.ConcurrentHashMap<>();
-  /** Every run of the folder, analysed, by group (group order). */
-  private Map<String, List<RunMetrics>> runs = Map.of();
+  /** The folder's runs, analysed; null before the first load. */
+  private ArchiveRuns archive;
+  /** The runs that count under the boxes ticked, by group, and those left out. */
+  private Selection selection;
 
   ArchivePane(Path archive) {
     folder.setText(archive.toString());
@@ -89,17 +93,17 @@ final class ArchivePane {
     group.setId("archive-group");
     group.setOnAction(e -> showRuns());
     metric.setId("archive-metric");
-    metric.setItems(FXCollections.observableArrayList(GroupStudy.Metric.values()));
-    metric.setValue(GroupStudy.Metric.PEAK);
+    metric.setItems(FXCollections.observableArrayList(Metric.comparableOnes()));
+    metric.setValue(Metric.PEAK);
     metric.setConverter(new javafx.util.StringConverter<>() {
       @Override
-      public String toString(GroupStudy.Metric m) {
-        return m == null ? "" : m.label() + " (" + m.unit() + ")";
+      public String toString(Metric m) {
+        return m == null ? "" : m.heading();
       }
 
       @Override
-      public GroupStudy.Metric fromString(String s) {
-        return GroupStudy.Metric.parse(s);
+      public Metric fromString(String s) {
+        return Metric.parse(s);
       }
     });
     metric.setOnAction(e -> compare());
@@ -111,7 +115,18 @@ final class ArchivePane {
             "compare"), metric, report);
     bar.setAlignment(Pos.CENTER_LEFT);
     bar.getStyleClass().add("archive-bar");
-    root.setTop(bar);
+    HBox counts = new HBox(10, LivePane.label("include-caption",
+        "counted: runs ended by a break, force from a calibration; also count"));
+    for (LeftOut.Kind k : LeftOut.Kind.admissibleOnes()) {
+      CheckBox box = new CheckBox(k.word());
+      box.setId("archive-include-" + k.word());
+      box.setOnAction(e -> select());
+      include.put(k, box);
+      counts.getChildren().add(box);
+    }
+    counts.setAlignment(Pos.CENTER_LEFT);
+    counts.getStyleClass().add("archive-bar");
+    root.setTop(new VBox(bar, counts));
 
     table.setId("archive-runs");
     table.getSelectionModel().setSelectionMode(SelectionMode.MULTIPLE);
@@ -124,8 +139,7 @@ final class ArchivePane {
         column("started", m -> WHEN.format(m.metadata().startedAt()));
     started.setPrefWidth(150);
     table.getColumns().add(started);
-    table.getColumns().add(column("peak N", m -> String.format(Locale.ROOT, "%.1f",
-        m.analysis().peakForce_N())));
+    table.getColumns().add(column("peak N", m -> Metric.PEAK.format(Metric.PEAK.of(m))));
     table.setPlaceholder(new Label("no runs here"));
     table.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
 
@@ -155,46 +169,27 @@ final class ArchivePane {
     return c;
   }
 
-  /** Scans the folder and analyses every run, off the JavaFX thread. */
+  /** Scans the folder and analyses every run not analysed before, off the JavaFX thread. */
   void reload() {
     Path dir = Path.of(folder.getText().trim());
+    ArchiveRuns before = archive;
     status.setText("reading " + dir + " …");
     Thread t = new Thread(() -> {
       try {
         if (!java.nio.file.Files.isDirectory(dir)) {
           Platform.runLater(() -> {
-            show(Map.of());
+            archive = null;
+            select();
             status.setText("no runs yet: " + dir + " does not exist (runs stored from the Live "
                 + "tab go there); type another folder above and press Load");
           });
           return;
         }
-        ArchiveIndex index = ArchiveIndex.scan(dir);
-        List<String> problems = new ArrayList<>(index.problems());
-        // stored runs are never rewritten: read and analyse only those not seen before
-        for (ArchiveIndex.Entry e : index.entries()) {
-          if (!analysed.containsKey(e.json())) {
-            try {
-              analysed.put(e.json(), GroupStudy.analyse(e, AnalysisSettings.DEFAULTS));
-            } catch (LoadstoneException ex) {
-              problems.add(e.json().getFileName() + ": " + ex.getMessage());
-            }
-          }
-        }
-        Map<String, List<RunMetrics>> loaded = new TreeMap<>();
-        for (ArchiveIndex.Entry e : index.entries()) {
-          RunMetrics m = analysed.get(e.json());
-          if (m != null) {
-            loaded.computeIfAbsent(GroupStudy.groupOf(m.metadata()), k -> new ArrayList<>())
-                .add(m);
-          }
-        }
-        int n = loaded.values().stream().mapToInt(List::size).sum();
-        String text = n + " runs in " + dir + (problems.isEmpty() ? ""
-            : " · left out: " + String.join("; ", problems));
+        ArchiveRuns runs = ArchiveRuns.rescan(dir, before);
+        runs.analyseAll(); // so that ticking a box needs no file access on this thread
         Platform.runLater(() -> {
-          show(loaded);
-          status.setText(text);
+          archive = runs;
+          select();
         });
       } catch (LoadstoneException e) {
         Platform.runLater(() -> status.setText(e.getMessage()));
@@ -204,15 +199,42 @@ final class ArchivePane {
     t.start();
   }
 
+  /** @return the selection settings the boxes give */
+  RunSelection settings() {
+    List<LeftOut.Kind> kinds = new ArrayList<>();
+    include.forEach((k, box) -> {
+      if (box.isSelected()) {
+        kinds.add(k);
+      }
+    });
+    return RunSelection.DEFAULT.admitting(kinds);
+  }
+
+  /** Applies the boxes to the loaded runs and shows what counts. */
+  private void select() {
+    if (archive == null) {
+      show(null);
+      return;
+    }
+    Selection sel = archive.select(settings());
+    show(sel);
+    status.setText(sel.counted() + " runs counted in " + sel.folder()
+        + (sel.leftOut().isEmpty() ? "" : " · " + sel.leftOut().size() + " left out ("
+            + GroupStudy.tally(sel.leftOut()) + "), listed beside the comparison"));
+  }
+
   private static final String ALL = "all groups";
 
-  private void show(Map<String, List<RunMetrics>> loaded) {
-    runs = loaded;
+  private void show(Selection sel) {
+    selection = sel;
+    String was = group.getValue();
     List<String> groups = new ArrayList<>();
     groups.add(ALL);
-    groups.addAll(loaded.keySet());
+    if (sel != null) {
+      groups.addAll(sel.groups().keySet());
+    }
     group.setItems(FXCollections.observableArrayList(groups));
-    group.setValue(ALL);
+    group.setValue(groups.contains(was) ? was : ALL);
     showRuns();
   }
 
@@ -222,7 +244,7 @@ final class ArchivePane {
    */
   private void writeReport() {
     List<RunMetrics> picked = List.copyOf(table.getSelectionModel().getSelectedItems());
-    Map<String, List<RunMetrics>> groups = shown();
+    Selection groups = shown();
     Path dir = Path.of(folder.getText().trim());
     Path file = dir.resolve("report-" + java.time.LocalDateTime.now().format(
         DateTimeFormatter.ofPattern("yyyyMMdd-HHmmss", Locale.ROOT)) + ".pdf");
@@ -232,9 +254,11 @@ final class ArchivePane {
       try {
         if (picked.size() == 1) {
           PdfReport.writeRun(picked.get(0), file);
+        } else if (groups == null) {
+          throw new LoadstoneException("no runs loaded: press Load first");
         } else {
-          PdfReport.writeGroups("Comparison of " + String.join(", ", groups.keySet()), groups,
-              PdfReport.DEFAULT_METRICS, file);
+          PdfReport.writeGroups("Comparison of " + String.join(", ", groups.groups().keySet()),
+              GroupStudy.compareEach(groups, PdfReport.DEFAULT_METRICS, TARGET_DIFFERENCE), file);
         }
         done = "report written to " + file;
       } catch (LoadstoneException e) {
@@ -247,18 +271,17 @@ final class ArchivePane {
     t.start();
   }
 
-  /** The runs of the chosen group (or all), by group. */
-  private Map<String, List<RunMetrics>> shown() {
+  /** The selection limited to the chosen group (or all); null before a folder is loaded. */
+  private Selection shown() {
     String g = group.getValue();
-    if (g == null || g.equals(ALL)) {
-      return runs;
+    if (selection == null || g == null || g.equals(ALL)) {
+      return selection;
     }
-    return runs.containsKey(g) ? Map.of(g, runs.get(g)) : Map.of();
+    return selection.onlyGroup(g);
   }
 
   private void showRuns() {
-    List<RunMetrics> rows = new ArrayList<>();
-    shown().values().forEach(rows::addAll);
+    List<RunMetrics> rows = shown() == null ? List.of() : shown().runs();
     table.setItems(FXCollections.observableArrayList(rows));
     showCurves();
     compare();
@@ -269,10 +292,12 @@ final class ArchivePane {
     List<RunMetrics> picked = table.getSelectionModel().getSelectedItems();
     Map<String, List<RunMetrics>> byGroup = new TreeMap<>();
     if (picked.isEmpty()) {
-      byGroup.putAll(shown());
+      if (shown() != null) {
+        byGroup.putAll(shown().groups());
+      }
     } else {
       for (RunMetrics m : picked) {
-        byGroup.computeIfAbsent(m.metadata().group().isBlank() ? "(none)" : m.metadata().group(),
+        byGroup.computeIfAbsent(ArchiveRuns.groupName(m.metadata().group()),
             k -> new ArrayList<>()).add(m);
       }
     }
@@ -291,25 +316,16 @@ final class ArchivePane {
   private void compare() {
     statistics.getChildren().clear();
     strip.setCenter(null);
-    GroupStudy.Metric m = metric.getValue();
-    if (m == null || runs.isEmpty()) {
+    Metric m = metric.getValue();
+    Selection sel = shown();
+    if (m == null || sel == null) {
       return;
     }
     try {
-      GroupStudy.Outcome o = GroupStudy.compare(shown(), m, TARGET_DIFFERENCE);
-      ComparisonResult r = o.comparison();
-      Map<String, List<Double>> values = new LinkedHashMap<>();
-      o.runs().forEach((g, list) -> {
-        for (RunMetrics rm : list) {
-          OptionalDouble v = rm.value(m.key());
-          if (v.isPresent()) {
-            values.computeIfAbsent(g, k -> new ArrayList<>()).add(v.getAsDouble());
-          }
-        }
-      });
+      StudyResult r = GroupStudy.compare(sel, m, TARGET_DIFFERENCE);
       strip.setCenter(viewer("archive-strip",
-          Charts.strip(r, values, m.label() + " (" + m.unit() + ")")));
-      statistics.getChildren().add(groupTable(r, m.unit()));
+          Charts.strip(r.comparison(), r.plainValues(), m.heading())));
+      statistics.getChildren().add(StudyTable.of(r));
       statistics.getChildren().add(LivePane.label("archive-test", r.test().words()
           + (r.pValue().isPresent()
           ? String.format(Locale.ROOT, ", p = %.3g", r.pValue().getAsDouble()) : "")));
@@ -321,17 +337,21 @@ final class ArchivePane {
         advice.setWrapText(true);
         statistics.getChildren().add(advice);
       });
-      for (ComparisonResult.FlaggedValue f : r.outliers()) {
-        note("possible outlier in " + f.group() + ": " + num(f.outlier().value())
-            + " (Grubbs, α = 0.05)");
+      for (StudyResult.Outlier o : r.outliers()) {
+        note("possible outlier in " + o.group() + ": run " + o.runId() + " (" + o.specimen()
+            + "), " + m.format(o.value()) + " " + m.unit() + " (Grubbs, α = 0.05)");
       }
-      for (String left : o.leftOut()) {
-        note("left out: " + left);
+      for (LeftOut left : r.leftOut()) {
+        note("left out: " + left.line());
       }
     } catch (LoadstoneException e) {
-      Label why = LivePane.label("archive-sentence", e.getMessage());
+      Label why = LivePane.label("archive-sentence", e.getMessage()
+          + (sel.leftOut().isEmpty() ? "" : " — tick a kind above to count it"));
       why.setWrapText(true);
       statistics.getChildren().add(why);
+      for (LeftOut left : sel.leftOut()) {
+        note("left out: " + left.line());
+      }
     }
   }
 
@@ -340,39 +360,6 @@ final class ArchivePane {
     l.setWrapText(true);
     l.getStyleClass().add("archive-note");
     statistics.getChildren().add(l);
-  }
-
-  private static TableView<GroupSummary> groupTable(ComparisonResult r, String unit) {
-    TableView<GroupSummary> t = new TableView<>(FXCollections.observableArrayList(r.groups()));
-    t.setId("archive-groups");
-    t.getColumns().add(summary("group", GroupSummary::name));
-    t.getColumns().add(summary("n", g -> Integer.toString(g.n())));
-    t.getColumns().add(summary("mean " + unit, g -> num(g.mean())));
-    t.getColumns().add(summary("SD", g -> opt(g.sd())));
-    t.getColumns().add(summary("CV %", g -> g.cvPct().isPresent()
-        ? String.format(Locale.ROOT, "%.1f", g.cvPct().getAsDouble()) : "—"));
-    t.getColumns().add(summary("95 % CI", g -> g.ci95Low().isPresent()
-        ? num(g.ci95Low().getAsDouble()) + " … " + num(g.ci95High().getAsDouble())
-        : "needs n ≥ 2"));
-    t.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
-    t.setPrefHeight(36 + 26 * r.groups().size());
-    return t;
-  }
-
-  private static TableColumn<GroupSummary, String> summary(String name,
-      java.util.function.Function<GroupSummary, String> value) {
-    TableColumn<GroupSummary, String> c = new TableColumn<>(name);
-    c.setCellValueFactory(f -> new ReadOnlyObjectWrapper<>(value.apply(f.getValue())));
-    return c;
-  }
-
-  static String num(double v) {
-    return String.format(Locale.ROOT, Math.abs(v) >= 1000 ? "%.0f" : Math.abs(v) >= 10 ? "%.1f"
-        : "%.3f", v);
-  }
-
-  private static String opt(OptionalDouble v) {
-    return v.isPresent() ? num(v.getAsDouble()) : "—";
   }
 
   private static ChartViewer viewer(String id, JFreeChart chart) {
@@ -389,7 +376,12 @@ final class ArchivePane {
     return group;
   }
 
-  ComboBox<GroupStudy.Metric> metric() {
+  ComboBox<Metric> metric() {
     return metric;
+  }
+
+  /** @return the box that lets runs of this kind count */
+  CheckBox include(LeftOut.Kind kind) {
+    return include.get(kind);
   }
 }

@@ -65,8 +65,8 @@ final class CalibratePane {
   private final Button capture = new Button("Capture when steady  [C]");
   private final Button save = new Button("Save");
   private final Button use = new Button("Use for the next runs");
+  private final Button skip = new Button("Skip step");
   private CalibrationSession session;
-  private int planSteps;
   private SampleRing.Cursor cursor;
   private WeightHandler weights = WeightHandler.operator();
   private boolean captureWanted;
@@ -120,8 +120,11 @@ final class CalibratePane {
     Button retake = new Button("Retake last");
     retake.setId("cal-retake");
     retake.setOnAction(e -> retake());
+    skip.setId("cal-skip");
+    skip.setOnAction(e -> skip());
+    skip.setDisable(true);
     capture.setDisable(true);
-    HBox actions = new HBox(10, capture, retake);
+    HBox actions = new HBox(10, capture, skip, retake);
     actions.setAlignment(Pos.CENTER_LEFT);
     HBox.setHgrow(capture, Priority.ALWAYS);
     capture.setMaxWidth(Double.MAX_VALUE);
@@ -182,7 +185,6 @@ final class CalibratePane {
       }
       CalibrationPlan plan = new CalibrationPlan(MassText.parseList_kg(loads.getText(), "loads"),
           descending.isSelected(), series.getValue());
-      planSteps = plan.steps().size();
       double rate = r.identity().map(id -> id.rateHz()).filter(x -> x > 0).orElse(80.0);
       Double g = SpecimenFields.number(gravity, "local g", "m/s²");
       settings = new CalibrationSettings(
@@ -211,12 +213,14 @@ final class CalibratePane {
       finish();
       return;
     }
-    step.setText(String.format(Locale.ROOT, "[%d/%d] series %d, %s: %s", s.number(), planSteps,
+    step.setText(String.format(Locale.ROOT, "[%d/%d] series %d, %s: %s", s.number(),
+        session.stepCount(),
         s.series(), s.direction().label(), s.mass_kg() == 0 ? "remove all weights"
             : "place " + MassText.format(s.mass_kg())));
     placed.clear();
     captureWanted = false;
     capture.setDisable(false);
+    skip.setDisable(!session.canSkip());
     try {
       weights.load(s.mass_kg());
     } catch (LoadstoneException e) {
@@ -271,6 +275,20 @@ final class CalibratePane {
     }
   }
 
+  /** Skips the current load step (the session refuses a zero step). */
+  private void skip() {
+    if (session == null || session.done()) {
+      return;
+    }
+    try {
+      session.skip();
+      message.setText("step skipped (" + session.skipped() + " so far)");
+      prepareStep();
+    } catch (LoadstoneException e) {
+      message.setText(e.getMessage());
+    }
+  }
+
   private void retake() {
     if (session != null && !session.points().isEmpty()) {
       session.retakeLast();
@@ -287,9 +305,11 @@ final class CalibratePane {
   private void finish() {
     timer.stop();
     capture.setDisable(true);
+    skip.setDisable(true);
     counts.setText("");
     steadiness.setText("");
-    step.setText("all readings taken: " + session.points().size() + " points");
+    step.setText("all readings taken: " + session.points().size() + " points"
+        + (session.skipped() > 0 ? ", " + session.skipped() + " step(s) skipped" : ""));
     try {
       report = CalibrationService.fitFromPoints(session.points(), settings);
       result.setText("Calibration of cell " + cell.getText().trim() + "\n"
@@ -309,7 +329,8 @@ final class CalibratePane {
     try {
       Files.createDirectories(dir);
       String id = CalibrationService.unusedId(dir, cell.getText().trim() + "-" + today);
-      String desc = "captured live in the console: " + session.points().size() + " points";
+      String desc = "captured live in the console: " + session.points().size() + " points"
+          + (session.skipped() > 0 ? ", " + session.skipped() + " step(s) skipped" : "");
       Path points = CalibrationService.savePoints(dir, id, session.points(), desc);
       CalibrationDocument doc = CalibrationService.save(dir, report, id, today,
           System.getProperty("user.name", "unknown"), cell.getText().trim(),

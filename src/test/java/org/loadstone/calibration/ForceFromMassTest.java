@@ -39,8 +39,34 @@ class ForceFromMassTest {
     assertThat(model.force_N(m)).isCloseTo(24.51294750625, within(1e-11));
     ForceFromMass.Corrections c = model.corrections(m);
     assertThat(c.buoyancyCorrection_N()).isCloseTo(-0.00367749375, within(1e-13));
-    assertThat(c.buoyancyRelative()).isCloseTo(-1.5e-4, within(1e-18));
+    assertThat(c.buoyancyRelative()).isCloseTo(-1.5e-4, within(1e-15));
     assertThat(c.gravityCorrection_N()).isZero();
+  }
+
+  @Test
+  void massesAreConventionalMassesWhateverTheWeightsAreMadeOf() {
+    // OIML R 111-1 convention (from memory): a weight of conventional mass m_c balances, in air
+    // of 1.2 kg/m³, a reference of 8000 kg/m³ and mass m_c, so its true mass m satisfies
+    // m·(1 − 1.2/ρ) = m_c·(1 − 1.2/8000), and its force in air of density ρ_air is
+    // m·g·(1 − ρ_air/ρ).
+    double g = 9.80665;
+    // In conventional air an aluminium (2700 kg/m³) 10 kg weight gives what a steel one gives:
+    // 10 × 9.80665 × (1 − 1.5e-4) N; the old true-mass reading was 294 ppm (1.2/2700 −
+    // 1.2/8000 = 2.944e-4) lower.
+    ForceFromMass alu = new ForceFromMass(g, "standard", 1.2, 2700);
+    assertThat(alu.force_N(10)).isCloseTo(10 * g * (1 - 1.2 / 8000), within(1e-12));
+    assertThat(alu.force_N(10) / (10 * g * (1 - 1.2 / 2700)) - 1)
+        .isCloseTo((1 - 1.2 / 8000) / (1 - 1.2 / 2700) - 1, within(1e-12))
+        .isCloseTo(2.94e-4, within(2e-6));
+    // steel weights in thinner air: m_c·g·(1 − ρ_air/8000)
+    assertThat(new ForceFromMass(g, "standard", 1.0, 8000).force_N(10))
+        .isCloseTo(10 * g * (1 - 1.0 / 8000), within(1e-12));
+    // both differ: from the definition, by hand
+    double trueMass = 10 * (1 - 1.2 / 8000) / (1 - 1.2 / 2700);
+    ForceFromMass thinAlu = new ForceFromMass(g, "standard", 1.1, 2700);
+    assertThat(thinAlu.force_N(10)).isCloseTo(trueMass * g * (1 - 1.1 / 2700), within(1e-12));
+    assertThat(thinAlu.corrections(10).buoyancyRelative())
+        .isCloseTo(thinAlu.force_N(10) / (10 * g) - 1, within(1e-15));
   }
 
   @Test

@@ -50,18 +50,21 @@ class ArchiveCommandsTest {
   void groupReportFromTheDemoArchive() throws Exception {
     Path pdf = tmp.resolve("groups.pdf");
     RecordCommandTest.Outcome r = RecordCommandTest.run("report", "--archive",
-        CompareCommandTest.SAMPLES.toString(), "--group", "foam,balsa", "--out", pdf.toString());
+        CompareCommandTest.SAMPLES.toString(), "--group", "foam,balsa", "--include", "uncalibrated",
+        "--out", pdf.toString());
     assertThat(r.exit()).as(r.err()).isZero();
     try (PDDocument d = Loader.loadPDF(pdf.toFile())) {
       String text = new PDFTextStripper().getText(d);
       assertThat(text).contains("foam").contains("balsa").contains("eye protection");
     }
     RecordCommandTest.Outcome again = RecordCommandTest.run("report", "--archive",
-        CompareCommandTest.SAMPLES.toString(), "--group", "foam,balsa", "--out", pdf.toString());
+        CompareCommandTest.SAMPLES.toString(), "--group", "foam,balsa", "--include", "uncalibrated",
+        "--out", pdf.toString());
     assertThat(again.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     Path png = tmp.resolve("overlay.png");
     RecordCommandTest.Outcome p = RecordCommandTest.run("report", "--archive",
-        CompareCommandTest.SAMPLES.toString(), "--group", "board", "--png", png.toString(),
+        CompareCommandTest.SAMPLES.toString(), "--group", "board", "--include", "uncalibrated",
+        "--png", png.toString(),
         "--png-size", "900x600");
     assertThat(p.exit()).as(p.err()).isZero();
     java.awt.image.BufferedImage img = javax.imageio.ImageIO.read(png.toFile());

@@ -40,7 +40,7 @@ class CalibrateOfflineCommandTest {
   void exampleFitPrintsTheTableAndEndsWithTheServiceSummaryAsJson() throws Exception {
     CliRun r = CliRun.run("", args("--json"));
     assertThat(r.exit()).as(r.toString()).isZero();
-    assertThat(r.out()).contains("Residuals of linear", "ASTM E74 style", "ISO 7500-1 style",
+    assertThat(r.out()).contains("Residuals of quadratic", "ASTM E74 style", "ISO 7500-1 style",
         "Corrections at 50.0000 kg: gravity", "buoyancy",
         "not a substitute for an accredited calibration");
     JsonNode j = r.lastJson();
@@ -141,7 +141,7 @@ class CalibrateOfflineCommandTest {
         "cubic", "--save", tmp.toString());
     assertThat(r.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     // four coefficients and one degree of freedom left for the residual SD
-    assertThat(r.err()).contains("cubic", "needs at least 5 distinct loads, there are 3");
+    assertThat(r.err()).contains("cubic", "needs at least 5 distinct ascending loads, there are 3");
     assertThat(tmp.resolve("c1-" + java.time.LocalDate.now() + ".json")).doesNotExist();
   }
 

@@ -12,7 +12,10 @@ import org.junit.jupiter.api.Test;
 import org.loadstone.archive.Run;
 import org.loadstone.archive.RunReader;
 
-/** {@code runs} and {@code compare} on the shipped demo archive. */
+/**
+ * {@code runs} and {@code compare} on the shipped demo archive. Its runs were recorded on the
+ * simulated cell's nominal scale, so {@code --include uncalibrated} lets them count.
+ */
 class CompareCommandTest {
   static final Path SAMPLES =
       Path.of(System.getProperty("loadstone.projectDir", "."), "sample-runs");
@@ -37,7 +40,7 @@ class CompareCommandTest {
   @Test
   void threeGroupsOfPeakForceAgreeWithCommonsMathAnova() throws Exception {
     RecordCommandTest.Outcome o = RecordCommandTest.run("compare", "--archive",
-        SAMPLES.toString(), "--metric", "peak", "--json");
+        SAMPLES.toString(), "--metric", "peak", "--include", "uncalibrated", "--json");
     assertThat(o.exit()).as(o.err()).isZero();
     JsonNode j = o.json();
     assertThat(j.get("test").asText()).isEqualTo("one_way_anova");
@@ -64,7 +67,8 @@ class CompareCommandTest {
   @Test
   void twoGroupsUseWelchAsCommonsMathDoes() throws Exception {
     RecordCommandTest.Outcome o = RecordCommandTest.run("compare", "--archive",
-        SAMPLES.toString(), "--metric", "peak", "--groups", "foam,board", "--json");
+        SAMPLES.toString(), "--metric", "peak", "--groups", "foam,board", "--include",
+        "uncalibrated", "--json");
     JsonNode j = o.json();
     assertThat(j.get("test").asText()).isEqualTo("welch_t");
     // reference: Commons Math TTest.tTest (unequal variances, Welch–Satterthwaite)
@@ -73,11 +77,17 @@ class CompareCommandTest {
   }
 
   @Test
-  void oneGroupIsRefusedWithAClearMessage() {
+  void oneGroupIsComparedWithTheOthersAndAnUnknownOneIsRefused() throws Exception {
     RecordCommandTest.Outcome o = RecordCommandTest.run("compare", "--archive",
-        SAMPLES.toString(), "--groups", "foam");
-    assertThat(o.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
-    assertThat(o.err()).contains("at least 2 groups");
+        SAMPLES.toString(), "--groups", "board", "--include", "uncalibrated", "--json");
+    assertThat(o.exit()).as(o.err()).isZero();
+    assertThat(o.json().get("groups").fieldNames()).toIterable()
+        .containsExactly("board", "balsa", "foam");
+    RecordCommandTest.Outcome oak = RecordCommandTest.run("compare", "--archive",
+        SAMPLES.toString(), "--groups", "foam,oak");
+    assertThat(oak.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
+    assertThat(oak.err()).contains("no runs of group 'oak'")
+        .contains("the groups there are balsa, board, foam");
     RecordCommandTest.Outcome m = RecordCommandTest.run("compare", "--archive",
         SAMPLES.toString(), "--metric", "strength");
     assertThat(m.err()).contains("unknown metric").contains("specific-peak");

@@ -15,8 +15,10 @@ import org.apache.pdfbox.pdmodel.PDDocument;
 import org.apache.pdfbox.text.PDFTextStripper;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.loadstone.study.Metric;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.archive.TestRuns;
+import org.loadstone.files.FakeDisk;
 import org.loadstone.units.LoadstoneException;
 
 class PdfReportTest {
@@ -61,12 +63,26 @@ class PdfReportTest {
   }
 
   @Test
+  void aRunReportIsWrittenToAStickWithoutHardLinksAndNeverOverAnother() throws IOException {
+    RunMetrics m = RunMetrics.of(TestRuns.meta("FO-18", "foam", TestRuns.panel(), 52.0),
+        TestRuns.bend(61, 455));
+    FakeDisk stick = FakeDisk.create().withoutLinks(); // FAT/exFAT refuse hard links (EPERM)
+    PdfReport.writeRun(m, stick.path(dir.resolve("stick.pdf")));
+    assertThat(stick.linksRefused()).isEqualTo(1);
+    assertThat(text(dir.resolve("stick.pdf"))).contains("Run report: FO-18");
+    byte[] before = Files.readAllBytes(dir.resolve("stick.pdf"));
+    assertThatThrownBy(() -> PdfReport.writeRun(m, stick.path(dir.resolve("stick.pdf"))))
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("already exists");
+    assertThat(Files.readAllBytes(dir.resolve("stick.pdf"))).isEqualTo(before);
+  }
+
+  @Test
   void groupReportHoldsStatisticsAndTheIndependentPValue() throws IOException {
     Map<String, List<RunMetrics>> g = ReportFixtures.groups();
     Path pdf = dir.resolve("groups.pdf");
     // title with characters outside WinAnsi: must not throw
-    PdfReport.writeGroups("Shelf panels: core shear ≥ 0.2 MPa, σ in N/mm² — 试验", g,
-        PdfReport.DEFAULT_METRICS, pdf);
+    PdfReport.writeGroups("Shelf panels: core shear ≥ 0.2 MPa, σ in N/mm² — 试验",
+        ReportFixtures.study(g, PdfReport.DEFAULT_METRICS), pdf);
     keep(pdf);
     String t = text(pdf);
     // reference p-value of the one-way ANOVA on the peak forces from Commons Math 3.6.1
@@ -91,13 +107,13 @@ class PdfReportTest {
     g.put("foam A", runs("FA", a));
     g.put("foam B", runs("FB", b));
     Path pdf = dir.resolve("two.pdf");
-    PdfReport.writeGroups("Foam batches", g, List.of(PdfReport.DEFAULT_METRICS.get(0)), pdf);
+    PdfReport.writeGroups("Foam batches", ReportFixtures.study(g, List.of(Metric.PEAK)), pdf);
     // reference: Welch's two-sided t-test of Commons Math 3.6.1 (TTest.tTest, unequal variances)
     double p = new TTest().tTest(a, b);
     assertThat(p).isBetween(0.01, 0.9); // a p-value the report must print as digits
     String t = text(pdf);
     assertThat(t).contains("Welch t-test").contains(PdfReport.formatP(p))
-        .contains("Possible outlier in group 'foam B': specimen 5 of the group, 520.0 N");
+        .contains("Possible outlier in group 'foam B': run 20261202-101500-FB-5 (FB-5), 520.0 N");
   }
 
   private static List<RunMetrics> runs(String prefix, double[] peaks) {
@@ -121,7 +137,7 @@ class PdfReportTest {
   @Test
   void groupReportRefusesOneGroup() {
     Map<String, List<RunMetrics>> one = Map.of("foam", ReportFixtures.groups().get("foam"));
-    assertThatThrownBy(() -> PdfReport.writeGroups("x", one, PdfReport.DEFAULT_METRICS,
-        dir.resolve("x.pdf"))).hasMessageContaining("at least 2 groups");
+    assertThatThrownBy(() -> PdfReport.writeGroups("x", ReportFixtures.study(one,
+        PdfReport.DEFAULT_METRICS), dir.resolve("x.pdf"))).hasMessageContaining("at least 2 groups");
   }
 }

@@ -4,7 +4,12 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.nio.file.Path;
+import org.loadstone.study.GroupStudy;
+import org.loadstone.study.Metric;
 import org.loadstone.study.RunMetrics;
+import org.loadstone.study.RunSelection;
+import org.loadstone.study.Selection;
 import org.loadstone.archive.TestRuns;
 
 /** Three groups of synthetic shelf-panel runs (foam, balsa, corrugated-board cores). */
@@ -14,6 +19,13 @@ final class ReportFixtures {
   static final double[][] PEAKS = {{455, 470, 462, 448}, {610, 640, 625}, {380, 395, 372, 388}};
   static final double[][] STIFFNESS = {{60, 63, 58, 61}, {85, 90, 88}, {41, 44, 40, 43}};
   static final String[] NAMES = {"foam", "balsa", "board"};
+
+  /** The groups compared on these figures, as the group report is given them. */
+  static GroupStudy.Report study(Map<String, List<RunMetrics>> groups, List<Metric> metrics) {
+    Selection s = new Selection(Path.of("test-archive"), RunSelection.DEFAULT, groups, List.of(),
+        List.copyOf(groups.keySet()));
+    return GroupStudy.compareEach(s, metrics, 0.10);
+  }
 
   static Map<String, List<RunMetrics>> groups() {
     Map<String, List<RunMetrics>> g = new LinkedHashMap<>();

@@ -12,18 +12,25 @@ import javafx.stage.Stage;
 import org.jfree.chart.fx.ChartViewer;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.extension.ExtendWith;
-import org.loadstone.analysis.AnalysisSettings;
-import org.loadstone.analysis.stats.ComparisonResult;
 import org.loadstone.analysis.stats.GroupSummary;
-import org.loadstone.archive.ArchiveIndex;
+import org.loadstone.study.ArchiveRuns;
 import org.loadstone.study.GroupStudy;
+import org.loadstone.study.LeftOut;
+import org.loadstone.study.Metric;
+import org.loadstone.study.MixedArchive;
 import org.loadstone.study.RunMetrics;
+import org.loadstone.study.RunSelection;
+import org.loadstone.study.StudyResult;
 import org.testfx.api.FxRobot;
 import org.testfx.framework.junit5.ApplicationExtension;
 import org.testfx.framework.junit5.Start;
 import org.testfx.util.WaitForAsyncUtils;
 
-/** The archive review in a real JavaFX scene (headless Monocle), on the demo archive. */
+/**
+ * The archive review in a real JavaFX scene (headless Monocle), on the demo archive (whose runs
+ * used the simulated cell's nominal scale, so the "uncalibrated" box lets them count) and on an
+ * archive mixing runs that count with runs left out.
+ */
 @ExtendWith(ApplicationExtension.class)
 class ArchivePaneTest {
   private static final Path DEMO = Path.of("sample-runs");
@@ -40,15 +47,24 @@ class ArchivePaneTest {
     pane.reload();
   }
 
-  @Test
-  void listsTheRunsAndComparesTheGroupsAsTheArchiveStudyDoes(FxRobot robot) throws Exception {
+  private static final RunSelection NOMINAL_TOO =
+      RunSelection.DEFAULT.admitting(LeftOut.Kind.UNCALIBRATED);
+
+  /** Ticks the box that counts nominal-scale runs and waits for the demo's 15 runs. */
+  private void countNominalRuns(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS,
+        () -> robot.lookup("#archive-status").queryAs(Label.class).getText().contains("counted"));
+    robot.clickOn("#archive-include-uncalibrated");
     WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> pane.table().getItems().size() == 15);
     WaitForAsyncUtils.waitForFxEvents(); // the charts are drawn in the same step as the list
+  }
+
+  @Test
+  void listsTheRunsAndComparesTheGroupsAsTheArchiveStudyDoes(FxRobot robot) throws Exception {
+    countNominalRuns(robot);
     WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
         () -> robot.lookup("#archive-groups").tryQuery().isPresent());
-    ComparisonResult expected = GroupStudy.compare(
-        GroupStudy.load(ArchiveIndex.scan(DEMO).entries(), AnalysisSettings.DEFAULTS),
-        GroupStudy.Metric.PEAK, 0.10).comparison();
+    StudyResult expected = GroupStudy.study(DEMO, NOMINAL_TOO, Metric.PEAK, 0.10);
     @SuppressWarnings("unchecked")
     TableView<GroupSummary> groups = robot.lookup("#archive-groups").queryAs(TableView.class);
     assertThat(groups.getItems()).containsExactlyElementsOf(expected.groups());
@@ -58,19 +74,17 @@ class ArchivePaneTest {
         .startsWith("one-way ANOVA, p = ");
 
     // another figure: the stiffness comparison
-    robot.interact(() -> pane.metric().setValue(GroupStudy.Metric.STIFFNESS));
+    robot.interact(() -> pane.metric().setValue(Metric.STIFFNESS));
     WaitForAsyncUtils.waitForFxEvents();
     @SuppressWarnings("unchecked")
     TableView<GroupSummary> byStiffness = robot.lookup("#archive-groups").queryAs(TableView.class);
-    assertThat(byStiffness.getItems().get(0).mean()).isEqualTo(GroupStudy.compare(
-        GroupStudy.load(ArchiveIndex.scan(DEMO).entries(), AnalysisSettings.DEFAULTS),
-        GroupStudy.Metric.STIFFNESS, 0.10).comparison().groups().get(0).mean());
+    assertThat(byStiffness.getItems().get(0).mean()).isEqualTo(GroupStudy.study(DEMO,
+        NOMINAL_TOO, Metric.STIFFNESS, 0.10).groups().get(0).mean());
   }
 
   @Test
   void picksRunsToOverlayAndSaysWhyOneGroupCannotBeCompared(FxRobot robot) throws Exception {
-    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> pane.table().getItems().size() == 15);
-    WaitForAsyncUtils.waitForFxEvents(); // the charts are drawn in the same step as the list
+    countNominalRuns(robot);
     assertThat(seriesIn("#archive-curves", robot)).isEqualTo(15);
     robot.interact(() -> {
       pane.table().getSelectionModel().select(0);
@@ -102,9 +116,12 @@ class ArchivePaneTest {
           .setText(copy.toString());
       pane.reload();
     });
-    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS,
-        () -> pane.table().getItems().size() == 15 && robot.lookup("#archive-status")
-            .queryAs(Label.class).getText().contains(copy.toString()));
+    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> robot.lookup("#archive-status")
+        .queryAs(Label.class).getText().contains("counted in " + copy));
+    if (!pane.include(LeftOut.Kind.UNCALIBRATED).isSelected()) {
+      robot.clickOn("#archive-include-uncalibrated");
+    }
+    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> pane.table().getItems().size() == 15);
     robot.clickOn("#archive-report");
     WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS,
         () -> robot.lookup("#archive-status").queryAs(Label.class).getText()
@@ -116,6 +133,45 @@ class ArchivePaneTest {
         assertThat(text).contains("Comparison of balsa, board, foam").contains("Peak force");
       }
     }
+  }
+
+  @Test
+  void showsTheFiguresOfTheSharedStudyAndListsTheRunsLeftOut(FxRobot robot) throws Exception {
+    Path mixed = MixedArchive.write(java.nio.file.Files.createTempDirectory("loadstone-mixed"));
+    robot.interact(() -> {
+      robot.lookup("#archive-folder").queryAs(javafx.scene.control.TextField.class)
+          .setText(mixed.toString());
+      pane.reload();
+    });
+    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> robot.lookup("#archive-status")
+        .queryAs(Label.class).getText().contains("counted in " + mixed));
+    WaitForAsyncUtils.waitForFxEvents();
+    // the service call the pane makes, on a fresh scan of the folder
+    StudyResult expected = GroupStudy.compare(ArchiveRuns.scan(mixed).select(RunSelection.DEFAULT),
+        Metric.PEAK, 0.10);
+    @SuppressWarnings("unchecked")
+    TableView<GroupSummary> groups = robot.lookup("#archive-groups").queryAs(TableView.class);
+    assertThat(groups.getItems()).containsExactlyElementsOf(expected.groups());
+    assertThat(pane.table().getItems()).hasSize(13);
+    List<String> notes = robot.lookup(".archive-note").queryAllAs(Label.class).stream()
+        .map(Label::getText).toList();
+    for (LeftOut l : expected.leftOut()) {
+      assertThat(notes).contains("left out: " + l.line());
+    }
+    assertThat(notes).anySatisfy(n -> assertThat(n).contains(MixedArchive.FOAM_OUTLIER));
+    assertThat(robot.lookup("#archive-status").queryAs(Label.class).getText())
+        .contains("13 runs counted").contains("6 left out");
+
+    // counting manual stops too: the calibrated manual run joins foam; the manual balsa run
+    // stays out, its scale being nominal
+    robot.clickOn("#archive-include-manual");
+    WaitForAsyncUtils.waitForFxEvents();
+    StudyResult withManual = GroupStudy.compare(ArchiveRuns.scan(mixed).select(
+        RunSelection.DEFAULT.admitting(LeftOut.Kind.MANUAL)), Metric.PEAK, 0.10);
+    @SuppressWarnings("unchecked")
+    TableView<GroupSummary> after = robot.lookup("#archive-groups").queryAs(TableView.class);
+    assertThat(after.getItems()).containsExactlyElementsOf(withManual.groups());
+    assertThat(after.getItems().get(2).n()).isEqualTo(6);
   }
 
   private static int seriesIn(String id, FxRobot robot) {
