@@ -3,11 +3,8 @@ package org.loadstone.archive;
 import java.io.BufferedOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
-import java.io.OutputStreamWriter;
-import java.io.Writer;
 import java.nio.channels.Channels;
 import java.nio.channels.FileChannel;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.AccessDeniedException;
 import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
@@ -64,15 +61,32 @@ public final class RunWriter {
     return DEFAULT.store(archiveDir, metadata, data);
   }
 
+  /** The writer that {@link #write} uses. */
+  static RunWriter standard() {
+    return DEFAULT;
+  }
+
   StoredRun store(Path archiveDir, RunMetadata metadata, RunData data) {
     Precondition.notNull(archiveDir, "archiveDir");
     Precondition.notNull(metadata, "metadata");
     Precondition.notNull(data, "data");
+    RunCsv.check(data, RunIds.requireValid(metadata.runId()));
+    return publish(archiveDir, metadata, data.size(),
+        out -> RunCsv.write(data, out, metadata.runId()));
+  }
+
+  /**
+   * Writes the sample file from {@code csvBody} (which writes the header and every line, checking
+   * them) and the sidecar, each to a temporary name, then publishes both; on any failure,
+   * {@link Error}s included, nothing stays under the run's name.
+   *
+   * @param samples the number of samples the body writes, for checking the break index
+   */
+  StoredRun publish(Path archiveDir, RunMetadata metadata, int samples, Body csvBody) {
     String id = RunIds.requireValid(metadata.runId());
-    RunCsv.check(data, id);
-    if (metadata.breakIndex() != null && metadata.breakIndex() >= data.size()) {
+    if (metadata.breakIndex() != null && metadata.breakIndex() >= samples) {
       throw new IllegalArgumentException("break index " + metadata.breakIndex()
-          + " is outside the run's " + data.size() + " samples");
+          + " is outside the run's " + samples + " samples");
     }
     byte[] sidecar = RunJson.pretty(metadata); // refuses NaN before anything is written
     ensureFolder(archiveDir);
@@ -86,11 +100,7 @@ public final class RunWriter {
     boolean jsonPublished = false;
     try {
       tmpCsv = temp(archiveDir, id, ".csv");
-      writeTemp(tmpCsv, out -> {
-        Writer w = new OutputStreamWriter(out, StandardCharsets.UTF_8);
-        RunCsv.write(data, w);
-        w.flush();
-      });
+      writeTemp(tmpCsv, csvBody);
       current = json;
       tmpJson = temp(archiveDir, id, ".json");
       writeTemp(tmpJson, out -> out.write(sidecar));
@@ -163,7 +173,8 @@ public final class RunWriter {
     return Files.createTempFile(dir, "." + id + ".", ext + ".tmp");
   }
 
-  private interface Body {
+  /** Writes a file's content. */
+  interface Body {
     void write(OutputStream out) throws IOException;
   }
 
