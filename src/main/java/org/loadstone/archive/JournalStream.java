@@ -3,10 +3,12 @@ package org.loadstone.archive;
 import java.io.BufferedInputStream;
 import java.io.IOException;
 import java.io.InputStream;
+import java.io.OutputStream;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.function.UnaryOperator;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -38,11 +40,12 @@ public final class JournalStream {
    *     hold, or the files cannot be written; nothing is then published and the journal is kept
    */
   public static Stored store(Path archiveDir, Path journal, long lastIndex, RunMetadata metadata) {
-    return store(RunWriter.standard(), archiveDir, journal, lastIndex, metadata);
+    return store(out -> out, archiveDir, journal, lastIndex, metadata);
   }
 
-  static Stored store(RunWriter writer, Path archiveDir, Path journal, long lastIndex,
-      RunMetadata metadata) {
+  /** @param wrap a test seam around the stream the sample file is written to */
+  static Stored store(UnaryOperator<OutputStream> wrap, Path archiveDir, Path journal,
+      long lastIndex, RunMetadata metadata) {
     Precondition.notNull(archiveDir, "archiveDir");
     Precondition.notNull(journal, "journal");
     Precondition.notNull(metadata, "metadata");
@@ -62,7 +65,8 @@ public final class JournalStream {
       }
       RunMetadata m = metadata.withWarnings(w);
       String id = m.runId();
-      StoredRun files = writer.publish(archiveDir, m, count.samples, out -> {
+      StoredRun files = RunWriter.publish(archiveDir, m, count.samples, target -> {
+        OutputStream out = wrap.apply(target);
         try (InputStream in = open(journal)) {
           JournalRecovery.readHeader(in, journal);
           RunCsv.LineWriter lines = new RunCsv.LineWriter(out, id);

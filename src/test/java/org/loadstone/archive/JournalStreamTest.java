@@ -93,19 +93,20 @@ class JournalStreamTest {
   void runningOutOfMemoryWhileWritingPublishesNothingAndKeepsTheJournal() throws IOException {
     Path j = journal("oom", 20_000, true);
     byte[] before = Files.readAllBytes(j);
-    // the disk write fails the way a full heap would, half-way through the CSV
-    RunWriter failing = new RunWriter((tmp, out) -> new FilterOutputStream(out) {
-      long written;
+    // the sample file's stream fails the way a full heap would, half-way through the CSV
+    java.util.function.UnaryOperator<java.io.OutputStream> failing =
+        out -> new FilterOutputStream(out) {
+          long written;
 
-      @Override
-      public void write(byte[] b, int off, int len) throws IOException {
-        written += len;
-        if (tmp.toString().endsWith(".csv.tmp") && written > 300_000) {
-          throw new OutOfMemoryError("Java heap space");
-        }
-        out.write(b, off, len);
-      }
-    });
+          @Override
+          public void write(byte[] b, int off, int len) throws IOException {
+            written += len;
+            if (written > 300_000) {
+              throw new OutOfMemoryError("Java heap space");
+            }
+            out.write(b, off, len);
+          }
+        };
     assertThatThrownBy(() -> JournalStream.store(failing, archive, j, Long.MAX_VALUE,
         finalMeta("oom", 3))).isInstanceOf(OutOfMemoryError.class);
     try (Stream<Path> files = Files.list(archive)) {
