@@ -68,6 +68,7 @@ public final class Recorder implements AutoCloseable {
   private final Thread thread;
   private final CountDownLatch done = new CountDownLatch(1);
   private final List<String> warnings = new ArrayList<>();
+  private volatile long decideFrom;
   private volatile boolean stopRequested;
   private volatile boolean closing;
   private volatile double lastForce_N = Double.NaN;
@@ -105,12 +106,31 @@ public final class Recorder implements AutoCloseable {
   }
 
   /**
+   * A zero (tare) taken from the stream.
+   *
+   * @param counts mean counts of the samples averaged
+   * @param nextIndex ring index of the first sample after them: a run armed on this zero is
+   *     decided from there, so load that comes on while the run is being set up is not missed
+   */
+  public record Zero(double counts, long nextIndex) {}
+
+  /**
    * Averages the next {@code samples} samples from the ring as the zero (tare), waiting for them.
    *
    * @return mean counts
    * @throws LoadstoneException when the samples do not come in time (device silent or lost)
    */
   public static double tare(DeviceReader reader, int samples, long timeoutMs) {
+    return zero(reader, samples, timeoutMs).counts();
+  }
+
+  /**
+   * Averages the next {@code samples} samples from the ring as the zero (tare), waiting for them.
+   *
+   * @return the mean counts and where the samples after them begin
+   * @throws LoadstoneException when the samples do not come in time (device silent or lost)
+   */
+  public static Zero zero(DeviceReader reader, int samples, long timeoutMs) {
     SampleRing.Cursor c = reader.ring().cursorAtEnd();
     double[] sum = {0};
     int[] n = {0};
@@ -133,12 +153,28 @@ public final class Recorder implements AutoCloseable {
         sleep(5);
       }
     }
-    return sum[0] / samples;
+    return new Zero(sum[0] / samples, c.position());
   }
 
-  /** Arms (waits for the start threshold) and starts the recorder's thread. */
+  /**
+   * Arms (waits for the start threshold) and starts the recorder's thread. The start is decided
+   * on every sample from the one that arrives next, however late the thread gets to them.
+   */
   public void arm() {
+    arm(reader.ring().written());
+  }
+
+  /**
+   * Arms from a given sample on: every sample from {@code fromIndex} is offered to the start
+   * rule in order, so the first sample at the threshold starts the run even when it arrived
+   * before this call (e.g. between the zero and the arming, on a fast device).
+   *
+   * @param fromIndex first ring index to decide on, e.g. {@link Zero#nextIndex()}; clamped to
+   *     the samples still held
+   */
+  public void arm(long fromIndex) {
     control.arm();
+    decideFrom = fromIndex;
     thread.start();
   }
 
@@ -146,6 +182,7 @@ public final class Recorder implements AutoCloseable {
   public void startNow() {
     control.startNow();
     if (thread.getState() == Thread.State.NEW) {
+      decideFrom = reader.ring().written();
       thread.start();
     }
   }
@@ -184,7 +221,7 @@ public final class Recorder implements AutoCloseable {
 
   private void loop() {
     SampleRing ring = reader.ring();
-    SampleRing.Cursor cursor = ring.cursorAtEnd();
+    SampleRing.Cursor cursor = ring.cursorAt(decideFrom);
     try {
       while (control.state() != RunControl.State.FINISHED && !closing) {
         if (stopRequested) {

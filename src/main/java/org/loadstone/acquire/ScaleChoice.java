@@ -8,13 +8,16 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Optional;
 import org.loadstone.archive.ScaleSpec;
 import org.loadstone.calibration.CalibrationDocument;
 import org.loadstone.calibration.CalibrationFiles;
 import org.loadstone.calibration.CalibrationStatus;
+import org.loadstone.calibration.CellMatch;
 import org.loadstone.calibration.CheckWeightResult;
 import org.loadstone.calibration.CheckWeights;
 import org.loadstone.calibration.LoadCellProfile;
+import org.loadstone.protocol.DeviceMessage;
 import org.loadstone.units.LoadstoneException;
 
 /**
@@ -30,10 +33,40 @@ import org.loadstone.units.LoadstoneException;
  * @param warnings to show before the run and store with it
  * @param checkWeight the last check-weight result of the calibration, or null
  * @param ratedCapacity_N the cell's rated capacity from its profile, or null when unknown
+ * @param calibratedCell what the calibration says about its cell, or null without a calibration
  */
 public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
     String calibrationId, String calibrationSha256, List<String> warnings,
-    Map<String, Object> checkWeight, Double ratedCapacity_N) {
+    Map<String, Object> checkWeight, Double ratedCapacity_N,
+    CellMatch.CalibratedCell calibratedCell) {
+
+  /**
+   * This choice checked against the connected device's load cell ({@link CellMatch}): the
+   * mismatches come first among the warnings, so they are shown before the run and stored with
+   * it.
+   *
+   * @param identity what the device said about itself, if anything
+   * @return this choice when nothing disagrees, else a copy with the mismatches added
+   */
+  public ScaleChoice forDevice(Optional<DeviceMessage.Identity> identity) {
+    if (calibratedCell == null || identity.isEmpty()) {
+      return this;
+    }
+    DeviceMessage.Identity id = identity.get();
+    List<String> found = CellMatch.check(calibratedCell, new CellMatch.ConnectedCell(
+        id.cellId(), id.cellCapacity_N(), id.cellCountsPerN()));
+    if (found.isEmpty()) {
+      return this;
+    }
+    List<String> all = new ArrayList<>(found);
+    for (String w : warnings) {
+      if (!all.contains(w)) {
+        all.add(w);
+      }
+    }
+    return new ScaleChoice(scale, spec, description, calibrationId, calibrationSha256,
+        List.copyOf(all), checkWeight, ratedCapacity_N, calibratedCell);
+  }
 
   /** A data-sheet sensitivity, with the warning that the run is not calibrated. */
   public static ScaleChoice nominal(double countsPerN, String source, Double capacity_N) {
@@ -42,7 +75,7 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
     return new ScaleChoice(ForceScale.of(spec, d), spec, d,
         null, null, List.of("no calibration: force uses the " + source + " sensitivity "
             + String.format(Locale.ROOT, "%.6g", countsPerN) + " counts/N; calibrate with "
-            + "'loadstone calibrate' and pass --cal"), null, capacity_N);
+            + "'loadstone calibrate' and pass --cal"), null, capacity_N, null);
   }
 
   /**
@@ -84,13 +117,14 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
       }
     }
     Double capacity = null;
+    LoadCellProfile p = null;
     Path profile = file.toAbsolutePath().getParent().resolve("cells")
         .resolve(doc.cellId() + ".json");
     if (Files.exists(profile)) {
-      LoadCellProfile p = CalibrationFiles.readProfile(profile);
+      p = CalibrationFiles.readProfile(profile);
       capacity = p.ratedCapacity_N();
     }
     return new ScaleChoice(scale, spec, scale.describe(), doc.id(), doc.contentSha256(),
-        List.copyOf(warnings), check, capacity);
+        List.copyOf(warnings), check, capacity, CellMatch.CalibratedCell.of(doc, p));
   }
 }

@@ -159,11 +159,19 @@ public final class RecordCommand implements Callable<Integer> {
     reader.start();
     try {
       waitForIdentity(reader, err);
+      ScaleChoice checked = scale.forDevice(reader.identity());
+      for (String w : checked.warnings()) {
+        if (!scale.warnings().contains(w)) {
+          say(err, "warning: " + w);
+        }
+      }
+      scale = checked;
       double rate = reader.identity().map(DeviceMessage.Identity::rateHz).filter(r -> r > 0)
           .orElse(device.simulated() ? device.rateHz : 80.0);
       int nZero = zeroSamples != null ? zeroSamples : (int) Math.max(5, Math.round(rate / 2));
       say(err, "zeroing on " + nZero + " samples: keep the specimen unloaded");
-      double zero = Recorder.tare(reader, nZero, 10_000 + (long) (nZero / rate * 2000));
+      Recorder.Zero tare = Recorder.zero(reader, nZero, 10_000 + (long) (nZero / rate * 2000));
+      double zero = tare.counts();
       RunMetadata template = new RunTemplate(specimen, group, tags, operator,
           notesAdded.isEmpty() ? notes
               : (notes.isEmpty() ? "" : notes + " ") + String.join(" ", notesAdded),
@@ -187,7 +195,7 @@ public final class RecordCommand implements Callable<Integer> {
         say(err, String.format(Locale.ROOT, "armed: recording starts at %.4g N; the run stops "
             + "by itself at a %.0f %% drop from the peak (Ctrl-C stops it by hand)",
             startAt, dropPct));
-        rec.arm();
+        rec.arm(tare.nextIndex());
       }
       boolean tty = System.console() != null && !json;
       java.util.Optional<Recorder.Result> result = java.util.Optional.empty();

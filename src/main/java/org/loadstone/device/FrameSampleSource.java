@@ -45,6 +45,13 @@ public final class FrameSampleSource implements SampleSource {
   }
 
   @Override
+  public String cellFields() {
+    org.loadstone.sim.FrameInfo i = frame.info();
+    return "cell=" + i.cellId() + " cap=" + SimTransport.trim(i.cellCapacity_N())
+        + " cpn=" + SimTransport.trim(i.cellCountsPerN());
+  }
+
+  @Override
   public void next(SampleSlot slot) {
     target = slot;
     frame.next(sink);

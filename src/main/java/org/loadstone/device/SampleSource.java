@@ -18,6 +18,15 @@ public interface SampleSource {
   String adcKind();
 
   /**
+   * What the device says about its load cell in its identity, as {@code key=value} pairs
+   * separated by single spaces ({@code cell}, {@code cap}, {@code cpn}: see the protocol), or an
+   * empty text when it says nothing.
+   */
+  default String cellFields() {
+    return "";
+  }
+
+  /**
    * Produces the next sample.
    *
    * @param slot receives seq, device time, counts and position; reused by the caller

@@ -64,10 +64,11 @@ public final class SimTransport implements Transport {
         + " rate=" + Math.round(source.rateHz())
         + " ch=" + (source.hasPosition() ? 2 : 1)
         + (source.hasPosition() ? " cpm=" + trim(source.countsPerMm()) : "")
-        + " motor=1 name=loadstone-sim";
+        + " motor=1 name=loadstone-sim"
+        + (source.cellFields().isEmpty() ? "" : " " + source.cellFields());
   }
 
-  private static String trim(double v) {
+  static String trim(double v) {
     return v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
   }
 

@@ -138,6 +138,21 @@ public sealed interface DeviceMessage
       return "1".equals(fields.get("motor"));
     }
 
+    /** @return the id of the load cell the device reports ({@code cell}), or null */
+    public String cellId() {
+      return fields.get("cell");
+    }
+
+    /** @return the cell's rated capacity in N ({@code cap}), or NaN when not given */
+    public double cellCapacity_N() {
+      return doubleField("cap", Double.NaN);
+    }
+
+    /** @return the cell's data-sheet sensitivity in counts per N ({@code cpn}), or NaN */
+    public double cellCountsPerN() {
+      return doubleField("cpn", Double.NaN);
+    }
+
     /** @return free device name, or {@code device} */
     public String name() {
       return fields.getOrDefault("name", "device");

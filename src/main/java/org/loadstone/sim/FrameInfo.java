@@ -9,6 +9,9 @@ package org.loadstone.sim;
  * @param positionCountsPerMm encoder counts per mm of crosshead travel
  * @param motorised whether the crosshead is driven (and obeys a halt)
  * @param name device name, no spaces
+ * @param cellId the id of the frame's one load cell, no spaces
+ * @param cellCapacity_N its rated capacity, N
+ * @param cellCountsPerN its data-sheet sensitivity, counts per N
  */
 public record FrameInfo(
     String adcKind,
@@ -16,4 +19,7 @@ public record FrameInfo(
     int channels,
     double positionCountsPerMm,
     boolean motorised,
-    String name) {}
+    String name,
+    String cellId,
+    double cellCapacity_N,
+    double cellCountsPerN) {}

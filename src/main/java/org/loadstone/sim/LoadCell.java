@@ -38,6 +38,14 @@ public record LoadCell(
   /** Highest code of a 24-bit two's-complement converter. */
   public static final int MAX_COUNTS = 8_388_607;
 
+  /**
+   * Rated capacity of the simulated frame's one load cell, N: the balsa-core shelf panels peak
+   * near 720 N, so a 1 kN cell serves every scenario (the over-range one exceeds it on purpose).
+   */
+  public static final double FRAME_CAPACITY_N = 1000;
+  /** The id the simulated frame reports for its cell (the demo workshop's shelf-panel rig). */
+  public static final String FRAME_CELL_ID = "shelf-rig-1kN";
+
   /** Default zero offset of the simulated cell, counts (an arbitrary bridge imbalance). */
   public static final double DEFAULT_ZERO_OFFSET_COUNTS = 18_436;
   /** Default non-linearity, % FS (a typical figure for an inexpensive cell; illustrative). */
@@ -127,7 +135,17 @@ public record LoadCell(
   }
 
   /**
-   * The default cell of a scenario: 2 mV/V at 5 V on gain 128, default offset and non-linearity,
+   * The simulated frame's cell at a rate: {@link #FRAME_CAPACITY_N}, 2 mV/V at 5 V on gain 128,
+   * default offset and non-linearity, noise for the rate.
+   *
+   * @param rateHz sample rate, &gt; 0
+   */
+  public static LoadCell frameCell(double rateHz) {
+    return hx711(FRAME_CAPACITY_N, rateHz);
+  }
+
+  /**
+   * A cell of another capacity, 2 mV/V at 5 V on gain 128, default offset and non-linearity,
    * noise for the rate.
    *
    * @param capacity_N rated capacity, &gt; 0

@@ -12,7 +12,6 @@ final class Presets {
       SpecimenModel model,
       SpecimenSummary summary,
       double crossheadRate_mm_per_s,
-      double capacity_N,
       double gap_mm) {}
 
   /** Default frame stiffness of the simulated bench frame, N/mm. */
@@ -54,7 +53,7 @@ final class Presets {
             new PreCurve.Elastic(k, toe, strength), new PostFailure.SuddenDrop(0.02, 0.002));
     return new Setup(
         m, new SpecimenSummary("brittle bar", k, strength, toe, beam.mass_kg(), beam, null),
-        0.5, 500, 0.3);
+        0.5, 0.3);
   }
 
   /** Yields near 320 N, necks after about 2.5 mm, ruptures at about 4 mm. */
@@ -70,7 +69,7 @@ final class Presets {
     return new Setup(
         m, new SpecimenSummary("ductile specimen", k, Double.POSITIVE_INFINITY, toe, 0.012,
             null, null),
-        0.5, 500, 0.3);
+        0.5, 0.3);
   }
 
   /** First collapse near 360 N, then teeth around 85 % of it. */
@@ -84,10 +83,10 @@ final class Presets {
             new PostFailure.SawTooth(0.35, 0.004, 0.7 * k, 0.85, 1.0, 0.85, 0.08, failure));
     return new Setup(
         m, new SpecimenSummary("crushing specimen", k, first, toe, 0.008, null, null),
-        0.5, 500, 0.3);
+        0.5, 0.3);
   }
 
-  /** 25 kN/mm and 6 kN: twelve times the cell's capacity. */
+  /** 25 kN/mm and 6 kN: six times the frame cell's capacity. */
   private static Setup overRange(SimRandom r) {
     double k = 25_000 * r.scatter(0.03);
     double strength = 6000 * r.scatter(0.05);
@@ -96,7 +95,7 @@ final class Presets {
             new PreCurve.Elastic(k, 0.02, strength), new PostFailure.SuddenDrop(0.02, 0.002));
     return new Setup(
         m, new SpecimenSummary("over-range specimen", k, strength, 0.02, 0.05, null, null),
-        0.1, 500, 0.3);
+        0.1, 0.3);
   }
 
   /** A steel block: 2 MN/mm, never fails. */
@@ -108,7 +107,7 @@ final class Presets {
             new PostFailure.SuddenDrop(0, 0.002));
     return new Setup(
         m, new SpecimenSummary("rigid block", k, Double.POSITIVE_INFINITY, 0, 0.4, null, null),
-        0.01, 500, 0.1);
+        0.01, 0.1);
   }
 
   /**
@@ -174,6 +173,6 @@ final class Presets {
     return new Setup(
         m,
         new SpecimenSummary("sandwich panel, " + core + " core", k, fail, toe, p.mass_kg(), null, p),
-        0.2, 1000, 0.5);
+        0.2, 0.5);
   }
 }

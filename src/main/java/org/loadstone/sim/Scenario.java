@@ -4,27 +4,29 @@ import java.util.Locale;
 import org.loadstone.units.LoadstoneException;
 
 /**
- * Named presets of the simulated frame. Every preset is a physical model; its numbers are
+ * Named presets of the simulated frame: what is on it. The frame and its load cell stay the same
+ * whichever scenario runs (one machine, one cell), so a calibration made in the dead-weight
+ * scenario applies to every specimen. Every preset is a physical model; its numbers are
  * illustrative, not material data. The command line takes the {@link #cliName()}.
  */
 public enum Scenario {
-  /** a brittle bar in three-point bending: toe, linear, fracture within ~2 ms (500 N cell) */
+  /** a brittle bar in three-point bending: toe, linear, fracture within ~2 ms */
   BRITTLE("brittle", "brittle bar in three-point bend: linear, then fracture"),
-  /** a ductile specimen: linear, yield, plateau, gradual drop, rupture (500 N cell) */
+  /** a ductile specimen: linear, yield, plateau, gradual drop, rupture */
   DUCTILE("ductile", "ductile specimen: linear, yield, plateau, gradual drop"),
-  /** progressive crushing: a saw-tooth of rises and partial drops (500 N cell) */
+  /** progressive crushing: a saw-tooth of rises and partial drops */
   CRUSH("crush", "progressive crushing: saw-tooth of rises and partial drops"),
-  /** far stiffer and stronger than the 500 N cell: saturates the converter */
+  /** far stiffer and stronger than the frame's 1 kN cell: saturates the converter */
   OVER_RANGE("over-range", "specimen far stiffer and stronger than the cell (overload)"),
-  /** a practically rigid block: the slope is the frame's own stiffness (500 N cell) */
+  /** a practically rigid block: the slope is the frame's own stiffness */
   RIGID_BLOCK("rigid-block", "rigid block: measures the frame compliance"),
-  /** sandwich shelf panel with a foam core, three-point bend (1 kN cell) */
+  /** sandwich shelf panel with a foam core, three-point bend */
   PANEL_FOAM("panel-foam", "sandwich panel, foam core: core shear, gradual failure"),
-  /** sandwich shelf panel with an end-grain balsa core (1 kN cell) */
+  /** sandwich shelf panel with an end-grain balsa core */
   PANEL_BALSA("panel-balsa", "sandwich panel, balsa core: core shear, sudden failure"),
-  /** sandwich shelf panel with a corrugated-board core (1 kN cell) */
+  /** sandwich shelf panel with a corrugated-board core */
   PANEL_BOARD("panel-board", "sandwich panel, corrugated-board core: progressive collapse"),
-  /** no crosshead motion: known masses are placed on the cell, for calibration (500 N cell) */
+  /** no crosshead motion: known masses are placed on the cell, for calibration */
   DEAD_WEIGHT("dead-weight", "dead weights placed on the cell, for calibration");
 
   private final String cliName;

@@ -31,6 +31,7 @@ public final class SimulatedFrame {
   private final Scenario scenario;
   private final long seed;
   private final LoadCell cell;
+  private final String cellId;
   private final double positionCountsPerMm;
   private final double gravity_m_per_s2;
   private final SampleClock clock;
@@ -67,6 +68,7 @@ public final class SimulatedFrame {
     this.scenario = b.scenario;
     this.seed = b.seed;
     this.cell = cell;
+    this.cellId = b.cellId;
     this.positionCountsPerMm = b.positionCountsPerMm;
     this.gravity_m_per_s2 = b.gravity_m_per_s2;
     this.rateHz = b.rateHz;
@@ -338,7 +340,8 @@ public final class SimulatedFrame {
   /** @return identity of the simulated device */
   public FrameInfo info() {
     String adc = rateHz == 10 || rateHz == 80 ? "hx711" : "fast";
-    return new FrameInfo(adc, rateHz, 2, positionCountsPerMm, motorised, "loadstone-sim");
+    return new FrameInfo(adc, rateHz, 2, positionCountsPerMm, motorised, "loadstone-sim",
+        cellId, cell.capacity_N(), cell.countsPerN());
   }
 
   /** @return a snapshot of the ground truth so far */

@@ -16,6 +16,7 @@ public final class SimulatedFrameBuilder {
   double handStroke_mm = Double.NaN;
   double frameStiffness_N_per_mm = Presets.FRAME_STIFFNESS_N_PER_MM;
   LoadCell loadCell;
+  String cellId = LoadCell.FRAME_CELL_ID;
   double noiseRms_counts = Double.NaN;
   double zeroOffset_counts = Double.NaN;
   double nonLinearity_pctFS = Double.NaN;
@@ -73,9 +74,21 @@ public final class SimulatedFrameBuilder {
     return this;
   }
 
-  /** @param cell the whole cell (default: {@link LoadCell#hx711} for the scenario and rate) */
+  /**
+   * @param cell the whole cell (default: {@link LoadCell#frameCell} for the rate, the same in
+   *     every scenario)
+   */
   public SimulatedFrameBuilder loadCell(LoadCell cell) {
     this.loadCell = Precondition.notNull(cell, "cell");
+    return this;
+  }
+
+  /**
+   * @param id the id the frame reports for its cell (default {@link LoadCell#FRAME_CELL_ID});
+   *     letters, digits, '.', '_' and '-'
+   */
+  public SimulatedFrameBuilder cellId(String id) {
+    this.cellId = Precondition.notNull(id, "id");
     return this;
   }
 
@@ -204,9 +217,10 @@ public final class SimulatedFrameBuilder {
       throw new LoadstoneException(
           "simulated frame: the dead-weight scenario has no crosshead to pump; drop the hand drive");
     }
+    check(cellId.matches("[A-Za-z0-9._-]{1,64}"), "cell id", cellId,
+        "1 to 64 letters, digits, '.', '_' or '-'");
     Presets.Setup setup = Presets.setup(scenario, seed);
-    double capacity = setup == null ? 500 : setup.capacity_N();
-    LoadCell cell = loadCell != null ? loadCell : LoadCell.hx711(capacity, rateHz);
+    LoadCell cell = loadCell != null ? loadCell : LoadCell.frameCell(rateHz);
     if (!Double.isNaN(noiseRms_counts)) {
       cell = cell.withNoiseRms_counts(noiseRms_counts);
     }

@@ -139,7 +139,7 @@ final class RunPanel {
       Double mass_g = mass();
       specimenFields.geometry(); // refused here, before arming, when a size is not a number
       RunSettings settings = RunSettings.builder().ratedCapacity_N(config.ratedCapacity_N()).build();
-      ScaleChoice scale = device.scale();
+      ScaleChoice scale = device.scale().forDevice(reader.identity());
       JournalRunStore store = new JournalRunStore(config.archive());
       store.checkWritable();
       String specimen = specimenField.getText().isBlank() ? "specimen-" + (++runCount)

@@ -151,8 +151,9 @@ class LivePaneTest {
     robot.clickOn("#arm-button");
     WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
         () -> !robot.lookup("#run-state").queryAs(Label.class).getText().equals("no run armed"));
-    assertThat(pane.runResult().getText()).contains(choice.warnings().isEmpty() ? ""
-        : choice.warnings().get(0));
+    // the example calibration is of a 500 N cell; the simulated frame reports its 1 kN cell
+    assertThat(pane.runResult().getText()).contains("calibration " + choice.calibrationId()
+        + " was made for load cell shelf-rig-500N but the device reports cell shelf-rig-1kN");
     // the brittle specimen loads and breaks by itself (whatever the calibration makes of it)
     WaitForAsyncUtils.waitFor(60, TimeUnit.SECONDS,
         () -> pane.runResult().getText().startsWith("run "));
