@@ -11,6 +11,8 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import org.loadstone.files.FileExistsException;
+import org.loadstone.files.FilePublisher;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -200,18 +202,12 @@ public final class CalibrationService {
       String comment) {
     Path f = dir.resolve(id + ".points.csv");
     try {
-      java.nio.file.Files.createDirectories(dir);
-      java.nio.file.Files.writeString(f, PointsCsv.format(points, comment),
-          java.nio.charset.StandardCharsets.UTF_8, java.nio.file.StandardOpenOption.CREATE_NEW,
-          java.nio.file.StandardOpenOption.WRITE);
-      return f;
-    } catch (java.nio.file.FileAlreadyExistsException e) {
+      return FilePublisher.publish(f, "points file",
+          PointsCsv.format(points, comment).getBytes(java.nio.charset.StandardCharsets.UTF_8));
+    } catch (FileExistsException e) {
       throw new LoadstoneException("points file " + f + " exists and is never overwritten:"
           + " save under another calibration id, e.g. '" + CalibrationFiles.freeId(dir, id)
           + "'");
-    } catch (java.io.IOException e) {
-      throw new LoadstoneException("cannot save points to " + f + ": " + e.getMessage()
-          + ": check the folder and its permissions", e);
     }
   }
 
