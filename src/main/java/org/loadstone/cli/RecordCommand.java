@@ -189,7 +189,7 @@ public final class RecordCommand implements Callable<Integer> {
       }
       boolean tty = System.console() != null && !json;
       java.util.Optional<Recorder.Result> result = java.util.Optional.empty();
-      while (result.isEmpty() && rec.failure().isEmpty()) {
+      while (result.isEmpty() && rec.failure().isEmpty() && !rec.ended()) {
         result = rec.await(200, TimeUnit.MILLISECONDS);
         if (tty && result.isEmpty()) {
           Recorder.Status s = rec.status();

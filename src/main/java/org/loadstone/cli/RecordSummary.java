@@ -37,6 +37,13 @@ final class RecordSummary {
       metrics = RunMetrics.of(run.metadata(), run.data(), settings);
     } catch (LoadstoneException e) {
       notAnalysed = e.getMessage();
+    } catch (OutOfMemoryError e) {
+      // the run is safe on disk; only its figures wait for a program with more memory
+      metrics = null;
+      notAnalysed = "the run is stored, but analysing its " + r.samples() + " samples needs more"
+          + " memory than the " + Runtime.getRuntime().maxMemory() / (1 << 20) + " MiB this"
+          + " program was given: run 'loadstone analyze " + r.stored().runId() + "' with a"
+          + " larger heap (java -Xmx…)";
     }
     if (json) {
       Map<String, Object> m = new LinkedHashMap<>();
