@@ -105,6 +105,9 @@ public final class TextFiles {
       if (len == 0) {
         return 0;
       }
+      if (flushed) {
+        return -1; // the end was reached; a decoder must not be used after its flush
+      }
       CharBuffer out = CharBuffer.wrap(cbuf, off, len);
       int badAt = -1;
       while (out.position() == off) {

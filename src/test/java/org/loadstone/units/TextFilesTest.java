@@ -28,6 +28,18 @@ class TextFilesTest {
   }
 
   @Test
+  void readingOnAfterTheEndKeepsAnsweringTheEnd() throws Exception {
+    Path f = tmp.resolve("noend.csv");
+    Files.writeString(f, "a,b\n1,2"); // no line end at the end
+    try (Reader r = TextFiles.open(f, "test file")) {
+      char[] buf = new char[64];
+      assertThat(r.read(buf, 0, 64)).isEqualTo(7);
+      assertThat(r.read(buf, 0, 64)).isEqualTo(-1);
+      assertThat(r.read(buf, 0, 64)).isEqualTo(-1);
+    }
+  }
+
+  @Test
   void latin1IsRefusedNamingTheLineTheByteAndTheFix() throws Exception {
     Path f = tmp.resolve("latin.csv");
     // 0xB0 is the degree sign in ISO-8859-1 and never valid alone in UTF-8 (RFC 3629)
