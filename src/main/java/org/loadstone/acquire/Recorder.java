@@ -152,7 +152,7 @@ public final class Recorder implements AutoCloseable {
               + " samples arrived from " + reader.transport().name() + " in "
               + timeoutMs / 1000.0 + " s"
               + reader.lostReason().map(w -> " (" + w + ")").orElse(
-                  "; check that the device is streaming ('loadstone monitor')"));
+                  "; check that the device is streaming samples"));
         }
         sleep(5);
       }

@@ -249,7 +249,7 @@ final class LivePane {
     try {
       t = config.connect().get();
     } catch (LoadstoneException e) {
-      showLost(e.getMessage());
+      showLost(ConsoleHints.withHow(e));
       return;
     }
     reader = new DeviceReader(t, new SampleRing(1 << 20));
