@@ -12,7 +12,8 @@ import org.loadstone.units.Precondition;
  * the loading direction; it may be absent ({@code null}), in which case stiffness, energy and
  * displacements are absent from the analysis instead of being guessed.
  *
- * <p>The arrays are copied on construction and on every accessor call, so a curve never changes.
+ * <p>The arrays are copied on construction and on every accessor call, so a curve never changes
+ * (except {@link #over}, which takes arrays that their owner no longer changes).
  *
  * @param time_s sample times in seconds, strictly increasing, finite
  * @param force_N force in newtons, finite, same length as {@code time_s}
@@ -21,15 +22,24 @@ import org.loadstone.units.Precondition;
  *     non-finite value (the message names the column and sample index) or time does not increase
  * @throws IllegalArgumentException when {@code time_s} or {@code force_N} is null
  */
-public record Curve(double[] time_s, double[] force_N, double[] position_mm) {
+public final class Curve {
+  private final double[] time_s;
+  private final double[] force_N;
+  private final double[] position_mm;
 
   /** Validates and copies the arrays. */
-  public Curve {
+  public Curve(double[] time_s, double[] force_N, double[] position_mm) {
+    this(Precondition.notNull(time_s, "time_s").clone(),
+        Precondition.notNull(force_N, "force_N").clone(),
+        position_mm == null ? null : position_mm.clone(), true);
+  }
+
+  private Curve(double[] time_s, double[] force_N, double[] position_mm, boolean owned) {
     Precondition.notNull(time_s, "time_s");
     Precondition.notNull(force_N, "force_N");
-    time_s = time_s.clone();
-    force_N = force_N.clone();
-    position_mm = position_mm == null ? null : position_mm.clone();
+    this.time_s = time_s;
+    this.force_N = force_N;
+    this.position_mm = position_mm;
     if (time_s.length < 2) {
       throw new LoadstoneException(
           "Run curve has " + time_s.length + " sample(s); analysis needs at least 2. "
@@ -61,6 +71,29 @@ public record Curve(double[] time_s, double[] force_N, double[] position_mm) {
     }
   }
 
+  /**
+   * A curve over the given arrays without copying them, for columns that no one changes after
+   * reading (a stored run's samples); saves two copies of a long run.
+   *
+   * @throws LoadstoneException as the constructor
+   */
+  public static Curve over(double[] time_s, double[] force_N, double[] position_mm) {
+    return new Curve(time_s, force_N, position_mm, true);
+  }
+
+  /** The arrays themselves, for the analysis in this package, which only reads them. */
+  double[] timeColumn() {
+    return time_s;
+  }
+
+  double[] forceColumn() {
+    return force_N;
+  }
+
+  double[] positionColumn() {
+    return position_mm;
+  }
+
   /** A curve without a position channel. */
   public static Curve withoutPosition(double[] time_s, double[] force_N) {
     return new Curve(time_s, force_N, null);
@@ -77,19 +110,16 @@ public record Curve(double[] time_s, double[] force_N, double[] position_mm) {
   }
 
   /** @return a copy of the sample times, seconds */
-  @Override
   public double[] time_s() {
     return time_s.clone();
   }
 
   /** @return a copy of the forces, newtons */
-  @Override
   public double[] force_N() {
     return force_N.clone();
   }
 
   /** @return a copy of the positions in millimetres, or {@code null} when there is no position */
-  @Override
   public double[] position_mm() {
     return position_mm == null ? null : position_mm.clone();
   }

@@ -63,6 +63,18 @@ final class LinearWindows {
   }
 
   /**
+   * The search's score of a window without making its {@link Line}: slope − 2 standard errors
+   * when the slope is positive and R² reaches {@code minR2}, else NaN.
+   */
+  double score(int from, int to, double minR2) {
+    Line line = fit(from, to); // not kept, so the compiler need not make it
+    if (line == null || line.slope() <= 0 || line.rSquared() < minR2) {
+      return Double.NaN;
+    }
+    return line.slope() - 2 * line.slopeSe();
+  }
+
+  /**
    * Fits samples {@code from..to} inclusive (at least 2).
    *
    * @return the line, or {@code null} when x does not vary over the window

@@ -44,9 +44,9 @@ public final class RunAnalyzer {
   public static RunResult analyze(Curve curve, AnalysisSettings settings) {
     Precondition.notNull(curve, "curve");
     Precondition.notNull(settings, "settings");
-    double[] t = curve.time_s();
-    double[] f = curve.force_N();
-    double[] pos = curve.position_mm();
+    double[] t = curve.timeColumn(); // read only, never changed here
+    double[] f = curve.forceColumn();
+    double[] pos = curve.positionColumn();
     int n = f.length;
     List<String> notes = new ArrayList<>();
 
@@ -58,7 +58,8 @@ public final class RunAnalyzer {
       }
       maxAbs = Math.max(maxAbs, Math.abs(f[i]));
     }
-    requireRise(f, peak, maxAbs);
+    double[] scratch = new double[n]; // the sample steps first, then the displacements
+    requireRise(f, peak, maxAbs, scratch);
 
     Optional<BreakPoint> brk = findBreak(t, f, peak, settings, notes);
 
@@ -77,7 +78,7 @@ public final class RunAnalyzer {
           OptionalDouble.empty(), OptionalDouble.empty(), Optional.empty(), notes);
     }
 
-    double[] x = new double[n];
+    double[] x = scratch;
     for (int i = 0; i < n; i++) {
       x[i] = pos[i] - pos[0];
     }
@@ -124,16 +125,15 @@ public final class RunAnalyzer {
     return analyze(curve, AnalysisSettings.DEFAULTS);
   }
 
-  private static void requireRise(double[] f, int peak, double maxAbs) {
+  private static void requireRise(double[] f, int peak, double maxAbs, double[] steps) {
     double rise = f[peak] - f[0];
     boolean flat = peak == 0 || !(rise > 0.01 * maxAbs);
     if (!flat && f.length >= 20) {
-      double[] steps = new double[f.length - 1];
+      int m = f.length - 1;
       for (int i = 1; i < f.length; i++) {
         steps[i - 1] = Math.abs(f[i] - f[i - 1]);
       }
-      Arrays.sort(steps);
-      double median = steps[steps.length / 2];
+      double median = Selection.kth(steps, m, m / 2); // the element a sort would put at m / 2
       flat = rise < 4 * median;
     }
     if (flat) {

@@ -45,28 +45,33 @@ final class StiffnessSearch {
     }
     lengths.add(count);
 
-    LinearWindows.Line seed = null;
+    // windows are scored without making a Line; only a new best becomes one
+    int seedFrom = -1;
+    int seedTo = -1;
+    double best = Double.NEGATIVE_INFINITY;
     for (int length : lengths) {
       for (int i = 0; i + length <= count; i++) {
-        LinearWindows.Line line = qualifying(sums, y, i, i + length - 1, minR2, minSpan);
-        if (line != null && (seed == null || score(line) > score(seed))) {
-          seed = line;
+        int to = i + length - 1;
+        if (y[to] - y[i] < minSpan) {
+          continue;
+        }
+        double score = sums.score(i, to, minR2);
+        if (!Double.isNaN(score) && (seedFrom < 0 || score > best)) {
+          best = score;
+          seedFrom = i;
+          seedTo = to;
         }
       }
     }
-    if (seed == null) {
+    if (seedFrom < 0) {
       return null;
     }
+    LinearWindows.Line seed = sums.fit(seedFrom, seedTo);
     LinearWindows.Line chosen = grow(sums, seed, count, y[peakIndex] - y[0]);
     if (chosen.rSquared() < minR2) {
       chosen = seed;
     }
     return toFit(chosen, y, StiffnessFit.Method.AUTOMATIC);
-  }
-
-  /** Steepness that a short, noisy window cannot win by chance: slope − 2 standard errors. */
-  private static double score(LinearWindows.Line line) {
-    return line.slope() - 2 * line.slopeSe();
   }
 
   /**
@@ -101,18 +106,6 @@ final class StiffnessSearch {
       }
     }
     return cur;
-  }
-
-  private static LinearWindows.Line qualifying(
-      LinearWindows sums, double[] y, int from, int to, double minR2, double minSpan) {
-    if (y[to] - y[from] < minSpan) {
-      return null;
-    }
-    LinearWindows.Line line = sums.fit(from, to);
-    if (line == null || line.slope() <= 0 || line.rSquared() < minR2) {
-      return null;
-    }
-    return line;
   }
 
   /**

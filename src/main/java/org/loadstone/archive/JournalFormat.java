@@ -10,6 +10,7 @@ import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
 import java.util.zip.CRC32C;
+import org.loadstone.files.Folders;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -99,7 +100,7 @@ public final class JournalFormat {
         ch.write(b);
       }
       ch.force(true);
-      RunWriter.syncFolder(dir);
+      Folders.sync(dir);
       return ch;
     } catch (FileAlreadyExistsException e) {
       throw new LoadstoneException("journal " + file + " already exists: another run uses id '"
@@ -111,7 +112,7 @@ public final class JournalFormat {
         } catch (IOException ignored) {
           // reporting the first failure
         }
-        RunWriter.deleteQuietly(file);
+        Folders.deleteQuietly(file);
       }
       throw new LoadstoneException("cannot create journal " + file + ": " + e.getMessage()
           + ": free disk space or choose another archive folder before starting a run", e);

@@ -13,6 +13,9 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.function.Consumer;
 import java.util.function.DoubleUnaryOperator;
+import org.loadstone.files.FileExistsException;
+import org.loadstone.files.FilePublisher;
+import org.loadstone.files.Folders;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -43,10 +46,6 @@ public final class JournalRecovery {
    *     disk full); those journals stay where they are and the message names them
    */
   public static List<StoredRun> recoverAll(Path archiveDir, Consumer<String> notices) {
-    return recoverAll(archiveDir, notices, new RunWriter((p, o) -> o));
-  }
-
-  static List<StoredRun> recoverAll(Path archiveDir, Consumer<String> notices, RunWriter writer) {
     Precondition.notNull(archiveDir, "archiveDir");
     Precondition.notNull(notices, "notices");
     Path dir = JournalFormat.journalDir(archiveDir);
@@ -69,7 +68,7 @@ public final class JournalRecovery {
     List<String> failed = new ArrayList<>();
     for (Path j : journals) {
       try {
-        StoredRun s = recoverOne(archiveDir, j, notices, writer);
+        StoredRun s = recoverOne(archiveDir, j, notices);
         if (s != null) {
           stored.add(s);
         }
@@ -90,8 +89,7 @@ public final class JournalRecovery {
     return stored;
   }
 
-  private static StoredRun recoverOne(Path archiveDir, Path journal, Consumer<String> notices,
-      RunWriter writer) {
+  private static StoredRun recoverOne(Path archiveDir, Path journal, Consumer<String> notices) {
     JournalContents c;
     try {
       c = readJournal(journal);
@@ -114,7 +112,7 @@ public final class JournalRecovery {
     // the journal itself holds `id`, so RunIds.firstFree would always skip it
     String newId = freeOtherThanJournal(archiveDir, id);
     RunMetadata m = recoveredMetadata(c, newId, journal);
-    StoredRun s = writer.store(archiveDir, m, c.data());
+    StoredRun s = RunWriter.write(archiveDir, m, c.data());
     if (c.complete()) {
       delete(journal);
       notices.accept("unfinished run " + id + " was recovered from its journal as " + newId
@@ -367,25 +365,24 @@ public final class JournalRecovery {
     Path dir = JournalFormat.damagedDir(archiveDir);
     RunWriter.ensureFolder(dir);
     String name = journal.getFileName().toString();
-    Path target = dir.resolve(name);
-    for (int n = 2; Files.exists(target); n++) {
-      target = dir.resolve(name + "." + n);
-    }
-    try {
-      Files.move(journal, target);
-      RunWriter.syncFolder(dir);
-      RunWriter.syncFolder(journal.getParent());
-      return target;
-    } catch (IOException e) {
-      throw new LoadstoneException("journal " + journal + " could not be moved to " + dir + ": "
-          + e.getMessage() + ": move it there by hand; it was not changed", e);
+    for (int n = 1; ; n++) {
+      Path target = dir.resolve(n == 1 ? name : name + "." + n);
+      try {
+        FilePublisher.moveWithoutReplacing(journal, target, "journal");
+        return target;
+      } catch (FileExistsException e) {
+        // an earlier damaged journal of that name: take the next number
+      } catch (LoadstoneException e) {
+        throw new LoadstoneException("journal " + journal + " could not be moved to " + dir
+            + " (" + e.getMessage() + "): move it there by hand; it was not changed", e);
+      }
     }
   }
 
   private static void delete(Path journal) {
     try {
       Files.delete(journal);
-      RunWriter.syncFolder(journal.getParent());
+      Folders.sync(journal.getParent());
     } catch (IOException e) {
       throw new LoadstoneException("journal " + journal + " was recovered but cannot be removed: "
           + e.getMessage() + ": delete it by hand so it is not recovered twice", e);

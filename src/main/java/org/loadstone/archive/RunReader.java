@@ -29,8 +29,8 @@ public final class RunReader {
     Path json = stem.resolveSibling(name + ".json");
     RunMetadata meta = readMetadata(json);
     RunData data;
-    try (Reader r = Files.newBufferedReader(csv, StandardCharsets.UTF_8)) {
-      data = RunCsv.read(r, csv);
+    try {
+      data = readSamples(csv);
     } catch (NoSuchFileException e) {
       throw missing(csv, json);
     } catch (IOException e) {
@@ -43,6 +43,22 @@ public final class RunReader {
           + " samples: the two files do not belong together; restore them from a backup");
     }
     return new Run(meta, data, csv, json);
+  }
+
+  /**
+   * The samples: the fast reader for the writer's own format, the strict reader for anything
+   * else (and for every fault, so that the message names the line and column).
+   */
+  static RunData readSamples(Path csv) throws IOException {
+    RunData fast = RunCsvFast.read(csv);
+    return fast != null ? fast : readStrict(csv);
+  }
+
+  /** The reference path: Commons CSV and a check of every cell. */
+  static RunData readStrict(Path csv) throws IOException {
+    try (Reader r = Files.newBufferedReader(csv, StandardCharsets.UTF_8)) {
+      return RunCsv.read(r, csv);
+    }
   }
 
   /**

@@ -1,13 +1,14 @@
 package org.loadstone.calibration;
 
+import java.util.List;
 import java.util.Locale;
 
 /**
  * Figures computed in the style of ASTM E74 (verification of force-measuring instruments) — not
  * a substitute for an accredited calibration.
  *
- * <p>From the ascending readings only, every series together: the adopted kind of curve is
- * fitted to them, the standard deviation s of their residuals is taken in force units with
+ * <p>From the ascending readings only, every series together: the adopted curve is fitted to
+ * them, the standard deviation s of their residuals is taken in force units with
  * n − m − 1 degrees of freedom (m the degree), the lower limit factor is LLF = 2.4·s, and the
  * lower limit of the verified range is 400·LLF for Class A and 2000·LLF for Class AA. Descending
  * readings do not enter s: hysteresis is reported on its own (and the reversibility in the ISO
@@ -40,7 +41,7 @@ public record AstmE74Result(
   public static final double CLASS_AA_FACTOR = 2000;
 
   /**
-   * @param ascendingFit the adopted kind of curve fitted to the ascending readings alone
+   * @param ascendingFit the adopted curve, fitted to the ascending readings alone
    * @param maxForce_N largest applied load, for the caveat
    */
   public static AstmE74Result of(FitResult ascendingFit, double maxForce_N) {
@@ -48,9 +49,10 @@ public record AstmE74Result(
     double llf = LLF_FACTOR * sd;
     double a = CLASS_A_FACTOR * llf;
     double aa = CLASS_AA_FACTOR * llf;
-    int n = ascendingFit.residuals().size();
-    int series = (int) ascendingFit.residuals().stream().mapToInt(r -> r.point().series())
-        .distinct().count();
+    List<CalibrationPoint> up = ascendingFit.residuals().stream().map(PointResidual::point)
+        .filter(p -> p.direction() == Direction.UP).toList();
+    int n = up.size();
+    int series = (int) up.stream().mapToInt(CalibrationPoint::series).distinct().count();
     String note = String.format(Locale.ROOT, "computed in the style of ASTM E74 — not a"
         + " substitute for an accredited calibration; from the %d ascending readings of %d"
         + " series (descending readings excluded: hysteresis is reported on its own)", n, series);

@@ -9,13 +9,10 @@ import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
-import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
-import java.nio.file.StandardOpenOption;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
@@ -23,15 +20,16 @@ import java.util.HexFormat;
 import java.util.List;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.loadstone.files.FileExistsException;
+import org.loadstone.files.FilePublisher;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
 /**
  * Reads and writes load-cell profiles and calibration documents as JSON.
  *
- * <p>A document is saved as {@code <dir>/<id>.json}. Saving never replaces a file: the content
- * goes to a temporary file in the same folder, is flushed to disk, and is then linked to the
- * target name, an operation that fails if the name exists. The content hash is SHA-256 over the
+ * <p>A document is saved as {@code <dir>/<id>.json}. Saving goes through {@link
+ * FilePublisher}, so a file is complete when it appears and never replaces another. The content hash is SHA-256 over the
  * canonical JSON of the document without its {@code content_sha256} field: object keys sorted,
  * no white space, numbers as Java prints doubles.
  */
@@ -186,41 +184,17 @@ public final class CalibrationFiles {
   private static Path save(Path dir, String id, Object value) {
     Precondition.notNull(dir, "dir");
     Path target = fileFor(dir, id);
-    if (Files.exists(target)) {
+    byte[] bytes;
+    try {
+      bytes = (MAPPER.writeValueAsString(value) + "\n").getBytes(StandardCharsets.UTF_8);
+    } catch (JsonProcessingException e) {
+      throw new IllegalStateException("cannot serialise " + target, e);
+    }
+    try {
+      return FilePublisher.publish(target, "calibration file", bytes);
+    } catch (FileExistsException e) {
       throw new LoadstoneException("file " + target + " exists and is never overwritten: save"
           + " under a new id, e.g. '" + freeId(dir, id) + "'");
-    }
-    Path tmp = null;
-    try {
-      byte[] bytes = (MAPPER.writeValueAsString(value) + "\n").getBytes(StandardCharsets.UTF_8);
-      tmp = Files.createTempFile(dir, "." + id + ".", ".tmp");
-      try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE)) {
-        ch.write(java.nio.ByteBuffer.wrap(bytes));
-        ch.force(true);
-      }
-      try {
-        Files.createLink(target, tmp);
-      } catch (UnsupportedOperationException | FileAlreadyExistsException e) {
-        if (e instanceof FileAlreadyExistsException) {
-          throw e;
-        }
-        Files.move(tmp, target);
-      }
-      return target;
-    } catch (FileAlreadyExistsException e) {
-      throw new LoadstoneException("file " + target + " appeared while saving and is never"
-          + " overwritten: save under a new id, e.g. '" + freeId(dir, id) + "'");
-    } catch (IOException e) {
-      throw new LoadstoneException("cannot save " + target + ": " + e.getMessage()
-          + ": check that the folder exists and is writable", e);
-    } finally {
-      if (tmp != null) {
-        try {
-          Files.deleteIfExists(tmp);
-        } catch (IOException ignored) {
-          // a stray temporary file is harmless; its name starts with a dot
-        }
-      }
     }
   }
 

@@ -11,6 +11,8 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import org.loadstone.files.FileExistsException;
+import org.loadstone.files.FilePublisher;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -29,8 +31,9 @@ public final class CalibrationService {
    * Fits every curve the points allow, recommends one, and computes the metrics.
    *
    * <p>Counts are taken relative to the ascending zero point of their series. Each series must
-   * have one; loads must not repeat within a series and direction; at least three distinct loads
-   * (zero and two more) are needed.
+   * have one; loads must not repeat within a series and direction. The curves are fitted to the
+   * ascending readings of every series (at least three distinct loads: zero and two more); the
+   * descending readings give the hysteresis, the reversibility and the zero return.
    *
    * @param points calibration points, not null, not empty
    * @param settings force model, full scale and chosen fit; not null
@@ -55,8 +58,8 @@ public final class CalibrationService {
     long distinct = CurveFitting.distinctLoads(pts);
     if (distinct < 3) {
       throw new LoadstoneException("fewer points than the fit needs: " + distinct + " distinct"
-          + " load(s) given, a straight-line calibration needs at least 3 (zero and two loads);"
-          + " add points across the range");
+          + " ascending load(s) given, a straight-line calibration needs at least 3 (zero and two"
+          + " loads, read going up); add points across the range");
     }
     Map<Integer, Double> zero = CurveFitting.zeroCounts(pts);
     double[] net = new double[pts.size()];
@@ -71,7 +74,7 @@ public final class CalibrationService {
     for (FitKind kind : FitKind.values()) {
       if (distinct < kind.parameters() + 1L) {
         notes.add(kind.label() + " not fitted: needs at least " + (kind.parameters() + 1)
-            + " distinct loads, there are " + distinct);
+            + " distinct ascending loads, there are " + distinct);
         continue;
       }
       try {
@@ -94,13 +97,12 @@ public final class CalibrationService {
               .orElse("not fitted") + "; choose another fit or leave the choice to the"
               + " recommendation (" + rec.kind().label() + ")");
     }
-    FitResult ascending = CurveFitting.ascendingFit(chosen, pts, net, fs);
     AstmE74Result astm = null;
-    if (ascending != null && ascending.degreesOfFreedom() > 0) {
-      astm = AstmE74Result.of(ascending, maxForce);
+    if (chosenFit.degreesOfFreedom() > 0) {
+      astm = AstmE74Result.of(chosenFit, maxForce);
     } else {
-      notes.add("ASTM E74 style figures not assessed: the ascending readings alone cannot carry"
-          + " a " + chosen.label() + " fit with a degree of freedom left; add ascending loads");
+      notes.add("ASTM E74 style figures not assessed: the " + chosen.label() + " fit leaves no"
+          + " degree of freedom in the ascending readings; add ascending loads");
     }
     Iso7500Result iso = Iso7500Style.evaluate(chosenFit, lin.sensitivity_counts_per_N(), fs);
     return new CalibrationReport(pts, zero, settings, fs, maxForce,
@@ -200,18 +202,12 @@ public final class CalibrationService {
       String comment) {
     Path f = dir.resolve(id + ".points.csv");
     try {
-      java.nio.file.Files.createDirectories(dir);
-      java.nio.file.Files.writeString(f, PointsCsv.format(points, comment),
-          java.nio.charset.StandardCharsets.UTF_8, java.nio.file.StandardOpenOption.CREATE_NEW,
-          java.nio.file.StandardOpenOption.WRITE);
-      return f;
-    } catch (java.nio.file.FileAlreadyExistsException e) {
+      return FilePublisher.publish(f, "points file",
+          PointsCsv.format(points, comment).getBytes(java.nio.charset.StandardCharsets.UTF_8));
+    } catch (FileExistsException e) {
       throw new LoadstoneException("points file " + f + " exists and is never overwritten:"
           + " save under another calibration id, e.g. '" + CalibrationFiles.freeId(dir, id)
           + "'");
-    } catch (java.io.IOException e) {
-      throw new LoadstoneException("cannot save points to " + f + ": " + e.getMessage()
-          + ": check the folder and its permissions", e);
     }
   }
 

@@ -5,11 +5,11 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardOpenOption;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.loadstone.files.FileLog;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -63,15 +63,14 @@ public final class CheckWeights {
    * @throws LoadstoneException when the log cannot be written
    */
   public static void append(Path calibrationFile, CheckWeightResult result) {
-    Path log = logFile(calibrationFile);
+    String line;
     try {
-      String line = CalibrationFiles.COMPACT_LINE.writeValueAsString(result) + "\n";
-      Files.writeString(log, line, StandardCharsets.UTF_8, StandardOpenOption.CREATE,
-          StandardOpenOption.APPEND, StandardOpenOption.WRITE, StandardOpenOption.SYNC);
-    } catch (IOException e) {
-      throw new LoadstoneException("cannot append to check-weight log " + log + ": "
-          + e.getMessage() + ": check that the folder is writable", e);
+      line = CalibrationFiles.COMPACT_LINE.writeValueAsString(result) + "\n";
+    } catch (JsonProcessingException e) {
+      throw new IllegalStateException("cannot serialise a check-weight result", e);
     }
+    FileLog.append(logFile(calibrationFile), "check-weight log",
+        line.getBytes(StandardCharsets.UTF_8));
   }
 
   /**

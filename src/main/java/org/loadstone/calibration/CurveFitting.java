@@ -1,6 +1,7 @@
 package org.loadstone.calibration;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
@@ -36,65 +37,57 @@ final class CurveFitting {
     return zero;
   }
 
+  /**
+   * Fits {@code kind} to the ascending readings (every series together) and evaluates it at
+   * every reading. The curve, its degrees of freedom and its residual SDs come from the
+   * ascending readings alone, as ASTM E74 takes them: a test loads the cell upwards, and the
+   * descending readings carry the hysteresis, reported on its own. The residuals of descending
+   * readings are listed too (they show the hysteresis through the curve).
+   *
+   * @throws LoadstoneException when the ascending readings have too few distinct loads, or the
+   *     curve is not monotonic over their range
+   */
   static FitResult fit(FitKind kind, List<CalibrationPoint> points, double[] net, double fs_N) {
-    double[] x = points.stream().mapToDouble(CalibrationPoint::force_N).toArray();
-    LeastSquares.Result ls = LeastSquares.polynomial(x, net, kind.degree(), kind.hasOffset());
-    double max = points.stream().mapToDouble(CalibrationPoint::force_N).max().orElseThrow();
-    double min = points.stream().mapToDouble(CalibrationPoint::force_N).min().orElseThrow();
+    List<Integer> up = ascending(points);
+    double[] x = up.stream().mapToDouble(i -> points.get(i).force_N()).toArray();
+    double[] y = up.stream().mapToDouble(i -> net[i]).toArray();
+    LeastSquares.Result ls = LeastSquares.polynomial(x, y, kind.degree(), kind.hasOffset());
+    double max = Arrays.stream(x).max().orElseThrow();
+    double min = Arrays.stream(x).min().orElseThrow();
     CountsToForce inv = new CountsToForce(ls.polynomial(), min, max);
     List<PointResidual> res = new ArrayList<>();
     double ss = 0;
     double worst = 0;
-    for (int i = 0; i < x.length; i++) {
+    for (int i = 0; i < points.size(); i++) {
+      double f = points.get(i).force_N();
       double ind = inv.force_N(net[i]);
-      double err = ind - x[i];
-      ss += err * err;
+      double err = ind - f;
       double pctFs = 100 * err / fs_N;
-      worst = Math.max(worst, Math.abs(pctFs));
+      if (points.get(i).direction() == Direction.UP) {
+        ss += err * err;
+        worst = Math.max(worst, Math.abs(pctFs));
+      }
       res.add(new PointResidual(points.get(i), net[i], ind, err,
-          x[i] == 0 ? null : 100 * err / x[i], pctFs));
+          f == 0 ? null : 100 * err / f, pctFs));
     }
     int dof = ls.degreesOfFreedom();
     return new FitResult(kind, ls.polynomial(), inv, dof, ls.residualSd(),
         dof > 0 ? Math.sqrt(ss / dof) : Double.NaN, worst, res);
   }
 
-  /**
-   * The fit of {@code kind} to the ascending points alone (all series together, counts relative
-   * to each series' zero), as ASTM E74 bases its figures on: descending readings carry the
-   * hysteresis, which is reported on its own and must not widen the standard deviation of the
-   * fit.
-   *
-   * @return the fit, or null when the ascending points cannot carry it (too few distinct loads,
-   *     no degree of freedom left, or not monotonic)
-   */
-  static FitResult ascendingFit(
-      FitKind kind, List<CalibrationPoint> points, double[] net, double fs_N) {
-    List<CalibrationPoint> up = new ArrayList<>();
-    List<Double> upNet = new ArrayList<>();
+  /** @return the indices of the ascending readings, in order */
+  static List<Integer> ascending(List<CalibrationPoint> points) {
+    List<Integer> up = new ArrayList<>();
     for (int i = 0; i < points.size(); i++) {
       if (points.get(i).direction() == Direction.UP) {
-        up.add(points.get(i));
-        upNet.add(net[i]);
+        up.add(i);
       }
     }
-    if (distinctLoads(up) < kind.parameters() + 1L) {
-      return null;
-    }
-    try {
-      return fit(kind, up, upNet.stream().mapToDouble(Double::doubleValue).toArray(), fs_N);
-    } catch (LoadstoneException e) {
-      return null;
-    }
+    return up;
   }
 
   static LinearityMetrics linearity(List<CalibrationPoint> points, double[] net, double fs_N) {
-    List<Integer> upIdx = new ArrayList<>();
-    for (int i = 0; i < points.size(); i++) {
-      if (points.get(i).direction() == Direction.UP) {
-        upIdx.add(i);
-      }
-    }
+    List<Integer> upIdx = ascending(points);
     double[] x = upIdx.stream().mapToDouble(i -> points.get(i).force_N()).toArray();
     double[] y = upIdx.stream().mapToDouble(i -> net[i]).toArray();
     Polynomial line = LeastSquares.polynomial(x, y, 1, true).polynomial();
@@ -145,8 +138,10 @@ final class CurveFitting {
         hyst == null ? null : 100 * hyst / fs_N, rep == null ? null : 100 * rep / fs_N);
   }
 
+  /** @return how many distinct loads the ascending readings have */
   static long distinctLoads(List<CalibrationPoint> points) {
-    return points.stream().map(CalibrationPoint::force_N).distinct().count();
+    return points.stream().filter(p -> p.direction() == Direction.UP)
+        .map(CalibrationPoint::force_N).distinct().count();
   }
 
   static List<CalibrationPoint> sorted(List<CalibrationPoint> points) {

@@ -23,12 +23,12 @@ import org.loadstone.analysis.stats.Distributions;
  * the 95 % promise allows, and so more than that in about half of any set of calibrations.
  *
  * <p>The higher degree is considered only when it leaves at least {@value #MIN_RESIDUAL_DOF}
- * residual degrees of freedom (with one, the test rests on a single
- * residual) and its curve is monotonic over the calibrated range. Sums of squares are in counts,
- * the quantity the curves are fitted in. When the straight line is the truth the rule adopts a
- * higher degree in at most {@value #ALPHA} of calibrations, whatever the number of points. The
- * fit through zero is offered for comparison but never recommended: the offset term also
- * absorbs a small zero shift between the zero reading and the loaded readings.
+ * residual degrees of freedom (with one, the test rests on a single residual) and its curve is
+ * monotonic over the calibrated range. Sums of squares are in counts, the quantity the curves are
+ * fitted in, over the ascending readings the curves are fitted to. When the straight line is the
+ * truth the rule adopts a higher degree in at most {@value #ALPHA} of calibrations, whatever the
+ * number of points. The fit through zero is offered for comparison but never recommended: the
+ * offset term also absorbs a small zero shift between the zero reading and the loaded readings.
  */
 final class FitChoice {
   /** Significance level of the whole choice. */

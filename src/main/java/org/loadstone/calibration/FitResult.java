@@ -8,11 +8,13 @@ import java.util.List;
  * @param kind the model
  * @param countsOfForce net counts as a polynomial in force (N), lowest order first
  * @param inverse the counts → force use of the curve over the calibrated range
- * @param degreesOfFreedom points minus fitted coefficients
- * @param residualSd_counts sqrt(SSE / dof) of the fit in counts
- * @param residualSd_N sqrt(Σ error_N² / dof), the residuals taken as force through the inverse
- * @param maxError_pct_fs largest |error| in % of full scale
- * @param residuals one per point, in the order of the points
+ * @param degreesOfFreedom ascending readings minus fitted coefficients (the curve is fitted to
+ *     the ascending readings of every series)
+ * @param residualSd_counts sqrt(SSE / dof) of the fit in counts, ascending readings
+ * @param residualSd_N sqrt(Σ error_N² / dof) over the ascending readings, the residuals taken as
+ *     force through the inverse
+ * @param maxError_pct_fs largest |error| of an ascending reading, % of full scale
+ * @param residuals one per point, descending readings too, in the order of the points
  */
 public record FitResult(
     FitKind kind,

@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import java.io.FileOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.io.PrintWriter;
@@ -15,6 +14,7 @@ import org.loadstone.device.SimTransport;
 import org.loadstone.sim.Scenario;
 import org.loadstone.protocol.Encoding;
 import org.loadstone.protocol.WireEncoder;
+import org.loadstone.files.FilePublisher;
 import org.loadstone.units.LoadstoneException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -71,27 +71,15 @@ public final class SimulateCommand implements Callable<Integer> {
     WireEncoder enc = new WireEncoder(binary ? Encoding.BINARY : Encoding.TEXT);
     PrintWriter err = spec.commandLine().getErr();
     long started = System.nanoTime();
-    try (OutputStream os = openOut()) {
-      String id = SimTransport.identityBody(source);
-      os.write(enc.body(id));
-      byte[] buf = new byte[256 * 1024];
-      SampleSource.SampleSlot slot = new SampleSource.SampleSlot();
-      long written = 0;
-      while (written < total) {
-        long due = unpaced ? total
-            : Math.min(total, (long) ((System.nanoTime() - started) / 1e9 * rateHz) + 1);
-        int w = 0;
-        while (written < due && buf.length - w >= WireEncoder.MAX_SAMPLE_BYTES) {
-          source.next(slot);
-          w += enc.sample(buf, w, slot.seq, slot.deviceUs, slot.counts, source.hasPosition(),
-              slot.positionCounts);
-          written++;
-        }
-        if (w > 0) {
-          os.write(buf, 0, w);
-          os.flush();
-        } else {
-          sleepQuietly(Math.max(1, Math.min(10, (long) (1000 / rateHz))));
+    Path file = regularFile();
+    try {
+      if (file != null) {
+        // a file appears whole when the stream is complete, and never replaces another
+        FilePublisher.publish(file, "simulated device stream",
+            os -> stream(os, source, enc, total, started));
+      } else {
+        try (OutputStream os = openOut()) {
+          stream(os, source, enc, total, started);
         }
       }
     } catch (IOException e) {
@@ -105,6 +93,42 @@ public final class SimulateCommand implements Callable<Integer> {
     return 0;
   }
 
+  private void stream(OutputStream os, SampleSource source, WireEncoder enc, long total,
+      long started) throws IOException {
+    String id = SimTransport.identityBody(source);
+    os.write(enc.body(id));
+    byte[] buf = new byte[256 * 1024];
+    SampleSource.SampleSlot slot = new SampleSource.SampleSlot();
+    long written = 0;
+    while (written < total) {
+      long due = unpaced ? total
+          : Math.min(total, (long) ((System.nanoTime() - started) / 1e9 * rateHz) + 1);
+      int w = 0;
+      while (written < due && buf.length - w >= WireEncoder.MAX_SAMPLE_BYTES) {
+        source.next(slot);
+        w += enc.sample(buf, w, slot.seq, slot.deviceUs, slot.counts, source.hasPosition(),
+            slot.positionCounts);
+        written++;
+      }
+      if (w > 0) {
+        os.write(buf, 0, w);
+        os.flush();
+      } else {
+        sleepQuietly(Math.max(1, Math.min(10, (long) (1000 / rateHz))));
+      }
+    }
+  }
+
+  /** @return the output as a regular file to publish, or null for standard output or a device */
+  private Path regularFile() {
+    if (out.equals("-")) {
+      return null;
+    }
+    Path p = Path.of(out);
+    boolean device = out.startsWith("/dev/") || (Files.exists(p) && !Files.isRegularFile(p));
+    return device ? null : p;
+  }
+
   private OutputStream openOut() throws IOException {
     if (out.equals("-")) {
       return new java.io.FilterOutputStream(System.out) {
@@ -115,16 +139,11 @@ public final class SimulateCommand implements Callable<Integer> {
       };
     }
     Path p = Path.of(out);
-    boolean device = out.startsWith("/dev/") || (Files.exists(p) && !Files.isRegularFile(p));
-    if (!device && Files.exists(p)) {
-      throw new LoadstoneException("output file " + out + " already exists: choose a new name "
-          + "(simulate never overwrites a file)");
-    }
-    if (device && !Files.isWritable(p)) {
+    if (!Files.isWritable(p)) {
       throw new LoadstoneException("cannot write to device " + out + ": check the path and, on "
           + "Linux, membership of the dialout group");
     }
-    return new FileOutputStream(p.toFile());
+    return Files.newOutputStream(p, java.nio.file.StandardOpenOption.WRITE);
   }
 
   private static void sleepQuietly(long ms) {

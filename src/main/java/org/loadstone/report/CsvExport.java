@@ -6,6 +6,7 @@ import java.math.BigDecimal;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import org.loadstone.archive.RunData;
+import org.loadstone.files.FilePublisher;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -48,7 +49,7 @@ public final class CsvExport {
           + "', so numbers could not be told apart; use ';' with ',' or ',' with '.'.");
     }
     String d = String.valueOf(delimiter);
-    SafeFiles.write(file, "CSV file", out -> {
+    FilePublisher.publish(file, "CSV file", out -> {
       BufferedWriter w = new BufferedWriter(new OutputStreamWriter(out, StandardCharsets.UTF_8));
       w.write(String.join(d, COLUMNS));
       w.write("\r\n");

@@ -11,6 +11,7 @@ import java.util.Map;
 import org.loadstone.analysis.stats.GroupSummary;
 import org.loadstone.archive.Geometry;
 import org.loadstone.archive.RunMetadata;
+import org.loadstone.files.FilePublisher;
 import org.loadstone.study.GroupStudy;
 import org.loadstone.study.LeftOut;
 import org.loadstone.study.Metric;
@@ -216,7 +217,7 @@ public final class PdfReport {
 
   private static void save(PdfLayout p, Path file) {
     try {
-      SafeFiles.write(file, "PDF report", p::save);
+      FilePublisher.publish(file, "PDF report", p::save);
     } catch (UncheckedIOException e) {
       throw new LoadstoneException("Cannot build the PDF report " + file + ": "
           + e.getCause().getMessage(), e);

@@ -3,6 +3,7 @@ package org.loadstone.report;
 import java.nio.file.Path;
 import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
+import org.loadstone.files.FilePublisher;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -26,7 +27,7 @@ public final class PngExport {
       throw new LoadstoneException("Image size " + width_px + " x " + height_px + " px is out of "
           + "range; give 16 to 10000 pixels each way.");
     }
-    SafeFiles.write(file, "image", out -> ChartUtils.writeChartAsPNG(out, chart, width_px,
+    FilePublisher.publish(file, "image", out -> ChartUtils.writeChartAsPNG(out, chart, width_px,
         height_px));
   }
 }

@@ -6,9 +6,10 @@ import com.fasterxml.jackson.annotation.JsonProperty;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
+import com.fasterxml.jackson.core.JsonProcessingException;
+import org.loadstone.files.FileExistsException;
+import org.loadstone.files.FilePublisher;
 import org.loadstone.units.LoadstoneException;
 
 /**
@@ -55,34 +56,20 @@ public record FrameProfile(
   }
 
   /**
-   * Writes {@code <dir>/<id>.json}; never overwrites.
+   * Writes {@code <dir>/<id>.json} through {@link FilePublisher}; never overwrites.
    *
    * @return the file
+   * @throws LoadstoneException when the file exists or cannot be written, naming it and the fix
    */
   public Path save(Path dir) {
     Path file = dir.resolve(SafeNames.forFile(id) + ".json");
-    if (Files.exists(file)) {
-      throw new LoadstoneException("frame profile " + file + " already exists: choose another "
-          + "--id (profiles are never overwritten)");
-    }
     try {
-      Files.createDirectories(dir);
-      Path tmp = Files.createTempFile(dir, ".frame", ".tmp");
-      JSON.writeValue(tmp.toFile(), this);
-      try {
-        Files.createLink(file, tmp);
-        Files.delete(tmp);
-      } catch (UnsupportedOperationException | IOException linkFailed) {
-        if (Files.exists(file)) {
-          Files.deleteIfExists(tmp);
-          throw new LoadstoneException("frame profile " + file + " already exists");
-        }
-        Files.move(tmp, file, StandardCopyOption.ATOMIC_MOVE);
-      }
-      return file;
-    } catch (IOException e) {
-      throw new LoadstoneException("frame profile " + file + " cannot be written: "
-          + e.getMessage() + ": check the folder and free space", e);
+      return FilePublisher.publish(file, "frame profile", JSON.writeValueAsBytes(this));
+    } catch (FileExistsException e) {
+      throw new LoadstoneException("frame profile " + file + " already exists and profiles are"
+          + " never overwritten: give the frame another name");
+    } catch (JsonProcessingException e) {
+      throw new IllegalStateException("cannot serialise frame profile " + id, e);
     }
   }
 }

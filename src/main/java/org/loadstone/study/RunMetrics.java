@@ -122,7 +122,7 @@ public record RunMetrics(
    */
   public static Curve curveOf(RunData data) {
     Precondition.notNull(data, "data");
-    return new Curve(data.time_s(), data.force_N(), data.position_mm());
+    return Curve.over(data.time_s(), data.force_N(), data.position_mm());
   }
 
   private static int firstPeak(double[] f) {

@@ -1,8 +1,9 @@
 package org.loadstone.ui;
 
-import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import org.loadstone.files.FilePublisher;
+import org.loadstone.units.LoadstoneException;
 
 /** The safety cautions shown on first start, and whether this user has acknowledged them. */
 public final class SafetyNotice {
@@ -36,10 +37,10 @@ public final class SafetyNotice {
   /** Records that the user has read the notice; a failure to write only means it shows again. */
   public void acknowledge() {
     try {
-      Files.createDirectories(marker.getParent());
-      Files.writeString(marker, java.time.Instant.now().toString() + "\n");
-    } catch (IOException e) {
-      // shown again next start; nothing else depends on it
+      FilePublisher.publish(marker, "safety acknowledgement",
+          (java.time.Instant.now() + "\n").getBytes(java.nio.charset.StandardCharsets.UTF_8));
+    } catch (LoadstoneException e) {
+      // already acknowledged, or shown again next start; nothing else depends on it
     }
   }
 }

@@ -15,6 +15,7 @@ import java.util.List;
 import java.util.zip.CRC32C;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.loadstone.files.FakeDisk;
 import org.loadstone.units.LoadstoneException;
 
 class JournalRecoveryTest {
@@ -158,8 +159,8 @@ class JournalRecoveryTest {
   void writeFailureDuringRecoveryKeepsTheJournalAndSaysSo() throws Exception {
     Path j = journal("j7", false, 2000);
     byte[] before = Files.readAllBytes(j);
-    RunWriter full = new RunWriter((p, o) -> new RunWriterTest.FullDisk(o, 4096));
-    assertThatThrownBy(() -> JournalRecovery.recoverAll(archive, notices::add, full))
+    FakeDisk full = FakeDisk.create().bytesLeft(4096);
+    assertThatThrownBy(() -> JournalRecovery.recoverAll(full.path(archive), notices::add))
         .isInstanceOf(LoadstoneException.class)
         .hasMessageContaining("could not be recovered")
         .hasMessageContaining("No space left on device")

@@ -3,9 +3,7 @@ package org.loadstone.archive;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
-import java.io.FilterOutputStream;
 import java.io.IOException;
-import java.io.OutputStream;
 import java.nio.ByteBuffer;
 import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
@@ -15,10 +13,12 @@ import java.util.List;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.loadstone.files.FakeDisk;
 import org.loadstone.units.LoadstoneException;
 
 class RunWriterTest {
   @TempDir Path tmp;
+  @TempDir Path scratch;
 
   private static List<String> names(Path dir) throws IOException {
     try (Stream<Path> s = Files.list(dir)) {
@@ -61,16 +61,17 @@ class RunWriterTest {
   }
 
   @Test
-  void withoutHardLinksTheAtomicMoveAlsoNeverOverwrites() throws Exception {
-    RunWriter noLinks = new RunWriter((p, o) -> o, false);
+  void withoutHardLinksTheFallbackAlsoNeverOverwrites() throws Exception {
+    FakeDisk stick = FakeDisk.create().withoutLinks(); // as a FAT or exFAT stick
     RunData d = RunFixtures.randomData(9, 50, true);
-    StoredRun s = noLinks.store(tmp, RunFixtures.fullMetadata("r8"), d);
-    RunRoundTripTest.assertSameData(d, RunReader.read(s.csv()).data());
+    RunWriter.write(stick.path(tmp), RunFixtures.fullMetadata("r8"), d);
+    assertThat(stick.linksRefused()).isEqualTo(2);
+    RunRoundTripTest.assertSameData(d, RunReader.read(tmp.resolve("r8.csv")).data());
     assertThat(names(tmp)).containsExactly("r8.csv", "r8.json");
-    byte[] before = Files.readAllBytes(s.csv());
-    assertThatThrownBy(() -> noLinks.store(tmp, RunFixtures.fullMetadata("r8"), d))
+    byte[] before = Files.readAllBytes(tmp.resolve("r8.csv"));
+    assertThatThrownBy(() -> RunWriter.write(stick.path(tmp), RunFixtures.fullMetadata("r8"), d))
         .isInstanceOf(LoadstoneException.class).hasMessageContaining("already exists");
-    assertThat(Files.readAllBytes(s.csv())).isEqualTo(before);
+    assertThat(Files.readAllBytes(tmp.resolve("r8.csv"))).isEqualTo(before);
     assertThat(names(tmp)).containsExactly("r8.csv", "r8.json");
   }
 
@@ -106,32 +107,6 @@ class RunWriterTest {
         .hasMessageContaining("choose a folder you may write to");
   }
 
-  /** Lets {@code limit} bytes through, then fails as a full disk does. */
-  static final class FullDisk extends FilterOutputStream {
-    private long left;
-
-    FullDisk(OutputStream out, long limit) {
-      super(out);
-      left = limit;
-    }
-
-    @Override
-    public void write(int b) throws IOException {
-      write(new byte[] {(byte) b}, 0, 1);
-    }
-
-    @Override
-    public void write(byte[] b, int off, int len) throws IOException {
-      if (len > left) {
-        out.write(b, off, (int) left);
-        left = 0;
-        throw new IOException("No space left on device");
-      }
-      left -= len;
-      out.write(b, off, len);
-    }
-  }
-
   @Test
   void diskFullMidWriteRemovesThePartialFileKeepsTheJournalAndSaysSo() throws Exception {
     RunMetadata m = RunFixtures.startMetadata("r5", false);
@@ -142,23 +117,23 @@ class RunWriterTest {
       j.write(b);
     }
     byte[] journalBefore = Files.readAllBytes(JournalFormat.journalFile(tmp, "r5"));
-    RunWriter failing = new RunWriter((p, o) -> new FullDisk(o, 100_000));
     RunData big = RunFixtures.randomData(3, 20_000, true);
-    assertThatThrownBy(() -> failing.store(tmp, m, big))
+    FakeDisk nearlyFull = FakeDisk.create().bytesLeft(100_000);
+    assertThatThrownBy(() -> RunWriter.write(nearlyFull.path(tmp), m, big))
         .isInstanceOf(LoadstoneException.class)
-        .hasMessageContaining("cannot write run file " + tmp.resolve("r5.csv"))
+        .hasMessageContaining("run file " + tmp.resolve("r5.csv") + " cannot be written")
         .hasMessageContaining("No space left on device")
-        .hasMessageContaining("free disk space")
+        .hasMessageContaining("free space")
         .hasMessageContaining("journal");
     assertThat(names(tmp)).containsExactly(".journal");
     assertThat(Files.readAllBytes(JournalFormat.journalFile(tmp, "r5"))).isEqualTo(journalBefore);
 
-    // the sidecar failing (after the CSV temp file was complete) is cleaned up the same way
-    RunWriter failingJson = new RunWriter((p, o) -> p.toString().endsWith(".json.tmp")
-        ? new FullDisk(o, 10) : o);
-    assertThatThrownBy(() -> failingJson.store(tmp, m, big))
+    // the sidecar failing (after the CSV temporary file was complete) is cleaned up the same way
+    long csvBytes = Files.size(RunWriter.write(scratch, m, big).csv());
+    FakeDisk fullAtTheSidecar = FakeDisk.create().bytesLeft(csvBytes + 10);
+    assertThatThrownBy(() -> RunWriter.write(fullAtTheSidecar.path(tmp), m, big))
         .isInstanceOf(LoadstoneException.class)
-        .hasMessageContaining("cannot write run file " + tmp.resolve("r5.json"));
+        .hasMessageContaining("run file " + tmp.resolve("r5.json") + " cannot be written");
     assertThat(names(tmp)).containsExactly(".journal");
   }
 

@@ -15,6 +15,7 @@ import java.util.HexFormat;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.loadstone.files.FakeDisk;
 import org.loadstone.units.LoadstoneException;
 
 class CalibrationFilesTest {
@@ -79,6 +80,21 @@ class CalibrationFilesTest {
       return sb.append(']').toString();
     }
     return n.toString();
+  }
+
+  @Test
+  void savesToAStickWithoutHardLinks() throws Exception {
+    FakeDisk stick = FakeDisk.create().withoutLinks(); // FAT/exFAT refuse hard links (EPERM)
+    CalibrationDocument d = doc("stick");
+    Path f = CalibrationFiles.saveCalibration(stick.path(dir), d);
+    assertThat(stick.linksRefused()).isEqualTo(1);
+    assertThat(CalibrationFiles.readCalibration(dir.resolve("stick.json"))).isEqualTo(d);
+    assertThatThrownBy(() -> CalibrationFiles.saveCalibration(stick.path(dir), d))
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("'stick-2'");
+    try (var s = Files.list(dir)) {
+      assertThat(s.map(p -> p.getFileName().toString())).containsExactly("stick.json");
+    }
+    assertThat(f.toString()).isEqualTo(dir.resolve("stick.json").toString());
   }
 
   @Test

@@ -68,9 +68,11 @@ class CalibrationServiceTest {
 
   /**
    * Three series up and down, 0…1000 N in 200 N steps, exactly 100 counts/N apart from chosen
-   * deviations (counts). At each load the up and down deviations of all series sum to zero, so
-   * the straight line through all points is exactly 100·F and the indicated force of a point is
-   * F + deviation/100.
+   * deviations (counts). The curve is fitted to the ascending readings: their mean deviations
+   * per load are [0, 0, 120, 0, 0, 0], so their least-squares line has the slope
+   * k = 100 + Σ(x − 500)·dev/Σ(x − 500)² = 100 − 100·120/700000 counts/N and the intercept
+   * c = 20 + (100·120/700000)·500 counts (mean deviation 20 less the slope change times 500 N);
+   * a reading of n net counts indicates (n − c)/k N.
    *
    * <pre>
    * load   up s1  up s2  up s3   down s1 down s2 down s3
@@ -100,39 +102,45 @@ class CalibrationServiceTest {
   void iso7500FiguresAndClassOfAConstructedSet() {
     CalibrationReport r = CalibrationService.fitFromPoints(isoSet(),
         CalibrationSettings.defaults().withChosenFit(FitKind.LINEAR));
-    assertThat(r.chosenFit().countsOfForce().coefficient(1)).isCloseTo(100, within(1e-11));
+    double k = 100 - 12000.0 / 700000;
+    double c = 20 + 12000.0 / 700000 * 500;
+    assertThat(r.chosenFit().countsOfForce().coefficient(1)).isCloseTo(k, within(1e-9));
+    assertThat(r.chosenFit().countsOfForce().coefficient(0)).isCloseTo(c, within(1e-7));
     Iso7500Result iso = r.iso();
     assertThat(iso.points()).hasSize(5);
     Iso7500Result.Point p200 = iso.points().get(0);
     Iso7500Result.Point p400 = iso.points().get(1);
-    // By hand, ISO 7500-1 definitions: q = (F̄i − F)/F, b = (Fi,max − Fi,min)/F̄i,
-    // v = (Fi,down − Fi,up)/F (largest magnitude over the series), all × 100.
-    // 200 N: indicated 200.2, 199.8, 200.0 → q = 0; b = 0.4/200 = 0.2 %;
-    //        v = (0.3−0.2)/200, (−0.1+0.2)/200, (−0.2−0)/200 → −0.1 %
-    assertThat(p200.q_pct()).isCloseTo(0, within(1e-9));
-    assertThat(p200.b_pct()).isCloseTo(0.2, within(1e-9));
-    assertThat(p200.v_pct()).isCloseTo(-0.1, within(1e-9));
+    // By hand, ISO 7500-1 definitions (from memory): q = (F̄i − F)/F, b = (Fi,max − Fi,min)/F̄i,
+    // v = (Fi,down − Fi,up)/F (largest magnitude over the series), all × 100; Fi = (n − c)/k.
+    // 200 N: up nets 20020, 19980, 20000 → mean (20000 − c)/k; spread 40/k; down − up per
+    //        series 10, 10, −20 counts → v = −20/k/200
+    double mean200 = (20000 - c) / k;
+    assertThat(p200.q_pct()).isCloseTo(100 * (mean200 - 200) / 200, within(1e-9));
+    assertThat(p200.b_pct()).isCloseTo(100 * 40 / k / mean200, within(1e-9));
+    assertThat(p200.v_pct()).isCloseTo(100 * -20 / k / 200, within(1e-9));
     assertThat(p200.pointClass()).isEqualTo("0.5");
-    // 400 N: indicated 402.4, 400.0, 401.2 → mean 401.2; q = 1.2/400 = 0.3 %;
-    //        b = 2.4/401.2 = 0.598205 %; v = (398.8 − 402.4)/400 = −0.9 %
+    // 400 N: up nets 40240, 40000, 40120 → mean (40120 − c)/k ≈ 400.98, q ≈ 0.246 %; spread
+    //        240/k, b ≈ 0.599 %; down − up −360, −120, −240 → v = −360/k/400 ≈ −0.900 %
     //        → b > 0.5 and |v| > 0.75 (class 0.5 limits) but within class 1 (1.0, 1.5)
-    assertThat(p400.q_pct()).isCloseTo(0.3, within(1e-9));
-    assertThat(p400.b_pct()).isCloseTo(100 * 2.4 / 401.2, within(1e-9));
-    assertThat(p400.v_pct()).isCloseTo(-0.9, within(1e-9));
+    double mean400 = (40120 - c) / k;
+    assertThat(p400.q_pct()).isCloseTo(100 * (mean400 - 400) / 400, within(1e-9));
+    assertThat(p400.b_pct()).isCloseTo(100 * 240 / k / mean400, within(1e-9));
+    assertThat(p400.v_pct()).isCloseTo(100 * -360 / k / 400, within(1e-9));
     assertThat(p400.pointClass()).isEqualTo("1");
     // resolution: SD 0 → one count = 0.01 N; at 200 N a = 0.005 %
     assertThat(p200.a_pct()).isCloseTo(100 * 0.01 / 200 * (100 / r.linearity()
         .sensitivity_counts_per_N()), within(1e-9));
-    // zero after unloading: 0.2, −0.1, −0.1 N → f0 = 0.2/1000 = 0.02 % (class 0.5 limit 0.05)
-    assertThat(iso.f0_pct()).isCloseTo(0.02, within(1e-9));
+    // zero after unloading, against the zero set at the start: 20/k, −10/k, −10/k N → f0 =
+    // 100·(20/k)/1000 ≈ 0.02 % (class 0.5 limit 0.05)
+    assertThat(iso.f0_pct()).isCloseTo(100 * 20 / k / 1000, within(1e-9));
     assertThat(iso.systemClass()).isEqualTo("1");
 
     // Linearity figures use the best straight line through the ascending points only. Mean up
     // deviations per load: [0, 0, 120, 0, 0, 0]. Slope of their least-squares line:
     // Σ(x − 500)·dev / Σ(x − 500)² = (−100·120)/700000 = −0.0171428… counts/N, so the
     // sensitivity is 100 − 0.0171428… ; intercept 20 + 0.0171428…·500 = 28.5714…
-    double slope = 100 - 12000.0 / 700000;
-    double icept = 20 + 12000.0 / 700000 * 500;
+    double slope = k;
+    double icept = c;
     assertThat(r.linearity().sensitivity_counts_per_N()).isCloseTo(slope, within(1e-9));
     // non-linearity: largest |dev − line| is at 400 N: 120 − (icept + (slope − 100)·400)
     double nl = 120 - (icept - 12000.0 / 700000 * 400);

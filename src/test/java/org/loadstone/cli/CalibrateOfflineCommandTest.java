@@ -141,7 +141,7 @@ class CalibrateOfflineCommandTest {
         "cubic", "--save", tmp.toString());
     assertThat(r.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     // four coefficients and one degree of freedom left for the residual SD
-    assertThat(r.err()).contains("cubic", "needs at least 5 distinct loads, there are 3");
+    assertThat(r.err()).contains("cubic", "needs at least 5 distinct ascending loads, there are 3");
     assertThat(tmp.resolve("c1-" + java.time.LocalDate.now() + ".json")).doesNotExist();
   }
 

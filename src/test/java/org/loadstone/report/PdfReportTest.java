@@ -18,6 +18,7 @@ import org.junit.jupiter.api.io.TempDir;
 import org.loadstone.study.Metric;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.archive.TestRuns;
+import org.loadstone.files.FakeDisk;
 import org.loadstone.units.LoadstoneException;
 
 class PdfReportTest {
@@ -59,6 +60,20 @@ class PdfReportTest {
         .contains("not an accredited calibration or certification");
     assertThatThrownBy(() -> PdfReport.writeRun(m, pdf))
         .isInstanceOf(LoadstoneException.class).hasMessageContaining("already exists");
+  }
+
+  @Test
+  void aRunReportIsWrittenToAStickWithoutHardLinksAndNeverOverAnother() throws IOException {
+    RunMetrics m = RunMetrics.of(TestRuns.meta("FO-18", "foam", TestRuns.panel(), 52.0),
+        TestRuns.bend(61, 455));
+    FakeDisk stick = FakeDisk.create().withoutLinks(); // FAT/exFAT refuse hard links (EPERM)
+    PdfReport.writeRun(m, stick.path(dir.resolve("stick.pdf")));
+    assertThat(stick.linksRefused()).isEqualTo(1);
+    assertThat(text(dir.resolve("stick.pdf"))).contains("Run report: FO-18");
+    byte[] before = Files.readAllBytes(dir.resolve("stick.pdf"));
+    assertThatThrownBy(() -> PdfReport.writeRun(m, stick.path(dir.resolve("stick.pdf"))))
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("already exists");
+    assertThat(Files.readAllBytes(dir.resolve("stick.pdf"))).isEqualTo(before);
   }
 
   @Test
