@@ -7,6 +7,7 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import org.loadstone.archive.FinishCause;
 import org.loadstone.archive.RunMetadata;
+import org.loadstone.device.PressOperator;
 import org.loadstone.protocol.DecoderCounters;
 import org.loadstone.protocol.HostCommand;
 import org.loadstone.units.LoadstoneException;
@@ -162,7 +163,9 @@ public final class Recorder implements AutoCloseable {
 
   /**
    * Arms (waits for the start threshold) and starts the recorder's thread. The start is decided
-   * on every sample from the one that arrives next, however late the thread gets to them.
+   * on every sample from the one that arrives next, however late the thread gets to them. On the
+   * simulated frame the program then stands in for the operator and starts the press ({@link
+   * PressOperator}).
    */
   public void arm() {
     arm(reader.ring().written());
@@ -180,6 +183,7 @@ public final class Recorder implements AutoCloseable {
     control.arm();
     decideFrom = fromIndex;
     thread.start();
+    PressOperator.forTransport(reader.transport()).runArmed();
   }
 
   /** Starts recording now, whatever the force (manual start), and starts the thread. */
@@ -188,6 +192,7 @@ public final class Recorder implements AutoCloseable {
     if (thread.getState() == Thread.State.NEW) {
       decideFrom = reader.ring().written();
       thread.start();
+      PressOperator.forTransport(reader.transport()).runArmed();
     }
   }
 
@@ -211,6 +216,11 @@ public final class Recorder implements AutoCloseable {
   public java.util.Optional<Result> await(long timeout, TimeUnit unit) throws InterruptedException {
     done.await(timeout, unit);
     return java.util.Optional.ofNullable(result);
+  }
+
+  /** @return whether the recorder's thread has ended (with a result, a failure or no run) */
+  public boolean ended() {
+    return done.getCount() == 0;
   }
 
   /** @return why the run could not be written, if it could not */
@@ -271,7 +281,17 @@ public final class Recorder implements AutoCloseable {
     } catch (RuntimeException e) {
       failure = "recording failed: " + e;
       listener.onFailed(failure);
+    } catch (Error e) {
+      // out of memory or worse: end this thread with a reason rather than leave callers waiting
+      failure = "recording stopped by " + e + (started == null ? "" : "; the run's samples are"
+          + " kept in its journal, which becomes a run at the next start");
+      listener.onFailed(failure);
     } finally {
+      if (result == null && failure == null && started != null && !closing) {
+        failure = "the run ended without being stored; its journal, if written, becomes a run at"
+            + " the next start";
+        listener.onFailed(failure);
+      }
       if (result == null && failure == null && started == null) {
         listener.onDisarmed(reader.lostReason().isPresent()
             ? "the device was lost before load came on: no run stored"
