@@ -66,17 +66,18 @@ public final class JournalRunStore implements RunStore {
           warnings.add(c.missedByJournal() + " samples were lost because the disk fell more than "
               + "a ring behind the device");
         }
-        RunMetadata m = meta.withWarnings(warnings);
+        // the journal settled the id: another station may have held the one asked for
+        RunMetadata m = meta.toBuilder().runId(journal.runId()).warnings(warnings).build();
         StoredRun s = RunWriter.write(archiveDir, m, d);
         try {
           Files.deleteIfExists(journal.file());
         } catch (IOException e) {
           // the run is written; a leftover journal would be recovered as a second copy, so say so
-          throw new org.loadstone.units.LoadstoneException("run " + meta.runId()
+          throw new org.loadstone.units.LoadstoneException("run " + m.runId()
               + " was written but its journal " + journal.file() + " could not be removed ("
               + e.getMessage() + "): delete it by hand to avoid a recovered duplicate", e);
         }
-        return new Stored(meta.runId(), s.csv(), s.json(), d.size());
+        return new Stored(m.runId(), s.csv(), s.json(), d.size());
       }
     };
   }
