@@ -7,6 +7,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.locks.LockSupport;
+import java.util.function.LongSupplier;
 import org.loadstone.archive.JournalFormat;
 import org.loadstone.archive.RunMetadata;
 import org.loadstone.units.LoadstoneException;
@@ -69,6 +70,10 @@ public final class JournalWriter implements AutoCloseable {
   private final Sink channel;
   private final SampleRing.Cursor cursor;
   private final Thread thread;
+  private final LongSupplier clock_ns;
+  private final long forceInterval_ns = TimeUnit.MILLISECONDS.toNanos(FORCE_INTERVAL_MS);
+  private long lastForce_ns;
+  private long target = -1;
   private final ByteBuffer buf = ByteBuffer.allocate(BATCH * JournalFormat.RECORD_BYTES);
   private volatile boolean stopRequested;
   private volatile boolean finished;
@@ -77,10 +82,15 @@ public final class JournalWriter implements AutoCloseable {
   private volatile long lost;
   private volatile Exception failure;
 
-  JournalWriter(Path file, Sink channel, SampleRing.Cursor cursor) {
+  /**
+   * @param clock_ns the writer's clock in ns ({@link System#nanoTime} outside tests)
+   */
+  JournalWriter(Path file, Sink channel, SampleRing.Cursor cursor, LongSupplier clock_ns) {
     this.file = file;
     this.channel = channel;
     this.cursor = cursor;
+    this.clock_ns = clock_ns;
+    this.lastForce_ns = clock_ns.getAsLong();
     this.thread = new Thread(this::loop, "loadstone-journal-" + file.getFileName());
     this.thread.setDaemon(true);
   }
@@ -105,7 +115,7 @@ public final class JournalWriter implements AutoCloseable {
       SampleRing.Cursor cursor) {
     Precondition.notNull(cursor, "cursor");
     JournalFormat.Opened j = JournalFormat.open(archiveDir, startInfo);
-    JournalWriter w = new JournalWriter(j.file(), of(j.channel()), cursor);
+    JournalWriter w = new JournalWriter(j.file(), of(j.channel()), cursor, System::nanoTime);
     w.runId = j.startInfo().runId();
     return w.begin();
   }
@@ -149,33 +159,9 @@ public final class JournalWriter implements AutoCloseable {
   }
 
   private void loop() {
-    long lastForce = System.nanoTime();
-    long intervalNs = TimeUnit.MILLISECONDS.toNanos(FORCE_INTERVAL_MS);
-    long target = -1;
     try {
-      while (true) {
-        if (stopRequested && target < 0) {
-          target = cursor.position() + cursor.available();
-        }
-        int n = cursor.drain(this::append, BATCH);
-        if (n > 0) {
-          buf.flip();
-          channel.write(buf);
-          buf.clear();
-          written += n;
-        }
-        lost = cursor.lost();
-        long now = System.nanoTime();
-        boolean done = target >= 0 && cursor.position() >= target;
-        if (written > durable && (done || now - lastForce >= intervalNs)) {
-          long w = written;
-          lastForce = now;
-          channel.force();
-          durable = w;
-        }
-        if (done) {
-          return;
-        }
+      int n;
+      while ((n = pass()) >= 0) {
         if (n == 0) {
           LockSupport.parkNanos(TimeUnit.MILLISECONDS.toNanos(POLL_MS));
         }
@@ -191,6 +177,42 @@ public final class JournalWriter implements AutoCloseable {
         }
       }
     }
+  }
+
+  /**
+   * One pass of the writer thread: appends what waits in the ring (at most one batch), and forces
+   * the file when unforced records exist and {@value #FORCE_INTERVAL_MS} ms have passed on the
+   * clock since the previous force, or when a requested stop has written everything. Tests call
+   * it directly with an injected clock instead of starting the thread.
+   *
+   * @return samples appended, or -1 once a requested stop is complete
+   */
+  int pass() throws IOException {
+    if (stopRequested && target < 0) {
+      target = cursor.position() + cursor.available();
+    }
+    int n = cursor.drain(this::append, BATCH);
+    if (n > 0) {
+      buf.flip();
+      channel.write(buf);
+      buf.clear();
+      written += n;
+    }
+    lost = cursor.lost();
+    long now = clock_ns.getAsLong();
+    boolean done = target >= 0 && cursor.position() >= target;
+    if (written > durable && (done || now - lastForce_ns >= forceInterval_ns)) {
+      long w = written;
+      lastForce_ns = now;
+      channel.force();
+      durable = w;
+    }
+    return done ? -1 : n;
+  }
+
+  /** Asks a writer whose thread was never started (tests) to finish at the next {@link #pass}. */
+  void requestStop() {
+    stopRequested = true;
   }
 
   private void append(long index, int seq, long deviceUs, long timeUs, int counts,

@@ -50,9 +50,11 @@ public final class Recorder implements AutoCloseable {
    * @param dropped samples missing from the device sequence during the run
    * @param checksumErrors checksum errors during the run
    * @param breakDetail the break, or null
+   * @param returnToZero_N force at the end of the run relative to the tare, once the load came
+   *     off; null when the run ended with load on the cell
    */
   public record Result(RunStore.Stored stored, FinishCause cause, double peak_N, long samples,
-      long dropped, long checksumErrors, BreakDetector.Break breakDetail) {}
+      long dropped, long checksumErrors, BreakDetector.Break breakDetail, Double returnToZero_N) {}
 
   /** What a status line shows. */
   public record Status(RunControl.State state, double force_N, double peak_N, double rateHz,
@@ -78,7 +80,7 @@ public final class Recorder implements AutoCloseable {
   private RunControl.Started started;
   private DecoderCounters atStart;
   private double runStartTime_s;
-  private double deviceRate_Hz;
+  private final ReturnToZero unloaded;
   private Instant startedAt;
 
   /**
@@ -98,8 +100,10 @@ public final class Recorder implements AutoCloseable {
     this.template = Precondition.notNull(template, "template");
     this.store = Precondition.notNull(store, "store");
     this.listener = listener == null ? new Listener() {} : listener;
-    double rate = template.sampleRate_Hz() > 0 ? template.sampleRate_Hz() : 80;
-    this.control = new RunControl(settings, rate);
+    this.control = new RunControl(settings, template.sampleRate_Hz());
+    this.unloaded = new ReturnToZero(
+        (int) Math.max(5, Math.round(template.sampleRate_Hz() * ReturnToZero.WINDOW_S)),
+        settings.startThreshold_N());
     this.warnings.addAll(template.warnings());
     this.thread = new Thread(this::loop, "loadstone-run-control");
     this.thread.setDaemon(true);
@@ -233,6 +237,9 @@ public final class Recorder implements AutoCloseable {
           }
           double f = scale.force_N(counts - zero_counts);
           lastForce_N = f;
+          if (started != null) {
+            unloaded.offer(f);
+          }
           control.offer(i, ring.oldestIndex(), tUs / 1e6, f, this::onEvent);
         }, 4096);
         if (n == 0) {
@@ -315,11 +322,12 @@ public final class Recorder implements AutoCloseable {
     if (b != null) {
       breakTime = b.time_s();
     }
-    deviceRate_Hz = deviceClockRate(started.firstIndex(), f.lastIndex());
     RunMetadata meta = copy(template, f.cause(), breakIndex, breakTime,
-        b == null ? null : b.peakBefore_N(), b == null ? null : b.dropPct(), dropped, crc, started);
+        b == null ? null : b.peakBefore_N(), b == null ? null : b.dropPct(), dropped, crc, started)
+        .toBuilder().returnToZero_N(unloaded.force_N()).build();
     RunStore.Stored stored = recording.finish(f.lastIndex(), meta);
-    result = new Result(stored, f.cause(), control.peak_N(), stored.samples(), dropped, crc, b);
+    result = new Result(stored, f.cause(), control.peak_N(), stored.samples(), dropped, crc, b,
+        meta.returnToZero_N());
     listener.onFinished(result);
   }
 
@@ -343,7 +351,8 @@ public final class Recorder implements AutoCloseable {
         .geometry(t.geometry())
         .testType(t.testType())
         .device(t.device())
-        .sampleRate_Hz(deviceRate_Hz > 0 ? deviceRate_Hz : t.sampleRate_Hz())
+        .sampleRate_Hz(t.sampleRate_Hz())
+        .sampleRateSource(t.sampleRateSource())
         .calibrationId(t.calibrationId())
         .calibrationSha256(t.calibrationSha256())
         .scale(t.scale())
@@ -363,16 +372,6 @@ public final class Recorder implements AutoCloseable {
         .softwareVersion(t.softwareVersion())
         .extra(t.extra())
         .build();
-  }
-
-  /** Sample rate by the device's own clock over the run, or 0 when it cannot be read. */
-  private double deviceClockRate(long first, long last) {
-    try {
-      long dt = reader.ring().timeUsAt(last) - reader.ring().timeUsAt(first);
-      return last > first && dt > 0 ? (last - first) * 1e6 / dt : 0;
-    } catch (IllegalArgumentException overwritten) {
-      return 0;
-    }
   }
 
   private static void sleep(long ms) {

@@ -1,10 +1,48 @@
 package org.loadstone.acquire;
 
+import java.lang.invoke.VarHandle;
+
 /**
  * A bounded ring of raw samples with one writer and any number of readers. The writer never waits:
- * it overwrites the oldest slot. Each reader keeps its own {@link Cursor}; a reader that falls more
- * than {@link #capacity()} samples behind is told how many it lost and jumps ahead. The writer is
- * the device reader thread; readers are the journal, run control and display feeds.
+ * it overwrites the oldest slot. Each reader keeps its own {@link Cursor}; a reader that falls
+ * {@link #capacity()} or more samples behind is told how many it lost and jumps to the oldest
+ * intact sample. A reader never receives a torn sample (fields from two different samples) or a
+ * sample under the wrong index. The writer is the device reader thread; readers are the journal,
+ * run control and display feeds.
+ *
+ * <h2>Why no reader can see a torn sample</h2>
+ *
+ * {@code head} counts the samples ever written. Sample {@code j} lives in slot {@code j mod
+ * capacity}; the writer stores its fields, then publishes {@code head = j + 1}.
+ *
+ * <ol>
+ *   <li><b>A published sample is complete.</b> {@code head} is volatile: its store is a release
+ *       and its load an acquire, so a reader that reads {@code head > j} also sees every field
+ *       the writer stored for sample {@code j} (or a later store to the same slot).
+ *   <li><b>The writer announces a rewrite before it starts it.</b> Sample {@code j + capacity}
+ *       reuses sample {@code j}'s slot. The writer stores into that slot only after it has
+ *       published {@code head = j + capacity}, and a {@link VarHandle#storeStoreFence()} at the
+ *       top of {@link #put} keeps that publication ahead of the slot stores that follow (a
+ *       volatile store alone lets later plain stores move before it).
+ *   <li><b>The reader copies, then checks.</b> A reader copies sample {@code j}'s fields into
+ *       locals, then (after a {@link VarHandle#loadLoadFence()}, which keeps the copy ahead of the
+ *       check; a volatile load alone lets earlier plain loads move after it) reads {@code head}
+ *       again as {@code after}. If the copy saw even one store of a rewrite (sample {@code j +
+ *       capacity} or later), that store came after {@code head = j + capacity} on the writer's
+ *       side, so by the two fences {@code after >= j + capacity}. Therefore, when {@code after
+ *       - j < capacity}, the copy holds sample {@code j} and nothing else; otherwise it is
+ *       discarded and counted as lost. This is the same copy-then-validate order as {@link
+ *       java.util.concurrent.locks.StampedLock#validate}.
+ * </ol>
+ *
+ * Consequences: after reading {@code head = h}, the writer may already be rewriting the slot of
+ * sample {@code h - capacity}, so the oldest sample a reader can still take intact is {@code h -
+ * capacity + 1}: the ring holds {@code capacity - 1} readable samples. A reader at {@code next}
+ * with {@code h - next >= capacity} skips to {@code h - capacity + 1} and adds the skipped samples
+ * to {@link Cursor#lost()}. Every index from a cursor's start to the head is either delivered
+ * once, in order, or counted lost once, so delivered + lost = samples written since the start,
+ * exactly ({@code SampleRingStressTest}). Java reads of plain {@code long} fields may tear on
+ * 32-bit virtual machines; a torn long is caught by the same check.
  */
 public final class SampleRing {
   private final int capacity;
@@ -17,7 +55,10 @@ public final class SampleRing {
   private final boolean[] hasPosition;
   private volatile long head; // number of samples ever written
 
-  /** @param capacityPowerOfTwo slots, a power of two from 16 to 2^24 */
+  /**
+   * @param capacityPowerOfTwo slots, a power of two from 16 to 2^24; a reader can take up to
+   *     {@code capacityPowerOfTwo - 1} samples behind the writer intact (class comment)
+   */
   public SampleRing(int capacityPowerOfTwo) {
     if (capacityPowerOfTwo < 16 || capacityPowerOfTwo > (1 << 24)
         || Integer.bitCount(capacityPowerOfTwo) != 1) {
@@ -51,7 +92,10 @@ public final class SampleRing {
    */
   public void put(int seqNo, long deviceUsRaw, long timeUsUnwrapped, int loadCounts,
       boolean hasPos, int posCounts) {
-    long h = head;
+    long h = head; // only this thread stores head
+    // head = h (the previous put) is published before this slot, which holds sample h - capacity,
+    // is touched: a reader whose copy sees any store below then reads head >= h (class comment, 2)
+    VarHandle.storeStoreFence();
     int i = (int) (h & mask);
     seq[i] = seqNo;
     deviceUs[i] = deviceUsRaw;
@@ -59,12 +103,22 @@ public final class SampleRing {
     counts[i] = loadCounts;
     position[i] = posCounts;
     hasPosition[i] = hasPos;
-    head = h + 1;
+    head = h + 1; // release: the stores above are visible to whoever reads head > h
   }
 
-  /** @return index of the oldest sample still held */
+  /** @return index of the oldest sample a reader can still take intact */
   public long oldestIndex() {
-    return Math.max(0, head - capacity);
+    return oldestIntact(head);
+  }
+
+  /** The oldest sample intact when head is {@code h}: the writer may be rewriting h - capacity. */
+  private long oldestIntact(long h) {
+    return Math.max(0, h - capacity + 1);
+  }
+
+  /** Whether a copy of sample {@code index} made before head read {@code after} is intact. */
+  private boolean intact(long index, long after) {
+    return after - index < capacity;
   }
 
   /**
@@ -72,7 +126,8 @@ public final class SampleRing {
    * @return a reader that starts at {@code index}
    */
   public Cursor cursorAt(long index) {
-    return new Cursor(Math.max(oldestIndex(), Math.min(index, head)));
+    long h = head;
+    return new Cursor(Math.max(oldestIntact(h), Math.min(index, h)));
   }
 
   /**
@@ -82,11 +137,21 @@ public final class SampleRing {
    */
   public long timeUsAt(long index) {
     long h = head;
-    if (index < Math.max(0, h - capacity) || index >= h) {
-      throw new IllegalArgumentException("sample " + index + " is not held (held: "
-          + Math.max(0, h - capacity) + "…" + (h - 1) + ")");
+    if (index < oldestIntact(h) || index >= h) {
+      throw notHeld(index, h);
     }
-    return timeUs[(int) (index & mask)];
+    long t = timeUs[(int) (index & mask)];
+    VarHandle.loadLoadFence(); // the copy is read before head (class comment, 3)
+    long after = head;
+    if (!intact(index, after)) {
+      throw notHeld(index, after);
+    }
+    return t;
+  }
+
+  private IllegalArgumentException notHeld(long index, long h) {
+    return new IllegalArgumentException("sample " + index + " is not held (held: "
+        + oldestIntact(h) + "…" + (h - 1) + ")");
   }
 
   /** @return a reader that starts at the next sample written */
@@ -96,7 +161,7 @@ public final class SampleRing {
 
   /** @return a reader that starts at the oldest sample still held */
   public Cursor cursorAtOldest() {
-    return new Cursor(Math.max(0, head - capacity));
+    return new Cursor(oldestIndex());
   }
 
   /**
@@ -105,7 +170,7 @@ public final class SampleRing {
    */
   public Cursor cursorBack(long samplesBack) {
     long h = head;
-    return new Cursor(Math.max(Math.max(0, h - capacity), h - Math.max(0, samplesBack)));
+    return new Cursor(Math.max(oldestIntact(h), h - Math.max(0, samplesBack)));
   }
 
   /** Receives samples from {@link Cursor#drain}. */
@@ -140,16 +205,14 @@ public final class SampleRing {
     }
 
     /**
-     * Hands every waiting sample (at most {@code max}) to {@code c}.
+     * Hands every waiting sample (at most {@code max}) to {@code c}, in index order. Samples the
+     * writer overwrote before this reader took them are skipped and added to {@link #lost()}.
      *
      * @return samples delivered
      */
     public int drain(Consumer c, int max) {
-      long h = head;
-      if (h - next > capacity) {
-        lost += h - capacity - next;
-        next = h - capacity;
-      }
+      long h = head; // acquire: every sample below h is complete (class comment, 1)
+      skipOverwritten(h);
       int n = 0;
       while (next < h && n < max) {
         int i = (int) (next & mask);
@@ -159,11 +222,12 @@ public final class SampleRing {
         int k = counts[i];
         boolean hp = hasPosition[i];
         int p = position[i];
-        if (head - next > capacity) {
-          // overwritten while we read it: skip ahead and count the loss
-          long nh = head;
-          lost += nh - capacity - next;
-          next = nh - capacity;
+        VarHandle.loadLoadFence(); // the copy above is read before head below (class comment, 3)
+        long after = head;
+        if (!intact(next, after)) {
+          // the writer may have reached this slot while we copied it: drop the copy
+          skipOverwritten(after);
+          h = after;
           continue;
         }
         c.accept(next, s, d, t, k, hp, p);
@@ -171,6 +235,15 @@ public final class SampleRing {
         n++;
       }
       return n;
+    }
+
+    /** Moves past the samples the writer may be overwriting when head is {@code h}. */
+    private void skipOverwritten(long h) {
+      long oldest = oldestIntact(h);
+      if (next < oldest) {
+        lost += oldest - next;
+        next = oldest;
+      }
     }
   }
 }

@@ -74,8 +74,9 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
     ScaleSpec spec = ScaleSpec.nominal(countsPerN);
     return new ScaleChoice(ForceScale.of(spec, d), spec, d,
         null, null, List.of("no calibration: force uses the " + source + " sensitivity "
-            + String.format(Locale.ROOT, "%.6g", countsPerN) + " counts/N; calibrate with "
-            + "'loadstone calibrate' and pass --cal"), null, capacity_N, null);
+            + String.format(Locale.ROOT, "%.6g", countsPerN) + " counts/N, so forces are rough "
+            + "estimates; calibrate the cell with known weights and use that calibration"), null,
+        capacity_N, null);
   }
 
   /**

@@ -46,6 +46,7 @@ final class RecordSummary {
       m.put("dropped", r.dropped());
       m.put("checksum_errors", r.checksumErrors());
       m.put("break_drop_pct", b == null ? null : b.dropPct());
+      m.put("return_to_zero_N", r.returnToZero_N());
       m.put("csv", r.stored().csv().toString());
       m.put("json", r.stored().json().toString());
       if (metrics != null) {
@@ -59,6 +60,10 @@ final class RecordSummary {
     } else {
       out.printf(Locale.ROOT, "run %s: %s, peak %.2f N, %d samples, %d dropped%n",
           r.stored().runId(), r.cause().wireName(), r.peak_N(), r.samples(), r.dropped());
+      out.println(r.returnToZero_N() != null
+          ? String.format(Locale.ROOT, "return to zero %+.3g N after the load came off",
+              r.returnToZero_N())
+          : "return to zero not read: the run ended with load on the cell");
       out.println("  " + r.stored().csv());
       out.println("  " + r.stored().json());
       if (metrics != null) {

@@ -185,7 +185,10 @@ final class CalibratePane {
       }
       CalibrationPlan plan = new CalibrationPlan(MassText.parseList_kg(loads.getText(), "loads"),
           descending.isSelected(), series.getValue());
-      double rate = r.identity().map(id -> id.rateHz()).filter(x -> x > 0).orElse(80.0);
+      double rate = org.loadstone.acquire.SampleRate.known(r).orElseThrow(() ->
+          new LoadstoneException("the device has not stated its sample rate, and too few "
+              + "samples have arrived to measure it: wait until the live force shows, then "
+              + "start again")).rate_Hz();
       Double g = SpecimenFields.number(gravity, "local g", "m/s²");
       settings = new CalibrationSettings(
           g == null ? ForceFromMass.standard() : ForceFromMass.withGravity(g), null, null);

@@ -15,6 +15,8 @@ import javafx.scene.layout.Priority;
 import javafx.scene.layout.Region;
 import javafx.scene.layout.VBox;
 import org.loadstone.acquire.DeviceReader;
+import org.loadstone.acquire.ForceScale;
+import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.LiveFeed;
 import org.loadstone.acquire.SampleRing;
 import org.loadstone.acquire.ScaleChoice;
@@ -43,12 +45,16 @@ final class LivePane {
   private final Button plotAxis = new Button();
   private final RunPanel run;
   private final ForceChart chart = new ForceChart();
-  /** How counts become force: the configured scale until a calibration is chosen here. */
-  private ScaleChoice scale;
+  /**
+   * How counts become force: the configured scale until a calibration is chosen here; null while
+   * none is known (the readout shows counts and runs are refused).
+   */
+  private volatile ScaleChoice scale;
   /** Whether the chart shows force against crosshead travel (otherwise against time). */
   private boolean againstTravel;
-  private DeviceReader reader;
-  private LiveFeed feed;
+  private volatile DeviceReader reader;
+  private volatile LiveFeed feed;
+  private volatile RunSetup setup;
   private AnimationTimer timer;
   private long lastChartNanos;
 
@@ -70,6 +76,11 @@ final class LivePane {
       public ScaleChoice scale() {
         return scale;
       }
+
+      @Override
+      public RunSetup setup() {
+        return setup;
+      }
     }, this::newSpecimen);
     build();
   }
@@ -90,7 +101,8 @@ final class LivePane {
     Label mark = label("wordmark", "LOADSTONE");
     Region grow = new Region();
     HBox.setHgrow(grow, Priority.ALWAYS);
-    device.setText(config.deviceLabel());
+    device.setText(config.deviceLabel() + (scale == null
+        ? "  ·  no calibration chosen: the readout shows counts" : ""));
     HBox top = new HBox(16, mark, device, grow, state);
     top.getStyleClass().add("top-bar");
     top.setAlignment(Pos.CENTER_LEFT);
@@ -249,8 +261,10 @@ final class LivePane {
         }
       }
     });
-    feed = new LiveFeed(reader, scale.scale(), WINDOW_S);
+    feed = new LiveFeed(reader, displayScale(), WINDOW_S);
     feed.tare(20); // zero on connect, as the specimen is not yet loaded
+    setup = new RunSetup(reader, config.archive(), config.simulated(), config.deviceFields(),
+        java.time.Clock.systemUTC());
     reader.start();
     reconnect.setVisible(false);
     reconnect.setManaged(false);
@@ -273,6 +287,12 @@ final class LivePane {
       reader.close();
       reader = null;
     }
+  }
+
+  /** The scale of the live readout: the chosen one, or counts while none is chosen. */
+  private ForceScale displayScale() {
+    ScaleChoice c = scale;
+    return c != null ? c.scale() : ForceScale.linear(1, "counts: no calibration chosen");
   }
 
   private void refresh(long now) {

@@ -8,7 +8,7 @@ import org.loadstone.archive.RunFixtures;
 /**
  * A program the kill test starts in its own JVM: it feeds a ring at 1000 samples/s (as the device
  * reader would), journals it with a {@link JournalWriter}, and prints {@code put <n> durable <d>}
- * every 20 ms until it is killed (or after 60 s, as a safety net).
+ * every 20 ms until it is killed (or after 10 min, as a safety net).
  *
  * <p>Arguments: archive folder, run id.
  */
@@ -17,7 +17,7 @@ public final class JournalChild {
 
   public static void main(String[] args) {
     Path archive = Path.of(args[0]);
-    SampleRing ring = new SampleRing(1 << 14);
+    SampleRing ring = new SampleRing(1 << 18); // 262 s at 1 kHz: a starved writer loses nothing
     JournalWriter w = JournalWriter.start(archive, RunFixtures.startMetadata(args[1], false),
         ring.cursorAtEnd());
     long t0 = System.nanoTime();
@@ -25,7 +25,7 @@ public final class JournalChild {
     long lastPrint = 0;
     while (true) {
       long elapsedMs = TimeUnit.NANOSECONDS.toMillis(System.nanoTime() - t0);
-      if (elapsedMs > 60_000) {
+      if (elapsedMs > 600_000) {
         System.exit(3);
       }
       while (put < elapsedMs) { // 1 sample per ms of elapsed time

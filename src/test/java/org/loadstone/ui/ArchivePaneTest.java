@@ -64,6 +64,7 @@ class ArchivePaneTest {
     countNominalRuns(robot);
     WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
         () -> robot.lookup("#archive-groups").tryQuery().isPresent());
+    WaitForAsyncUtils.waitForFxEvents(); // the FX step that added the table may still be filling it
     StudyResult expected = GroupStudy.study(DEMO, NOMINAL_TOO, Metric.PEAK, 0.10);
     @SuppressWarnings("unchecked")
     TableView<GroupSummary> groups = robot.lookup("#archive-groups").queryAs(TableView.class);

@@ -1,0 +1,44 @@
+package org.loadstone.cli;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Setting;
+import picocli.CommandLine;
+
+/**
+ * The command line's part of a message: the option that changes each setting a core message asks
+ * for, named only when the command at hand has it.
+ */
+final class CliHints {
+  private CliHints() {}
+
+  /** @return the option that changes this setting, with its parameter */
+  static String option(Setting s) {
+    return switch (s) {
+      case CALIBRATION -> "--cal FILE";
+      case NOMINAL_SENSITIVITY -> "--counts-per-n K";
+      case RATED_CAPACITY -> "--capacity-N";
+      case ZERO_DRIFT_LIMIT -> "--zero-drift-N";
+      case ZERO_SAMPLES -> "--zero-samples";
+    };
+  }
+
+  /**
+   * @param e a failure
+   * @param command the command that met it
+   * @return its message followed by the options of this command that would fix it
+   */
+  static String withHow(LoadstoneException e, CommandLine command) {
+    List<String> options = new ArrayList<>();
+    for (Setting s : e.settings()) {
+      String o = option(s);
+      String name = o.split(" ")[0];
+      if (command.getCommandSpec().findOption(name) != null && !options.contains(o)) {
+        options.add(o);
+      }
+    }
+    return options.isEmpty() ? e.getMessage()
+        : e.getMessage() + " (" + String.join(" or ", options) + ")";
+  }
+}
