@@ -213,6 +213,11 @@ public final class Recorder implements AutoCloseable {
     return java.util.Optional.ofNullable(result);
   }
 
+  /** @return whether the recorder's thread has ended (with a result, a failure or no run) */
+  public boolean ended() {
+    return done.getCount() == 0;
+  }
+
   /** @return why the run could not be written, if it could not */
   public java.util.Optional<String> failure() {
     return java.util.Optional.ofNullable(failure);
@@ -271,7 +276,17 @@ public final class Recorder implements AutoCloseable {
     } catch (RuntimeException e) {
       failure = "recording failed: " + e;
       listener.onFailed(failure);
+    } catch (Error e) {
+      // out of memory or worse: end this thread with a reason rather than leave callers waiting
+      failure = "recording stopped by " + e + (started == null ? "" : "; the run's samples are"
+          + " kept in its journal, which becomes a run at the next start");
+      listener.onFailed(failure);
     } finally {
+      if (result == null && failure == null && started != null && !closing) {
+        failure = "the run ended without being stored; its journal, if written, becomes a run at"
+            + " the next start";
+        listener.onFailed(failure);
+      }
       if (result == null && failure == null && started == null) {
         listener.onDisarmed(reader.lostReason().isPresent()
             ? "the device was lost before load came on: no run stored"

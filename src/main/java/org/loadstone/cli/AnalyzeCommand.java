@@ -14,7 +14,6 @@ import org.loadstone.units.DurationUnit;
 import org.loadstone.units.LengthUnit;
 import java.util.concurrent.Callable;
 import org.loadstone.analysis.AnalysisSettings;
-import org.loadstone.analysis.AnalysisSettings.StiffnessBounds;
 import org.loadstone.study.Metric;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.cli.RunResolver.ResolvedRun;
@@ -37,12 +36,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Parameters(paramLabel = "RUN", description = "A run id (or id prefix) in the archive, a run's CSV, or any CSV with columns time_s, force_N, position_mm.")
   String run;
 
-  @Option(names = "--stiffness-from-N", paramLabel = "A",
-      description = "Fit the stiffness between these forces instead of searching (with --stiffness-to-N).")
-  Double fromN;
-
-  @Option(names = "--stiffness-to-N", paramLabel = "B", description = "Upper force of the stiffness fit.")
-  Double toN;
+  @picocli.CommandLine.Mixin StiffnessOptions stiffness;
 
   @Option(names = "--cal", paramLabel = "FILE", description = "Derive force again from the raw counts with this calibration (the stored run is not changed).")
   Path cal;
@@ -121,14 +115,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    if ((fromN == null) != (toN == null)) {
-      throw new CommandLine.ParameterException(spec.commandLine(),
-          "--stiffness-from-N and --stiffness-to-N go together; give both or neither.");
-    }
-    AnalysisSettings settings = AnalysisSettings.DEFAULTS;
-    if (fromN != null) {
-      settings = settings.withStiffnessBounds(StiffnessBounds.force_N(fromN, toN));
-    }
+    AnalysisSettings settings = stiffness.apply(AnalysisSettings.DEFAULTS);
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
     RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()));
     RunMetrics m = RunMetrics.of(adj.metadata(), adj.data(), settings);
@@ -141,6 +128,8 @@ public final class AnalyzeCommand implements Callable<Integer> {
       out.printf(Locale.ROOT, "  %-28s %14s %s%n", metric.label(), metric.format(v),
           v.isPresent() ? metric.unit() : "");
     }
+    m.analysis().stiffness().ifPresent(s -> out.printf(Locale.ROOT, "  %-28s %14s%n",
+        "stiffness chosen by", s.method().words()));
     for (String note : adj.notes()) {
       out.println("derived: " + note);
     }

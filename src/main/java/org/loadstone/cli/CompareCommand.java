@@ -89,7 +89,7 @@ public final class CompareCommand implements Callable<Integer> {
       out.println("left out: " + l.line());
     }
     if (!r.leftOut().isEmpty()) {
-      out.println(r.leftOut().size() + " runs left out (" + GroupStudy.tally(r.leftOut()) + ")"
+      out.println(GroupStudy.leftOutSummary(r.leftOut())
           + SelectionOptions.includeHint(r.leftOut()));
     }
     if (json) {

@@ -94,8 +94,8 @@ public final class ReportCommand implements Callable<Integer> {
         PdfReport.writeGroups(title, study, out);
       }
       if (!sel.leftOut().isEmpty()) {
-        spec.commandLine().getOut().println(sel.leftOut().size() + " runs left out ("
-            + GroupStudy.tally(sel.leftOut()) + ")" + (out != null ? ", listed in the report" : "")
+        spec.commandLine().getOut().println(GroupStudy.leftOutSummary(sel.leftOut())
+            + (out != null ? ", listed in the report" : "")
             + SelectionOptions.includeHint(sel.leftOut()));
       }
     }

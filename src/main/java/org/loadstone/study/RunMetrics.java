@@ -35,6 +35,7 @@ import org.loadstone.units.Precondition;
  * @param metadata the run's metadata, not null
  * @param curve the curve analysed (with position when the run has it), not null
  * @param analysis the run analysis, not null
+ * @param settings the analysis settings used (with a recorded break when one was used), not null
  * @param flexuralStressAtPeak_MPa three- or four-point flexural stress at peak (ASTM D790/D6272)
  * @param flexuralModulus_MPa flexural modulus from the stiffness (apparent, for a sandwich)
  * @param coreShearStressAtPeak_MPa sandwich core shear stress P/((d + c)b) at peak (ASTM C393)
@@ -50,6 +51,7 @@ public record RunMetrics(
     RunMetadata metadata,
     Curve curve,
     RunResult analysis,
+    AnalysisSettings settings,
     OptionalDouble flexuralStressAtPeak_MPa,
     OptionalDouble flexuralModulus_MPa,
     OptionalDouble coreShearStressAtPeak_MPa,
@@ -66,6 +68,7 @@ public record RunMetrics(
     Precondition.notNull(metadata, "metadata");
     Precondition.notNull(curve, "curve");
     Precondition.notNull(analysis, "analysis");
+    Precondition.notNull(settings, "settings");
     for (OptionalDouble o : new OptionalDouble[] {flexuralStressAtPeak_MPa, flexuralModulus_MPa,
         coreShearStressAtPeak_MPa, facingStressAtPeak_MPa, compressionStressAtPeak_MPa,
         specificPeak_N_per_g, specificEnergyToPeak_J_per_g, specificEnergyToBreak_J_per_g,
@@ -112,7 +115,7 @@ public record RunMetrics(
     RunResult r = RunAnalyzer.analyze(curve, used);
     List<String> all = new ArrayList<>(r.notes());
     all.addAll(notes);
-    return new Builder(metadata, curve, r, all).build();
+    return new Builder(metadata, curve, r, used, all).build();
   }
 
   /**
@@ -139,7 +142,10 @@ public record RunMetrics(
    * A JSON-friendly view with units in the keys: the run's identity ({@code run_id, specimen,
    * group, test_type}), {@code sample_count, peak_index, break_detected}, then every figure of the
    * {@link Metric} catalogue under its {@link Metric#key()} (always present, {@code null} when
-   * absent; a count as a whole number), then {@code notes}. Key order is fixed.
+   * absent; a count as a whole number), then how the stiffness was taken ({@code
+   * stiffness_method, stiffness_se_N_per_mm}, the window in mm and samples, {@code
+   * stiffness_refused} with the reason when there is none), {@code notes} and the {@code
+   * analysis_settings}. Key order is fixed.
    */
   public Map<String, Object> toJsonMap() {
     RunResult r = analysis;
@@ -156,7 +162,15 @@ public record RunMetrics(
       m.put(metric.key(), v.isEmpty() ? null
           : metric.digits() == 0 ? (Object) Math.round(v.getAsDouble()) : v.getAsDouble());
     }
+    m.put("stiffness_method", r.stiffness().map(s -> s.method().words()).orElse(null));
+    m.put("stiffness_se_N_per_mm", r.stiffness().map(s -> s.slopeSe_N_per_mm()).orElse(null));
+    m.put("stiffness_window_from_mm", r.stiffness().map(s -> s.fromDisplacement_mm()).orElse(null));
+    m.put("stiffness_window_to_mm", r.stiffness().map(s -> s.toDisplacement_mm()).orElse(null));
+    m.put("stiffness_window_from_index", r.stiffness().map(s -> s.fromIndex()).orElse(null));
+    m.put("stiffness_window_to_index", r.stiffness().map(s -> s.toIndex()).orElse(null));
+    m.put("stiffness_refused", r.stiffnessRefusal().map(s -> s.reason()).orElse(null));
     m.put("notes", notes);
+    m.put("analysis_settings", settings.toMap());
     return m;
   }
 
@@ -165,6 +179,7 @@ public record RunMetrics(
     private final RunMetadata meta;
     private final Curve curve;
     private final RunResult r;
+    private final AnalysisSettings settings;
     private final List<String> notes;
     private final Geometry g;
     private final double peak;
@@ -174,10 +189,12 @@ public record RunMetrics(
     private OptionalDouble facing = OptionalDouble.empty();
     private OptionalDouble compression = OptionalDouble.empty();
 
-    Builder(RunMetadata meta, Curve curve, RunResult r, List<String> notes) {
+    Builder(RunMetadata meta, Curve curve, RunResult r, AnalysisSettings settings,
+        List<String> notes) {
       this.meta = meta;
       this.curve = curve;
       this.r = r;
+      this.settings = settings;
       this.notes = notes;
       this.g = meta.geometry();
       this.peak = r.peakForce_N();
@@ -216,7 +233,7 @@ public record RunMetrics(
               Specific.stiffness_N_per_mm_per_g(r.stiffness_N_per_mm().getAsDouble(), mass));
         }
       }
-      return new RunMetrics(meta, curve, r, flexStress, flexModulus, coreShear, facing,
+      return new RunMetrics(meta, curve, r, settings, flexStress, flexModulus, coreShear, facing,
           compression, sPeak, sEp, sEb, sK, notes);
     }
 

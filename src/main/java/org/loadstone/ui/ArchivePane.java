@@ -219,8 +219,8 @@ final class ArchivePane {
     Selection sel = archive.select(settings());
     show(sel);
     status.setText(sel.counted() + " runs counted in " + sel.folder()
-        + (sel.leftOut().isEmpty() ? "" : " · " + sel.leftOut().size() + " left out ("
-            + GroupStudy.tally(sel.leftOut()) + "), listed beside the comparison"));
+        + (sel.leftOut().isEmpty() ? "" : " · " + GroupStudy.leftOutSummary(sel.leftOut())
+            + ", listed beside the comparison"));
   }
 
   private static final String ALL = "all groups";
