@@ -50,8 +50,8 @@ public final class JournalRunStore implements RunStore {
       Files.delete(probe);
     } catch (IOException | RuntimeException e) {
       throw new org.loadstone.units.LoadstoneException("cannot write runs to the archive folder "
-          + archiveDir + " (" + e.getMessage() + "): choose another with --archive DIR or fix "
-          + "its permissions and free space", e);
+          + archiveDir + " (" + e.getMessage() + "): choose another archive folder, or fix "
+          + "this one's permissions and free space", e, org.loadstone.units.Setting.ARCHIVE_FOLDER);
     }
   }
 
