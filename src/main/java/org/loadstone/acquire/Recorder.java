@@ -7,6 +7,7 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import org.loadstone.archive.FinishCause;
 import org.loadstone.archive.RunMetadata;
+import org.loadstone.device.PressOperator;
 import org.loadstone.protocol.DecoderCounters;
 import org.loadstone.protocol.HostCommand;
 import org.loadstone.units.LoadstoneException;
@@ -152,7 +153,7 @@ public final class Recorder implements AutoCloseable {
               + " samples arrived from " + reader.transport().name() + " in "
               + timeoutMs / 1000.0 + " s"
               + reader.lostReason().map(w -> " (" + w + ")").orElse(
-                  "; check that the device is streaming ('loadstone monitor')"));
+                  "; check that the device is streaming samples"));
         }
         sleep(5);
       }
@@ -162,7 +163,9 @@ public final class Recorder implements AutoCloseable {
 
   /**
    * Arms (waits for the start threshold) and starts the recorder's thread. The start is decided
-   * on every sample from the one that arrives next, however late the thread gets to them.
+   * on every sample from the one that arrives next, however late the thread gets to them. On the
+   * simulated frame the program then stands in for the operator and starts the press ({@link
+   * PressOperator}).
    */
   public void arm() {
     arm(reader.ring().written());
@@ -180,6 +183,7 @@ public final class Recorder implements AutoCloseable {
     control.arm();
     decideFrom = fromIndex;
     thread.start();
+    PressOperator.forTransport(reader.transport()).runArmed();
   }
 
   /** Starts recording now, whatever the force (manual start), and starts the thread. */
@@ -188,6 +192,7 @@ public final class Recorder implements AutoCloseable {
     if (thread.getState() == Thread.State.NEW) {
       decideFrom = reader.ring().written();
       thread.start();
+      PressOperator.forTransport(reader.transport()).runArmed();
     }
   }
 

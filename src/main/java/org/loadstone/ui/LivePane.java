@@ -191,7 +191,7 @@ final class LivePane {
   }
 
   /**
-   * The one-key commands (Z, P, A, S, X), active while {@code active} says so (the live view is
+   * The one-key commands (Z, P, A, S, X, and N on the simulated frame), active while {@code active} says so (the live view is
    * the one shown) and not while typing in a field.
    */
   void installKeys(Scene scene, java.util.function.BooleanSupplier active) {
@@ -209,6 +209,8 @@ final class LivePane {
         run.stop();
       } else if (e.getCode() == KeyCode.X) {
         togglePlot();
+      } else if (e.getCode() == KeyCode.N) {
+        run.nextSpecimen();
       }
     });
   }
@@ -249,7 +251,7 @@ final class LivePane {
     try {
       t = config.connect().get();
     } catch (LoadstoneException e) {
-      showLost(e.getMessage());
+      showLost(ConsoleHints.withHow(e));
       return;
     }
     reader = new DeviceReader(t, new SampleRing(1 << 20));

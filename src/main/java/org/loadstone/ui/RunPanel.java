@@ -24,6 +24,7 @@ import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.RunTemplate;
 import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.archive.Run;
+import org.loadstone.device.PressOperator;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.archive.RunReader;
 import org.loadstone.units.LoadstoneException;
@@ -96,6 +97,13 @@ final class RunPanel {
     HBox buttons = new HBox(8, arm, stop);
     HBox.setHgrow(arm, Priority.ALWAYS);
     HBox.setHgrow(stop, Priority.ALWAYS);
+    if (config.deviceFields().containsKey("sim_scenario")) {
+      // the simulated press: the program stands in for the hands that change the specimen
+      Button next = new Button("Next specimen  [N]");
+      next.setId("next-specimen-button");
+      next.setOnAction(e -> nextSpecimen());
+      buttons.getChildren().add(next);
+    }
     HBox idLine = new HBox(8, groupField, massField);
     HBox.setHgrow(groupField, Priority.ALWAYS);
     massField.setPrefWidth(110);
@@ -208,6 +216,24 @@ final class RunPanel {
         runResult.setText(ConsoleHints.withHow(e));
       });
     }
+  }
+
+  /**
+   * Puts a new specimen in the simulated press (a real press: the operator does). Refused while a
+   * run is armed or recording.
+   */
+  void nextSpecimen() {
+    DeviceReader reader = device.reader();
+    Recorder r = recorder;
+    if (reader == null) {
+      return;
+    }
+    if (r != null && !runEnded && r.status().state() != RunControl.State.FINISHED) {
+      runResult.setText("a run is armed or recording: stop it before changing the specimen");
+      return;
+    }
+    PressOperator.forTransport(reader.transport()).nextSpecimen();
+    runResult.setText("a new specimen is in the press: arm to load it");
   }
 
   /** The mass typed in, or null when the field is empty. */

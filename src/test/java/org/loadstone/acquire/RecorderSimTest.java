@@ -83,7 +83,8 @@ class RecorderSimTest {
     reader.start();
     double countsPerN = setup.nominalCountsPerN();
     double zero = Recorder.tare(reader, 200, 5000);
-    // the simulated specimen is touched about 0.9 s after the stream starts: 0.3 s of history fits
+    // the simulated press starts 1 s after the arming and touches the specimen 0.6 s later: 0.3 s
+    // of history fits
     RunSettings s = RunSettings.builder().startThreshold_N(5).pretrigger_s(0.3)
         .ratedCapacity_N(500).build();
     MemoryRunStore store = new MemoryRunStore();
@@ -95,7 +96,9 @@ class RecorderSimTest {
 
     assertThat(r.cause()).isEqualTo(FinishCause.BREAK);
     assertThat(r.dropped()).isZero();
-    // ground truth: run the same model to the end and read its peak
+    // ground truth: run the same model to the end and read its peak (its press started at once:
+    // the same specimen at the same rate reaches the same peak whenever it starts)
+    truthFrame.operatorStarts();
     for (int i = 0; i < 200_000 && !truthFrame.truth().broken(); i++) {
       truthFrame.next((a, b, c, d) -> { });
     }
