@@ -130,6 +130,20 @@ public record RunAdjust(RunMetadata metadata, RunData data, List<String> notes) 
   }
 
   /**
+   * Records what the run's position channel measures (crosshead, a mid-span gauge, a video point),
+   * which decides the four-point deflection formula; the samples are unchanged.
+   *
+   * @param source what the position measures
+   */
+  public RunAdjust positionMeasures(org.loadstone.analysis.PositionSource source) {
+    Precondition.notNull(source, "source");
+    java.util.Map<String, Object> extra = new java.util.LinkedHashMap<>(metadata.extra());
+    extra.put(org.loadstone.analysis.PositionSource.METADATA_KEY, source.wireName());
+    return with(metadata.toBuilder().extra(extra).build(), data,
+        "the position channel measures: " + source.wireName());
+  }
+
+  /**
    * Removes the load frame's own deflection: position − F / k_frame.
    *
    * @param frameStiffness_N_per_mm the frame's stiffness
