@@ -12,7 +12,17 @@ import org.loadstone.units.Precondition;
  */
 public final class RunControl {
   /** The states. */
-  public enum State { IDLE, ARMED, RECORDING, TAIL, FINISHED }
+  public enum State {
+    IDLE, ARMED, RECORDING, TAIL, FINISHED;
+
+    /**
+     * Whether a run holds the zero and the peak in this state: armed or recording, the run's
+     * figures are measured from them, so zeroing or forgetting the peak must wait for its end.
+     */
+    public boolean holdsZero() {
+      return this == ARMED || this == RECORDING || this == TAIL;
+    }
+  }
 
   /** What happened on a sample. */
   public sealed interface Event
