@@ -3,29 +3,37 @@ package org.loadstone.acquire;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.Arrays;
-import java.util.List;
-import org.loadstone.archive.JournalContents;
 import org.loadstone.archive.JournalRecovery;
-import org.loadstone.archive.RunData;
+import org.loadstone.archive.JournalStream;
 import org.loadstone.archive.RunMetadata;
-import org.loadstone.archive.RunWriter;
-import org.loadstone.archive.StoredRun;
+import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
 /**
  * The archive's run store: samples go to an append-only journal as they arrive (forced to disk at
- * least every 100 ms); at the finish the run is built from the journal, written as CSV + JSON, and
- * only then is the journal removed. If the program dies first, {@link JournalRecovery} rebuilds the
+ * least every 100 ms); at the finish the journal is streamed into the run files (CSV + JSON,
+ * {@link JournalStream}, with a heap that does not grow with the run), and only then is the
+ * journal removed; if storing fails, out of memory included, the journal stays. If the program
+ * dies first, {@link JournalRecovery} rebuilds the
  * run at the next start.
  */
 public final class JournalRunStore implements RunStore {
+  /** Turns a finished journal into run files; a seam for tests that make storing fail. */
+  interface RunFiles {
+    JournalStream.Stored store(Path archiveDir, Path journal, long lastIndex, RunMetadata meta);
+  }
+
   private final Path archiveDir;
+  private final RunFiles files;
 
   /** @param archiveDir the archive folder */
   public JournalRunStore(Path archiveDir) {
+    this(archiveDir, JournalStream::store);
+  }
+
+  JournalRunStore(Path archiveDir, RunFiles files) {
     this.archiveDir = Precondition.notNull(archiveDir, "archiveDir");
+    this.files = files;
   }
 
   /**
@@ -42,8 +50,8 @@ public final class JournalRunStore implements RunStore {
       Files.delete(probe);
     } catch (IOException | RuntimeException e) {
       throw new org.loadstone.units.LoadstoneException("cannot write runs to the archive folder "
-          + archiveDir + " (" + e.getMessage() + "): choose another with --archive DIR or fix "
-          + "its permissions and free space", e);
+          + archiveDir + " (" + e.getMessage() + "): choose another archive folder, or fix "
+          + "this one's permissions and free space", e, org.loadstone.units.Setting.ARCHIVE_FOLDER);
     }
   }
 
@@ -59,37 +67,29 @@ public final class JournalRunStore implements RunStore {
       @Override
       public Stored finish(long lastIndex, RunMetadata meta) {
         journal.finish();
-        JournalContents c = JournalRecovery.readJournal(journal.file());
-        RunData d = cut(c.data(), (int) Math.min(c.data().size(), lastIndex - c.firstIndex() + 1));
-        List<String> warnings = new ArrayList<>(meta.warnings());
-        if (c.missedByJournal() > 0) {
-          warnings.add(c.missedByJournal() + " samples were lost because the disk fell more than "
-              + "a ring behind the device");
+        // the journal settled the id: another station may have held the one asked for
+        RunMetadata m = meta.toBuilder().runId(journal.runId()).build();
+        JournalStream.Stored s;
+        try {
+          s = files.store(archiveDir, journal.file(), lastIndex, m);
+        } catch (LoadstoneException | OutOfMemoryError e) {
+          String why = e instanceof OutOfMemoryError
+              ? "the program ran out of memory while storing it (" + e.getMessage() + ")"
+              : e.getMessage();
+          throw new LoadstoneException("run " + m.runId() + " was not stored: " + why
+              + "; its samples are kept in the journal " + journal.file() + ", which becomes"
+              + " a run at the next start", e);
         }
-        RunMetadata m = meta.withWarnings(warnings);
-        StoredRun s = RunWriter.write(archiveDir, m, d);
         try {
           Files.deleteIfExists(journal.file());
         } catch (IOException e) {
           // the run is written; a leftover journal would be recovered as a second copy, so say so
-          throw new org.loadstone.units.LoadstoneException("run " + meta.runId()
+          throw new org.loadstone.units.LoadstoneException("run " + m.runId()
               + " was written but its journal " + journal.file() + " could not be removed ("
               + e.getMessage() + "): delete it by hand to avoid a recovered duplicate", e);
         }
-        return new Stored(meta.runId(), s.csv(), s.json(), d.size());
+        return new Stored(m.runId(), s.files().csv(), s.files().json(), s.samples());
       }
     };
   }
-
-  static RunData cut(RunData d, int n) {
-    if (n >= d.size()) {
-      return d;
-    }
-    return new RunData(Arrays.copyOf(d.time_s(), n), Arrays.copyOf(d.force_N(), n),
-        d.position_mm() == null ? null : Arrays.copyOf(d.position_mm(), n),
-        Arrays.copyOf(d.rawCounts(), n),
-        d.rawPosition() == null ? null : Arrays.copyOf(d.rawPosition(), n),
-        Arrays.copyOf(d.seq(), n));
-  }
-
 }

@@ -20,6 +20,9 @@ public final class LiveFeed {
   private volatile ForceScale scale;
   private volatile double countsPerMm;
   private double zeroCounts;
+  /** A zero taken elsewhere (before a run), applied at the next poll; NaN for none. */
+  private volatile double zeroToUse = Double.NaN;
+  private volatile long taresDone;
   private int tareRemaining;
   private int tareTotal;
   private double tareSum;
@@ -67,6 +70,21 @@ public final class LiveFeed {
     tareSum = 0;
   }
 
+  /**
+   * Uses a zero taken elsewhere (e.g. the fresh zero before a run) from the next poll on, so the
+   * readout and the run agree. Any thread.
+   *
+   * @param zero_counts the zero, counts
+   */
+  public void useZero(double zero_counts) {
+    zeroToUse = zero_counts;
+  }
+
+  /** @return how many of this feed's own tares ({@link #tare}) have finished */
+  public long taresDone() {
+    return taresDone;
+  }
+
   /** @return whether a tare is still collecting samples */
   public boolean taring() {
     return tareRemaining > 0;
@@ -95,6 +113,12 @@ public final class LiveFeed {
   public Snapshot poll() {
     ForceScale sc = scale;
     double cpm = countsPerMm;
+    double given = zeroToUse;
+    if (!Double.isNaN(given)) {
+      zeroToUse = Double.NaN;
+      zeroCounts = given;
+      zeroKnown = true;
+    }
     cursor.drain((i, seq, dev, tUs, counts, hasPos, pos) -> {
       if (firstTimeUs < 0) {
         firstTimeUs = tUs;
@@ -105,6 +129,7 @@ public final class LiveFeed {
         if (--tareRemaining == 0) {
           zeroCounts = tareSum / tareTotal;
           peak_N = Double.NEGATIVE_INFINITY;
+          taresDone++;
         }
         if (!zeroKnown) {
           return; // nothing meaningful to show before the first zero

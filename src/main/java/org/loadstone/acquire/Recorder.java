@@ -7,6 +7,7 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import org.loadstone.archive.FinishCause;
 import org.loadstone.archive.RunMetadata;
+import org.loadstone.device.PressOperator;
 import org.loadstone.protocol.DecoderCounters;
 import org.loadstone.protocol.HostCommand;
 import org.loadstone.units.LoadstoneException;
@@ -50,9 +51,11 @@ public final class Recorder implements AutoCloseable {
    * @param dropped samples missing from the device sequence during the run
    * @param checksumErrors checksum errors during the run
    * @param breakDetail the break, or null
+   * @param returnToZero_N force at the end of the run relative to the tare, once the load came
+   *     off; null when the run ended with load on the cell
    */
   public record Result(RunStore.Stored stored, FinishCause cause, double peak_N, long samples,
-      long dropped, long checksumErrors, BreakDetector.Break breakDetail) {}
+      long dropped, long checksumErrors, BreakDetector.Break breakDetail, Double returnToZero_N) {}
 
   /** What a status line shows. */
   public record Status(RunControl.State state, double force_N, double peak_N, double rateHz,
@@ -78,7 +81,7 @@ public final class Recorder implements AutoCloseable {
   private RunControl.Started started;
   private DecoderCounters atStart;
   private double runStartTime_s;
-  private double deviceRate_Hz;
+  private final ReturnToZero unloaded;
   private Instant startedAt;
 
   /**
@@ -98,8 +101,10 @@ public final class Recorder implements AutoCloseable {
     this.template = Precondition.notNull(template, "template");
     this.store = Precondition.notNull(store, "store");
     this.listener = listener == null ? new Listener() {} : listener;
-    double rate = template.sampleRate_Hz() > 0 ? template.sampleRate_Hz() : 80;
-    this.control = new RunControl(settings, rate);
+    this.control = new RunControl(settings, template.sampleRate_Hz());
+    this.unloaded = new ReturnToZero(
+        (int) Math.max(5, Math.round(template.sampleRate_Hz() * ReturnToZero.WINDOW_S)),
+        settings.startThreshold_N());
     this.warnings.addAll(template.warnings());
     this.thread = new Thread(this::loop, "loadstone-run-control");
     this.thread.setDaemon(true);
@@ -148,7 +153,7 @@ public final class Recorder implements AutoCloseable {
               + " samples arrived from " + reader.transport().name() + " in "
               + timeoutMs / 1000.0 + " s"
               + reader.lostReason().map(w -> " (" + w + ")").orElse(
-                  "; check that the device is streaming ('loadstone monitor')"));
+                  "; check that the device is streaming samples"));
         }
         sleep(5);
       }
@@ -158,7 +163,9 @@ public final class Recorder implements AutoCloseable {
 
   /**
    * Arms (waits for the start threshold) and starts the recorder's thread. The start is decided
-   * on every sample from the one that arrives next, however late the thread gets to them.
+   * on every sample from the one that arrives next, however late the thread gets to them. On the
+   * simulated frame the program then stands in for the operator and starts the press ({@link
+   * PressOperator}).
    */
   public void arm() {
     arm(reader.ring().written());
@@ -180,6 +187,7 @@ public final class Recorder implements AutoCloseable {
     control.arm(); // before the thread starts: the run control is the thread's from then on
     decideFrom = fromIndex;
     thread.start();
+    PressOperator.forTransport(reader.transport()).runArmed();
   }
 
   /**
@@ -191,6 +199,7 @@ public final class Recorder implements AutoCloseable {
     if (thread.getState() == Thread.State.NEW) {
       decideFrom = reader.ring().written();
       thread.start();
+      PressOperator.forTransport(reader.transport()).runArmed();
     }
   }
 
@@ -215,6 +224,11 @@ public final class Recorder implements AutoCloseable {
   public java.util.Optional<Result> await(long timeout, TimeUnit unit) throws InterruptedException {
     done.await(timeout, unit);
     return java.util.Optional.ofNullable(result);
+  }
+
+  /** @return whether the recorder's thread has ended (with a result, a failure or no run) */
+  public boolean ended() {
+    return done.getCount() == 0;
   }
 
   /** @return why the run could not be written, if it could not */
@@ -244,6 +258,9 @@ public final class Recorder implements AutoCloseable {
             return;
           }
           double f = scale.force_N(counts - zero_counts);
+          if (started != null) {
+            unloaded.offer(f);
+          }
           control.offer(i, ring.oldestIndex(), tUs / 1e6, f, this::onEvent);
         }, 4096);
         if (n == 0) {
@@ -275,7 +292,17 @@ public final class Recorder implements AutoCloseable {
     } catch (RuntimeException e) {
       failure = "recording failed: " + e;
       listener.onFailed(failure);
+    } catch (Error e) {
+      // out of memory or worse: end this thread with a reason rather than leave callers waiting
+      failure = "recording stopped by " + e + (started == null ? "" : "; the run's samples are"
+          + " kept in its journal, which becomes a run at the next start");
+      listener.onFailed(failure);
     } finally {
+      if (result == null && failure == null && started != null && !closing) {
+        failure = "the run ended without being stored; its journal, if written, becomes a run at"
+            + " the next start";
+        listener.onFailed(failure);
+      }
       if (result == null && failure == null && started == null) {
         listener.onDisarmed(reader.lostReason().isPresent()
             ? "the device was lost before load came on: no run stored"
@@ -326,11 +353,12 @@ public final class Recorder implements AutoCloseable {
     if (b != null) {
       breakTime = b.time_s();
     }
-    deviceRate_Hz = deviceClockRate(started.firstIndex(), f.lastIndex());
     RunMetadata meta = copy(template, f.cause(), breakIndex, breakTime,
-        b == null ? null : b.peakBefore_N(), b == null ? null : b.dropPct(), dropped, crc, started);
+        b == null ? null : b.peakBefore_N(), b == null ? null : b.dropPct(), dropped, crc, started)
+        .toBuilder().returnToZero_N(unloaded.force_N()).build();
     RunStore.Stored stored = recording.finish(f.lastIndex(), meta);
-    result = new Result(stored, f.cause(), control.peak_N(), stored.samples(), dropped, crc, b);
+    result = new Result(stored, f.cause(), control.peak_N(), stored.samples(), dropped, crc, b,
+        meta.returnToZero_N());
     listener.onFinished(result);
   }
 
@@ -354,7 +382,8 @@ public final class Recorder implements AutoCloseable {
         .geometry(t.geometry())
         .testType(t.testType())
         .device(t.device())
-        .sampleRate_Hz(deviceRate_Hz > 0 ? deviceRate_Hz : t.sampleRate_Hz())
+        .sampleRate_Hz(t.sampleRate_Hz())
+        .sampleRateSource(t.sampleRateSource())
         .calibrationId(t.calibrationId())
         .calibrationSha256(t.calibrationSha256())
         .scale(t.scale())
@@ -374,16 +403,6 @@ public final class Recorder implements AutoCloseable {
         .softwareVersion(t.softwareVersion())
         .extra(t.extra())
         .build();
-  }
-
-  /** Sample rate by the device's own clock over the run, or 0 when it cannot be read. */
-  private double deviceClockRate(long first, long last) {
-    try {
-      long dt = reader.ring().timeUsAt(last) - reader.ring().timeUsAt(first);
-      return last > first && dt > 0 ? (last - first) * 1e6 / dt : 0;
-    } catch (IllegalArgumentException overwritten) {
-      return 0;
-    }
   }
 
   private static void sleep(long ms) {

@@ -31,17 +31,18 @@ public record RunTemplate(String specimen, String group, List<String> tags, Stri
    * @param archive where the run will go (for a free id)
    * @param reader the device (identity, port)
    * @param extraDevice more device fields, e.g. the simulator's scenario and seed
-   * @param rate_Hz nominal sample rate
+   * @param rate the sample rate and where it comes from
    * @param scale how counts become force
    * @param zero_counts the tare
    * @param pretrigger_s history kept before the start
    * @param startAt_N start threshold, or null for a manual start
    * @param softwareVersion Loadstone's version
+   * @param warnings to store with the run (the scale's, the zero check's…)
    * @return the metadata known before the start
    */
   public RunMetadata build(Path archive, DeviceReader reader, Map<String, String> extraDevice,
-      double rate_Hz, ScaleChoice scale, double zero_counts, double pretrigger_s, Double startAt_N,
-      String softwareVersion) {
+      SampleRate rate, ScaleChoice scale, double zero_counts, double pretrigger_s,
+      Double startAt_N, String softwareVersion, List<String> warnings) {
     Instant now = Instant.now();
     Map<String, String> device = new LinkedHashMap<>();
     reader.identity().ifPresent(id -> device.putAll(id.fields()));
@@ -59,7 +60,8 @@ public record RunTemplate(String specimen, String group, List<String> tags, Stri
         .geometry(geometry)
         .testType(testType)
         .device(device)
-        .sampleRate_Hz(rate_Hz)
+        .sampleRate_Hz(rate.rate_Hz())
+        .sampleRateSource(rate.source().wireName())
         .calibrationId(scale.calibrationId())
         .calibrationSha256(scale.calibrationSha256())
         .scale(scale.description())
@@ -71,7 +73,7 @@ public record RunTemplate(String specimen, String group, List<String> tags, Stri
         .pretrigger_s(pretrigger_s)
         .startThreshold_N(startAt_N)
         .checkWeight(scale.checkWeight())
-        .warnings(scale.warnings())
+        .warnings(warnings)
         .softwareVersion(softwareVersion)
         .extra(Map.of())
         .build();

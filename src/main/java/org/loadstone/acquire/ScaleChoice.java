@@ -74,8 +74,9 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
     ScaleSpec spec = ScaleSpec.nominal(countsPerN);
     return new ScaleChoice(ForceScale.of(spec, d), spec, d,
         null, null, List.of("no calibration: force uses the " + source + " sensitivity "
-            + String.format(Locale.ROOT, "%.6g", countsPerN) + " counts/N; calibrate with "
-            + "'loadstone calibrate' and pass --cal"), null, capacity_N, null);
+            + String.format(Locale.ROOT, "%.6g", countsPerN) + " counts/N, so forces are rough "
+            + "estimates; calibrate the cell with known weights and use that calibration"), null,
+        capacity_N, null);
   }
 
   /**
@@ -103,8 +104,8 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
     Map<String, Object> check = null;
     List<CheckWeightResult> log = CheckWeights.readLog(file);
     if (log.isEmpty()) {
-      warnings.add("calibration " + doc.id() + " has no check-weight verification yet: run "
-          + "'loadstone verify --cal " + file + " --mass-g M' before a day of testing");
+      warnings.add("calibration " + doc.id() + " has no check-weight verification yet: "
+          + "verify it with a known check weight before a day of testing");
     } else {
       CheckWeightResult last = log.get(log.size() - 1);
       @SuppressWarnings("unchecked")

@@ -4,7 +4,6 @@ import com.fasterxml.jackson.databind.JsonNode;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.InputStream;
-import java.nio.ByteBuffer;
 import java.nio.file.DirectoryStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -109,10 +108,18 @@ public final class JournalRecovery {
           + " stored in full; the journal was removed");
       return null;
     }
-    // the journal itself holds `id`, so RunIds.firstFree would always skip it
-    String newId = freeOtherThanJournal(archiveDir, id);
-    RunMetadata m = recoveredMetadata(c, newId, journal);
-    StoredRun s = RunWriter.write(archiveDir, m, c.data());
+    StoredRun s;
+    String newId;
+    if (!Files.exists(csv) && !Files.exists(json)) {
+      newId = id; // the journal holds it
+      s = RunWriter.write(archiveDir, recoveredMetadata(c, newId, journal), c.data());
+    } else {
+      // a part of the run is stored under `id`: another id, held while the files are made
+      try (RunIdClaim claim = RunIdClaim.claim(archiveDir, id)) {
+        newId = claim.id();
+        s = RunWriter.write(archiveDir, recoveredMetadata(c, newId, journal), c.data());
+      }
+    }
     if (c.complete()) {
       delete(journal);
       notices.accept("unfinished run " + id + " was recovered from its journal as " + newId
@@ -124,19 +131,6 @@ public final class JournalRecovery {
           + " kept as " + moved);
     }
     return s;
-  }
-
-  private static String freeOtherThanJournal(Path archiveDir, String id) {
-    if (!Files.exists(archiveDir.resolve(id + ".csv"))
-        && !Files.exists(archiveDir.resolve(id + ".json"))) {
-      return id;
-    }
-    for (int n = 2; ; n++) {
-      String cand = id + "-" + n;
-      if (!RunIds.taken(archiveDir, cand)) {
-        return cand;
-      }
-    }
   }
 
   private static boolean readsBack(Path csv, int samples) {
@@ -216,21 +210,30 @@ public final class JournalRecovery {
     Precondition.notNull(journal, "journal");
     try (InputStream in = new java.io.BufferedInputStream(Files.newInputStream(journal), 1 << 16)) {
       RunMetadata header = readHeader(in, journal);
-      DoubleUnaryOperator force;
-      try {
-        force = ScaleForce.of(header.scaleSpec());
-      } catch (LoadstoneException e) {
-        throw new DamagedHeader("its scale_spec cannot be used: " + e.getMessage());
-      }
-      double cpm = countsPerMm(header);
-      return readRecords(in, header, force, cpm);
+      return readRecords(in, header, derive(header));
     } catch (IOException e) {
       throw new LoadstoneException("journal " + journal + " cannot be read: " + e.getMessage()
           + ": check the file's permissions", e);
     }
   }
 
-  private static RunMetadata readHeader(InputStream in, Path journal) throws IOException {
+  /**
+   * How the journal's samples become columns.
+   *
+   * @throws DamagedHeader when the header's scale cannot turn counts into force
+   */
+  static JournalScan.Derive derive(RunMetadata header) {
+    DoubleUnaryOperator force;
+    try {
+      force = ScaleForce.of(header.scaleSpec());
+    } catch (LoadstoneException e) {
+      throw new DamagedHeader("its scale_spec cannot be used: " + e.getMessage());
+    }
+    return new JournalScan.Derive(force, header.zeroOffset_counts(), countsPerMm(header));
+  }
+
+  /** Reads the header line; the stream is left at the first record. */
+  static RunMetadata readHeader(InputStream in, Path journal) throws IOException {
     ByteArrayOutputStream line = new ByteArrayOutputStream();
     int b;
     while ((b = in.read()) != '\n') {
@@ -276,90 +279,43 @@ public final class JournalRecovery {
   }
 
   private static JournalContents readRecords(InputStream in, RunMetadata header,
-      DoubleUnaryOperator force, double cpm) throws IOException {
-    int cap = 4096;
-    long[] t = new long[cap];
-    int[] k = new int[cap];
-    int[] p = new int[cap];
-    int[] s = new int[cap];
-    int n = 0;
-    int withPos = 0;
-    long firstIndex = -1;
-    long prevIndex = -1;
-    long missed = 0;
-    long gaps = 0;
-    long outOfOrder = 0;
-    long torn = 0;
-    byte[] rec = new byte[JournalFormat.RECORD_BYTES];
-    while (true) {
-      int got = in.readNBytes(rec, 0, rec.length);
-      if (got < rec.length || !JournalFormat.intact(rec, 0)) {
-        torn = got + in.transferTo(java.io.OutputStream.nullOutputStream());
-        break;
+      JournalScan.Derive d) throws IOException {
+    int[] cap = {4096};
+    long[][] t = {new long[cap[0]]};
+    int[][] k = {new int[cap[0]]};
+    int[][] p = {new int[cap[0]]};
+    int[][] s = {new int[cap[0]]};
+    JournalScan scan = JournalScan.run(in, Long.MAX_VALUE, (i, timeUs, counts, hp, pos, seq) -> {
+      if (i == t[0].length) {
+        int m = i * 2;
+        t[0] = Arrays.copyOf(t[0], m);
+        k[0] = Arrays.copyOf(k[0], m);
+        p[0] = Arrays.copyOf(p[0], m);
+        s[0] = Arrays.copyOf(s[0], m);
       }
-      ByteBuffer bb = ByteBuffer.wrap(rec);
-      long index = bb.getLong();
-      long timeUs = bb.getLong();
-      bb.getLong(); // device_us: the unwrapped time_us is what the run needs
-      int counts = bb.getInt();
-      int pos = bb.getInt();
-      int seq = bb.getInt();
-      boolean hasPos = (bb.getInt() & 1) != 0;
-      if (prevIndex >= 0 && index <= prevIndex) {
-        torn = rec.length + in.transferTo(java.io.OutputStream.nullOutputStream());
-        break; // an old record after a new one cannot come from an append-only writer
-      }
-      if (n > 0 && timeUs <= t[n - 1]) {
-        outOfOrder++;
-        prevIndex = index;
-        continue;
-      }
-      if (prevIndex >= 0) {
-        missed += index - prevIndex - 1;
-        gaps += (seq - s[n - 1] - 1) & 0xFFFF;
-      } else {
-        firstIndex = index;
-      }
-      prevIndex = index;
-      if (n == t.length) {
-        int m = n * 2;
-        t = Arrays.copyOf(t, m);
-        k = Arrays.copyOf(k, m);
-        p = Arrays.copyOf(p, m);
-        s = Arrays.copyOf(s, m);
-      }
-      t[n] = timeUs;
-      k[n] = counts;
-      p[n] = pos;
-      s[n] = seq;
-      withPos += hasPos ? 1 : 0;
-      n++;
-    }
-    boolean pos = n > 0 && withPos == n;
-    boolean posDropped = withPos > 0 && withPos < n;
+      t[0][i] = timeUs;
+      k[0][i] = counts;
+      p[0][i] = pos;
+      s[0][i] = seq;
+    });
+    int n = scan.samples;
+    boolean pos = scan.position();
     double[] time = new double[n];
     double[] f = new double[n];
     double[] mm = pos ? new double[n] : null;
-    double zero = header.zeroOffset_counts();
     for (int i = 0; i < n; i++) {
-      time[i] = (t[i] - t[0]) / 1e6;
-      f[i] = force.applyAsDouble(k[i] - zero);
+      time[i] = d.time_s(t[0][i], scan.firstTimeUs);
+      f[i] = d.force_N(k[0][i]);
       if (pos) {
-        mm[i] = Double.isNaN(cpm) ? p[i] : p[i] / cpm;
+        mm[i] = d.position_mm(p[0][i]);
       }
     }
-    RunMetadata h = header;
-    if (pos && Double.isNaN(cpm)) {
-      List<String> w = new ArrayList<>(h.warnings());
-      w.add("the device identity gave no counts per mm (cpm): position_mm holds raw position"
-          + " counts");
-      h = h.withWarnings(w);
-    }
-    RunData data = new RunData(time, f, mm, Arrays.copyOf(k, n), pos ? Arrays.copyOf(p, n) : null,
-        Arrays.copyOf(s, n));
-    return new JournalContents(h, data, firstIndex, missed, gaps, outOfOrder, torn, posDropped);
+    RunMetadata h = header.withWarnings(d.warnings(header, pos));
+    RunData data = new RunData(time, f, mm, Arrays.copyOf(k[0], n),
+        pos ? Arrays.copyOf(p[0], n) : null, Arrays.copyOf(s[0], n));
+    return new JournalContents(h, data, scan.firstIndex, scan.missedByJournal, scan.seqGaps,
+        scan.outOfOrder, scan.tornBytes, scan.positionDropped());
   }
-
 
   private static Path moveAside(Path archiveDir, Path journal) {
     Path dir = JournalFormat.damagedDir(archiveDir);

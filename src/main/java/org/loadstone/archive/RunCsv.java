@@ -3,7 +3,7 @@ package org.loadstone.archive;
 import java.io.IOException;
 import java.io.Reader;
 import java.io.UncheckedIOException;
-import java.io.Writer;
+import java.io.OutputStream;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.List;
@@ -11,7 +11,6 @@ import java.util.Map;
 import java.util.regex.Pattern;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
-import org.apache.commons.csv.CSVPrinter;
 import org.apache.commons.csv.CSVRecord;
 import org.loadstone.units.LoadstoneException;
 
@@ -30,42 +29,102 @@ final class RunCsv {
   private static final Pattern DECIMAL =
       Pattern.compile("[-+]?(?:[0-9]+\\.?[0-9]*|\\.[0-9]+)(?:[eE][-+]?[0-9]+)?");
   private static final Pattern INTEGER = Pattern.compile("[-+]?[0-9]{1,10}");
-  private static final CSVFormat WRITE = CSVFormat.DEFAULT.builder()
-      .setHeader(HEADER.toArray(String[]::new)).setRecordSeparator("\n").get();
   private static final CSVFormat READ = CSVFormat.DEFAULT.builder().setHeader()
       .setSkipHeaderRecord(true).setIgnoreEmptyLines(false).get();
 
   private RunCsv() {}
 
-  static void write(RunData d, Writer out) throws IOException {
-    CSVPrinter p = new CSVPrinter(out, WRITE);
+  static void write(RunData d, OutputStream out, String runId) throws IOException {
+    LineWriter w = new LineWriter(out, runId);
     boolean pos = d.hasPosition();
     for (int i = 0; i < d.size(); i++) {
-      p.printRecord(Double.toString(d.time_s()[i]), Double.toString(d.force_N()[i]),
-          pos ? Double.toString(d.position_mm()[i]) : "",
-          Integer.toString(d.rawCounts()[i]), pos ? Integer.toString(d.rawPosition()[i]) : "",
-          Integer.toString(d.seq()[i]));
+      w.line(d.time_s()[i], d.force_N()[i], pos, pos ? d.position_mm()[i] : 0,
+          d.rawCounts()[i], pos ? d.rawPosition()[i] : 0, d.seq()[i]);
     }
-    p.flush();
+    w.flush();
   }
 
   /** Checks what a reader would refuse, before anything is written. */
   static void check(RunData d, String runId) {
     for (int i = 0; i < d.size(); i++) {
-      finite(d.time_s()[i], "time_s", i, runId);
-      finite(d.force_N()[i], "force_N", i, runId);
-      if (d.hasPosition()) {
-        finite(d.position_mm()[i], "position_mm", i, runId);
+      checkSample(i, d.time_s()[i], i > 0 ? d.time_s()[i - 1] : Double.NaN, d.force_N()[i],
+          d.hasPosition(), d.hasPosition() ? d.position_mm()[i] : 0, d.seq()[i], runId);
+    }
+  }
+
+  private static void checkSample(int i, double t, double prevT, double f, boolean pos, double p,
+      int s, String runId) {
+    finite(t, "time_s", i, runId);
+    finite(f, "force_N", i, runId);
+    if (pos) {
+      finite(p, "position_mm", i, runId);
+    }
+    if (i > 0 && !(t > prevT)) {
+      throw new LoadstoneException("run " + runId + ": time_s of sample " + i + " (" + t
+          + " s) is not after the previous sample's (" + prevT + " s): the run was not stored;"
+          + " rebuild the samples from the journal");
+    }
+    if (s < 0 || s > 0xFFFF) {
+      throw new IllegalArgumentException("seq of sample " + i + " must be 0…65535, was " + s);
+    }
+  }
+
+  /**
+   * Writes the sample file line by line, the header first, checking each sample as {@link
+   * #check} does; numbers as {@link Double#toString(double)} and {@link Integer#toString(int)},
+   * empty position cells without a position channel. No cell ever needs quotes, so the lines
+   * are the RFC 4180 lines Commons CSV would print. Holds one buffer, whatever the run's length.
+   */
+  static final class LineWriter {
+    private final OutputStream out;
+    private final String runId;
+    private final byte[] buf = new byte[1 << 16];
+    private final StringBuilder sb = new StringBuilder(160);
+    private int used;
+    private int i;
+    private double prevT = Double.NaN;
+
+    LineWriter(OutputStream out, String runId) throws IOException {
+      this.out = out;
+      this.runId = runId;
+      sb.append(HEADER_TEXT).append('\n');
+      put();
+    }
+
+    /** Appends one sample; position values are ignored when {@code pos} is false. */
+    void line(double t, double f, boolean pos, double p, int k, int rp, int s) throws IOException {
+      checkSample(i, t, prevT, f, pos, p, s, runId);
+      sb.setLength(0);
+      sb.append(Double.toString(t)).append(',').append(Double.toString(f)).append(',');
+      if (pos) {
+        sb.append(Double.toString(p));
       }
-      if (i > 0 && !(d.time_s()[i] > d.time_s()[i - 1])) {
-        throw new LoadstoneException("run " + runId + ": time_s of sample " + i + " ("
-            + d.time_s()[i] + " s) is not after the previous sample's (" + d.time_s()[i - 1]
-            + " s): the run was not stored; rebuild the samples from the journal");
+      sb.append(',').append(k).append(',');
+      if (pos) {
+        sb.append(rp);
       }
-      int s = d.seq()[i];
-      if (s < 0 || s > 0xFFFF) {
-        throw new IllegalArgumentException("seq of sample " + i + " must be 0…65535, was " + s);
+      sb.append(',').append(s).append('\n');
+      put();
+      prevT = t;
+      i++;
+    }
+
+    private void put() throws IOException {
+      int n = sb.length();
+      if (used + n > buf.length) {
+        out.write(buf, 0, used);
+        used = 0;
       }
+      for (int j = 0; j < n; j++) {
+        buf[used++] = (byte) sb.charAt(j); // ASCII only: digits, signs, '.', 'E', ','
+      }
+    }
+
+    /** Writes what is buffered. */
+    void flush() throws IOException {
+      out.write(buf, 0, used);
+      used = 0;
+      out.flush();
     }
   }
 

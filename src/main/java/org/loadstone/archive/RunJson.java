@@ -26,13 +26,15 @@ final class RunJson {
 
   /** Fields that describe the end of a run; a journal header has none of them. */
   static final List<String> END_FIELDS = List.of("cause", "break_index", "break_time_s",
-      "peak_before_break_N", "drop_at_break_pct");
+      "peak_before_break_N", "drop_at_break_pct", "return_to_zero_N");
 
   static final Set<String> KNOWN = Set.of("run_id", "started_at", "specimen", "group", "tags",
       "operator", "notes", "mass_g", "geometry", "test_type", "device", "sample_rate_hz",
+      "sample_rate_source",
       "calibration_id", "calibration_sha256", "scale", "scale_spec", "zero_offset_counts",
       "dropped", "checksum_errors", "cause", "break_index", "break_time_s", "peak_before_break_N",
-      "drop_at_break_pct", "pretrigger_s", "start_threshold_N", "check_weight", "warnings",
+      "drop_at_break_pct", "pretrigger_s", "start_threshold_N", "return_to_zero_N", "check_weight",
+      "warnings",
       "software_version");
 
   private RunJson() {}
@@ -61,6 +63,7 @@ final class RunJson {
     ObjectNode dev = o.putObject("device");
     new java.util.TreeMap<>(m.device()).forEach(dev::put);
     o.put("sample_rate_hz", m.sampleRate_Hz());
+    o.put("sample_rate_source", m.sampleRateSource());
     o.put("calibration_id", m.calibrationId());
     o.put("calibration_sha256", m.calibrationSha256());
     o.put("scale", m.scale());
@@ -80,6 +83,7 @@ final class RunJson {
     o.put("drop_at_break_pct", m.dropAtBreak_pct());
     o.put("pretrigger_s", m.pretrigger_s());
     o.put("start_threshold_N", m.startThreshold_N());
+    o.put("return_to_zero_N", m.returnToZero_N());
     o.set("check_weight", m.checkWeight() == null ? null : LINE.valueToTree(m.checkWeight()));
     ArrayNode w = o.putArray("warnings");
     m.warnings().forEach(w::add);
@@ -171,6 +175,7 @@ final class RunJson {
         .testType(testType == null ? null : f.wrap("test_type", () -> TestType.parse(testType)))
         .device(device)
         .sampleRate_Hz(f.number("sample_rate_hz"))
+        .sampleRateSource(f.optString("sample_rate_source"))
         .calibrationId(f.optString("calibration_id"))
         .calibrationSha256(f.optString("calibration_sha256"))
         .scale(f.optString("scale"))
@@ -185,6 +190,7 @@ final class RunJson {
         .dropAtBreak_pct(causeOverride != null ? null : f.optDouble("drop_at_break_pct"))
         .pretrigger_s(f.optDoubleOr("pretrigger_s", 0))
         .startThreshold_N(f.optDouble("start_threshold_N"))
+        .returnToZero_N(causeOverride != null ? null : f.optDouble("return_to_zero_N"))
         .checkWeight(checkWeight)
         .warnings(f.strings("warnings"))
         .softwareVersion(f.optString("software_version"))

@@ -21,7 +21,11 @@ import org.loadstone.units.Precondition;
  * @param testType the kind of test
  * @param device device identity fields as sent (proto, fw, adc, rate, ch, cpm, motor, name) plus
  *     {@code port}
- * @param sampleRate_Hz measured sample rate
+ * @param sampleRate_Hz the device's sample rate, samples/s: its stated rate, or measured from its own
+ *     timestamps when it stated none ({@code sampleRateSource} says which)
+ * @param sampleRateSource where {@code sampleRate_Hz} comes from: {@code identity} (the rate the
+ *     device stated) or {@code device-clock} (measured from the device timestamps of the first
+ *     samples); null in runs stored before this was kept
  * @param calibrationId id of the calibration used, or null when a nominal sensitivity was used
  * @param calibrationSha256 content hash of that calibration, or null
  * @param scale how counts became force, in words (e.g. "linear 8590 counts/N (nominal)")
@@ -36,6 +40,8 @@ import org.loadstone.units.Precondition;
  * @param dropAtBreak_pct how far force had fallen below the peak, % of the peak, or null
  * @param pretrigger_s length of the pre-trigger history kept before the start threshold
  * @param startThreshold_N force that started the run (auto start), or null for a manual start
+ * @param returnToZero_N force read once the load came off at the end of the run, relative to the
+ *     tare, N; null when the run ended with load still on the cell
  * @param checkWeight the last check-weight verification of the calibration, as stored, or null
  * @param warnings warnings given before or during the run (expired calibration, overload warning…)
  * @param softwareVersion Loadstone's version
@@ -54,6 +60,7 @@ public record RunMetadata(
     TestType testType,
     Map<String, String> device,
     double sampleRate_Hz,
+    String sampleRateSource,
     String calibrationId,
     String calibrationSha256,
     String scale,
@@ -68,6 +75,7 @@ public record RunMetadata(
     Double dropAtBreak_pct,
     double pretrigger_s,
     Double startThreshold_N,
+    Double returnToZero_N,
     Map<String, Object> checkWeight,
     List<String> warnings,
     String softwareVersion,
@@ -88,6 +96,10 @@ public record RunMetadata(
     Precondition.notNull(cause, "cause");
     warnings = warnings == null ? List.of() : List.copyOf(warnings);
     extra = extra == null ? Map.of() : Map.copyOf(extra);
+    if (returnToZero_N != null && !Double.isFinite(returnToZero_N)) {
+      throw new IllegalArgumentException("return to zero must be a finite force, was "
+          + returnToZero_N);
+    }
     if (mass_g != null && !(Double.isFinite(mass_g) && mass_g > 0)) {
       throw new org.loadstone.units.LoadstoneException(
           "specimen mass must be a positive number of grams, was " + mass_g);
@@ -136,6 +148,7 @@ public record RunMetadata(
     b.testType = testType;
     b.device = device;
     b.sampleRate_Hz = sampleRate_Hz;
+    b.sampleRateSource = sampleRateSource;
     b.calibrationId = calibrationId;
     b.calibrationSha256 = calibrationSha256;
     b.scale = scale;
@@ -150,6 +163,7 @@ public record RunMetadata(
     b.dropAtBreak_pct = dropAtBreak_pct;
     b.pretrigger_s = pretrigger_s;
     b.startThreshold_N = startThreshold_N;
+    b.returnToZero_N = returnToZero_N;
     b.checkWeight = checkWeight;
     b.warnings = warnings;
     b.softwareVersion = softwareVersion;
@@ -174,6 +188,7 @@ public record RunMetadata(
     private TestType testType;
     private Map<String, String> device;
     private double sampleRate_Hz;
+    private String sampleRateSource;
     private String calibrationId;
     private String calibrationSha256;
     private String scale;
@@ -188,6 +203,7 @@ public record RunMetadata(
     private Double dropAtBreak_pct;
     private double pretrigger_s;
     private Double startThreshold_N;
+    private Double returnToZero_N;
     private Map<String, Object> checkWeight;
     private List<String> warnings;
     private String softwareVersion;
@@ -252,6 +268,11 @@ public record RunMetadata(
 
     public Builder sampleRate_Hz(double v) {
       sampleRate_Hz = v;
+      return this;
+    }
+
+    public Builder sampleRateSource(String v) {
+      sampleRateSource = v;
       return this;
     }
 
@@ -325,6 +346,11 @@ public record RunMetadata(
       return this;
     }
 
+    public Builder returnToZero_N(Double v) {
+      returnToZero_N = v;
+      return this;
+    }
+
     public Builder checkWeight(Map<String, Object> v) {
       checkWeight = v;
       return this;
@@ -347,7 +373,7 @@ public record RunMetadata(
 
     /** @return the record; throws as the record's constructor does when a required field is missing */
     public RunMetadata build() {
-      return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g, geometry, testType, device, sampleRate_Hz, calibrationId, calibrationSha256, scale, scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s, peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, checkWeight, warnings, softwareVersion, extra);
+      return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g, geometry, testType, device, sampleRate_Hz, sampleRateSource, calibrationId, calibrationSha256, scale, scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s, peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, returnToZero_N, checkWeight, warnings, softwareVersion, extra);
     }
   }
 }

@@ -1,9 +1,6 @@
 package org.loadstone.archive;
 
 import java.io.IOException;
-import java.io.OutputStreamWriter;
-import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -38,11 +35,24 @@ public final class RunWriter {
     Precondition.notNull(archiveDir, "archiveDir");
     Precondition.notNull(metadata, "metadata");
     Precondition.notNull(data, "data");
+    RunCsv.check(data, RunIds.requireValid(metadata.runId()));
+    return publish(archiveDir, metadata, data.size(),
+        out -> RunCsv.write(data, out, metadata.runId()));
+  }
+
+  /**
+   * Publishes the sample file written by {@code csvBody} (the header and every line, checked as
+   * they are written) and then the sidecar, as {@link #write} does; on any failure, {@link
+   * Error}s included, nothing of the run stays under its names.
+   *
+   * @param samples the number of samples the body writes, for checking the break index
+   */
+  static StoredRun publish(Path archiveDir, RunMetadata metadata, int samples,
+      FilePublisher.Content csvBody) {
     String id = RunIds.requireValid(metadata.runId());
-    RunCsv.check(data, id);
-    if (metadata.breakIndex() != null && metadata.breakIndex() >= data.size()) {
+    if (metadata.breakIndex() != null && metadata.breakIndex() >= samples) {
       throw new IllegalArgumentException("break index " + metadata.breakIndex()
-          + " is outside the run's " + data.size() + " samples");
+          + " is outside the run's " + samples + " samples");
     }
     byte[] sidecar = RunJson.pretty(metadata); // refuses NaN before anything is written
     ensureFolder(archiveDir);
@@ -50,11 +60,7 @@ public final class RunWriter {
     Path json = archiveDir.resolve(id + ".json");
     try {
       FilePublisher.publishAll(List.of(
-          new FilePublisher.Part(csv, "run file", out -> {
-            Writer w = new OutputStreamWriter(out, StandardCharsets.UTF_8);
-            RunCsv.write(data, w);
-            w.flush();
-          }),
+          new FilePublisher.Part(csv, "run file", csvBody),
           new FilePublisher.Part(json, "run file", out -> out.write(sidecar))));
       return new StoredRun(csv, json);
     } catch (FileExistsException e) {

@@ -4,8 +4,9 @@ import java.util.concurrent.Callable;
 import java.time.LocalDate;
 import java.util.Map;
 import org.loadstone.acquire.ScaleChoice;
+import org.loadstone.acquire.ScalePolicy;
+import org.loadstone.acquire.ZeroCheck;
 import org.loadstone.ui.DefaultDevice;
-import org.loadstone.units.LoadstoneException;
 import org.loadstone.ui.ConsoleApp;
 import org.loadstone.ui.ConsoleConfig;
 import org.loadstone.ui.ConsoleLauncher;
@@ -29,26 +30,27 @@ public final class ConsoleCommand implements Callable<Integer> {
   @Option(
       names = "--counts-per-n",
       description = "For a serial device without a calibration yet: nominal sensitivity in "
-          + "counts per N used to show force (default: show counts as N ÷ 1).")
+          + "counts per N, for a rough, uncalibrated force (without it or --cal the live view "
+          + "shows counts and runs are refused).")
   Double countsPerN;
+
+  @Option(names = "--zero-drift-N", description = "Warn before a run when the zero moved more than this since the last tare (default: 0.1 %% of rated capacity).")
+  Double zeroDriftLimit;
 
   @Override
   public Integer call() {
+    if (zeroDriftLimit != null) {
+      new ZeroCheck(zeroDriftLimit); // refused here rather than at the first run
+    }
     ConsoleConfig config;
     if (device.simulated()) {
       config = DefaultDevice.simulated(device.simSetup(), archive.folder(),
-          SafetyNotice.defaultHome());
+          SafetyNotice.defaultHome(), zeroDriftLimit);
     } else {
-      ScaleChoice scale = cal != null ? ScaleChoice.fromCalibration(cal, LocalDate.now())
-          : ScaleChoice.nominal(countsPerN == null ? 1.0 : countsPerN,
-              countsPerN == null ? "uncalibrated: counts" : "given", null);
-      Double cap = capacity != null ? capacity : scale.ratedCapacity_N();
-      if (cap == null) {
-        throw new LoadstoneException("the load cell's rated capacity is unknown, and the "
-            + "overload stop depends on it: give --capacity-N");
-      }
-      config = new ConsoleConfig(device.port, device::open, scale, cap, archive.folder(),
-          Map.of(), SafetyNotice.defaultHome());
+      // no calibration and no nominal sensitivity: the live view shows counts, runs are refused
+      ScaleChoice scale = ScalePolicy.choose(cal, countsPerN, null, LocalDate.now());
+      config = new ConsoleConfig(device.port, device::open, scale, capacity, zeroDriftLimit,
+          null, archive.folder(), Map.of(), SafetyNotice.defaultHome());
     }
     ConsoleApp.configure(config);
     ConsoleLauncher.launch(new String[0]);

@@ -2,7 +2,9 @@ package org.loadstone.cli;
 
 import java.io.PrintWriter;
 import java.util.Locale;
+import org.loadstone.acquire.DeviceIdentity;
 import org.loadstone.acquire.DeviceReader;
+import org.loadstone.acquire.SampleRate;
 import org.loadstone.acquire.SampleRing;
 import org.loadstone.calibration.CapturedReading;
 import org.loadstone.calibration.StabilityDetector;
@@ -27,7 +29,6 @@ final class LiveDevice implements AutoCloseable {
     }
   }
 
-  private static final long IDENTITY_WAIT_MS = 5000;
   private static final long SILENCE_LIMIT_MS = 5000;
   private static final long LINE_EVERY_MS = 100;
 
@@ -66,38 +67,33 @@ final class LiveDevice implements AutoCloseable {
   }
 
   /**
-   * Opens the device, starts streaming and waits for its identity (its sample rate).
+   * Opens the device, starts streaming and learns its sample rate (the one rule of {@link
+   * SampleRate}: from its identity, else from its clock).
    *
-   * @throws LoadstoneException when the device cannot be opened, does not identify itself within
-   *     5 s, or speaks another protocol version
+   * @throws LoadstoneException when the device cannot be opened, speaks another protocol version,
+   *     or sends too few samples to measure its rate
    */
   static LiveDevice open(DeviceOptions options, PrintWriter out) {
     Transport t = options.open();
     DeviceReader r = new DeviceReader(t, new SampleRing(1 << 16));
     try {
       r.start();
-      long deadline = System.nanoTime() + IDENTITY_WAIT_MS * 1_000_000;
-      while (r.identity().isEmpty() && r.lostReason().isEmpty()
-          && System.nanoTime() < deadline) {
-        sleep(10);
+      java.util.Optional<DeviceMessage.Identity> id;
+      try {
+        id = DeviceIdentity.await(r);
+      } catch (LoadstoneException e) {
+        if (r.lostReason().isPresent()) {
+          throw new DeviceLostException(r.lostReason().get());
+        }
+        throw e;
       }
-      if (r.lostReason().isPresent()) {
-        throw new DeviceLostException(r.lostReason().get());
-      }
-      if (r.unsupportedVersion().isPresent()) {
-        throw new LoadstoneException(r.unsupportedVersion().get());
-      }
-      DeviceMessage.Identity id = r.identity().orElseThrow(() -> new LoadstoneException(
-          "the device on " + t.name() + " sent no identity within " + IDENTITY_WAIT_MS / 1000
-              + " s: check that it runs Loadstone firmware, the baud rate (--baud) and, for a"
-              + " board that resets on open, --reset-wait-ms 2000"));
-      if (!(id.rateHz() > 0)) {
-        throw new LoadstoneException("the device on " + t.name() + " reports no sample rate in"
-            + " its identity: update its firmware");
-      }
-      String text = String.format(Locale.ROOT, "%s on %s, %s at %.0f samples/s", id.name(),
-          t.name(), id.adc(), id.rateHz());
-      return new LiveDevice(r, id.rateHz(), text, out);
+      SampleRate rate = SampleRate.await(r, DeviceIdentity.WAIT_MS);
+      String text = id.isPresent()
+          ? String.format(Locale.ROOT, "%s on %s, %s at %s", id.get().name(), t.name(),
+              id.get().adc(), rate.describe())
+          : String.format(Locale.ROOT, "device on %s (sent no identity), %s", t.name(),
+              rate.describe());
+      return new LiveDevice(r, rate.rate_Hz(), text, out);
     } catch (RuntimeException e) {
       r.close();
       throw e;

@@ -84,8 +84,8 @@ public final class LoadstoneCommand implements Runnable {
     cl.setExecutionExceptionHandler(
         (ex, commandLine, parseResult) -> {
           PrintWriter w = commandLine.getErr();
-          if (ex instanceof LoadstoneException) {
-            w.println("loadstone: " + ex.getMessage());
+          if (ex instanceof LoadstoneException le) {
+            w.println("loadstone: " + CliHints.withHow(le, commandLine));
             w.flush();
             return EXIT_USER_ERROR;
           }

@@ -2,6 +2,7 @@ package org.loadstone.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.time.Clock;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -18,14 +19,14 @@ import org.loadstone.acquire.RunControl;
 import org.loadstone.acquire.RunSettings;
 import org.loadstone.acquire.RunTemplate;
 import org.loadstone.acquire.SampleRing;
+import org.loadstone.acquire.RunSetup;
+import org.loadstone.acquire.SampleRate;
 import org.loadstone.acquire.ScaleChoice;
+import org.loadstone.acquire.ScalePolicy;
 import org.loadstone.archive.Geometry;
 import org.loadstone.archive.JournalRecovery;
-import org.loadstone.archive.RunMetadata;
 import org.loadstone.archive.StoredRun;
 import org.loadstone.archive.TestType;
-import org.loadstone.device.SimSetup;
-import org.loadstone.protocol.DeviceMessage;
 import org.loadstone.units.LoadstoneException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -45,6 +46,7 @@ import picocli.CommandLine.Option;
 public final class RecordCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
   @Mixin ArchiveOption archive;
+  @Mixin StiffnessOptions stiffness;
 
   @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file to turn counts into force.")
   Path cal;
@@ -118,6 +120,9 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--zero-samples", description = "Samples averaged for the zero (default: half a second).")
   Integer zeroSamples;
 
+  @Option(names = "--zero-drift-N", description = "Warn before the run when the zero moved more than this since the last tare (default: 0.1 %% of rated capacity).")
+  Double zeroDriftLimit;
+
   @Option(names = "--json", description = "End with the result as one JSON object on the last line.")
   boolean json;
 
@@ -128,57 +133,42 @@ public final class RecordCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
     Path dir = archive.folder();
+    org.loadstone.analysis.AnalysisSettings analysis =
+        stiffness.apply(org.loadstone.analysis.AnalysisSettings.DEFAULTS); // refuse before a run
     JournalRunStore store = new JournalRunStore(dir);
     store.checkWritable();
     for (StoredRun r : JournalRecovery.recoverAll(dir, n -> say(err, n))) {
       say(err, "recovered an unfinished run into " + r.csv());
     }
 
-    ScaleChoice scale = chooseScale();
-    double cap = capacity != null ? capacity : scale.ratedCapacity_N() != null
-        ? scale.ratedCapacity_N() : unknownCapacity();
+    ScaleChoice scale = ScalePolicy.choose(cal, countsPerN,
+        device.simulated() ? device.simSetup() : null, LocalDate.now());
     RunSettings.Builder b = RunSettings.builder().startThreshold_N(startAt).breakDropPct(dropPct)
         .absoluteStop_N(stopBelow).debounce_s(debounce).postBreak_s(tail).pretrigger_s(pretrigger)
-        .ratedCapacity_N(cap).overloadWarnPct(warnPct).overloadStopPct(overloadPct)
-        .maxSeconds(maxSeconds);
+        .overloadWarnPct(warnPct).overloadStopPct(overloadPct).maxSeconds(maxSeconds);
     if (armAt != null) {
       b.armingLevel_N(armAt);
     }
-    RunSettings settings = b.build();
-    List<String> notesAdded = new ArrayList<>();
-    if (device.simulated()) {
-      fillFromSimulatedSpecimen(device.simSetup(), notesAdded);
-    }
     Geometry geometry = new Geometry(span, loadSpan, width, depth, facing, core, area);
     TestType type = TestType.parse(test);
-    for (String w : scale.warnings()) {
-      say(err, "warning: " + w);
-    }
+    RunSetup.Request request = new RunSetup.Request(new RunTemplate(specimen, group, tags,
+        operator, notes, mass_g, geometry, type), scale, capacity, b, zeroDriftLimit, zeroSamples,
+        manualStart, LoadstoneCommand.softwareVersion());
+    RunSetup.check(request, device.port); // before the device is opened
 
     DeviceReader reader = new DeviceReader(device.open(), new SampleRing(1 << 21));
     reader.start();
     try {
-      waitForIdentity(reader, err);
-      ScaleChoice checked = scale.forDevice(reader.identity());
-      for (String w : checked.warnings()) {
-        if (!scale.warnings().contains(w)) {
-          say(err, "warning: " + w);
-        }
+      RunSetup setup = new RunSetup(reader, dir, device.simulated() ? device.simSetup() : null,
+          simFields(), Clock.systemUTC());
+      RunSetup.Prepared run = setup.prepare(request, text -> say(err, text));
+      if (run.rate().source() == SampleRate.Source.IDENTITY) {
+        say(err, "sample rate " + run.rate().describe());
       }
-      scale = checked;
-      double rate = reader.identity().map(DeviceMessage.Identity::rateHz).filter(r -> r > 0)
-          .orElse(device.simulated() ? device.rateHz : 80.0);
-      int nZero = zeroSamples != null ? zeroSamples : (int) Math.max(5, Math.round(rate / 2));
-      say(err, "zeroing on " + nZero + " samples: keep the specimen unloaded");
-      Recorder.Zero tare = Recorder.zero(reader, nZero, 10_000 + (long) (nZero / rate * 2000));
-      double zero = tare.counts();
-      RunMetadata template = new RunTemplate(specimen, group, tags, operator,
-          notesAdded.isEmpty() ? notes
-              : (notes.isEmpty() ? "" : notes + " ") + String.join(" ", notesAdded),
-          mass_g, geometry, type).build(dir, reader, simFields(), rate, scale, zero, pretrigger,
-          manualStart ? null : startAt, LoadstoneCommand.softwareVersion());
-      Recorder rec = new Recorder(reader, scale.scale(), zero, settings, template, store,
-          new Progress(err));
+      for (String w : run.warnings()) {
+        say(err, "warning: " + w);
+      }
+      Recorder rec = setup.recorder(run, store, new Progress(err));
       Thread hook = new Thread(() -> {
         rec.stop();
         try {
@@ -195,11 +185,11 @@ public final class RecordCommand implements Callable<Integer> {
         say(err, String.format(Locale.ROOT, "armed: recording starts at %.4g N; the run stops "
             + "by itself at a %.0f %% drop from the peak (Ctrl-C stops it by hand)",
             startAt, dropPct));
-        rec.arm(tare.nextIndex());
+        rec.arm(run.decideFrom());
       }
       boolean tty = System.console() != null && !json;
       java.util.Optional<Recorder.Result> result = java.util.Optional.empty();
-      while (result.isEmpty() && rec.failure().isEmpty()) {
+      while (result.isEmpty() && rec.failure().isEmpty() && !rec.ended()) {
         result = rec.await(200, TimeUnit.MILLISECONDS);
         if (tty && result.isEmpty()) {
           Recorder.Status s = rec.status();
@@ -229,95 +219,10 @@ public final class RecordCommand implements Callable<Integer> {
         say(err, reader.lostReason().orElse("stopped before any load: no run recorded"));
         return reader.lostReason().isPresent() ? LoadstoneCommand.EXIT_DEVICE_LOST : 0;
       }
-      RecordSummary.print(result.get(), json, archive.archive, out);
+      RecordSummary.print(result.get(), json, archive.archive, analysis, out);
       return 0;
     } finally {
       reader.close();
-    }
-  }
-
-  /**
-   * On the simulated frame, the specimen's dimensions and mass are what a tester would measure
-   * with calipers and a scale before the run: fill what the user did not give.
-   */
-  private void fillFromSimulatedSpecimen(SimSetup setup, List<String> notesAdded) {
-    var spec = setup.buildFrame().truth().specimen();
-    if (spec == null) {
-      return;
-    }
-    boolean filled = false;
-    if (spec.panel() != null) {
-      var p = spec.panel();
-      if (span == null) {
-        span = p.span_mm();
-        filled = true;
-      }
-      if (width == null) {
-        width = p.width_mm();
-        filled = true;
-      }
-      if (facing == null && core == null && depth == null) {
-        facing = p.facing_mm();
-        core = p.core_mm();
-        depth = p.core_mm() + 2 * p.facing_mm();
-        filled = true;
-      }
-    } else if (spec.beam() != null) {
-      var b = spec.beam();
-      if (span == null && width == null && depth == null) {
-        span = b.span_mm();
-        width = b.width_mm();
-        depth = b.depth_mm();
-        filled = true;
-      }
-    }
-    if (mass_g == null && spec.mass_kg() > 0) {
-      mass_g = Math.round(spec.mass_kg() * 1e4) / 10.0;
-      filled = true;
-    }
-    if (filled) {
-      notesAdded.add("Geometry and mass not given were taken from the simulated specimen.");
-    }
-  }
-
-  private ScaleChoice chooseScale() {
-    if (cal != null) {
-      return ScaleChoice.fromCalibration(cal, LocalDate.now());
-    }
-    if (countsPerN != null) {
-      return ScaleChoice.nominal(countsPerN, "given", null);
-    }
-    if (device.simulated()) {
-      SimSetup s = device.simSetup();
-      var cell = s.cell();
-      return ScaleChoice.nominal(cell.countsPerN(), "simulated cell's nominal",
-          cell.capacity_N());
-    }
-    throw new LoadstoneException("no calibration for " + device.port + ": pass --cal FILE (make "
-        + "one with 'loadstone calibrate') or --counts-per-n K for a rough, uncalibrated reading");
-  }
-
-  private double unknownCapacity() {
-    throw new LoadstoneException("the load cell's rated capacity is unknown, and the overload "
-        + "stop depends on it: give --capacity-N (or keep the cell profile in cells/ beside the "
-        + "calibration file)");
-  }
-
-  private static void waitForIdentity(DeviceReader reader, PrintWriter err)
-      throws InterruptedException {
-    long until = System.nanoTime() + 3_000_000_000L;
-    while (reader.identity().isEmpty() && System.nanoTime() < until
-        && reader.lostReason().isEmpty()) {
-      Thread.sleep(10);
-    }
-    reader.unsupportedVersion().ifPresent(m -> {
-      throw new LoadstoneException(m);
-    });
-    reader.lostReason().ifPresent(m -> {
-      throw new LoadstoneException(m);
-    });
-    if (reader.identity().isEmpty()) {
-      say(err, "warning: the device did not identify itself; using the measured rate");
     }
   }
 

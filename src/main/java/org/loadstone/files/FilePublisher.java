@@ -188,7 +188,7 @@ public final class FilePublisher {
         out.flush();
         ch.force(true);
         return tmp;
-      } catch (IOException | RuntimeException e) {
+      } catch (IOException | RuntimeException | Error e) { // out of memory too: no stray file
         Folders.deleteQuietly(tmp);
         throw e;
       }

@@ -132,8 +132,14 @@ public final class GroupStudy {
     return new Report(sel, results, notCompared);
   }
 
+  /** @return e.g. "1 run left out (1 manual)" or "4 runs left out (3 uncalibrated, 1 manual)" */
+  public static String leftOutSummary(List<LeftOut> leftOut) {
+    return leftOut.size() + (leftOut.size() == 1 ? " run" : " runs") + " left out ("
+        + tally(leftOut) + ")";
+  }
+
   /** @return the left-out runs counted by kind, e.g. "3 uncalibrated, 1 manual" */
-  public static String tally(List<LeftOut> leftOut) {
+  private static String tally(List<LeftOut> leftOut) {
     Map<Kind, Integer> n = new TreeMap<>();
     leftOut.forEach(l -> n.merge(l.kind(), 1, Integer::sum));
     List<String> parts = new ArrayList<>();

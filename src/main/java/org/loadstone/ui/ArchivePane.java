@@ -192,7 +192,7 @@ final class ArchivePane {
           select();
         });
       } catch (LoadstoneException e) {
-        Platform.runLater(() -> status.setText(e.getMessage()));
+        Platform.runLater(() -> status.setText(ConsoleHints.withHow(e)));
       }
     }, "archive review");
     t.setDaemon(true);
@@ -219,8 +219,8 @@ final class ArchivePane {
     Selection sel = archive.select(settings());
     show(sel);
     status.setText(sel.counted() + " runs counted in " + sel.folder()
-        + (sel.leftOut().isEmpty() ? "" : " · " + sel.leftOut().size() + " left out ("
-            + GroupStudy.tally(sel.leftOut()) + "), listed beside the comparison"));
+        + (sel.leftOut().isEmpty() ? "" : " · " + GroupStudy.leftOutSummary(sel.leftOut())
+            + ", listed beside the comparison"));
   }
 
   private static final String ALL = "all groups";

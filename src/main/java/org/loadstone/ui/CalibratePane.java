@@ -185,7 +185,10 @@ final class CalibratePane {
       }
       CalibrationPlan plan = new CalibrationPlan(MassText.parseList_kg(loads.getText(), "loads"),
           descending.isSelected(), series.getValue());
-      double rate = r.identity().map(id -> id.rateHz()).filter(x -> x > 0).orElse(80.0);
+      double rate = org.loadstone.acquire.SampleRate.known(r).orElseThrow(() ->
+          new LoadstoneException("the device has not stated its sample rate, and too few "
+              + "samples have arrived to measure it: wait until the live force shows, then "
+              + "start again")).rate_Hz();
       Double g = SpecimenFields.number(gravity, "local g", "m/s²");
       settings = new CalibrationSettings(
           g == null ? ForceFromMass.standard() : ForceFromMass.withGravity(g), null, null);
@@ -202,7 +205,7 @@ final class CalibratePane {
       prepareStep();
       timer.start();
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 
@@ -224,7 +227,7 @@ final class CalibratePane {
     try {
       weights.load(s.mass_kg());
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 
@@ -241,7 +244,7 @@ final class CalibratePane {
         state[0] = session.offer(c);
       }, Integer.MAX_VALUE);
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage()); // not settled in time: the judgement starts again
+      message.setText(ConsoleHints.withHow(e)); // not settled in time: the judgement starts again
       return;
     }
     if (Double.isNaN(last[0])) {
@@ -271,7 +274,7 @@ final class CalibratePane {
       prepareStep();
     } catch (LoadstoneException e) {
       captureWanted = false;
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 
@@ -285,7 +288,7 @@ final class CalibratePane {
       message.setText("step skipped (" + session.skipped() + " so far)");
       prepareStep();
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 
@@ -343,7 +346,7 @@ final class CalibratePane {
     } catch (IOException e) {
       message.setText("cannot create the folder " + dir + ": " + e.getMessage());
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 
@@ -353,7 +356,7 @@ final class CalibratePane {
       message.setText("the live force and the next runs use " + saved.getFileName());
       use.setDisable(true);
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 

@@ -4,6 +4,7 @@ import java.nio.file.Path;
 import java.util.Map;
 import java.util.function.Supplier;
 import org.loadstone.acquire.ScaleChoice;
+import org.loadstone.device.SimSetup;
 import org.loadstone.device.Transport;
 import org.loadstone.units.Precondition;
 
@@ -12,19 +13,22 @@ import org.loadstone.units.Precondition;
  *
  * @param deviceLabel how the device is named in the window, e.g. {@code sim · panel-foam}
  * @param connect opens the device link (called again to reconnect)
- * @param scale counts to force, with the warnings a run must carry
- * @param ratedCapacity_N the load cell's rated capacity (for the overload stop)
+ * @param scale counts to force, with the warnings a run must carry; null until a calibration is
+ *     chosen (the live view then shows counts and runs are refused, see {@code ScalePolicy})
+ * @param ratedCapacity_N the load cell's rated capacity as given, or null to take it from the
+ *     calibration's cell profile or the simulated cell
+ * @param zeroDriftLimit_N the zero check's limit, or null for the default
+ * @param simulated the simulated frame, or null for a real device
  * @param archive where runs are stored
  * @param deviceFields extra device fields stored with runs (e.g. the simulator's scenario)
  * @param home Loadstone's settings folder
  */
 public record ConsoleConfig(String deviceLabel, Supplier<Transport> connect, ScaleChoice scale,
-    double ratedCapacity_N, Path archive, Map<String, String> deviceFields, Path home) {
+    Double ratedCapacity_N, Double zeroDriftLimit_N, SimSetup simulated, Path archive,
+    Map<String, String> deviceFields, Path home) {
   public ConsoleConfig {
     Precondition.notNull(deviceLabel, "deviceLabel");
     Precondition.notNull(connect, "connect");
-    Precondition.notNull(scale, "scale");
-    Precondition.positive(ratedCapacity_N, "ratedCapacity_N");
     Precondition.notNull(archive, "archive");
     deviceFields = Map.copyOf(deviceFields);
     Precondition.notNull(home, "home");

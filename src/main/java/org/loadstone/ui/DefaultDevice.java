@@ -1,8 +1,9 @@
 package org.loadstone.ui;
 
 import java.nio.file.Path;
+import java.time.LocalDate;
 import java.util.Map;
-import org.loadstone.acquire.ScaleChoice;
+import org.loadstone.acquire.ScalePolicy;
 import org.loadstone.archive.ArchiveFolders;
 import org.loadstone.device.SimSetup;
 
@@ -16,12 +17,18 @@ public final class DefaultDevice {
 
   /** The console on a simulated frame with these settings. */
   public static ConsoleConfig simulated(SimSetup setup, Path archive, Path home) {
-    var cell = setup.cell();
-    double capacity = cell.capacity_N();
+    return simulated(setup, archive, home, null);
+  }
+
+  /**
+   * The console on a simulated frame with these settings and a zero check limit (null: the
+   * default).
+   */
+  public static ConsoleConfig simulated(SimSetup setup, Path archive, Path home,
+      Double zeroDriftLimit_N) {
     return new ConsoleConfig("simulated frame · " + setup.scenario() + " · seed " + setup.seed(),
-        setup::openTransport,
-        ScaleChoice.nominal(cell.countsPerN(), "simulated cell's nominal", capacity),
-        capacity, archive, Map.of("sim_scenario", setup.scenario(),
+        setup::openTransport, ScalePolicy.choose(null, null, setup, LocalDate.now()), null,
+        zeroDriftLimit_N, setup, archive, Map.of("sim_scenario", setup.scenario(),
             "sim_seed", Long.toString(setup.seed())), home);
   }
 }

@@ -15,6 +15,8 @@ import javafx.scene.layout.Priority;
 import javafx.scene.layout.Region;
 import javafx.scene.layout.VBox;
 import org.loadstone.acquire.DeviceReader;
+import org.loadstone.acquire.ForceScale;
+import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.LiveFeed;
 import org.loadstone.acquire.SampleRing;
 import org.loadstone.acquire.ScaleChoice;
@@ -43,12 +45,16 @@ final class LivePane {
   private final Button plotAxis = new Button();
   private final RunPanel run;
   private final ForceChart chart = new ForceChart();
-  /** How counts become force: the configured scale until a calibration is chosen here. */
-  private ScaleChoice scale;
+  /**
+   * How counts become force: the configured scale until a calibration is chosen here; null while
+   * none is known (the readout shows counts and runs are refused).
+   */
+  private volatile ScaleChoice scale;
   /** Whether the chart shows force against crosshead travel (otherwise against time). */
   private boolean againstTravel;
-  private DeviceReader reader;
-  private LiveFeed feed;
+  private volatile DeviceReader reader;
+  private volatile LiveFeed feed;
+  private volatile RunSetup setup;
   private AnimationTimer timer;
   private long lastChartNanos;
 
@@ -70,6 +76,11 @@ final class LivePane {
       public ScaleChoice scale() {
         return scale;
       }
+
+      @Override
+      public RunSetup setup() {
+        return setup;
+      }
     }, this::newSpecimen);
     build();
   }
@@ -90,7 +101,8 @@ final class LivePane {
     Label mark = label("wordmark", "LOADSTONE");
     Region grow = new Region();
     HBox.setHgrow(grow, Priority.ALWAYS);
-    device.setText(config.deviceLabel());
+    device.setText(config.deviceLabel() + (scale == null
+        ? "  ·  no calibration chosen: the readout shows counts" : ""));
     HBox top = new HBox(16, mark, device, grow, state);
     top.getStyleClass().add("top-bar");
     top.setAlignment(Pos.CENTER_LEFT);
@@ -179,7 +191,7 @@ final class LivePane {
   }
 
   /**
-   * The one-key commands (Z, P, A, S, X), active while {@code active} says so (the live view is
+   * The one-key commands (Z, P, A, S, X, and N on the simulated frame), active while {@code active} says so (the live view is
    * the one shown) and not while typing in a field.
    */
   void installKeys(Scene scene, java.util.function.BooleanSupplier active) {
@@ -197,6 +209,8 @@ final class LivePane {
         run.stop();
       } else if (e.getCode() == KeyCode.X) {
         togglePlot();
+      } else if (e.getCode() == KeyCode.N) {
+        run.nextSpecimen();
       }
     });
   }
@@ -237,7 +251,7 @@ final class LivePane {
     try {
       t = config.connect().get();
     } catch (LoadstoneException e) {
-      showLost(e.getMessage());
+      showLost(ConsoleHints.withHow(e));
       return;
     }
     reader = new DeviceReader(t, new SampleRing(1 << 20));
@@ -249,8 +263,10 @@ final class LivePane {
         }
       }
     });
-    feed = new LiveFeed(reader, scale.scale(), WINDOW_S);
+    feed = new LiveFeed(reader, displayScale(), WINDOW_S);
     feed.tare(20); // zero on connect, as the specimen is not yet loaded
+    setup = new RunSetup(reader, config.archive(), config.simulated(), config.deviceFields(),
+        java.time.Clock.systemUTC());
     reader.start();
     reconnect.setVisible(false);
     reconnect.setManaged(false);
@@ -273,6 +289,12 @@ final class LivePane {
       reader.close();
       reader = null;
     }
+  }
+
+  /** The scale of the live readout: the chosen one, or counts while none is chosen. */
+  private ForceScale displayScale() {
+    ScaleChoice c = scale;
+    return c != null ? c.scale() : ForceScale.linear(1, "counts: no calibration chosen");
   }
 
   private void refresh(long now) {

@@ -20,10 +20,11 @@ import org.loadstone.acquire.LiveFeed;
 import org.loadstone.acquire.Recorder;
 import org.loadstone.acquire.RunControl;
 import org.loadstone.acquire.RunSettings;
+import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.RunTemplate;
 import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.archive.Run;
-import org.loadstone.archive.RunMetadata;
+import org.loadstone.device.PressOperator;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.archive.RunReader;
 import org.loadstone.units.LoadstoneException;
@@ -41,8 +42,11 @@ final class RunPanel {
 
     LiveFeed feed();
 
-    /** How counts become force for the next run. */
+    /** How counts become force for the next run, or null while none is chosen. */
     ScaleChoice scale();
+
+    /** The connected device's run set-up, or null before it is connected. */
+    RunSetup setup();
   }
 
   private final ConsoleConfig config;
@@ -58,6 +62,12 @@ final class RunPanel {
   private final SpecimenFields specimenFields = new SpecimenFields();
   private final VBox root;
   private volatile Recorder recorder;
+  /** A run is being set up (zero, zero check) off the JavaFX thread. */
+  private volatile boolean preparing;
+  /** Stop was asked for while the run was being set up: disarm as soon as it is armed. */
+  private volatile boolean stopWhilePreparing;
+  /** The live view's tares already told to the set-up. */
+  private long taresNoted;
   private volatile boolean runEnded;
   /** The last run was disarmed before it started: nothing was stored. */
   private volatile boolean disarmed;
@@ -87,6 +97,13 @@ final class RunPanel {
     HBox buttons = new HBox(8, arm, stop);
     HBox.setHgrow(arm, Priority.ALWAYS);
     HBox.setHgrow(stop, Priority.ALWAYS);
+    if (config.deviceFields().containsKey("sim_scenario")) {
+      // the simulated press: the program stands in for the hands that change the specimen
+      Button next = new Button("Next specimen  [N]");
+      next.setId("next-specimen-button");
+      next.setOnAction(e -> nextSpecimen());
+      buttons.getChildren().add(next);
+    }
     HBox idLine = new HBox(8, groupField, massField);
     HBox.setHgrow(groupField, Priority.ALWAYS);
     massField.setPrefWidth(110);
@@ -126,8 +143,9 @@ final class RunPanel {
   void arm() {
     DeviceReader reader = device.reader();
     LiveFeed feed = device.feed();
+    RunSetup setup = device.setup();
     Recorder r = recorder;
-    if (reader == null || feed == null || (r != null && !runEnded
+    if (reader == null || feed == null || setup == null || preparing || (r != null && !runEnded
         && r.status().state() != RunControl.State.FINISHED && r.failure().isEmpty())) {
       return;
     }
@@ -135,34 +153,87 @@ final class RunPanel {
       runResult.setText("wait for the zero to finish, then arm");
       return;
     }
+    RunSetup.Request request;
+    JournalRunStore store;
     try {
       Double mass_g = mass();
       specimenFields.geometry(); // refused here, before arming, when a size is not a number
-      RunSettings settings = RunSettings.builder().ratedCapacity_N(config.ratedCapacity_N()).build();
-      ScaleChoice scale = device.scale().forDevice(reader.identity());
-      JournalRunStore store = new JournalRunStore(config.archive());
-      store.checkWritable();
       String specimen = specimenField.getText().isBlank() ? "specimen-" + (++runCount)
           : specimenField.getText().trim();
-      double rate = reader.identity().map(id -> id.rateHz()).filter(x -> x > 0).orElse(80.0);
-      RunMetadata template = new RunTemplate(specimen, groupField.getText().trim(), List.of(),
-          "", "", mass_g, specimenFields.geometry(), specimenFields.testType())
-          .build(config.archive(), reader, config.deviceFields(), rate, scale,
-              feed.zeroCounts(), settings.pretrigger_s(), settings.startThreshold_N(),
-              String.valueOf(RunPanel.class.getPackage().getImplementationVersion()));
-      runEnded = false;
-      disarmed = false;
-      figures.getChildren().clear();
-      showFigures(false);
-      recorder = new Recorder(reader, scale.scale(), feed.zeroCounts(), settings,
-          template, store, new Events());
-      recorder.arm();
-      root.requestFocus(); // out of the text fields, so the one-key commands (S: stop) work
-      onArmed.run();
-      runResult.setText(scale.warnings().isEmpty() ? "" : "note: " + scale.warnings().get(0));
+      request = new RunSetup.Request(new RunTemplate(specimen, groupField.getText().trim(),
+          List.of(), "", "", mass_g, specimenFields.geometry(), specimenFields.testType()),
+          device.scale(), config.ratedCapacity_N(), RunSettings.builder(),
+          config.zeroDriftLimit_N(), null, false,
+          String.valueOf(RunPanel.class.getPackage().getImplementationVersion()));
+      RunSetup.check(request, config.deviceLabel());
+      store = new JournalRunStore(config.archive());
+      store.checkWritable();
     } catch (LoadstoneException e) {
-      runResult.setText(e.getMessage());
+      runResult.setText(ConsoleHints.withHow(e));
+      return;
     }
+    if (feed.taresDone() != taresNoted) {
+      taresNoted = feed.taresDone();
+      setup.noteTare(feed.zeroCounts()); // the live view's zero is the last tare
+    }
+    preparing = true;
+    stopWhilePreparing = false;
+    runEnded = false;
+    disarmed = false;
+    figures.getChildren().clear();
+    showFigures(false);
+    runResult.setText("");
+    Thread t = new Thread(() -> prepareAndArm(setup, feed, request, store), "run set-up");
+    t.setDaemon(true);
+    t.start();
+    root.requestFocus(); // out of the text fields, so the one-key commands (S: stop) work
+  }
+
+  /** Zero, zero check and arming, off the JavaFX thread (the zero takes half a second). */
+  private void prepareAndArm(RunSetup setup, LiveFeed feed, RunSetup.Request request,
+      JournalRunStore store) {
+    try {
+      RunSetup.Prepared p = setup.prepare(request,
+          text -> Platform.runLater(() -> runState.setText(text)));
+      feed.useZero(p.zero_counts());
+      Recorder rec = setup.recorder(p, store, new Events());
+      recorder = rec;
+      rec.arm(p.decideFrom());
+      if (stopWhilePreparing) {
+        rec.stop();
+      }
+      Platform.runLater(() -> {
+        preparing = false;
+        onArmed.run();
+        runResult.setText(p.warnings().isEmpty() ? "" : "note: " + String.join(" · ",
+            p.warnings()));
+      });
+    } catch (LoadstoneException e) {
+      Platform.runLater(() -> {
+        preparing = false;
+        runEnded = true;
+        runState.setText("no run armed");
+        runResult.setText(ConsoleHints.withHow(e));
+      });
+    }
+  }
+
+  /**
+   * Puts a new specimen in the simulated press (a real press: the operator does). Refused while a
+   * run is armed or recording.
+   */
+  void nextSpecimen() {
+    DeviceReader reader = device.reader();
+    Recorder r = recorder;
+    if (reader == null) {
+      return;
+    }
+    if (r != null && !runEnded && r.status().state() != RunControl.State.FINISHED) {
+      runResult.setText("a run is armed or recording: stop it before changing the specimen");
+      return;
+    }
+    PressOperator.forTransport(reader.transport()).nextSpecimen();
+    runResult.setText("a new specimen is in the press: arm to load it");
   }
 
   /** The mass typed in, or null when the field is empty. */
@@ -171,6 +242,9 @@ final class RunPanel {
   }
 
   void stop() {
+    if (preparing) {
+      stopWhilePreparing = true;
+    }
     Recorder r = recorder;
     if (r != null) {
       r.stop();
@@ -180,7 +254,7 @@ final class RunPanel {
   /** Called every display frame: the run's state in words. */
   void refresh() {
     Recorder r = recorder;
-    if (r != null) {
+    if (r != null && !preparing) {
       runState.setText(switch (r.status().state()) {
         case IDLE -> "no run armed";
         case ARMED -> "armed: waiting for load";
@@ -216,7 +290,8 @@ final class RunPanel {
     public void onFinished(Recorder.Result r) {
       runEnded = true;
       String text = String.format(Locale.ROOT, "run %s: %s · %d samples", r.stored().runId(),
-          r.cause().wireName(), r.samples());
+          r.cause().wireName(), r.samples()) + (r.returnToZero_N() == null ? ""
+              : String.format(Locale.ROOT, " · return to zero %+.3g N", r.returnToZero_N()));
       Platform.runLater(() -> runResult.setText(text));
       analyse(r.stored().csv());
     }

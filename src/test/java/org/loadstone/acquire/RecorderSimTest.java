@@ -85,7 +85,8 @@ class RecorderSimTest {
     reader.start();
     double countsPerN = setup.nominalCountsPerN();
     double zero = Recorder.tare(reader, 200, 5000);
-    // the simulated specimen is touched about 0.9 s after the stream starts: 0.3 s of history fits
+    // the simulated press starts 1 s after the arming and touches the specimen 0.6 s later: 0.3 s
+    // of history fits
     RunSettings s = RunSettings.builder().startThreshold_N(5).pretrigger_s(0.3)
         .ratedCapacity_N(500).build();
     MemoryRunStore store = new MemoryRunStore();
@@ -97,7 +98,9 @@ class RecorderSimTest {
 
     assertThat(r.cause()).isEqualTo(FinishCause.BREAK);
     assertThat(r.dropped()).isZero();
-    // ground truth: run the same model to the end and read its peak
+    // ground truth: run the same model to the end and read its peak (its press started at once:
+    // the same specimen at the same rate reaches the same peak whenever it starts)
+    truthFrame.operatorStarts();
     for (int i = 0; i < 200_000 && !truthFrame.truth().broken(); i++) {
       truthFrame.next((a, b, c, d) -> { });
     }
@@ -157,6 +160,43 @@ class RecorderSimTest {
     assertThat(warnings).anySatisfy(w -> assertThat(w).contains("overload warning"));
     assertThat(r.peak_N()).isGreaterThanOrEqualTo(capacity);
     assertThat(store.finalMeta.warnings()).anySatisfy(w -> assertThat(w).contains("80 %"));
+    // stopped with the load on the cell: there is no return to zero to read
+    assertThat(store.finalMeta.returnToZero_N()).isNull();
+  }
+
+  @Test
+  @Timeout(60)
+  void aRunThatEndsUnloadedStoresItsReturnToZero() throws Exception {
+    int rate = 1000;
+    SimSetup setup = new SimSetup("ductile", 3, rate, false, 8);
+    DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
+    reader.start();
+    double countsPerN = setup.nominalCountsPerN();
+    double zero = Recorder.tare(reader, 200, 5000);
+    MemoryRunStore store = new MemoryRunStore();
+    // the break at rupture, not at the necking's fall to about half the peak
+    RunSettings s = RunSettings.builder().ratedCapacity_N(500).breakDropPct(90).build();
+    Recorder rec = new Recorder(reader, ForceScale.linear(countsPerN, "nominal"), zero, s,
+        template("rz", rate), store, null);
+    rec.arm();
+    Recorder.Result r = rec.await(50, TimeUnit.SECONDS).orElseThrow();
+    reader.close();
+    assertThat(r.cause()).isEqualTo(FinishCause.BREAK);
+    // the ductile specimen ruptures and carries no load after it (simulator: SuddenDrop to 0),
+    // so the cell reads its own zero again: the return to zero is the tare's error, within the
+    // noise of a 100-sample mean (0.1 s at 1 kS/s)
+    var cell = setup.buildFrame().truth().loadCell();
+    double tareError_N = (cell.zeroOffset_counts() - zero) / countsPerN;
+    double noiseOfMean_N = cell.noiseRms_counts() / countsPerN / Math.sqrt(100);
+    Double rtz = store.finalMeta.returnToZero_N();
+    assertThat(rtz).isNotNull();
+    assertThat(Math.abs(rtz - tareError_N)).isLessThanOrEqualTo(5 * noiseOfMean_N);
+    // the mean of the run's last 100 stored samples, relative to the tare
+    double sum = 0;
+    for (int i = store.samples.size() - 100; i < store.samples.size(); i++) {
+      sum += (store.samples.get(i)[3] - zero) / countsPerN;
+    }
+    assertThat(rtz).isCloseTo(sum / 100, org.assertj.core.data.Offset.offset(1e-9));
   }
 
   @Test

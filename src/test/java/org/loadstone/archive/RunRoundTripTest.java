@@ -83,10 +83,10 @@ class RunRoundTripTest {
     j.fieldNames().forEachRemaining(names::add);
     assertThat(names).containsExactly("run_id", "started_at", "specimen", "group", "tags",
         "operator", "notes", "mass_g", "geometry", "test_type", "device", "sample_rate_hz",
-        "calibration_id", "calibration_sha256", "scale", "scale_spec", "zero_offset_counts",
+        "sample_rate_source", "calibration_id", "calibration_sha256", "scale", "scale_spec", "zero_offset_counts",
         "dropped", "checksum_errors", "cause", "break_index", "break_time_s",
         "peak_before_break_N", "drop_at_break_pct", "pretrigger_s", "start_threshold_N",
-        "check_weight", "warnings", "software_version", "humidity_pct", "rig");
+        "return_to_zero_N", "check_weight", "warnings", "software_version", "humidity_pct", "rig");
     assertThat(j.get("started_at").asText()).isEqualTo("2026-12-02T18:12:33.417Z");
     assertThat(j.get("cause").asText()).isEqualTo("break");
     assertThat(j.get("test_type").asText()).isEqualTo("three-point");
@@ -96,6 +96,33 @@ class RunRoundTripTest {
         .isEqualTo(8590.25);
     assertThat(j.get("scale_spec").get("valid_to_N").asDouble()).isEqualTo(500.0);
     assertThat(j.get("rig").get("fixtures").get(0).asText()).isEqualTo("rollers-10mm");
+    assertThat(j.get("sample_rate_source").asText()).isEqualTo("device-clock");
+    assertThat(j.get("return_to_zero_N").asDouble()).isEqualTo(-0.042);
+  }
+
+  @Test
+  void returnToZeroAndRateSourceRoundTripAndOlderSidecarsReadAsUnknown() throws Exception {
+    RunMetadata m = RunFixtures.fullMetadata("rt-rtz");
+    RunWriter.write(tmp, m, RunFixtures.randomData(3, 4, false));
+    RunMetadata back = RunReader.readMetadata(tmp.resolve("rt-rtz.json"));
+    assertThat(back.returnToZero_N()).isEqualTo(-0.042);
+    assertThat(back.sampleRateSource()).isEqualTo("device-clock");
+    // a sidecar written before these fields existed: both read as unknown (null)
+    Path old = tmp.resolve("old");
+    Files.createDirectories(old);
+    RunWriter.write(old, m.toBuilder().returnToZero_N(null).sampleRateSource(null).build(),
+        RunFixtures.randomData(3, 4, false));
+    Path json = old.resolve("rt-rtz.json");
+    com.fasterxml.jackson.databind.node.ObjectNode tree =
+        (com.fasterxml.jackson.databind.node.ObjectNode) new ObjectMapper().readTree(json.toFile());
+    tree.remove("return_to_zero_N");
+    tree.remove("sample_rate_source");
+    Files.delete(json);
+    Files.writeString(json, tree.toString());
+    RunMetadata older = RunReader.readMetadata(json);
+    assertThat(older.returnToZero_N()).isNull();
+    assertThat(older.sampleRateSource()).isNull();
+    assertThat(older.extra()).doesNotContainKeys("return_to_zero_N", "sample_rate_source");
   }
 
   @Test

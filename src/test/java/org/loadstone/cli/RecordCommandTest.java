@@ -67,6 +67,17 @@ class RecordCommandTest {
   @Test
   @Timeout(90)
   void brittleRunOnTheSimulatorStopsAtTheBreakAndIsStored() throws Exception {
+    // an earlier run of the same device whose tare read 10 N more than the cell's zero
+    SimSetup sim = new SimSetup("panel-balsa", 1, 1000, false, 8);
+    var cell = sim.cell();
+    var earlier = org.loadstone.archive.RunMetadata.builder().runId("20261203-080000-000-old")
+        .startedAt(java.time.Instant.parse("2026-12-03T08:00:00Z")).specimen("old")
+        .device(java.util.Map.of("port", "sim", "name", "loadstone-sim")).sampleRate_Hz(1000)
+        .scaleSpec(org.loadstone.archive.ScaleSpec.nominal(cell.countsPerN()))
+        .zeroOffset_counts(cell.zeroOffset_counts() + 10 * cell.countsPerN())
+        .cause(FinishCause.MANUAL).build();
+    org.loadstone.archive.RunWriter.write(tmp, earlier, new org.loadstone.archive.RunData(
+        new double[] {0}, new double[] {0}, null, new int[] {0}, null, new int[] {0}));
     Outcome r = run("record", "--port", "sim", "--scenario", "panel-balsa", "--rate", "1000",
         "--sim-speed", "8", "--specimen", "balsa-01", "--group", "balsa", "--mass-g", "61.5",
         "--span-mm", "200", "--width-mm", "50", "--depth-mm", "12", "--archive",
@@ -79,7 +90,13 @@ class RecordCommandTest {
     assertThat(run.metadata().cause()).isEqualTo(FinishCause.BREAK);
     assertThat(run.metadata().group()).isEqualTo("balsa");
     assertThat(run.metadata().mass_g()).isEqualTo(61.5);
-    assertThat(run.metadata().sampleRate_Hz()).isCloseTo(1000, org.assertj.core.data.Offset.offset(5.0));
+    // the set-up service's rules: the rate the device stated, the zero check against the
+    // archive's last tare of this device, the fresh zero used
+    assertThat(run.metadata().sampleRate_Hz()).isEqualTo(1000.0);
+    assertThat(run.metadata().sampleRateSource()).isEqualTo("identity");
+    assertThat(r.err()).contains("zeroing on 500 samples").contains("warning: zero check: the "
+        + "zero moved by -");
+    assertThat(run.metadata().warnings()).anySatisfy(w -> assertThat(w).startsWith("zero check"));
     assertThat(run.data().size()).isEqualTo(j.get("samples").asInt());
     assertThat(Files.list(tmp.resolve(".journal")).count()).as("journal removed").isZero();
     assertThat(r.err()).contains("no calibration");
@@ -132,6 +149,21 @@ class RecordCommandTest {
     Outcome r2 = run("record", "--port", "sim", "--specimen", "x", "--start-at-N", "-3",
         "--archive", tmp.toString());
     assertThat(r2.err()).contains("--start-at-N");
+  }
+
+  @Test
+  void aZeroDriftLimitOfZeroIsRefusedNamingTheOption() {
+    Outcome r = run("record", "--port", "/dev/ttyNOPE9", "--counts-per-n", "100",
+        "--capacity-N", "500", "--specimen", "x", "--zero-drift-N", "0",
+        "--archive", tmp.toString());
+    assertThat(r.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
+    assertThat(r.err()).contains("the zero-drift limit must be a force greater than 0 N")
+        .contains("(--zero-drift-N)").doesNotContain("ttyNOPE9");
+    Outcome z = run("record", "--port", "/dev/ttyNOPE9", "--counts-per-n", "100",
+        "--capacity-N", "500", "--specimen", "x", "--zero-samples", "0",
+        "--archive", tmp.toString());
+    assertThat(z.err()).contains("the zero must average at least 1 sample")
+        .contains("(--zero-samples)");
   }
 
   @Test

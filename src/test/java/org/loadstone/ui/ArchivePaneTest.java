@@ -161,7 +161,8 @@ class ArchivePaneTest {
     }
     assertThat(notes).anySatisfy(n -> assertThat(n).contains(MixedArchive.FOAM_OUTLIER));
     assertThat(robot.lookup("#archive-status").queryAs(Label.class).getText())
-        .contains("13 runs counted").contains("6 left out");
+        .contains("13 runs counted")
+        .contains("6 runs left out (1 uncalibrated, 1 imported, 2 manual, 1 time-limit, 1 overload)");
 
     // counting manual stops too: the calibrated manual run joins foam; the manual balsa run
     // stays out, its scale being nominal

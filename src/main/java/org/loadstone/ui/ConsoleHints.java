@@ -1,0 +1,50 @@
+package org.loadstone.ui;
+
+import java.util.LinkedHashSet;
+import java.util.Set;
+import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Setting;
+
+/**
+ * The console's part of a message: where in the console (or at its start) each setting a core
+ * message asks for is changed.
+ */
+final class ConsoleHints {
+  private ConsoleHints() {}
+
+  /** @return where the console changes this setting, or null where the console has no say */
+  static String where(Setting s) {
+    return switch (s) {
+      case CALIBRATION -> "Calibrate tab: make or use a calibration";
+      case NOMINAL_SENSITIVITY -> "start the console with a nominal sensitivity (--counts-per-n)";
+      case RATED_CAPACITY -> "start the console with the cell's capacity (--capacity-N)";
+      case ZERO_DRIFT_LIMIT -> "start the console with another limit (--zero-drift-N)";
+      case ZERO_SAMPLES -> "the console averages half a second of samples";
+      case START_THRESHOLD, PRETRIGGER, BREAK_DROP, ARMING_LEVEL, DEBOUNCE, ABSOLUTE_STOP, TAIL,
+          OVERLOAD_WARNING, OVERLOAD_STOP, TIME_LIMIT ->
+          "the console uses the default run settings; set them with 'loadstone record'";
+      case ARCHIVE_FOLDER -> "start the console with another folder (--archive)";
+      case PORT -> "start the console on another port (--port)";
+      case SIM_SCENARIO -> "start the console with --scenario dead-weight";
+      case SIM_SPEED -> "start the console with another --sim-speed";
+      case IMPORT_TIME_UNIT, IMPORT_FORCE_UNIT, IMPORT_LENGTH_UNIT, IMPORT_DELIMITER,
+          IMPORT_DECIMAL_COMMA, TABLE_DECIMAL_COMMA, TABLE_OFFSET -> null;
+    };
+  }
+
+  /**
+   * @param e a core failure
+   * @return its message followed by where the console changes the settings it names
+   */
+  static String withHow(LoadstoneException e) {
+    Set<String> how = new LinkedHashSet<>();
+    for (Setting s : e.settings()) {
+      String w = where(s);
+      if (w != null) {
+        how.add(w);
+      }
+    }
+    return how.isEmpty() ? e.getMessage()
+        : e.getMessage() + " (in the console: " + String.join("; or ", how) + ")";
+  }
+}
