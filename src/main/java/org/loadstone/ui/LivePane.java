@@ -83,6 +83,7 @@ final class LivePane {
       }
     }, this::newSpecimen);
     build();
+    run.recoverJournals(); // runs a killed console left, before any new run
   }
 
   Parent root() {

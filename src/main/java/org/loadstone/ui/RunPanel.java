@@ -73,6 +73,8 @@ final class RunPanel {
   private volatile boolean disarmed;
   /** A was pressed while connecting or zeroing: arm as soon as the zero is done. */
   private boolean armQueued;
+  /** Journals left by a run that never finished are being stored: no new run until then. */
+  private volatile boolean recovering;
   private int runCount;
 
   /**
@@ -151,7 +153,7 @@ final class RunPanel {
         && r.status().state() != RunControl.State.FINISHED && r.failure().isEmpty())) {
       return;
     }
-    if (reader == null || feed == null || setup == null || feed.taring()) {
+    if (reader == null || feed == null || setup == null || feed.taring() || recovering) {
       armQueued = true; // never lost: armed as soon as the zero is done (S cancels)
       runState.setText("arming…");
       runResult.setText("arming once the zero is done");
@@ -265,7 +267,7 @@ final class RunPanel {
   /** Called every display frame: the run's state in words. */
   void refresh() {
     LiveFeed feed = device.feed();
-    if (armQueued && feed != null && !feed.taring()) {
+    if (armQueued && feed != null && !feed.taring() && !recovering) {
       arm();
     }
     Recorder r = recorder;
@@ -278,6 +280,42 @@ final class RunPanel {
         case FINISHED -> !runEnded ? "finishing…" : disarmed ? "no run armed" : "run stored";
       });
     }
+  }
+
+  /**
+   * Stores the runs whose journals a killed or crashed console left, through the same service as
+   * {@code record}, off the JavaFX thread; the result line names them. Arming waits for it.
+   */
+  void recoverJournals() {
+    recovering = true;
+    Thread t = new Thread(() -> {
+      String notice;
+      try {
+        List<String> names = new java.util.ArrayList<>();
+        for (org.loadstone.archive.StoredRun r
+            : org.loadstone.archive.JournalRecovery.recoverAll(config.archive())) {
+          names.add(r.csv().getFileName().toString());
+        }
+        notice = names.isEmpty() ? null : "recovered an unfinished run from its journal: "
+            + String.join(", ", names);
+      } catch (LoadstoneException e) {
+        notice = ConsoleHints.withHow(e);
+      }
+      String shown = notice;
+      Platform.runLater(() -> {
+        recovering = false;
+        if (shown != null) {
+          runResult.setText(shown);
+        }
+      });
+    }, "journal recovery");
+    t.setDaemon(true);
+    t.start();
+  }
+
+  /** Whether recovery of left journals is still running. */
+  boolean recovering() {
+    return recovering;
   }
 
   /** Whether a run is armed or recording, so its zero and peak must stay as they are. */
