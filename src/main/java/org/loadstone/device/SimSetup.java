@@ -41,7 +41,9 @@ public record SimSetup(String scenario, long seed, double rateHz, boolean hand, 
           + " samples/s: use 10 or 80 (bridge amplifier) or 100…50000 (fast converter)");
     }
     if (!(speed >= 1) || Double.isNaN(speed)) {
-      throw new LoadstoneException("--sim-speed must be 1 or more, was " + speed);
+      throw new LoadstoneException("the simulation speed must be 1 (real time) or more, was "
+          + speed + ": give how many times faster than real time the simulated frame runs",
+          org.loadstone.units.Setting.SIM_SPEED);
     }
   }
 

@@ -182,6 +182,7 @@ final class LivePane {
     ok.setOnAction(e -> {
       notice.acknowledge();
       header.getChildren().remove(banner);
+      root.requestFocus(); // back to the window, so the one-key commands act (not a field)
     });
     return banner;
   }
@@ -191,11 +192,15 @@ final class LivePane {
   }
 
   /**
-   * The one-key commands (Z, P, A, S, X, and N on the simulated frame), active while {@code active} says so (the live view is
+   * The one-key commands (Z, P, A, S, X, and N on the simulated frame; Esc stops from anywhere), active while {@code active} says so (the live view is
    * the one shown) and not while typing in a field.
    */
   void installKeys(Scene scene, java.util.function.BooleanSupplier active) {
     scene.addEventHandler(javafx.scene.input.KeyEvent.KEY_PRESSED, e -> {
+      if (e.getCode() == KeyCode.ESCAPE) {
+        run.stop(); // stop is one key from anywhere, even while typing in a field
+        return;
+      }
       if (!active.getAsBoolean() || e.getTarget() instanceof javafx.scene.control.TextInputControl) {
         return; // typing a specimen id, or looking at the archive: not a shortcut
       }
@@ -216,6 +221,10 @@ final class LivePane {
   }
 
   private void tare() {
+    if (run.holdsZero()) {
+      run.refuse("zero");
+      return;
+    }
     if (feed != null) {
       feed.tare(20);
       feed.restartCurve();
@@ -223,6 +232,10 @@ final class LivePane {
   }
 
   private void clearPeak() {
+    if (run.holdsZero()) {
+      run.refuse("clear peak");
+      return;
+    }
     newSpecimen();
   }
 
@@ -251,7 +264,7 @@ final class LivePane {
     try {
       t = config.connect().get();
     } catch (LoadstoneException e) {
-      showLost(e.getMessage());
+      showLost(ConsoleHints.withHow(e));
       return;
     }
     reader = new DeviceReader(t, new SampleRing(1 << 20));

@@ -71,6 +71,8 @@ final class RunPanel {
   private volatile boolean runEnded;
   /** The last run was disarmed before it started: nothing was stored. */
   private volatile boolean disarmed;
+  /** A was pressed while connecting or zeroing: arm as soon as the zero is done. */
+  private boolean armQueued;
   private int runCount;
 
   /**
@@ -145,14 +147,18 @@ final class RunPanel {
     LiveFeed feed = device.feed();
     RunSetup setup = device.setup();
     Recorder r = recorder;
-    if (reader == null || feed == null || setup == null || preparing || (r != null && !runEnded
+    if (preparing || (r != null && !runEnded
         && r.status().state() != RunControl.State.FINISHED && r.failure().isEmpty())) {
       return;
     }
-    if (feed.taring()) {
-      runResult.setText("wait for the zero to finish, then arm");
+    if (reader == null || feed == null || setup == null || feed.taring()) {
+      armQueued = true; // never lost: armed as soon as the zero is done (S cancels)
+      runState.setText("arming…");
+      runResult.setText("arming once the zero is done");
+      root.requestFocus();
       return;
     }
+    armQueued = false;
     RunSetup.Request request;
     JournalRunStore store;
     try {
@@ -242,6 +248,11 @@ final class RunPanel {
   }
 
   void stop() {
+    if (armQueued) {
+      armQueued = false;
+      runState.setText("no run armed");
+      runResult.setText("arming cancelled");
+    }
     if (preparing) {
       stopWhilePreparing = true;
     }
@@ -253,8 +264,12 @@ final class RunPanel {
 
   /** Called every display frame: the run's state in words. */
   void refresh() {
+    LiveFeed feed = device.feed();
+    if (armQueued && feed != null && !feed.taring()) {
+      arm();
+    }
     Recorder r = recorder;
-    if (r != null && !preparing) {
+    if (r != null && !preparing && !armQueued) {
       runState.setText(switch (r.status().state()) {
         case IDLE -> "no run armed";
         case ARMED -> "armed: waiting for load";
@@ -263,6 +278,18 @@ final class RunPanel {
         case FINISHED -> !runEnded ? "finishing…" : disarmed ? "no run armed" : "run stored";
       });
     }
+  }
+
+  /** Whether a run is armed or recording, so its zero and peak must stay as they are. */
+  boolean holdsZero() {
+    Recorder r = recorder;
+    return preparing || armQueued
+        || (r != null && !runEnded && r.status().state().holdsZero());
+  }
+
+  /** Shows why a one-key command was refused. */
+  void refuse(String what) {
+    runResult.setText(what + " refused: a run is armed or recording (stop it first: S)");
   }
 
   /** Stops a run in progress, waits for it to be stored, and lets the recorder go. */

@@ -97,6 +97,9 @@ class SerialEndToEndTest {
             () -> SerialTransport.open("/dev/ttyNOPE42", SerialSettings.DEFAULT))
         .isInstanceOf(LoadstoneException.class)
         .hasMessageContaining("/dev/ttyNOPE42")
-        .hasMessageContaining("loadstone ports");
+        .hasMessageContaining("choose one of the serial ports present")
+        .hasMessageNotContaining("--")
+        .satisfies(e -> Assertions.assertThat(((LoadstoneException) e).settings())
+            .containsExactly(org.loadstone.units.Setting.PORT));
   }
 }
