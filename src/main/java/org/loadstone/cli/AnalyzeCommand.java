@@ -62,6 +62,11 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--table-offset-s", description = "Table time minus run time, s (default: found from the break).")
   Double tableOffset;
 
+  @Option(names = "--position-measures", paramLabel = "WHERE", description = "What the position "
+      + "measures: crosshead, mid-span-gauge, video-load-point or video-mid-span (default: as "
+      + "recorded, else crosshead); decides the four-point deflection formula.")
+  String positionMeasures;
+
   @Option(names = "--frame", paramLabel = "FILE", description = "Remove the load frame's deflection F/k with this frame profile (see 'loadstone frame').")
   Path frame;
 
@@ -99,6 +104,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
           cols.getOrDefault("position", "2"), DurationUnit.parse(tableTimeUnit),
           LengthUnit.parse(tableLengthUnit), tableDecimalComma);
       a = a.withPositionTable(t, tableOffset);
+    }
+    if (positionMeasures != null) {
+      a = a.positionMeasures(org.loadstone.analysis.PositionSource.parse(positionMeasures));
     }
     if (frame != null && frameK != null) {
       throw new org.loadstone.units.LoadstoneException("give --frame or "

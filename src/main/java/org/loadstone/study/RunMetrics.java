@@ -11,6 +11,8 @@ import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
 import org.loadstone.analysis.AnalysisSettings;
+import org.loadstone.analysis.BendFigures;
+import org.loadstone.analysis.PositionSource;
 import org.loadstone.analysis.Curve;
 import org.loadstone.analysis.Flexure;
 import org.loadstone.analysis.RunAnalyzer;
@@ -37,7 +39,10 @@ import org.loadstone.units.Precondition;
  * @param analysis the run analysis, not null
  * @param settings the analysis settings used (with a recorded break when one was used), not null
  * @param flexuralStressAtPeak_MPa three- or four-point flexural stress at peak (ASTM D790/D6272)
- * @param flexuralModulus_MPa flexural modulus from the stiffness (apparent, for a sandwich)
+ * @param flexuralStressAtPeakLargeDeflection_MPa three-point flexural stress at peak corrected
+ *     for a mid-span deflection beyond a tenth of the span (ASTM D790); empty otherwise
+ * @param flexuralModulus_MPa flexural modulus from the stiffness (apparent, for a sandwich), with
+ *     the formula for what the run's position channel measures ({@link #positionSource})
  * @param coreShearStressAtPeak_MPa sandwich core shear stress P/((d + c)b) at peak (ASTM C393)
  * @param facingStressAtPeak_MPa sandwich facing stress PL/(2t(d + c)b) at peak (ASTM C393)
  * @param compressionStressAtPeak_MPa P/A at peak for a compression test
@@ -53,6 +58,7 @@ public record RunMetrics(
     RunResult analysis,
     AnalysisSettings settings,
     OptionalDouble flexuralStressAtPeak_MPa,
+    OptionalDouble flexuralStressAtPeakLargeDeflection_MPa,
     OptionalDouble flexuralModulus_MPa,
     OptionalDouble coreShearStressAtPeak_MPa,
     OptionalDouble facingStressAtPeak_MPa,
@@ -69,7 +75,8 @@ public record RunMetrics(
     Precondition.notNull(curve, "curve");
     Precondition.notNull(analysis, "analysis");
     Precondition.notNull(settings, "settings");
-    for (OptionalDouble o : new OptionalDouble[] {flexuralStressAtPeak_MPa, flexuralModulus_MPa,
+    for (OptionalDouble o : new OptionalDouble[] {flexuralStressAtPeak_MPa,
+        flexuralStressAtPeakLargeDeflection_MPa, flexuralModulus_MPa,
         coreShearStressAtPeak_MPa, facingStressAtPeak_MPa, compressionStressAtPeak_MPa,
         specificPeak_N_per_g, specificEnergyToPeak_J_per_g, specificEnergyToBreak_J_per_g,
         specificStiffness_N_per_mm_per_g}) {
@@ -128,6 +135,17 @@ public record RunMetrics(
     return Curve.over(data.time_s(), data.force_N(), data.position_mm());
   }
 
+  /**
+   * What the run's position channel measures, as recorded in its metadata under {@link
+   * PositionSource#METADATA_KEY}; a run that records nothing has the crosshead's position.
+   *
+   * @throws LoadstoneException when the recorded name is not a known source
+   */
+  public static PositionSource positionSource(RunMetadata metadata) {
+    Object v = metadata.extra().get(PositionSource.METADATA_KEY);
+    return v == null ? PositionSource.CROSSHEAD : PositionSource.parse(v.toString());
+  }
+
   private static int firstPeak(double[] f) {
     int p = 0;
     for (int i = 1; i < f.length; i++) {
@@ -184,6 +202,7 @@ public record RunMetrics(
     private final Geometry g;
     private final double peak;
     private OptionalDouble flexStress = OptionalDouble.empty();
+    private OptionalDouble flexStressLarge = OptionalDouble.empty();
     private OptionalDouble flexModulus = OptionalDouble.empty();
     private OptionalDouble coreShear = OptionalDouble.empty();
     private OptionalDouble facing = OptionalDouble.empty();
@@ -233,7 +252,8 @@ public record RunMetrics(
               Specific.stiffness_N_per_mm_per_g(r.stiffness_N_per_mm().getAsDouble(), mass));
         }
       }
-      return new RunMetrics(meta, curve, r, settings, flexStress, flexModulus, coreShear, facing,
+      return new RunMetrics(meta, curve, r, settings, flexStress, flexStressLarge, flexModulus,
+          coreShear, facing,
           compression, sPeak, sEp, sEb, sK, notes);
     }
 
@@ -254,21 +274,16 @@ public record RunMetrics(
       if (!missing.isEmpty()) {
         notes.add("Geometry lacks " + String.join(", ", missing)
             + ": flexural stress and modulus are absent.");
-      } else if (four) {
-        flexStress = OptionalDouble.of(Flexure.fourPointStress_MPa(
-            peak, g.span_mm(), g.loadSpan_mm(), g.width_mm(), g.depth_mm()));
-        if (r.stiffness_N_per_mm().isPresent()) {
-          flexModulus = OptionalDouble.of(Flexure.fourPointModulus_MPa(
-              r.stiffness_N_per_mm().getAsDouble(), g.span_mm(), g.loadSpan_mm(), g.width_mm(),
-              g.depth_mm()));
-        }
       } else {
-        flexStress = OptionalDouble.of(
-            Flexure.threePointStress_MPa(peak, g.span_mm(), g.width_mm(), g.depth_mm()));
-        if (r.stiffness_N_per_mm().isPresent()) {
-          flexModulus = OptionalDouble.of(Flexure.threePointModulus_MPa(
-              r.stiffness_N_per_mm().getAsDouble(), g.span_mm(), g.width_mm(), g.depth_mm()));
-        }
+        OptionalDouble deflection = r.correctedDisplacementAtPeak_mm().isPresent()
+            ? r.correctedDisplacementAtPeak_mm() : r.displacementAtPeak_mm();
+        BendFigures b = BendFigures.of(g.span_mm(), four ? g.loadSpan_mm() : null,
+            g.width_mm(), g.depth_mm(), peak, r.stiffness_N_per_mm(), deflection,
+            positionSource(meta));
+        flexStress = OptionalDouble.of(b.stressAtPeak_MPa());
+        flexStressLarge = b.stressAtPeakLargeDeflection_MPa();
+        flexModulus = b.modulus_MPa();
+        notes.addAll(b.notes());
       }
       if (missing.isEmpty() && r.stiffness_N_per_mm().isEmpty()) {
         notes.add("No stiffness: flexural modulus is absent.");
