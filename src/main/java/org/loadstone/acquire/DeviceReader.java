@@ -3,6 +3,7 @@ package org.loadstone.acquire;
 import java.io.IOException;
 import java.util.Optional;
 import java.util.concurrent.CopyOnWriteArrayList;
+import java.util.concurrent.atomic.AtomicReference;
 import org.loadstone.device.Transport;
 import org.loadstone.protocol.DecodeListener;
 import org.loadstone.protocol.DecoderCounters;
@@ -15,6 +16,11 @@ import org.loadstone.units.Precondition;
  * The one thread that reads a device: bytes from the {@link Transport} go through a {@link
  * StreamDecoder} into a {@link SampleRing}. It never waits on a consumer. Device messages and the
  * loss of the device are reported to listeners on this thread; listeners must return quickly.
+ *
+ * <p>Loss of the device is handled once, on the reader thread: a failed read ends the loop there;
+ * a failed {@link #send} on any other thread only leaves its reason for the reader thread, which
+ * takes it up after its current read (at most one read time-out later). The first reason wins;
+ * {@link #lostReason()} is set and the listeners are told exactly once.
  */
 public final class DeviceReader implements AutoCloseable {
   /** Told about device events, on the reader thread. */
@@ -34,7 +40,8 @@ public final class DeviceReader implements AutoCloseable {
   private volatile boolean running;
   private volatile DecoderCounters counters;
   private volatile DeviceMessage.Identity identity;
-  private volatile String lostReason;
+  private volatile String lostReason; // written by the reader thread only
+  private final AtomicReference<String> lossSeen = new AtomicReference<>();
   private volatile String unsupported;
   private volatile long firstArrivalNanos = -1;
   private volatile long lastArrivalNanos = -1;
@@ -79,7 +86,8 @@ public final class DeviceReader implements AutoCloseable {
       transport.write(command.toWire());
       return true;
     } catch (IOException e) {
-      lost("could not send " + command.verb() + " to " + transport.name() + ": " + e.getMessage());
+      lossSeen.compareAndSet(null,
+          "could not send " + command.verb() + " to " + transport.name() + ": " + e.getMessage());
       return false;
     }
   }
@@ -137,18 +145,18 @@ public final class DeviceReader implements AutoCloseable {
 
   private void loop() {
     byte[] buf = new byte[64 * 1024];
-    while (running) {
+    while (running && lossSeen.get() == null) {
       int n;
       try {
         n = transport.read(buf, 0, buf.length);
       } catch (IOException | RuntimeException e) {
-        lost("reading " + transport.name() + " failed: " + e.getMessage());
+        lossSeen.compareAndSet(null, "reading " + transport.name() + " failed: " + e.getMessage());
         break;
       }
       if (n < 0) {
         if (running) {
-          lost("the device on " + transport.name() + " stopped answering (cable pulled or "
-              + "board reset); reconnect it and connect again");
+          lossSeen.compareAndSet(null, "the device on " + transport.name() + " stopped answering"
+              + " (cable pulled or board reset); reconnect it and connect again");
         }
         break;
       }
@@ -165,11 +173,9 @@ public final class DeviceReader implements AutoCloseable {
         counters = decoder.counters();
       }
     }
-  }
-
-  private void lost(String why) {
-    if (lostReason == null) {
-      lostReason = why;
+    String why = lossSeen.get();
+    if (why != null) {
+      lostReason = why; // the loop has ended: this runs once, on this thread
       for (Listener l : listeners) {
         l.onDeviceLost(why);
       }

@@ -50,8 +50,8 @@ public final class JournalRunStore implements RunStore {
       Files.delete(probe);
     } catch (IOException | RuntimeException e) {
       throw new org.loadstone.units.LoadstoneException("cannot write runs to the archive folder "
-          + archiveDir + " (" + e.getMessage() + "): choose another with --archive DIR or fix "
-          + "its permissions and free space", e);
+          + archiveDir + " (" + e.getMessage() + "): choose another archive folder, or fix "
+          + "this one's permissions and free space", e, org.loadstone.units.Setting.ARCHIVE_FOLDER);
     }
   }
 
@@ -67,14 +67,16 @@ public final class JournalRunStore implements RunStore {
       @Override
       public Stored finish(long lastIndex, RunMetadata meta) {
         journal.finish();
+        // the journal settled the id: another station may have held the one asked for
+        RunMetadata m = meta.toBuilder().runId(journal.runId()).build();
         JournalStream.Stored s;
         try {
-          s = files.store(archiveDir, journal.file(), lastIndex, meta);
+          s = files.store(archiveDir, journal.file(), lastIndex, m);
         } catch (LoadstoneException | OutOfMemoryError e) {
           String why = e instanceof OutOfMemoryError
               ? "the program ran out of memory while storing it (" + e.getMessage() + ")"
               : e.getMessage();
-          throw new LoadstoneException("run " + meta.runId() + " was not stored: " + why
+          throw new LoadstoneException("run " + m.runId() + " was not stored: " + why
               + "; its samples are kept in the journal " + journal.file() + ", which becomes"
               + " a run at the next start", e);
         }
@@ -82,11 +84,11 @@ public final class JournalRunStore implements RunStore {
           Files.deleteIfExists(journal.file());
         } catch (IOException e) {
           // the run is written; a leftover journal would be recovered as a second copy, so say so
-          throw new org.loadstone.units.LoadstoneException("run " + meta.runId()
+          throw new org.loadstone.units.LoadstoneException("run " + m.runId()
               + " was written but its journal " + journal.file() + " could not be removed ("
               + e.getMessage() + "): delete it by hand to avoid a recovered duplicate", e);
         }
-        return new Stored(meta.runId(), s.files().csv(), s.files().json(), s.samples());
+        return new Stored(m.runId(), s.files().csv(), s.files().json(), s.samples());
       }
     };
   }

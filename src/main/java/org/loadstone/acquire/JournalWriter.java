@@ -66,6 +66,7 @@ public final class JournalWriter implements AutoCloseable {
   }
 
   private final Path file;
+  private volatile String runId;
   private final Sink channel;
   private final SampleRing.Cursor cursor;
   private final Thread thread;
@@ -113,11 +114,18 @@ public final class JournalWriter implements AutoCloseable {
   public static JournalWriter start(Path archiveDir, RunMetadata startInfo,
       SampleRing.Cursor cursor) {
     Precondition.notNull(cursor, "cursor");
-    FileChannel ch = JournalFormat.create(archiveDir, startInfo);
-    JournalWriter w = new JournalWriter(
-        JournalFormat.journalFile(archiveDir, startInfo.runId()), of(ch), cursor,
-        System::nanoTime);
+    JournalFormat.Opened j = JournalFormat.open(archiveDir, startInfo);
+    JournalWriter w = new JournalWriter(j.file(), of(j.channel()), cursor, System::nanoTime);
+    w.runId = j.startInfo().runId();
     return w.begin();
+  }
+
+  /**
+   * @return the id the run got: the one asked for, or {@code id-n} when another run or program
+   *     held that one at the start
+   */
+  public String runId() {
+    return runId;
   }
 
   /** @return the journal file */

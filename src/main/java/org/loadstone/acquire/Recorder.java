@@ -7,6 +7,7 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import org.loadstone.archive.FinishCause;
 import org.loadstone.archive.RunMetadata;
+import org.loadstone.device.PressOperator;
 import org.loadstone.protocol.DecoderCounters;
 import org.loadstone.protocol.HostCommand;
 import org.loadstone.units.LoadstoneException;
@@ -72,8 +73,8 @@ public final class Recorder implements AutoCloseable {
   private final List<String> warnings = new ArrayList<>();
   private volatile long decideFrom;
   private volatile boolean stopRequested;
+  private volatile boolean startRequested;
   private volatile boolean closing;
-  private volatile double lastForce_N = Double.NaN;
   private volatile Result result;
   private volatile String failure;
   private RunStore.Recording recording;
@@ -152,7 +153,7 @@ public final class Recorder implements AutoCloseable {
               + " samples arrived from " + reader.transport().name() + " in "
               + timeoutMs / 1000.0 + " s"
               + reader.lostReason().map(w -> " (" + w + ")").orElse(
-                  "; check that the device is streaming ('loadstone monitor')"));
+                  "; check that the device is streaming samples"));
         }
         sleep(5);
       }
@@ -162,7 +163,9 @@ public final class Recorder implements AutoCloseable {
 
   /**
    * Arms (waits for the start threshold) and starts the recorder's thread. The start is decided
-   * on every sample from the one that arrives next, however late the thread gets to them.
+   * on every sample from the one that arrives next, however late the thread gets to them. On the
+   * simulated frame the program then stands in for the operator and starts the press ({@link
+   * PressOperator}).
    */
   public void arm() {
     arm(reader.ring().written());
@@ -175,19 +178,28 @@ public final class Recorder implements AutoCloseable {
    *
    * @param fromIndex first ring index to decide on, e.g. {@link Zero#nextIndex()}; clamped to
    *     the samples still held
+   * @throws IllegalStateException when the recorder was already armed or started
    */
-  public void arm(long fromIndex) {
-    control.arm();
+  public synchronized void arm(long fromIndex) {
+    if (thread.getState() != Thread.State.NEW) {
+      throw new IllegalStateException("arm() once, before the run starts");
+    }
+    control.arm(); // before the thread starts: the run control is the thread's from then on
     decideFrom = fromIndex;
     thread.start();
+    PressOperator.forTransport(reader.transport()).runArmed();
   }
 
-  /** Starts recording now, whatever the force (manual start), and starts the thread. */
-  public void startNow() {
-    control.startNow();
+  /**
+   * Starts recording at the next sample, whatever the force (manual start), starting the thread
+   * if it is not running. Any thread; the request is carried out on the recorder's thread.
+   */
+  public synchronized void startNow() {
+    startRequested = true;
     if (thread.getState() == Thread.State.NEW) {
       decideFrom = reader.ring().written();
       thread.start();
+      PressOperator.forTransport(reader.transport()).runArmed();
     }
   }
 
@@ -196,10 +208,11 @@ public final class Recorder implements AutoCloseable {
     stopRequested = true;
   }
 
-  /** @return what a status line shows now */
+  /** @return what a status line shows now; any thread (one snapshot of the run control) */
   public Status status() {
-    return new Status(control.state(), lastForce_N,
-        control.peak_N() == Double.NEGATIVE_INFINITY ? Double.NaN : control.peak_N(),
+    RunControl.Snapshot s = control.snapshot();
+    return new Status(s.state(), s.force_N(),
+        s.peak_N() == Double.NEGATIVE_INFINITY ? Double.NaN : s.peak_N(),
         reader.measuredRateHz(), reader.samplesAccepted());
   }
 
@@ -233,6 +246,10 @@ public final class Recorder implements AutoCloseable {
     SampleRing.Cursor cursor = ring.cursorAt(decideFrom);
     try {
       while (control.state() != RunControl.State.FINISHED && !closing) {
+        if (startRequested) {
+          startRequested = false;
+          control.startNow();
+        }
         if (stopRequested) {
           control.stopNow();
         }
@@ -241,7 +258,6 @@ public final class Recorder implements AutoCloseable {
             return;
           }
           double f = scale.force_N(counts - zero_counts);
-          lastForce_N = f;
           if (started != null) {
             unloaded.offer(f);
           }

@@ -9,10 +9,26 @@ import org.loadstone.units.Precondition;
  * Auto start at the start threshold keeps a pre-trigger history; the break detector declares the
  * break and a post-break tail is recorded; overload stops at once; a time limit, a manual stop and
  * loss of the device finish the run with their own cause.
+ *
+ * <p>Threads: one thread owns a run control (the recorder's; the caller before it starts that
+ * thread) and is the only one to call its mutating methods. Other threads — the console's FX
+ * thread, the command line's status loop — read {@link #snapshot()} (or the getters, which read
+ * it): one immutable value in a volatile field, replaced as a whole after every change, so a
+ * reader sees state, peak and force of the same moment and never a half-made change.
  */
 public final class RunControl {
   /** The states. */
-  public enum State { IDLE, ARMED, RECORDING, TAIL, FINISHED }
+  public enum State {
+    IDLE, ARMED, RECORDING, TAIL, FINISHED;
+
+    /**
+     * Whether a run holds the zero and the peak in this state: armed or recording, the run's
+     * figures are measured from them, so zeroing or forgetting the peak must wait for its end.
+     */
+    public boolean holdsZero() {
+      return this == ARMED || this == RECORDING || this == TAIL;
+    }
+  }
 
   /** What happened on a sample. */
   public sealed interface Event
@@ -43,6 +59,19 @@ public final class RunControl {
    */
   public record Finished(FinishCause cause, long lastIndex) implements Event {}
 
+  /**
+   * The run control as one moment, for any thread.
+   *
+   * @param state the state
+   * @param peak_N highest force since recording started, or −∞
+   * @param force_N force of the last sample offered, or NaN before the first
+   * @param firstIndex first sample index of the run, or −1 before it starts
+   * @param finished the finish, or null until finished
+   * @param breakDetail the declared break, or null
+   */
+  public record Snapshot(State state, double peak_N, double force_N, long firstIndex,
+      Finished finished, BreakDetector.Break breakDetail) {}
+
   private final RunSettings settings;
   private final long pretriggerSamples;
   private State state = State.IDLE;
@@ -56,6 +85,8 @@ public final class RunControl {
   private FinishCause pendingStop;
   private Finished finished;
   private double peak_N = Double.NEGATIVE_INFINITY;
+  private double force_N = Double.NaN;
+  private volatile Snapshot snapshot = new Snapshot(State.IDLE, peak_N, force_N, -1, null, null);
 
   /**
    * @param settings thresholds and limits
@@ -67,9 +98,20 @@ public final class RunControl {
     this.pretriggerSamples = Math.round(settings.pretrigger_s() * sampleRate_Hz);
   }
 
-  /** @return the current state */
+  /** @return the run control as of its last change; any thread */
+  public Snapshot snapshot() {
+    return snapshot;
+  }
+
+  /** Publishes the owner's fields as one value (the only write other threads can see). */
+  private void publish() {
+    snapshot = new Snapshot(state, peak_N, force_N, firstIndex, finished,
+        detector == null ? null : detector.result());
+  }
+
+  /** @return the current state; any thread */
   public State state() {
-    return state;
+    return snapshot.state();
   }
 
   /** @return the settings */
@@ -77,24 +119,24 @@ public final class RunControl {
     return settings;
   }
 
-  /** @return highest force since recording started, or −∞ */
+  /** @return highest force since recording started, or −∞; any thread */
   public double peak_N() {
-    return peak_N;
+    return snapshot.peak_N();
   }
 
-  /** @return the first sample index of the run, or −1 before it starts */
+  /** @return the first sample index of the run, or −1 before it starts; any thread */
   public long firstIndex() {
-    return firstIndex;
+    return snapshot.firstIndex();
   }
 
-  /** @return the finish, once finished */
+  /** @return the finish, once finished; any thread */
   public Finished finished() {
-    return finished;
+    return snapshot.finished();
   }
 
-  /** @return the declared break, or null */
+  /** @return the declared break, or null; any thread */
   public BreakDetector.Break breakDetail() {
-    return detector == null ? null : detector.result();
+    return snapshot.breakDetail();
   }
 
   /** Waits for the start threshold. Allowed from idle only. */
@@ -103,6 +145,7 @@ public final class RunControl {
       throw new IllegalStateException("arm() in state " + state);
     }
     state = State.ARMED;
+    publish();
   }
 
   /** Starts recording at the next sample, whatever the force. */
@@ -127,6 +170,7 @@ public final class RunControl {
       return finish(FinishCause.DEVICE_LOST, lastSeen);
     }
     state = State.FINISHED;
+    publish();
     return null;
   }
 
@@ -135,6 +179,7 @@ public final class RunControl {
       pendingStop = c;
     } else if (state != State.FINISHED) {
       state = State.FINISHED;
+      publish();
     }
   }
 
@@ -150,6 +195,16 @@ public final class RunControl {
   public void offer(long index, long oldestHeld, double time_s, double force_N,
       java.util.function.Consumer<Event> sink) {
     lastSeen = index;
+    this.force_N = force_N;
+    try {
+      take(index, oldestHeld, time_s, force_N, sink);
+    } finally {
+      publish();
+    }
+  }
+
+  private void take(long index, long oldestHeld, double time_s, double force_N,
+      java.util.function.Consumer<Event> sink) {
     switch (state) {
       case IDLE, FINISHED -> {
         if (manualStartPending) {
@@ -216,6 +271,7 @@ public final class RunControl {
     state = State.FINISHED;
     pendingStop = null;
     finished = new Finished(cause, lastIndex);
+    publish();
     return finished;
   }
 }

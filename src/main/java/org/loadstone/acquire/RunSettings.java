@@ -2,6 +2,7 @@ package org.loadstone.acquire;
 
 import java.util.Locale;
 import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Setting;
 
 /**
  * When a run starts and stops by itself. Immutable; build with {@link #builder()} or start from a
@@ -28,33 +29,38 @@ public record RunSettings(double startThreshold_N, double pretrigger_s, double b
       new RunSettings(5, 1.0, 40, 10, 0.01, 0, 0.5, 500, 80, 100, 0);
 
   public RunSettings {
-    positive(startThreshold_N, "start threshold", "--start-at-N");
-    nonNegative(pretrigger_s, "pre-trigger history", "--pretrigger-s");
+    positive(startThreshold_N, Setting.START_THRESHOLD);
+    nonNegative(pretrigger_s, Setting.PRETRIGGER);
     if (!(breakDropPct > 0 && breakDropPct < 100)) {
       throw new LoadstoneException(String.format(Locale.ROOT,
-          "break drop must be between 0 and 100 %% of the peak, was %s: use e.g. "
-              + "--stop-drop-pct 40", num(breakDropPct)));
+          "the break drop must be between 0 and 100 %% of the peak, was %s: give the fall "
+              + "below the peak that marks a break, e.g. 40 %%", num(breakDropPct)),
+          Setting.BREAK_DROP);
     }
-    nonNegative(armingLevel_N, "arming level", "--arm-at-N");
-    nonNegative(debounce_s, "debounce time", "--debounce-s");
-    nonNegative(absoluteStop_N, "absolute stop level", "--stop-below-N");
-    nonNegative(postBreak_s, "post-break tail", "--tail-s");
-    positive(ratedCapacity_N, "rated capacity", "--capacity-N");
-    positive(overloadWarnPct, "overload warning level", "--warn-pct");
-    positive(overloadStopPct, "overload stop level", "--overload-pct");
+    nonNegative(armingLevel_N, Setting.ARMING_LEVEL);
+    nonNegative(debounce_s, Setting.DEBOUNCE);
+    nonNegative(absoluteStop_N, Setting.ABSOLUTE_STOP);
+    nonNegative(postBreak_s, Setting.TAIL);
+    positive(ratedCapacity_N, Setting.RATED_CAPACITY);
+    positive(overloadWarnPct, Setting.OVERLOAD_WARNING);
+    positive(overloadStopPct, Setting.OVERLOAD_STOP);
     if (overloadWarnPct > overloadStopPct) {
       throw new LoadstoneException("the overload warning (" + num(overloadWarnPct)
-          + " %) must not be above the overload stop (" + num(overloadStopPct) + " %)");
+          + " %) must not be above the overload stop (" + num(overloadStopPct) + " %): lower the "
+          + "warning level or raise the stop level", Setting.OVERLOAD_WARNING,
+          Setting.OVERLOAD_STOP);
     }
     if (overloadStopPct > 150) {
       throw new LoadstoneException("an overload stop above 150 % of rated capacity ("
-          + num(overloadStopPct) + " %) is refused: cells are damaged beyond their safe overload");
+          + num(overloadStopPct) + " %) is refused: cells are damaged beyond their safe overload; "
+          + "give a stop level of 150 % or less", Setting.OVERLOAD_STOP);
     }
-    nonNegative(maxSeconds, "time limit", "--max-seconds");
+    nonNegative(maxSeconds, Setting.TIME_LIMIT);
     if (startThreshold_N >= ratedCapacity_N * overloadStopPct / 100) {
       throw new LoadstoneException("the start threshold (" + num(startThreshold_N)
           + " N) is at or above the overload stop (" + num(ratedCapacity_N * overloadStopPct / 100)
-          + " N): lower --start-at-N or check --capacity-N");
+          + " N): lower the start threshold or check the cell's rated capacity",
+          Setting.START_THRESHOLD, Setting.RATED_CAPACITY);
     }
   }
 
@@ -62,17 +68,17 @@ public record RunSettings(double startThreshold_N, double pretrigger_s, double b
     return String.format(Locale.ROOT, "%.6g", v).replaceAll("\\.?0+($|e)", "$1");
   }
 
-  private static void positive(double v, String what, String option) {
+  private static void positive(double v, Setting what) {
     if (!(Double.isFinite(v) && v > 0)) {
-      throw new LoadstoneException(what + " must be greater than 0, was " + num(v)
-          + ": set " + option + " to a positive value");
+      throw new LoadstoneException("the " + what.label() + " must be greater than 0, was "
+          + num(v) + ": give a positive value", what);
     }
   }
 
-  private static void nonNegative(double v, String what, String option) {
+  private static void nonNegative(double v, Setting what) {
     if (!(Double.isFinite(v) && v >= 0)) {
-      throw new LoadstoneException(what + " must be 0 or more, was " + num(v)
-          + ": set " + option + " to 0 or a positive value");
+      throw new LoadstoneException("the " + what.label() + " must be 0 or more, was " + num(v)
+          + ": give 0 or a positive value", what);
     }
   }
 

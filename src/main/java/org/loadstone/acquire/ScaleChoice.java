@@ -104,8 +104,8 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
     Map<String, Object> check = null;
     List<CheckWeightResult> log = CheckWeights.readLog(file);
     if (log.isEmpty()) {
-      warnings.add("calibration " + doc.id() + " has no check-weight verification yet: run "
-          + "'loadstone verify --cal " + file + " --mass-g M' before a day of testing");
+      warnings.add("calibration " + doc.id() + " has no check-weight verification yet: "
+          + "verify it with a known check weight before a day of testing");
     } else {
       CheckWeightResult last = log.get(log.size() - 1);
       @SuppressWarnings("unchecked")

@@ -9,25 +9,23 @@ import org.loadstone.units.LoadstoneException;
  * @param breakDropFraction the break is the first sample after the peak whose force has fallen by
  *     at least this fraction of the peak force; in (0, 1); default 0.40
  * @param breakIndex a break sample index chosen by the user, or {@code null} to detect it
- * @param minRSquared the linearity criterion for the automatic stiffness window; in (0, 1];
- *     default 0.995
- * @param minWindowFractionOfRise the automatic stiffness window must span at least this fraction of
- *     the force rise from the first sample to the peak; in (0, 1]; default 0.10
- * @param stiffnessBounds manual stiffness window by force or position bounds, or {@code null} for
- *     the automatic search
+ * @param stiffnessPrecision how well the automatic stiffness must be known: the half-width of
+ *     its 95 % interval as a fraction of the slope; in (0, 0.5]; default 0.03 (±3 %). A window
+ *     is only long enough when its slope meets this; when none does, the search refuses.
+ * @param stiffnessBounds a stiffness band chosen by the user (force, fraction of the peak,
+ *     displacement or position), or {@code null} for the automatic search
  * @param crushWindow stroke window for the mean crush force, or {@code null} for none
  */
 public record AnalysisSettings(
     double breakDropFraction,
     Integer breakIndex,
-    double minRSquared,
-    double minWindowFractionOfRise,
+    double stiffnessPrecision,
     StiffnessBounds stiffnessBounds,
     CrushWindow crushWindow) {
 
-  /** 40 % drop for the break, R² ≥ 0.995 over at least 10 % of the rise, no crush window. */
+  /** 40 % drop for the break, automatic stiffness known to ±3 % (95 %), no crush window. */
   public static final AnalysisSettings DEFAULTS =
-      new AnalysisSettings(0.40, null, 0.995, 0.10, null, null);
+      new AnalysisSettings(0.40, null, 0.03, null, null);
 
   /** Checks the ranges. */
   public AnalysisSettings {
@@ -40,53 +38,72 @@ public record AnalysisSettings(
       throw new LoadstoneException(
           "Analysis setting breakIndex is " + breakIndex + "; give a sample index of 0 or more.");
     }
-    if (!(minRSquared > 0 && minRSquared <= 1)) {
+    if (!(stiffnessPrecision > 0 && stiffnessPrecision <= 0.5)) {
       throw new LoadstoneException(
-          "Analysis setting minRSquared is " + minRSquared + "; it must lie in (0, 1], e.g. 0.995.");
-    }
-    if (!(minWindowFractionOfRise > 0 && minWindowFractionOfRise <= 1)) {
-      throw new LoadstoneException(
-          "Analysis setting minWindowFractionOfRise is " + minWindowFractionOfRise
-              + "; it must lie in (0, 1], e.g. 0.10.");
+          "Analysis setting stiffness precision is " + stiffnessPrecision
+              + "; give the half-width of the slope's 95 % interval as a fraction above 0 and at "
+              + "most 0.5 (0.03 means ±3 %).");
     }
   }
 
   /** @return these settings with the break at a given sample index */
   public AnalysisSettings withBreakIndex(int index) {
     return new AnalysisSettings(
-        breakDropFraction, index, minRSquared, minWindowFractionOfRise, stiffnessBounds,
-        crushWindow);
+        breakDropFraction, index, stiffnessPrecision, stiffnessBounds, crushWindow);
   }
 
   /** @return these settings with another break drop fraction, in (0, 1) */
   public AnalysisSettings withBreakDropFraction(double fraction) {
     return new AnalysisSettings(
-        fraction, breakIndex, minRSquared, minWindowFractionOfRise, stiffnessBounds, crushWindow);
+        fraction, breakIndex, stiffnessPrecision, stiffnessBounds, crushWindow);
   }
 
-  /** @return these settings with another linearity criterion and minimum window */
-  public AnalysisSettings withLinearity(double rSquared, double fractionOfRise) {
+  /** @return these settings with another required stiffness precision, in (0, 0.5] */
+  public AnalysisSettings withStiffnessPrecision(double halfWidth95) {
     return new AnalysisSettings(
-        breakDropFraction, breakIndex, rSquared, fractionOfRise, stiffnessBounds, crushWindow);
+        breakDropFraction, breakIndex, halfWidth95, stiffnessBounds, crushWindow);
   }
 
   /** @return these settings with a manual stiffness window; {@code null} restores the search */
   public AnalysisSettings withStiffnessBounds(StiffnessBounds bounds) {
     return new AnalysisSettings(
-        breakDropFraction, breakIndex, minRSquared, minWindowFractionOfRise, bounds, crushWindow);
+        breakDropFraction, breakIndex, stiffnessPrecision, bounds, crushWindow);
   }
 
   /** @return these settings with a crush stroke window; {@code null} for none */
   public AnalysisSettings withCrushWindow(CrushWindow window) {
     return new AnalysisSettings(
-        breakDropFraction, breakIndex, minRSquared, minWindowFractionOfRise, stiffnessBounds,
-        window);
+        breakDropFraction, breakIndex, stiffnessPrecision, stiffnessBounds, window);
+  }
+
+  /**
+   * The settings as plain values with units in the keys, for a run's analysis record: {@code
+   * break_drop_fraction, break_index, stiffness_method, stiffness_band_basis,
+   * stiffness_band_low, stiffness_band_high, stiffness_precision_95, crush_from_mm,
+   * crush_to_mm}; absent values are {@code null}. Key order is fixed.
+   */
+  public java.util.Map<String, Object> toMap() {
+    java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
+    m.put("break_drop_fraction", breakDropFraction);
+    m.put("break_index", breakIndex);
+    m.put("stiffness_method", stiffnessBounds == null ? "automatic" : "band");
+    m.put("stiffness_band", stiffnessBounds == null ? null : stiffnessBounds.words());
+    m.put("stiffness_band_basis", stiffnessBounds == null ? null
+        : stiffnessBounds.basis().name().toLowerCase(java.util.Locale.ROOT));
+    m.put("stiffness_band_low", stiffnessBounds == null ? null : stiffnessBounds.low());
+    m.put("stiffness_band_high", stiffnessBounds == null ? null : stiffnessBounds.high());
+    m.put("stiffness_precision_95", stiffnessPrecision);
+    m.put("crush_from_mm", crushWindow == null ? null : crushWindow.from_mm());
+    m.put("crush_to_mm", crushWindow == null ? null : crushWindow.to_mm());
+    return m;
   }
 
   /** Which quantity the manual stiffness bounds apply to. */
   public enum Basis {
     /** bounds are forces in newtons */
     FORCE_N,
+    /** bounds are fractions of the peak force, e.g. 0.10 and 0.40 */
+    PEAK_FRACTION,
     /** bounds are displacements from the first sample, in millimetres */
     DISPLACEMENT_MM,
     /** bounds are raw position-channel values, in millimetres */
@@ -94,8 +111,9 @@ public record AnalysisSettings(
   }
 
   /**
-   * A manual stiffness window: the first unbroken run of samples of the rise (first sample to
-   * peak) whose force, displacement or position lies within {@code [low, high]}.
+   * A stiffness band: every sample of the rise (first sample to peak) from where the loading path
+   * first reaches {@code low} to where it first reaches {@code high}, in force, fraction of the
+   * peak force, displacement or position. Samples inside are all used, whatever their noise.
    *
    * @param basis what the bounds measure
    * @param low lower bound, finite
@@ -117,6 +135,27 @@ public record AnalysisSettings(
     /** @return bounds on force, newtons */
     public static StiffnessBounds force_N(double low, double high) {
       return new StiffnessBounds(Basis.FORCE_N, low, high);
+    }
+
+    /** @return bounds as fractions of the peak force, e.g. 0.10 and 0.40 */
+    public static StiffnessBounds peakFraction(double low, double high) {
+      return new StiffnessBounds(Basis.PEAK_FRACTION, low, high);
+    }
+
+    /** @return the band in words with its unit, e.g. {@code 10–40 % of the peak} */
+    public String words() {
+      return switch (basis) {
+        case FORCE_N -> plain(low) + " to " + plain(high) + " N";
+        case PEAK_FRACTION -> plain(100 * low) + " to " + plain(100 * high) + " % of the peak";
+        case DISPLACEMENT_MM -> plain(low) + " to " + plain(high) + " mm of displacement";
+        case POSITION_MM -> "position " + plain(low) + " to " + plain(high) + " mm";
+      };
+    }
+
+    /** @return the value to 6 significant digits without trailing zeros, e.g. 50 or 0.0125 */
+    static String plain(double v) {
+      return new java.math.BigDecimal(v).round(new java.math.MathContext(6))
+          .stripTrailingZeros().toPlainString();
     }
 
     /** @return bounds on the raw position channel, millimetres */

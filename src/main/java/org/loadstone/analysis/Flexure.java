@@ -21,6 +21,21 @@ import org.loadstone.units.LoadstoneException;
  *   <li>E = m·a·(3L² − 4a²)/(4bd³) — for loadSpan = L/3 this is 23L³m/(108bd³) ≈ 0.21L³m/(bd³).
  * </ul>
  *
+ * <p>Four-point deflections of a simply supported beam under two equal loads P/2 at a from each
+ * support (Roark's Formulas for Stress and Strain, simply supported beam tables; Timoshenko,
+ * Strength of Materials — both from memory, and checked in the tests by the unit-load method):
+ *
+ * <ul>
+ *   <li>at mid-span D = P·a·(3L² − 4a²)/(48EI) — a gauge under the middle of the span;
+ *   <li>at the loading noses D = P·a²·(3L − 4a)/(12EI) — what the crosshead follows, so
+ *       E = m·a²·(3L − 4a)/(b·d³) from the crosshead slope m. Using the mid-span form on
+ *       crosshead travel overstates E by (3L² − 4a²)/(4a(3L − 4a)): 15 % at a load span of L/3,
+ *       37.5 % at L/2.
+ * </ul>
+ *
+ * <p>Large deflections (ASTM D790, the clause for deflections beyond 10 % of the support span,
+ * quoted from memory): σ = (3PL/2bd²)·[1 + 6(D/L)² − 4(d/L)(D/L)] at mid-span deflection D.
+ *
  * <p>All methods throw {@link LoadstoneException} when a dimension is not finite and positive, or
  * a four-point load span is not shorter than the support span, naming the value and the fix.
  */
@@ -66,13 +81,63 @@ public final class Flexure {
     return 12 * deflection_mm * depth_mm / (3 * span_mm * span_mm - 4 * a * a);
   }
 
-  /** Four-point flexural modulus E = m·a·(3L² − 4a²)/(4bd³), MPa, from midspan slope m. */
+  /**
+   * Four-point flexural modulus E = m·a·(3L² − 4a²)/(4bd³), MPa, from the slope m of force
+   * against the mid-span deflection (a gauge under the middle, not the crosshead).
+   */
   public static double fourPointModulus_MPa(
       double slope_N_per_mm, double span_mm, double loadSpan_mm, double width_mm, double depth_mm) {
     double a = shearSpan(span_mm, loadSpan_mm, width_mm, depth_mm);
     positive(slope_N_per_mm, "load–deflection slope", "N/mm");
     return slope_N_per_mm * a * (3 * span_mm * span_mm - 4 * a * a)
         / (4 * width_mm * Math.pow(depth_mm, 3));
+  }
+
+  /**
+   * Four-point flexural modulus from the slope of force against the loading noses' deflection
+   * (crosshead travel): E = m·a²·(3L − 4a)/(b·d³), MPa.
+   */
+  public static double fourPointModulusFromLoadPoints_MPa(
+      double slope_N_per_mm, double span_mm, double loadSpan_mm, double width_mm, double depth_mm) {
+    double a = shearSpan(span_mm, loadSpan_mm, width_mm, depth_mm);
+    positive(slope_N_per_mm, "load–deflection slope", "N/mm");
+    return slope_N_per_mm * a * a * (3 * span_mm - 4 * a) / (width_mm * Math.pow(depth_mm, 3));
+  }
+
+  /** Mid-span deflection P·a·(3L² − 4a²)/(48EI), mm, total load P on two noses. */
+  public static double fourPointMidSpanDeflection_mm(double force_N, double span_mm,
+      double loadSpan_mm, double modulus_MPa, double secondMoment_mm4) {
+    double a = shearSpan(span_mm, loadSpan_mm, 1, 1);
+    positive(modulus_MPa, "modulus", "MPa");
+    positive(secondMoment_mm4, "second moment of area", "mm⁴");
+    return force_N * a * (3 * span_mm * span_mm - 4 * a * a) / (48 * modulus_MPa * secondMoment_mm4);
+  }
+
+  /** Deflection at the loading noses P·a²·(3L − 4a)/(12EI), mm, total load P on two noses. */
+  public static double fourPointLoadPointDeflection_mm(double force_N, double span_mm,
+      double loadSpan_mm, double modulus_MPa, double secondMoment_mm4) {
+    double a = shearSpan(span_mm, loadSpan_mm, 1, 1);
+    positive(modulus_MPa, "modulus", "MPa");
+    positive(secondMoment_mm4, "second moment of area", "mm⁴");
+    return force_N * a * a * (3 * span_mm - 4 * a) / (12 * modulus_MPa * secondMoment_mm4);
+  }
+
+  /** Mid-span deflection over load-point deflection, (3L² − 4a²)/(4a(3L − 4a)), at least 1. */
+  public static double fourPointMidSpanPerLoadPoint(double span_mm, double loadSpan_mm) {
+    double a = shearSpan(span_mm, loadSpan_mm, 1, 1);
+    return (3 * span_mm * span_mm - 4 * a * a) / (4 * a * (3 * span_mm - 4 * a));
+  }
+
+  /**
+   * Three-point flexural stress corrected for a large mid-span deflection D (ASTM D790, from
+   * memory): 3PL/(2bd²)·[1 + 6(D/L)² − 4(d/L)(D/L)], MPa.
+   */
+  public static double threePointStressLargeDeflection_MPa(double force_N, double span_mm,
+      double width_mm, double depth_mm, double deflection_mm) {
+    double plain = threePointStress_MPa(force_N, span_mm, width_mm, depth_mm);
+    finite(deflection_mm, "deflection");
+    double r = deflection_mm / span_mm;
+    return plain * (1 + 6 * r * r - 4 * (depth_mm / span_mm) * r);
   }
 
   /** Compression stress P/A, MPa, for a force in N on a loaded area in mm². */

@@ -11,6 +11,9 @@ final class LinearWindows {
   private final double[] sxx;
   private final double[] sxy;
   private final double[] syy;
+  private final double[] sx3;
+  private final double[] sx4;
+  private final double[] sx2y;
   private final double mx;
   private final double my;
 
@@ -43,6 +46,9 @@ final class LinearWindows {
     sxx = new double[count + 1];
     sxy = new double[count + 1];
     syy = new double[count + 1];
+    sx3 = new double[count + 1];
+    sx4 = new double[count + 1];
+    sx2y = new double[count + 1];
     for (int i = 0; i < count; i++) {
       double u = x[i] - mx;
       double v = y[i] - my;
@@ -51,7 +57,51 @@ final class LinearWindows {
       sxx[i + 1] = sxx[i] + u * u;
       sxy[i + 1] = sxy[i] + u * v;
       syy[i + 1] = syy[i] + v * v;
+      sx3[i + 1] = sx3[i] + u * u * u;
+      sx4[i + 1] = sx4[i] + u * u * u * u;
+      sx2y[i + 1] = sx2y[i] + u * u * v;
     }
+  }
+
+  /**
+   * How curved samples {@code from..to} are: the quadratic term b of y = a + c·v + b·v² fitted
+   * about the window's mean x, expressed as the change of slope across the window (2·b·x-range,
+   * same unit as the slope) and as Student's t of b (b over its standard error).
+   *
+   * @return {slope change, t}; {0, 0} when the window has fewer than 4 samples or no spread
+   */
+  double[] curvature(int from, int to, double xRange) {
+    int n = to - from + 1;
+    if (n < 4) {
+      return new double[] {0, 0};
+    }
+    // window sums of powers of u (x about the series mean), then moved to the window's mean c
+    double s1 = sx[to + 1] - sx[from];
+    double s2 = sxx[to + 1] - sxx[from];
+    double s3 = sx3[to + 1] - sx3[from];
+    double s4 = sx4[to + 1] - sx4[from];
+    double c = s1 / n;
+    double m2 = s2 - n * c * c;
+    double m3 = s3 - 3 * c * s2 + 2 * n * c * c * c;
+    double m4 = s4 - 4 * c * s3 + 6 * c * c * s2 - 3 * n * c * c * c * c;
+    double v0 = sy[to + 1] - sy[from];
+    double ybar = v0 / n;
+    double suy = sxy[to + 1] - sxy[from];
+    double su2y = sx2y[to + 1] - sx2y[from];
+    double syyW = syy[to + 1] - syy[from] - v0 * v0 / n;
+    double svy = suy - c * v0; // Σ (u − c)(y − ȳ)
+    double swy = su2y - 2 * c * suy + c * c * v0 - ybar * (s2 - 2 * c * s1 + n * c * c);
+    double sww = m4 - m2 * m2 / n;
+    double det = m2 * sww - m3 * m3;
+    if (!(m2 > 0) || !(det > 0)) {
+      return new double[] {0, 0};
+    }
+    double b1 = (sww * svy - m3 * swy) / det;
+    double b2 = (m2 * swy - m3 * svy) / det;
+    double sse = Math.max(0, syyW - b1 * svy - b2 * swy);
+    double se = Math.sqrt(sse / (n - 3) * m2 / det);
+    double change = 2 * b2 * xRange;
+    return new double[] {change, se > 0 ? b2 / se : (b2 == 0 ? 0 : Double.POSITIVE_INFINITY)};
   }
 
   /** Mean of y − (slope·x + intercept) over samples {@code from..to} inclusive. */
@@ -60,18 +110,6 @@ final class LinearWindows {
     double sumX = sx[to + 1] - sx[from] + n * mx;
     double sumY = sy[to + 1] - sy[from] + n * my;
     return (sumY - slope * sumX - n * intercept) / n;
-  }
-
-  /**
-   * The search's score of a window without making its {@link Line}: slope − 2 standard errors
-   * when the slope is positive and R² reaches {@code minR2}, else NaN.
-   */
-  double score(int from, int to, double minR2) {
-    Line line = fit(from, to); // not kept, so the compiler need not make it
-    if (line == null || line.slope() <= 0 || line.rSquared() < minR2) {
-      return Double.NaN;
-    }
-    return line.slope() - 2 * line.slopeSe();
   }
 
   /**

@@ -22,8 +22,11 @@ public final class RunAnalyzer {
    *   <li>Peak: the first sample of highest force.
    *   <li>Break: {@link AnalysisSettings#breakIndex()} when given, else the first sample after the
    *       peak whose force is at most {@code peak − breakDropFraction·|peak|}.
-   *   <li>Stiffness: slope of force against displacement over the initial linear region, found
-   *       automatically (steepest straight window, see the settings) or over manual bounds.
+   *   <li>Stiffness: slope of force against displacement over the initial straight region, found
+   *       automatically ({@link StiffnessSearch}: windows in force span, before the first yield,
+   *       long enough for the required precision at the noise seen) or over the user's band
+   *       ({@link StiffnessBand}: every sample between two forces, fractions of the peak or
+   *       travels). When the search refuses, {@link RunResult#stiffnessRefusal()} says why.
    *   <li>Toe compensation: the fitted line meets zero force at the toe offset; corrected
    *       displacement = displacement − toe offset (ASTM D790 annex A1, ISO 178).
    *   <li>Energy: trapezoidal area under force–displacement, N·mm / 1000 = J.
@@ -38,8 +41,8 @@ public final class RunAnalyzer {
    * @param settings how to read it, not null
    * @return the figures; position-based ones are empty when the curve has no position
    * @throws LoadstoneException when the run has no rise, the given break index is outside the run
-   *     or before the peak, manual stiffness bounds are given without position or select too few
-   *     samples, or the crush window lies outside the run's displacement
+   *     or before the peak, a stiffness band is given without position, lies outside the rise or
+   *     holds too few samples, or the crush window lies outside the run's displacement
    */
   public static RunResult analyze(Curve curve, AnalysisSettings settings) {
     Precondition.notNull(curve, "curve");
@@ -67,14 +70,15 @@ public final class RunAnalyzer {
       if (settings.stiffnessBounds() != null || settings.crushWindow() != null) {
         throw new LoadstoneException(
             "The analysis settings ask for "
-                + (settings.stiffnessBounds() != null ? "manual stiffness bounds" : "a crush window")
+                + (settings.stiffnessBounds() != null ? "a stiffness band" : "a crush window")
                 + " but the run has no position channel. Add a position source (encoder, "
                 + "crosshead rate or imported table) or clear that setting.");
       }
       notes.add("No position channel: displacement, stiffness, toe offset and energy are absent.");
       return new RunResult(
           n, f[0], peak, f[peak], t[peak], OptionalDouble.empty(), brk, OptionalDouble.empty(),
-          OptionalDouble.empty(), Optional.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
+          OptionalDouble.empty(), Optional.empty(), Optional.empty(), OptionalDouble.empty(),
+          OptionalDouble.empty(),
           OptionalDouble.empty(), OptionalDouble.empty(), Optional.empty(), notes);
     }
 
@@ -82,17 +86,27 @@ public final class RunAnalyzer {
     for (int i = 0; i < n; i++) {
       x[i] = pos[i] - pos[0];
     }
-    StiffnessFit fit =
-        settings.stiffnessBounds() != null
-            ? StiffnessSearch.manual(x, f, peak, settings.stiffnessBounds(), pos[0])
-            : StiffnessSearch.automatic(
-                x, f, peak, settings.minRSquared(), settings.minWindowFractionOfRise());
-    if (fit == null) {
-      notes.add(
-          "No window before the peak is straight enough (R² ≥ " + settings.minRSquared()
-              + " over " + Math.round(settings.minWindowFractionOfRise() * 100)
-              + " % of the rise): stiffness and toe offset are absent. Set manual bounds to force "
-              + "a fit.");
+    RiseProfile rise = new RiseProfile(x, f, peak);
+    StiffnessFit fit;
+    StiffnessRefusal refusal = null;
+    if (settings.stiffnessBounds() != null) {
+      fit = StiffnessBand.fit(rise, settings.stiffnessBounds(), pos[0]);
+      if (fit.relativeHalfWidth95() > settings.stiffnessPrecision()) {
+        notes.add(String.format(java.util.Locale.ROOT, "The stiffness band %s knows the slope "
+            + "only to ±%.1f %% (95 %%), coarser than the ±%.1f %% the automatic search "
+            + "requires.", settings.stiffnessBounds().words(), 100 * fit.relativeHalfWidth95(),
+            100 * settings.stiffnessPrecision()));
+      }
+    } else {
+      StiffnessSearch.Outcome o = StiffnessSearch.automatic(rise, settings.stiffnessPrecision());
+      fit = o.fit();
+      refusal = o.refusal();
+      if (refusal != null) {
+        notes.add(String.format(java.util.Locale.ROOT, "No stiffness: %s. Closest band: %.4g to "
+            + "%.4g N (samples %d to %d); stiffness and toe offset are absent. Choose a band "
+            + "to fit one anyway.", refusal.reason(), refusal.closestFromForce_N(),
+            refusal.closestToForce_N(), refusal.closestFromIndex(), refusal.closestToIndex()));
+      }
     }
     OptionalDouble toe = fit == null ? OptionalDouble.empty() : OptionalDouble.of(fit.toeOffset_mm());
 
@@ -116,7 +130,8 @@ public final class RunAnalyzer {
 
     return new RunResult(
         n, f[0], peak, f[peak], t[peak], OptionalDouble.of(pos[peak]), brk,
-        OptionalDouble.of(x[peak]), dispBreak, Optional.ofNullable(fit), corrPeak, corrBreak,
+        OptionalDouble.of(x[peak]), dispBreak, Optional.ofNullable(fit),
+        Optional.ofNullable(refusal), corrPeak, corrBreak,
         OptionalDouble.of(area_Nmm(x, f, peak) / 1000.0), energyBreak, crush, notes);
   }
 

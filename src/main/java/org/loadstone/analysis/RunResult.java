@@ -19,8 +19,10 @@ import java.util.OptionalDouble;
  *     enough
  * @param displacementAtPeak_mm displacement from the first sample to the peak, millimetres
  * @param displacementAtBreak_mm displacement from the first sample to the break, millimetres
- * @param stiffness the initial linear fit; empty without position or when no window is straight
- *     enough
+ * @param stiffness the initial linear fit (or the user's band); empty without position or when
+ *     the search refuses
+ * @param stiffnessRefusal why the automatic search gave no stiffness and the band that came
+ *     closest; empty when there is a stiffness or no position
  * @param correctedDisplacementAtPeak_mm displacement at peak less the toe offset, millimetres
  * @param correctedDisplacementAtBreak_mm displacement at break less the toe offset, millimetres
  * @param energyToPeak_J area under force–displacement from the first sample to the peak, joules
@@ -39,6 +41,7 @@ public record RunResult(
     OptionalDouble displacementAtPeak_mm,
     OptionalDouble displacementAtBreak_mm,
     Optional<StiffnessFit> stiffness,
+    Optional<StiffnessRefusal> stiffnessRefusal,
     OptionalDouble correctedDisplacementAtPeak_mm,
     OptionalDouble correctedDisplacementAtBreak_mm,
     OptionalDouble energyToPeak_J,
@@ -51,7 +54,7 @@ public record RunResult(
     for (Object o :
         new Object[] {
           peakPosition_mm, breakPoint, displacementAtPeak_mm, displacementAtBreak_mm, stiffness,
-          correctedDisplacementAtPeak_mm, correctedDisplacementAtBreak_mm, energyToPeak_J,
+          stiffnessRefusal, correctedDisplacementAtPeak_mm, correctedDisplacementAtBreak_mm, energyToPeak_J,
           energyToBreak_J, crush, notes
         }) {
       if (o == null) {

@@ -1,163 +1,233 @@
 package org.loadstone.analysis;
 
-import java.util.ArrayList;
-import java.util.List;
-import org.loadstone.analysis.AnalysisSettings.StiffnessBounds;
-import org.loadstone.units.LoadstoneException;
+import java.util.Locale;
 
 /**
- * Finds the initial linear region of the rise (samples 0..peak) of a force–displacement curve.
+ * Finds the initial straight region of the rise of a force–displacement curve and fits it, or
+ * says why it cannot.
  *
- * <p>Automatic search: window lengths grow geometrically (factor 1.2) from max(3, rise/50)
- * samples to the whole rise, and every start index is tried, so about n·k windows for k ≈ 22
- * lengths, each fitted in O(1) from prefix sums ({@link LinearWindows}). A window qualifies when
- * its R² reaches the criterion, its slope is positive and its force span is at least the given
- * fraction of the rise. The steepest qualifying window — steepest by slope less two standard
- * errors, so that a short window cannot win on noise alone — is the seed. The seed is then grown
- * to the whole straight region: blocks of samples on either side are added while their mean
- * residual from the current line stays within three residual standard deviations (scaled by
- * √block); the line is refitted as it grows (O(n) more). Growing keeps the toe and the
- * bend-over before the peak out, and averages the noise over the longest straight stretch, where
- * the single steepest short window would be biased high by noise.
+ * <ol>
+ *   <li><b>Where the first rise ends.</b> The search looks only before the first yield, plateau or
+ *       peak: the first local maximum of the smoothed force that the force then leaves by more
+ *       than the noise (eight smoothed-noise SDs, at least 2 % of the rise), or earlier, the first
+ *       place where the local slope (over 10 % of that rise in force) falls below half of the
+ *       steepest slope seen before it, each judged with two standard errors to spare. A steeper
+ *       region later in the curve (densification, stiffening) is therefore never a candidate.
+ *   <li><b>Windows in force span.</b> That first rise is cut at 40 force levels (2.5 % of it
+ *       each); a window runs from where the loading path first reaches one level to where it
+ *       first reaches a higher one, at least two levels on, and takes every sample in between.
+ *       Each window is fitted in O(1) from prefix sums ({@link LinearWindows}).
+ *   <li><b>Straight.</b> A window is straight when a parabola fitted over it has a quadratic
+ *       term within 2 of its standard errors of zero and changes the slope across the window
+ *       by less than 10 %, and when its middle third agrees in slope with either outer third in
+ *       the same way (a toe at one end and a bend-over at the other cancel in the parabola, not
+ *       in the thirds). A curving toe, a bend-over or a slip inside the window shows as one or
+ *       the other.
+ *   <li><b>Initial.</b> A window's slope must reach 90 % of the steepest local slope (less two
+ *       standard errors) seen in the first rise, so a straight stretch after a first bend-over
+ *       is not taken for the initial one.
+ *   <li><b>Known well enough.</b> Among those windows the one whose slope has the smallest
+ *       relative standard error is chosen: at a given noise that is the longest straight
+ *       stretch. Its slope is then refitted directly with a standard error widened for
+ *       residuals that follow one another. When the half-width of its 95 % interval exceeds
+ *       the required precision, the search refuses and names the window as the closest band.
+ * </ol>
  */
 final class StiffnessSearch {
+  static final int LEVELS = 40;
+  private static final double T_CRIT = 2.0;
+  private static final double STEEPEST_SHARE = 0.9;
+  private static final double MAX_PART_DIFFERENCE = 0.10;
+
   private StiffnessSearch() {}
 
-  /**
-   * @param x displacement, mm
-   * @param y force, N
-   * @param peakIndex last sample of the rise
-   * @return the fit, or {@code null} when no window meets the criterion
-   */
-  static StiffnessFit automatic(
-      double[] x, double[] y, int peakIndex, double minR2, double minFractionOfRise) {
-    int count = peakIndex + 1;
-    if (count < 3) {
-      return null;
-    }
-    LinearWindows sums = new LinearWindows(x, y, count);
-    double minSpan = minFractionOfRise * (y[peakIndex] - y[0]);
-    List<Integer> lengths = new ArrayList<>();
-    int len = Math.max(3, count / 50);
-    while (len < count) {
-      lengths.add(len);
-      len = Math.max(len + 1, (int) Math.ceil(len * 1.2));
-    }
-    lengths.add(count);
+  /** A fit or a refusal, exactly one of them non-null. */
+  record Outcome(StiffnessFit fit, StiffnessRefusal refusal) {}
 
-    // windows are scored without making a Line; only a new best becomes one
-    int seedFrom = -1;
-    int seedTo = -1;
-    double best = Double.NEGATIVE_INFINITY;
-    for (int length : lengths) {
-      for (int i = 0; i + length <= count; i++) {
-        int to = i + length - 1;
-        if (y[to] - y[i] < minSpan) {
+  /**
+   * @param p the rise
+   * @param precision the required half-width of the slope's 95 % interval, fraction of the slope
+   */
+  static Outcome automatic(RiseProfile p, double precision) {
+    if (p.peak + 1 < 6) {
+      return refuse(p, "the rise has only " + (p.peak + 1) + " samples; a stiffness needs a "
+          + "straight stretch of at least 6", 0, p.peak);
+    }
+    LinearWindows sums = new LinearWindows(p.x, p.y, p.peak + 1);
+    RiseEnd first = firstRiseEnd(p, sums);
+    int end = first.index();
+    double base = p.smooth[0];
+    double rise = p.smooth[end] - base;
+    if (!(rise > 0)) {
+      return refuse(p, "the force does not rise before the first peak", 0, end);
+    }
+    int[] at = crossings(p, base, rise, LEVELS, end);
+    LinearWindows.Line best = null;
+    double bestScore = Double.POSITIVE_INFINITY;
+    LinearWindows.Line nearest = null;
+    double nearestMiss = Double.POSITIVE_INFINITY;
+    for (int a = 1; a <= LEVELS - 2; a++) {
+      for (int c = a + 2; c <= LEVELS; c++) {
+        int from = at[a];
+        int to = Math.min(at[c], end);
+        if (to - from + 1 < 6) {
           continue;
         }
-        double score = sums.score(i, to, minR2);
-        if (!Double.isNaN(score) && (seedFrom < 0 || score > best)) {
-          best = score;
-          seedFrom = i;
-          seedTo = to;
+        LinearWindows.Line line = sums.fit(from, to);
+        if (line == null || !(line.slope() > 0)) {
+          continue;
+        }
+        double miss = straightnessMiss(sums, line, p.x, at, a, c, end);
+        double score = line.slopeSe() / line.slope();
+        boolean initial = line.slope() >= STEEPEST_SHARE * first.steepest_N_per_mm();
+        if (miss <= 1 && initial && score < bestScore) {
+          best = line;
+          bestScore = score;
+        }
+        if (miss < nearestMiss) {
+          nearest = line;
+          nearestMiss = miss;
         }
       }
     }
-    if (seedFrom < 0) {
-      return null;
-    }
-    LinearWindows.Line seed = sums.fit(seedFrom, seedTo);
-    LinearWindows.Line chosen = grow(sums, seed, count, y[peakIndex] - y[0]);
-    if (chosen.rSquared() < minR2) {
-      chosen = seed;
-    }
-    return toFit(chosen, y, StiffnessFit.Method.AUTOMATIC);
-  }
-
-  /**
-   * Extends the window left, then right, in blocks while each block's mean residual from the
-   * current line stays within 3 residual SDs / √(block length); a rejected block is halved down
-   * to one sample. The line is refitted after every accepted block.
-   */
-  private static LinearWindows.Line grow(
-      LinearWindows sums, LinearWindows.Line seed, int count, double rise) {
-    double floor = 1e-9 * Math.abs(rise);
-    LinearWindows.Line cur = seed;
-    for (int side = 0; side < 2; side++) {
-      int block = Math.max(1, cur.length() / 10);
-      while (block >= 1) {
-        int from = side == 0 ? cur.from() - block : cur.to() + 1;
-        int to = side == 0 ? cur.from() - 1 : cur.to() + block;
-        if (from < 0 || to >= count) {
-          block /= 2;
-          continue;
-        }
-        double limit = 3 * Math.max(cur.residualSd(), floor) / Math.sqrt(block);
-        double r = sums.meanResidual(from, to, cur.slope(), cur.intercept());
-        LinearWindows.Line next =
-            Math.abs(r) <= limit
-                ? sums.fit(Math.min(from, cur.from()), Math.max(to, cur.to()))
-                : null;
-        if (next != null && next.slope() > 0) {
-          cur = next;
-        } else {
-          block /= 2;
-        }
+    if (best == null) {
+      if (nearest == null) {
+        return refuse(p, "the first rise holds too few samples between its force levels for a "
+            + "straight-line fit", 0, end);
       }
+      return refuse(p, "no stretch of the first rise (up to " + fmt(p.y[end]) + " N) is "
+          + "straight: every window's parts differ in slope by more than the noise allows (a "
+          + "curving toe, a bend-over or slips)", nearest.from(), nearest.to());
     }
-    return cur;
+    StiffnessFit fit =
+        StiffnessFit.over(p.x, p.y, best.from(), best.to(), StiffnessFit.Method.AUTOMATIC);
+    if (fit == null) {
+      return refuse(p, "the straightest window has no rising slope", best.from(), best.to());
+    }
+    if (fit.relativeHalfWidth95() > precision) {
+      return new Outcome(null, new StiffnessRefusal(String.format(Locale.ROOT,
+          "the longest straight window of the first rise (%s to %s N, samples %d to %d) knows "
+              + "the slope only to ±%.1f %% (95 %%) at this noise (about %s N), coarser than the "
+              + "required ±%.1f %%", fmt(fit.fromForce_N()), fmt(fit.toForce_N()),
+          fit.fromIndex(), fit.toIndex(), 100 * fit.relativeHalfWidth95(), fmt(p.noise_N),
+          100 * precision), fit.fromForce_N(), fit.toForce_N(), fit.fromIndex(), fit.toIndex(),
+          fit.slope_N_per_mm(), fit.relativeHalfWidth95()));
+    }
+    return new Outcome(fit, null);
   }
 
   /**
-   * The fit over the first contiguous run of rise samples whose force (or displacement) lies in
-   * the bounds.
+   * How far a window is from straight: the largest ratio of a part-to-part slope difference to
+   * what noise and the 10 % bound allow; at most 1 means straight.
+   */
+  private static double straightnessMiss(
+      LinearWindows sums, LinearWindows.Line whole, double[] x, int[] at, int a, int c, int end) {
+    double range = Math.abs(x[whole.to()] - x[whole.from()]);
+    double[] bend = sums.curvature(whole.from(), whole.to(), range);
+    double k = whole.slope();
+    double miss = Math.abs(bend[0]) <= 1e-9 * k ? 0
+        : Math.max(Math.abs(bend[1]) / T_CRIT, Math.abs(bend[0]) / (MAX_PART_DIFFERENCE * k));
+    if (c - a >= 3) {
+      int t1 = Math.min(at[a + (c - a) / 3], end);
+      int t2 = Math.min(at[a + (2 * (c - a)) / 3], end);
+      miss = Math.max(miss, partMiss(sums, whole, whole.from(), t1, t1, t2));
+      miss = Math.max(miss, partMiss(sums, whole, t2, whole.to(), t1, t2));
+    }
+    return miss;
+  }
+
+  private static double partMiss(
+      LinearWindows sums, LinearWindows.Line whole, int a0, int a1, int b0, int b1) {
+    if (a1 - a0 + 1 < 3 || b1 - b0 + 1 < 3) {
+      return 0; // too short to judge: the whole window's own tests decide
+    }
+    LinearWindows.Line u = sums.fit(a0, a1);
+    LinearWindows.Line v = sums.fit(b0, b1);
+    if (u == null || v == null) {
+      return Double.POSITIVE_INFINITY;
+    }
+    double d = Math.abs(u.slope() - v.slope());
+    double noise = T_CRIT * Math.hypot(u.slopeSe(), v.slopeSe());
+    double floor = 1e-9 * Math.abs(whole.slope());
+    return Math.max(d / Math.max(noise, floor), d / (MAX_PART_DIFFERENCE * whole.slope()));
+  }
+
+  /**
+   * The end of the first rise and the steepest slope seen before it.
    *
-   * @throws LoadstoneException when fewer than 3 rise samples lie in the bounds
+   * @param index last sample of the first rise
+   * @param steepest_N_per_mm the largest local slope less two standard errors before it, N/mm
    */
-  static StiffnessFit manual(
-      double[] x, double[] y, int peakIndex, StiffnessBounds bounds, double position0_mm) {
-    double[] basis = bounds.basis() == AnalysisSettings.Basis.FORCE_N ? y : x;
-    double shift = bounds.basis() == AnalysisSettings.Basis.POSITION_MM ? position0_mm : 0;
-    String unit = bounds.basis() == AnalysisSettings.Basis.FORCE_N ? " N" : " mm";
-    int from = -1;
-    int to = -1;
-    for (int i = 0; i <= peakIndex; i++) {
-      boolean inside = basis[i] + shift >= bounds.low() && basis[i] + shift <= bounds.high();
-      if (inside && from < 0) {
-        from = i;
+  record RiseEnd(int index, double steepest_N_per_mm) {}
+
+  /**
+   * The last sample of the first rise: the peak, or an earlier local maximum that the force
+   * leaves by more than the noise, or where the local slope first falls below half.
+   */
+  static RiseEnd firstRiseEnd(RiseProfile p, LinearWindows sums) {
+    double base = p.smooth[0];
+    double rise = p.smooth[p.peak] - base;
+    double smoothNoise = p.noise_N / Math.sqrt(2 * p.halfWidth + 1);
+    double drop = Math.max(8 * smoothNoise, 0.02 * rise);
+    int top = 0;
+    int end = p.peak;
+    for (int i = 1; i <= p.peak; i++) {
+      if (p.smooth[i] > p.smooth[top]) {
+        top = i;
+      } else if (p.smooth[i] < p.smooth[top] - drop) {
+        end = top;
+        break;
       }
-      if (from >= 0) {
-        if (!inside) {
-          break;
-        }
-        to = i;
+    }
+    double r = p.smooth[end] - base;
+    if (!(r > 0)) {
+      return new RiseEnd(end, 0);
+    }
+    int levels = 20;
+    int[] at = crossings(p, base, r, levels, end);
+    double reference = 0;
+    for (int l = 1; l < levels; l++) {
+      int from = at[l - 1];
+      int to = Math.min(at[l + 1], end);
+      if (to - from + 1 < 4) {
+        continue;
       }
+      LinearWindows.Line line = sums.fit(from, to);
+      if (line == null) {
+        continue;
+      }
+      if (reference > 0 && line.slope() + 2 * line.slopeSe() < 0.5 * reference) {
+        return new RiseEnd(Math.min(at[l], end), reference);
+      }
+      reference = Math.max(reference, line.slope() - 2 * line.slopeSe());
     }
-    if (from < 0 || to - from + 1 < 3) {
-      throw new LoadstoneException(
-          "Stiffness bounds [" + bounds.low() + ", " + bounds.high() + "]" + unit + " hold "
-              + (from < 0 ? 0 : to - from + 1) + " consecutive samples before the peak; a fit "
-              + "needs at least 3. Widen the bounds or move them onto the rising part.");
-    }
-    LinearWindows.Line line = new LinearWindows(x, y, peakIndex + 1).fit(from, to);
-    if (line == null) {
-      throw new LoadstoneException(
-          "Stiffness bounds [" + bounds.low() + ", " + bounds.high() + "]" + unit + " select "
-              + "samples " + from + " to " + to + " over which displacement does not change; "
-              + "choose bounds where the specimen deflects.");
-    }
-    StiffnessFit.Method method =
-        switch (bounds.basis()) {
-          case FORCE_N -> StiffnessFit.Method.FORCE_BOUNDS;
-          case DISPLACEMENT_MM -> StiffnessFit.Method.DISPLACEMENT_BOUNDS;
-          case POSITION_MM -> StiffnessFit.Method.POSITION_BOUNDS;
-        };
-    return toFit(line, y, method);
+    return new RiseEnd(end, reference);
   }
 
-  private static StiffnessFit toFit(LinearWindows.Line line, double[] y, StiffnessFit.Method m) {
-    return new StiffnessFit(
-        line.from(), line.to(), y[line.from()], y[line.to()], line.slope(), line.intercept(),
-        line.rSquared(), m);
+  /** First index where the smoothed force reaches base + rise·j/levels, j = 0..levels. */
+  static int[] crossings(RiseProfile p, double base, double rise, int levels, int end) {
+    int[] at = new int[levels + 1];
+    int i = 0;
+    for (int j = 0; j <= levels; j++) {
+      double level = base + rise * j / levels;
+      while (i < end && p.smooth[i] < level) {
+        i++;
+      }
+      at[j] = i;
+    }
+    at[levels] = end;
+    return at;
+  }
+
+  private static Outcome refuse(RiseProfile p, String reason, int from, int to) {
+    StiffnessFit near = to > from
+        ? StiffnessFit.over(p.x, p.y, from, to, StiffnessFit.Method.AUTOMATIC) : null;
+    return new Outcome(null, new StiffnessRefusal(reason, p.y[from], p.y[to], from, to,
+        near == null ? Double.NaN : near.slope_N_per_mm(),
+        near == null ? Double.NaN : near.relativeHalfWidth95()));
+  }
+
+  static String fmt(double v) {
+    return String.format(Locale.ROOT, "%.4g", v);
   }
 }

@@ -55,7 +55,8 @@ public final class ArchiveIndex {
     Precondition.notNull(dir, "dir");
     if (!Files.isDirectory(dir)) {
       throw new LoadstoneException("archive folder " + dir + " does not exist: record a run "
-          + "first, or pass --archive DIR for another folder");
+          + "first, or choose the archive folder that holds your runs",
+          org.loadstone.units.Setting.ARCHIVE_FOLDER);
     }
     List<Entry> found = new ArrayList<>();
     List<Unreadable> problems = new ArrayList<>();
@@ -116,7 +117,8 @@ public final class ArchiveIndex {
     }
     if (m.isEmpty()) {
       throw new LoadstoneException("no run '" + idOrPrefix + "' in " + dir
-          + ": 'loadstone runs' lists the runs there");
+          + ": give the id (or its start) of a run the archive lists, or choose the archive "
+          + "folder that holds it", org.loadstone.units.Setting.ARCHIVE_FOLDER);
     }
     throw new LoadstoneException("'" + idOrPrefix + "' matches " + m.size() + " runs in " + dir
         + ": give more of the id");

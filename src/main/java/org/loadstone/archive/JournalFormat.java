@@ -80,7 +80,38 @@ public final class JournalFormat {
   }
 
   /**
-   * Creates the run's journal (and its folder), writes the header and forces it to the disk.
+   * A journal just created and its header forced to the disk.
+   *
+   * @param startInfo the sidecar as known at the start, with the id the run got
+   * @param file the journal
+   * @param channel open for appending records, positioned after the header
+   */
+  public record Opened(RunMetadata startInfo, Path file, FileChannel channel) {}
+
+  /**
+   * Creates the run's journal under its id or, when another run or program holds that id
+   * (two stations starting in the same millisecond), under the first free {@code id-n}, settled
+   * by a {@link RunIdClaim}: a run is never refused at its start for its id.
+   *
+   * @param startInfo the sidecar as known at the start; its {@code runId} is the id wanted
+   * @return the journal, with the start information under the id it got
+   * @throws LoadstoneException when the journal cannot be created (a full disk, a folder that
+   *     cannot be written)
+   */
+  public static Opened open(Path archiveDir, RunMetadata startInfo) {
+    Precondition.notNull(archiveDir, "archiveDir");
+    Precondition.notNull(startInfo, "startInfo");
+    try (RunIdClaim claim = RunIdClaim.claim(archiveDir, startInfo.runId())) {
+      RunMetadata info = claim.id().equals(startInfo.runId()) ? startInfo
+          : startInfo.toBuilder().runId(claim.id()).build();
+      FileChannel ch = create(archiveDir, info);
+      return new Opened(info, journalFile(archiveDir, claim.id()), ch);
+    }
+  }
+
+  /**
+   * Creates the run's journal (and its folder) under exactly its id, writes the header and
+   * forces it to the disk; {@link #open} is the way for a run that must not be refused.
    *
    * @return the open channel, positioned after the header, for appending records
    * @throws LoadstoneException when the journal exists already or cannot be created
@@ -104,7 +135,7 @@ public final class JournalFormat {
       return ch;
     } catch (FileAlreadyExistsException e) {
       throw new LoadstoneException("journal " + file + " already exists: another run uses id '"
-          + id + "'; take a free id from RunIds.newId");
+          + id + "'; store it under a free id (" + RunIds.firstFree(archiveDir, id) + ")");
     } catch (IOException e) {
       if (ch != null) {
         try {

@@ -108,10 +108,18 @@ public final class JournalRecovery {
           + " stored in full; the journal was removed");
       return null;
     }
-    // the journal itself holds `id`, so RunIds.firstFree would always skip it
-    String newId = freeOtherThanJournal(archiveDir, id);
-    RunMetadata m = recoveredMetadata(c, newId, journal);
-    StoredRun s = RunWriter.write(archiveDir, m, c.data());
+    StoredRun s;
+    String newId;
+    if (!Files.exists(csv) && !Files.exists(json)) {
+      newId = id; // the journal holds it
+      s = RunWriter.write(archiveDir, recoveredMetadata(c, newId, journal), c.data());
+    } else {
+      // a part of the run is stored under `id`: another id, held while the files are made
+      try (RunIdClaim claim = RunIdClaim.claim(archiveDir, id)) {
+        newId = claim.id();
+        s = RunWriter.write(archiveDir, recoveredMetadata(c, newId, journal), c.data());
+      }
+    }
     if (c.complete()) {
       delete(journal);
       notices.accept("unfinished run " + id + " was recovered from its journal as " + newId
@@ -123,19 +131,6 @@ public final class JournalRecovery {
           + " kept as " + moved);
     }
     return s;
-  }
-
-  private static String freeOtherThanJournal(Path archiveDir, String id) {
-    if (!Files.exists(archiveDir.resolve(id + ".csv"))
-        && !Files.exists(archiveDir.resolve(id + ".json"))) {
-      return id;
-    }
-    for (int n = 2; ; n++) {
-      String cand = id + "-" + n;
-      if (!RunIds.taken(archiveDir, cand)) {
-        return cand;
-      }
-    }
   }
 
   private static boolean readsBack(Path csv, int samples) {

@@ -12,7 +12,9 @@ import org.loadstone.units.Precondition;
  * Run ids: {@code <UTC start, ISO 8601 basic format to the millisecond>-<safe specimen>}, e.g.
  * {@code 20261202T181233.417Z-balsa-07}, so that ids sort by start time as plain text. When a run,
  * its sidecar or its journal with that id already exists, {@code -2}, {@code -3}, … is appended:
- * an id is never reused.
+ * an id is never reused. {@link #newId} proposes an id; the id a run is stored under is settled
+ * by a {@link RunIdClaim} when its journal (or, for an import, its files) is made, so two
+ * programs proposing the same id in the same millisecond both keep their runs.
  */
 public final class RunIds {
   private static final DateTimeFormatter STAMP =
@@ -57,8 +59,13 @@ public final class RunIds {
     }
   }
 
-  /** @return whether any file in the archive uses {@code id} */
+  /** @return whether any file in the archive uses {@code id}, or a program holds a claim on it */
   public static boolean taken(Path archiveDir, String id) {
+    return carried(archiveDir, id) || Files.exists(RunIdClaim.markerFor(archiveDir, id));
+  }
+
+  /** @return whether a run file, sidecar or journal (live or damaged) carries {@code id} */
+  static boolean carried(Path archiveDir, String id) {
     return Files.exists(archiveDir.resolve(id + ".csv"))
         || Files.exists(archiveDir.resolve(id + ".json"))
         || Files.exists(JournalFormat.journalFile(archiveDir, id))

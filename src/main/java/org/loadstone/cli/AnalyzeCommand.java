@@ -14,7 +14,6 @@ import org.loadstone.units.DurationUnit;
 import org.loadstone.units.LengthUnit;
 import java.util.concurrent.Callable;
 import org.loadstone.analysis.AnalysisSettings;
-import org.loadstone.analysis.AnalysisSettings.StiffnessBounds;
 import org.loadstone.study.Metric;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.cli.RunResolver.ResolvedRun;
@@ -37,12 +36,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Parameters(paramLabel = "RUN", description = "A run id (or id prefix) in the archive, a run's CSV, or any CSV with columns time_s, force_N, position_mm.")
   String run;
 
-  @Option(names = "--stiffness-from-N", paramLabel = "A",
-      description = "Fit the stiffness between these forces instead of searching (with --stiffness-to-N).")
-  Double fromN;
-
-  @Option(names = "--stiffness-to-N", paramLabel = "B", description = "Upper force of the stiffness fit.")
-  Double toN;
+  @picocli.CommandLine.Mixin StiffnessOptions stiffness;
 
   @Option(names = "--cal", paramLabel = "FILE", description = "Derive force again from the raw counts with this calibration (the stored run is not changed).")
   Path cal;
@@ -67,6 +61,11 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
   @Option(names = "--table-offset-s", description = "Table time minus run time, s (default: found from the break).")
   Double tableOffset;
+
+  @Option(names = "--position-measures", paramLabel = "WHERE", description = "What the position "
+      + "measures: crosshead, mid-span-gauge, video-load-point or video-mid-span (default: as "
+      + "recorded, else crosshead); decides the four-point deflection formula.")
+  String positionMeasures;
 
   @Option(names = "--frame", paramLabel = "FILE", description = "Remove the load frame's deflection F/k with this frame profile (see 'loadstone frame').")
   Path frame;
@@ -106,6 +105,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
           LengthUnit.parse(tableLengthUnit), tableDecimalComma);
       a = a.withPositionTable(t, tableOffset);
     }
+    if (positionMeasures != null) {
+      a = a.positionMeasures(org.loadstone.analysis.PositionSource.parse(positionMeasures));
+    }
     if (frame != null && frameK != null) {
       throw new org.loadstone.units.LoadstoneException("give --frame or "
           + "--frame-stiffness-N-per-mm, not both");
@@ -121,14 +123,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    if ((fromN == null) != (toN == null)) {
-      throw new CommandLine.ParameterException(spec.commandLine(),
-          "--stiffness-from-N and --stiffness-to-N go together; give both or neither.");
-    }
-    AnalysisSettings settings = AnalysisSettings.DEFAULTS;
-    if (fromN != null) {
-      settings = settings.withStiffnessBounds(StiffnessBounds.force_N(fromN, toN));
-    }
+    AnalysisSettings settings = stiffness.apply(AnalysisSettings.DEFAULTS);
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
     RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()));
     RunMetrics m = RunMetrics.of(adj.metadata(), adj.data(), settings);
@@ -141,6 +136,8 @@ public final class AnalyzeCommand implements Callable<Integer> {
       out.printf(Locale.ROOT, "  %-28s %14s %s%n", metric.label(), metric.format(v),
           v.isPresent() ? metric.unit() : "");
     }
+    m.analysis().stiffness().ifPresent(s -> out.printf(Locale.ROOT, "  %-28s %14s%n",
+        "stiffness chosen by", s.method().words()));
     for (String note : adj.notes()) {
       out.println("derived: " + note);
     }

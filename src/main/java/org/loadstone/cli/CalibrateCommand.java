@@ -263,6 +263,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
     List<String> given = new ArrayList<>();
     for (String o : List.of("--port", "--baud", "--reset-wait-ms", "--loads", "--loads-file",
         "--descending", "--series", "--scenario", "--seed", "--rate", "--hand", "--sim-speed",
+        "--sim-start-delay-s",
         "--window-s", "--max-sd-counts", "--max-drift", "--timeout-s")) {
       if (matched(o)) {
         given.add(o);

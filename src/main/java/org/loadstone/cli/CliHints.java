@@ -21,6 +21,28 @@ final class CliHints {
       case RATED_CAPACITY -> "--capacity-N";
       case ZERO_DRIFT_LIMIT -> "--zero-drift-N";
       case ZERO_SAMPLES -> "--zero-samples";
+      case START_THRESHOLD -> "--start-at-N";
+      case PRETRIGGER -> "--pretrigger-s";
+      case BREAK_DROP -> "--stop-drop-pct";
+      case ARMING_LEVEL -> "--arm-at-N";
+      case DEBOUNCE -> "--debounce-s";
+      case ABSOLUTE_STOP -> "--stop-below-N";
+      case TAIL -> "--tail-s";
+      case OVERLOAD_WARNING -> "--warn-pct";
+      case OVERLOAD_STOP -> "--overload-pct";
+      case TIME_LIMIT -> "--max-seconds";
+      case ARCHIVE_FOLDER -> "--archive DIR";
+      case PORT -> "--port PORT, e.g. --port sim or --port /dev/ttyACM0; 'loadstone ports' "
+          + "lists the serial ports";
+      case SIM_SCENARIO -> "--scenario dead-weight";
+      case SIM_SPEED -> "--sim-speed";
+      case IMPORT_TIME_UNIT -> "--time-unit";
+      case IMPORT_FORCE_UNIT -> "--force-unit";
+      case IMPORT_LENGTH_UNIT -> "--length-unit";
+      case IMPORT_DELIMITER -> "--delimiter";
+      case IMPORT_DECIMAL_COMMA -> "--decimal-comma";
+      case TABLE_DECIMAL_COMMA -> "--table-decimal-comma";
+      case TABLE_OFFSET -> "--table-offset-s";
     };
   }
 

@@ -8,6 +8,7 @@ import java.util.Optional;
 import org.loadstone.archive.ArchiveIndex;
 import org.loadstone.intake.ImportedRun;
 import org.loadstone.archive.Run;
+import org.loadstone.archive.RunIdClaim;
 import org.loadstone.archive.RunIds;
 import org.loadstone.archive.RunMetadata;
 import org.loadstone.archive.RunReader;
@@ -65,8 +66,9 @@ final class CliWiring {
     RunMetadata h = run.metadata();
     Instant now = Instant.now();
     String spec = specimen != null ? specimen : h.specimen();
-    String id = RunIds.newId(archiveDir, now, spec);
-    RunMetadata m = h.withIdentity(id, spec, group != null ? group : h.group());
-    return RunWriter.write(archiveDir, m, run.data());
+    try (RunIdClaim id = RunIdClaim.claim(archiveDir, RunIds.base(now, spec))) {
+      RunMetadata m = h.withIdentity(id.id(), spec, group != null ? group : h.group());
+      return RunWriter.write(archiveDir, m, run.data());
+    }
   }
 }

@@ -63,7 +63,7 @@ public final class CompareCommand implements Callable<Integer> {
       r = GroupStudy.compare(sel, m, targetPct / 100);
     } catch (LoadstoneException e) {
       throw new LoadstoneException(e.getMessage() + SelectionOptions.includeHint(sel.leftOut()),
-          e);
+          e, e.settings().toArray(new org.loadstone.units.Setting[0]));
     }
     out.printf(Locale.ROOT, "%s, %d runs counted in %s%n%n", m.heading(),
         r.values().values().stream().mapToInt(java.util.List::size).sum(), sel.folder());

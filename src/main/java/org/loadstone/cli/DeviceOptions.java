@@ -51,6 +51,13 @@ public final class DeviceOptions {
       description = "Simulator: run the simulated clock this many times faster than real time (default: ${DEFAULT-VALUE}).")
   double simSpeed;
 
+  @Option(
+      names = "--sim-start-delay-s",
+      defaultValue = "1",
+      description = "Simulator: the press waits for the run to be armed, then starts loading "
+          + "this many simulated seconds later (default: ${DEFAULT-VALUE}).")
+  double simStartDelay_s;
+
   /** @return whether the chosen port is the simulated frame */
   public boolean simulated() {
     return DeviceOpener.SIM.equalsIgnoreCase(port.trim());
@@ -58,7 +65,7 @@ public final class DeviceOptions {
 
   /** @return the simulator settings these options describe */
   public SimSetup simSetup() {
-    return new SimSetup(scenario, seed, rateHz, hand, simSpeed);
+    return new SimSetup(scenario, seed, rateHz, hand, simSpeed, simStartDelay_s);
   }
 
   /** Opens the device. */

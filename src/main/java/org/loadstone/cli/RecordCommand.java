@@ -46,6 +46,7 @@ import picocli.CommandLine.Option;
 public final class RecordCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
   @Mixin ArchiveOption archive;
+  @Mixin StiffnessOptions stiffness;
 
   @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file to turn counts into force.")
   Path cal;
@@ -132,6 +133,8 @@ public final class RecordCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
     Path dir = archive.folder();
+    org.loadstone.analysis.AnalysisSettings analysis =
+        stiffness.apply(org.loadstone.analysis.AnalysisSettings.DEFAULTS); // refuse before a run
     JournalRunStore store = new JournalRunStore(dir);
     store.checkWritable();
     for (StoredRun r : JournalRecovery.recoverAll(dir, n -> say(err, n))) {
@@ -216,7 +219,7 @@ public final class RecordCommand implements Callable<Integer> {
         say(err, reader.lostReason().orElse("stopped before any load: no run recorded"));
         return reader.lostReason().isPresent() ? LoadstoneCommand.EXIT_DEVICE_LOST : 0;
       }
-      RecordSummary.print(result.get(), json, archive.archive, out);
+      RecordSummary.print(result.get(), json, archive.archive, analysis, out);
       return 0;
     } finally {
       reader.close();

@@ -25,15 +25,16 @@ final class RecordSummary {
    * @param r the stored run
    * @param json one JSON object instead of text
    * @param archive the {@code --archive} given, or null
+   * @param settings how to analyse the stored run (the stiffness method chosen)
    */
-  static void print(Recorder.Result r, boolean json, Path archive, PrintWriter out)
-      throws Exception {
+  static void print(Recorder.Result r, boolean json, Path archive,
+      org.loadstone.analysis.AnalysisSettings settings, PrintWriter out) throws Exception {
     BreakDetector.Break b = r.breakDetail();
     RunMetrics metrics = null;
     String notAnalysed = null;
     try {
       Run run = RunReader.read(r.stored().csv());
-      metrics = RunMetrics.of(run.metadata(), run.data());
+      metrics = RunMetrics.of(run.metadata(), run.data(), settings);
     } catch (LoadstoneException e) {
       notAnalysed = e.getMessage();
     } catch (OutOfMemoryError e) {
@@ -58,7 +59,9 @@ final class RecordSummary {
       m.put("json", r.stored().json().toString());
       if (metrics != null) {
         Map<String, Object> a = metrics.toJsonMap();
-        for (String k : new String[] {"stiffness_N_per_mm", "energy_to_peak_J",
+        for (String k : new String[] {"stiffness_N_per_mm", "stiffness_ci95_low_N_per_mm",
+            "stiffness_ci95_high_N_per_mm", "stiffness_method", "stiffness_refused",
+            "energy_to_peak_J",
             "energy_to_break_J", "specific_peak_N_per_g"}) {
           m.put(k, a.get(k));
         }
@@ -76,11 +79,14 @@ final class RecordSummary {
       if (metrics != null) {
         var a = metrics.analysis();
         out.printf(Locale.ROOT, "stiffness %s, energy %s to break, %s to peak%s%n",
-            a.stiffness().map(s -> String.format(Locale.ROOT, "%.4g N/mm (R² %.4f)",
-                s.slope_N_per_mm(), s.rSquared())).orElse("-"),
+            a.stiffness().map(s -> String.format(Locale.ROOT, "%.4g N/mm (95 %% %.4g to %.4g, "
+                + "%s, %.4g to %.4g N)", s.slope_N_per_mm(), s.ci95Low_N_per_mm(),
+                s.ci95High_N_per_mm(), s.method().words(), s.fromForce_N(), s.toForce_N()))
+                .orElse("-"),
             joules(a.energyToBreak_J()), joules(a.energyToPeak_J()),
             metrics.specificPeak_N_per_g().isPresent() ? String.format(Locale.ROOT,
                 ", peak %.4g N/g", metrics.specificPeak_N_per_g().getAsDouble()) : "");
+        a.stiffnessRefusal().ifPresent(no -> out.println("no stiffness: " + no.reason()));
         out.println("details: loadstone analyze " + r.stored().runId()
             + (archive != null ? " --archive " + archive : ""));
       } else {

@@ -83,7 +83,8 @@ public final class ReportCommand implements Callable<Integer> {
             GroupComparison.DEFAULT_TARGET_DIFFERENCE);
       } catch (LoadstoneException e) {
         throw new LoadstoneException(e.getMessage()
-            + SelectionOptions.includeHint(sel.leftOut()), e);
+            + SelectionOptions.includeHint(sel.leftOut()), e,
+            e.settings().toArray(new org.loadstone.units.Setting[0]));
       }
       String title = "Comparison of " + String.join(", ", sel.groups().keySet());
       if (png != null) {

@@ -65,7 +65,7 @@ public final class SimulateCommand implements Callable<Integer> {
       throw new LoadstoneException("--seconds must be greater than 0, was " + seconds);
     }
     Scenario.parse(scenario);
-    SimSetup setup = new SimSetup(scenario, seed, rateHz, hand, 1);
+    SimSetup setup = new SimSetup(scenario, seed, rateHz, hand, 1, Double.NaN);
     SampleSource source = new FrameSampleSource(setup.buildFrame());
     long total = Math.round(seconds * rateHz);
     WireEncoder enc = new WireEncoder(binary ? Encoding.BINARY : Encoding.TEXT);

@@ -18,8 +18,8 @@ public final class DeviceOpener {
    */
   public static Transport open(String port, SerialSettings serial, Supplier<Transport> simulated) {
     if (port == null || port.isBlank()) {
-      throw new LoadstoneException("no port given: use --port sim for the built-in simulated "
-          + "frame, or a serial port from 'loadstone ports'");
+      throw new LoadstoneException("no port given: choose the built-in simulated frame or the "
+          + "serial port the board is plugged into", org.loadstone.units.Setting.PORT);
     }
     if (port.trim().equalsIgnoreCase(SIM)) {
       return simulated.get();

@@ -28,8 +28,8 @@ public final class SerialTransport implements Transport {
   public static SerialTransport open(String portName, SerialSettings settings) {
     String name = portName.trim();
     if (name.isEmpty()) {
-      throw new LoadstoneException("no serial port given: name one, e.g. --port /dev/ttyACM0, "
-          + "or use --port sim for the built-in simulated frame; 'loadstone ports' lists ports");
+      throw new LoadstoneException("no serial port given: name the port the board is plugged "
+          + "into, or choose the built-in simulated frame", org.loadstone.units.Setting.PORT);
     }
     checkPathBeforeOpening(name);
     SerialPort p;
@@ -73,7 +73,8 @@ public final class SerialTransport implements Transport {
 
   static LoadstoneException notFound(String name) {
     return new LoadstoneException("serial port " + name + " not found: check that the board is "
-        + "plugged in and powered, then run 'loadstone ports' to see the ports present");
+        + "plugged in and powered, then choose one of the serial ports present",
+        org.loadstone.units.Setting.PORT);
   }
 
   static LoadstoneException forbidden(String name) {
@@ -92,7 +93,8 @@ public final class SerialTransport implements Transport {
             + "monitor, another Loadstone) has it open; close that program and try again");
       default:
         return new LoadstoneException("could not open serial port " + name + " (system error "
-            + errno + "): check the cable, unplug and replug the board, and run 'loadstone ports'");
+            + errno + "): check the cable, unplug and replug the board, and check that the port "
+            + "is still present", org.loadstone.units.Setting.PORT);
     }
   }
 

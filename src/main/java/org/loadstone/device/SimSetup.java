@@ -14,19 +14,36 @@ import org.loadstone.units.LoadstoneException;
  * @param hand whether the press is pumped by hand (uneven strokes, pauses) instead of a constant
  *     crosshead rate
  * @param speed how many times faster than real time the simulated clock runs (at least 1)
+ * @param operatorDelay_s the press waits for the operator: its crosshead starts this many
+ *     simulated seconds after a run is armed (0…60); NaN for a press that starts by itself when
+ *     the stream starts (a stand-alone byte stream, where nobody arms)
  */
-public record SimSetup(String scenario, long seed, double rateHz, boolean hand, double speed) {
+public record SimSetup(String scenario, long seed, double rateHz, boolean hand, double speed,
+    double operatorDelay_s) {
+  /** Simulated seconds from arming a run to the crosshead moving, by default. */
+  public static final double DEFAULT_OPERATOR_DELAY_S = 1.0;
   /** The console's default: a foam-core shelf panel at 80 samples/s, real time. */
   public static final SimSetup DEFAULT = new SimSetup("panel-foam", 1, 80, false, 1);
 
+  /** A press that waits for the operator, with the default delay. */
+  public SimSetup(String scenario, long seed, double rateHz, boolean hand, double speed) {
+    this(scenario, seed, rateHz, hand, speed, DEFAULT_OPERATOR_DELAY_S);
+  }
+
   public SimSetup {
+    if (!Double.isNaN(operatorDelay_s) && !(operatorDelay_s >= 0 && operatorDelay_s <= 60)) {
+      throw new LoadstoneException("the simulated press's start delay must be 0 to 60 s, was "
+          + operatorDelay_s);
+    }
     Scenario.parse(scenario);
     if (!SimulatedFrame.isSupportedRate(rateHz)) {
       throw new LoadstoneException("the simulated converter cannot run at " + rateHz
           + " samples/s: use 10 or 80 (bridge amplifier) or 100…50000 (fast converter)");
     }
     if (!(speed >= 1) || Double.isNaN(speed)) {
-      throw new LoadstoneException("--sim-speed must be 1 or more, was " + speed);
+      throw new LoadstoneException("the simulation speed must be 1 (real time) or more, was "
+          + speed + ": give how many times faster than real time the simulated frame runs",
+          org.loadstone.units.Setting.SIM_SPEED);
     }
   }
 
@@ -36,6 +53,9 @@ public record SimSetup(String scenario, long seed, double rateHz, boolean hand, 
         SimulatedFrame.builder().scenario(Scenario.parse(scenario)).seed(seed).rateHz(rateHz);
     if (hand) {
       b.handPumped(2.0);
+    }
+    if (!Double.isNaN(operatorDelay_s)) {
+      b.waitForOperator(operatorDelay_s);
     }
     return b.build();
   }

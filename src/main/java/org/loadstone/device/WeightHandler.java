@@ -54,9 +54,9 @@ public interface WeightHandler {
               frame.placeMass(total_kg);
             }
           } catch (IllegalStateException e) {
-            throw new LoadstoneException(e.getMessage() + ": use the dead-weight scenario"
-                + " (--scenario dead-weight, the default for calibrate and verify) to put"
-                + " weights on the simulated cell", e);
+            throw new LoadstoneException(e.getMessage() + ": only the dead-weight scenario"
+                + " puts weights on the simulated cell; choose it to calibrate or verify on the"
+                + " simulated frame", e, org.loadstone.units.Setting.SIM_SCENARIO);
           }
         });
       }

@@ -28,6 +28,7 @@ import org.loadstone.units.DurationUnit;
 import org.loadstone.units.ForceUnit;
 import org.loadstone.units.LengthUnit;
 import org.loadstone.units.LoadstoneException;
+import org.loadstone.units.Setting;
 import org.loadstone.units.Precondition;
 
 /**
@@ -134,11 +135,11 @@ public final class CsvImport {
           + "needs at least 2. Check the skip count and that the whole file was saved.");
     }
     DurationUnit tu = unit(s.timeUnit(), header, ti, "time", DurationUnit.S, DurationUnit::parse,
-        DurationUnit::symbol, name, headerLine, notes, "--time-unit");
+        DurationUnit::symbol, name, headerLine, notes, Setting.IMPORT_TIME_UNIT);
     ForceUnit fu = unit(s.forceUnit(), header, fi, "force", ForceUnit.N, ForceUnit::parse,
-        ForceUnit::symbol, name, headerLine, notes, "--force-unit");
+        ForceUnit::symbol, name, headerLine, notes, Setting.IMPORT_FORCE_UNIT);
     LengthUnit lu = pi < 0 ? null : unit(s.lengthUnit(), header, pi, "position", LengthUnit.MM,
-        LengthUnit::parse, LengthUnit::symbol, name, headerLine, notes, "--length-unit");
+        LengthUnit::parse, LengthUnit::symbol, name, headerLine, notes, Setting.IMPORT_LENGTH_UNIT);
 
     int n = rows.size();
     double[] t = new double[n];
@@ -308,8 +309,8 @@ public final class CsvImport {
     }
     if (best == 0) {
       throw new LoadstoneException("File " + name + " line " + line + ": no comma, semicolon or "
-          + "tab found, so the columns cannot be told apart. Give the delimiter (--delimiter) or "
-          + "check the skip count.");
+          + "tab found, so the columns cannot be told apart. Give the file's column delimiter "
+          + "or check the skip count.", Setting.IMPORT_DELIMITER);
     }
     return best;
   }
@@ -356,7 +357,7 @@ public final class CsvImport {
 
   private static <U> U unit(U given, List<String> header, int col, String role, U fallback,
       java.util.function.Function<String, U> parse, java.util.function.Function<U, String> symbol,
-      String file, int line, List<String> notes, String option) {
+      String file, int line, List<String> notes, Setting option) {
     String fromHeader = null;
     if (header != null) {
       Matcher m = UNIT_IN_HEADER.matcher(header.get(col).trim());
@@ -366,7 +367,7 @@ public final class CsvImport {
     }
     if (given != null) {
       if (fromHeader != null && !fromHeader.equalsIgnoreCase(symbol.apply(given))) {
-        notes.add("The " + role + " header says '" + fromHeader + "' but " + option + " "
+        notes.add("The " + role + " header says '" + fromHeader + "' but the unit "
             + symbol.apply(given) + " was given; the given unit is used.");
       }
       return given;
@@ -377,7 +378,7 @@ public final class CsvImport {
       } catch (LoadstoneException e) {
         throw new LoadstoneException("File " + file + " line " + line + " column '"
             + header.get(col).trim() + "': " + e.getMessage() + ". Give the " + role
-            + " unit with " + option + ".", e);
+            + " unit of the file.", e, option);
       }
     }
     notes.add("No " + role + " unit given or in the header: " + symbol.apply(fallback)
@@ -404,10 +405,12 @@ public final class CsvImport {
       }
       String v = decimalComma ? raw.replace(',', '.') : raw;
       if (!NUMBER.matcher(v).matches()) {
-        String hint = !decimalComma && raw.matches("[+-]?\\d+,\\d+")
-            ? " The file seems to use a decimal comma: add --decimal-comma."
+        boolean comma = !decimalComma && raw.matches("[+-]?\\d+,\\d+");
+        String hint = comma
+            ? " The file seems to use a decimal comma: read it with a decimal comma."
             : " Check the column mapping and the skip count.";
-        throw new LoadstoneException(where + ": '" + raw + "' is not a number." + hint);
+        throw new LoadstoneException(where + ": '" + raw + "' is not a number." + hint,
+            comma ? new Setting[] {Setting.IMPORT_DECIMAL_COMMA} : new Setting[0]);
       }
       return Double.parseDouble(v);
     }

@@ -46,7 +46,8 @@ public final class PositionTableCsv {
     char delim = first.contains("\t") ? '\t' : first.contains(";") ? ';' : ',';
     if (decimalComma && delim == ',') {
       throw new LoadstoneException("position table " + file + " uses ',' between columns, so "
-          + "its numbers cannot use a decimal comma: drop --table-decimal-comma");
+          + "its numbers cannot use a decimal comma: read it without a decimal comma",
+          org.loadstone.units.Setting.TABLE_DECIMAL_COMMA);
     }
     CSVFormat fmt = CSVFormat.DEFAULT.builder().setDelimiter(delim).setHeader()
         .setSkipHeaderRecord(true).setIgnoreEmptyLines(true).setTrim(true).get();
@@ -104,9 +105,11 @@ public final class PositionTableCsv {
     } catch (NumberFormatException ignored) {
       // reported below
     }
+    boolean comma = cell.contains(",") && !decimalComma;
     throw new LoadstoneException(String.format(Locale.ROOT,
         "position table %s, line %d, column '%s': '%s' is not a number%s", file, line,
-        header.get(i), cell, cell.contains(",") && !decimalComma
-            ? " (for a decimal comma use --table-decimal-comma)" : ""));
+        header.get(i), cell, comma ? " (a table with a decimal comma must be read as one)" : ""),
+        comma ? new org.loadstone.units.Setting[] {org.loadstone.units.Setting.TABLE_DECIMAL_COMMA}
+            : new org.loadstone.units.Setting[0]);
   }
 }

@@ -35,11 +35,14 @@ final class FrameMechanics {
   private double energyToBreak_Nmm = Double.NaN;
   private double crossheadEnergyToBreak_Nmm = Double.NaN;
 
-  FrameMechanics(SpecimenModel specimen, double frameStiffness_N_per_mm, double gap_mm) {
+  /** @param start_s true time the specimen is mounted, s (the crosshead then at 0) */
+  FrameMechanics(SpecimenModel specimen, double frameStiffness_N_per_mm, double gap_mm,
+      double start_s) {
     this.specimen = specimen;
     this.frameStiffness_N_per_mm = frameStiffness_N_per_mm;
     this.gap_mm = gap_mm;
     this.deflection_mm = -gap_mm;
+    this.time_s = start_s;
   }
 
   private double residual(double delta_mm, double x_mm, double t) {

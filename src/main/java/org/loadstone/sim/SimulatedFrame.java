@@ -36,16 +36,10 @@ public final class SimulatedFrame {
   private final double gravity_m_per_s2;
   private final SampleClock clock;
   private final SimRandom noise;
-  private final FrameMechanics mechanics;
-  private final CrossheadDrive drive;
-  private final boolean motorised;
+  private final Press press;
   private final DeadWeightRig rig;
-  private final SpecimenSummary specimen;
-  private final double driveRate_mm_per_s;
-  private final double contactGap_mm;
   private final boolean averagingConverter;
   private double rateHz;
-  private double halt_s = Double.POSITIVE_INFINITY;
 
   private int lastSeq;
   private long lastDeviceTime_us;
@@ -60,11 +54,8 @@ public final class SimulatedFrame {
   private double deadWeightPeak_N;
   private double deadWeightPeak_s = Double.NaN;
 
-  SimulatedFrame(SimulatedFrameBuilder b, Presets.Setup setup, LoadCell cell, CrossheadDrive drive,
-      boolean motorised, double driveRate_mm_per_s) {
-    this.driveRate_mm_per_s = driveRate_mm_per_s;
+  SimulatedFrame(SimulatedFrameBuilder b, LoadCell cell) {
     this.averagingConverter = b.averaging;
-    this.contactGap_mm = setup == null ? Double.NaN : setup.gap_mm();
     this.scenario = b.scenario;
     this.seed = b.seed;
     this.cell = cell;
@@ -75,16 +66,12 @@ public final class SimulatedFrame {
     this.clock = new SampleClock(b.rateHz, b.jitter_us, b.rateError_pct, b.firstSequence,
         b.clockStart_us, SimRandom.stream(b.seed, SimRandom.TIMING));
     this.noise = SimRandom.stream(b.seed, SimRandom.NOISE);
-    this.drive = drive;
-    this.motorised = motorised;
-    if (setup == null) {
-      mechanics = null;
-      specimen = null;
-      rig = new DeadWeightRig(b.gravity_m_per_s2, b.settling_s);
-    } else {
-      mechanics = new FrameMechanics(setup.model(), b.frameStiffness_N_per_mm, setup.gap_mm());
-      specimen = setup.summary();
+    if (b.scenario.hasSpecimen()) {
+      press = new Press(b);
       rig = null;
+    } else {
+      press = null;
+      rig = new DeadWeightRig(b.gravity_m_per_s2, b.settling_s);
     }
   }
 
@@ -105,7 +92,8 @@ public final class SimulatedFrame {
     double t = clock.next_s();
     double force;
     double converted_counts;
-    if (mechanics != null) {
+    if (press != null) {
+      FrameMechanics mechanics = press.mechanics();
       double t0 = mechanics.time_s();
       int n = Math.max(1, (int) Math.ceil((t - t0) / MAX_STEP_S - 1e-9));
       boolean averaging = averagingConverter && (rateHz == 10 || rateHz == 80);
@@ -114,7 +102,7 @@ public final class SimulatedFrame {
       double tPrevious = t0;
       for (int i = 1; i <= n; i++) {
         double ti = i == n ? t : t0 + (t - t0) * i / n;
-        mechanics.step(drive.position_mm(Math.min(ti, halt_s)), ti);
+        mechanics.step(press.position_mm(ti), ti);
         if (averaging) {
           double c = cell.idealCounts(mechanics.force_N());
           area += 0.5 * (previous + c) * (ti - tPrevious);
@@ -283,11 +271,47 @@ public final class SimulatedFrame {
    * @return true if halted; false if the crosshead is hand-operated or absent (nothing to stop)
    */
   public boolean halt() {
-    if (!motorised) {
-      return false;
+    return press != null && press.halt(lastTime_s);
+  }
+
+  /**
+   * The operator starts loading (a run has been armed): a crosshead that waits for the operator
+   * starts its set delay after the last sample's time; one that started by itself, or has
+   * started already, carries on. Nothing in the dead-weight mode.
+   */
+  public void operatorStarts() {
+    if (press != null) {
+      press.operatorStarts(lastTime_s);
     }
-    halt_s = Math.min(halt_s, lastTime_s);
-    return true;
+  }
+
+  /** @return whether there is a crosshead that waits for the operator to start it */
+  public boolean waitsForOperator() {
+    return press != null && press.waitsForOperator();
+  }
+
+  /** @return whether the crosshead has been started on the present specimen */
+  public boolean crossheadStarted() {
+    return press != null && press.started();
+  }
+
+  /**
+   * Takes the tested specimen out and mounts the next one of the same scenario (its own scatter,
+   * drawn from the seed and its number), with the crosshead back at its start, waiting for the
+   * operator. Its ground truth starts afresh.
+   *
+   * @throws IllegalStateException in the dead-weight mode (no specimen)
+   */
+  public void nextSpecimen() {
+    if (press == null) {
+      throw new IllegalStateException("the dead-weight scenario has no specimen to change");
+    }
+    press.nextSpecimen(lastTime_s);
+  }
+
+  /** @return the number of the present specimen, 0 for the first (0 in the dead-weight mode) */
+  public int specimenNumber() {
+    return press == null ? 0 : press.specimenNumber();
   }
 
   /**
@@ -340,22 +364,25 @@ public final class SimulatedFrame {
   /** @return identity of the simulated device */
   public FrameInfo info() {
     String adc = rateHz == 10 || rateHz == 80 ? "hx711" : "fast";
-    return new FrameInfo(adc, rateHz, 2, positionCountsPerMm, motorised, "loadstone-sim",
+    return new FrameInfo(adc, rateHz, 2, positionCountsPerMm, press != null && press.motorised(),
+        "loadstone-sim",
         cellId, cell.capacity_N(), cell.countsPerN());
   }
 
   /** @return a snapshot of the ground truth so far */
   public SimTruth truth() {
-    if (mechanics == null) {
+    if (press == null) {
       return new SimTruth(scenario, seed, rateHz, cell, positionCountsPerMm, gravity_m_per_s2,
-          driveRate_mm_per_s, contactGap_mm, Double.NaN, null, Double.NaN, deadWeightPeak_N, deadWeightPeak_s, Double.NaN, Double.NaN,
+          Double.NaN, Double.NaN, Double.NaN, null, Double.NaN, deadWeightPeak_N, deadWeightPeak_s, Double.NaN, Double.NaN,
           Double.NaN, Double.NaN, Double.NaN, Double.NaN, clock.count(), saturatedCount,
           rig.mass_kg());
     }
+    FrameMechanics mechanics = press.mechanics();
+    SpecimenSummary specimen = press.specimen();
     double kf = mechanics.frameStiffness_N_per_mm();
     double ks = specimen.stiffness_N_per_mm();
     return new SimTruth(scenario, seed, rateHz, cell, positionCountsPerMm, gravity_m_per_s2,
-        driveRate_mm_per_s, contactGap_mm, kf,
+        press.driveRate_mm_per_s(), press.gap_mm(), kf,
         specimen, 1 / (1 / ks + 1 / kf), mechanics.peak_N(), mechanics.peak_s(),
         mechanics.break_s(), mechanics.breakForce_N(), mechanics.energyToPeak_J(),
         mechanics.energyToBreak_J(), mechanics.crossheadEnergyToPeak_J(),

@@ -28,6 +28,7 @@ public final class SimulatedFrameBuilder {
   double gravity_m_per_s2 = 9.80665;
   double settling_s = 0.2;
   boolean averaging = true;
+  double operatorDelay_s = Double.NaN;
 
   SimulatedFrameBuilder() {}
 
@@ -65,6 +66,18 @@ public final class SimulatedFrameBuilder {
   public SimulatedFrameBuilder handPumped(double meanStroke_mm) {
     this.handStroke_mm = meanStroke_mm;
     this.crossheadRate_mm_per_s = Double.NaN;
+    return this;
+  }
+
+  /**
+   * Makes the crosshead wait for the operator: it stays still until {@link
+   * SimulatedFrame#operatorStarts()} and moves {@code delay_s} later (the time a person takes from
+   * arming a run to starting the press). By default it starts by itself at time zero.
+   *
+   * @param delay_s delay after the start, s, 0…60
+   */
+  public SimulatedFrameBuilder waitForOperator(double delay_s) {
+    this.operatorDelay_s = delay_s;
     return this;
   }
 
@@ -219,7 +232,10 @@ public final class SimulatedFrameBuilder {
     }
     check(cellId.matches("[A-Za-z0-9._-]{1,64}"), "cell id", cellId,
         "1 to 64 letters, digits, '.', '_' or '-'");
-    Presets.Setup setup = Presets.setup(scenario, seed);
+    if (!Double.isNaN(operatorDelay_s)) {
+      check(operatorDelay_s >= 0 && operatorDelay_s <= 60, "operator delay", operatorDelay_s,
+          "0…60 s");
+    }
     LoadCell cell = loadCell != null ? loadCell : LoadCell.frameCell(rateHz);
     if (!Double.isNaN(noiseRms_counts)) {
       cell = cell.withNoiseRms_counts(noiseRms_counts);
@@ -230,20 +246,6 @@ public final class SimulatedFrameBuilder {
     if (!Double.isNaN(nonLinearity_pctFS)) {
       cell = cell.withNonLinearity_pctFS(nonLinearity_pctFS);
     }
-    CrossheadDrive drive = null;
-    boolean motorised = false;
-    double driveRate = Double.NaN;
-    if (setup != null) {
-      if (hand) {
-        drive = new CrossheadDrive.HandPump(handStroke_mm, SimRandom.stream(seed, SimRandom.DRIVE));
-      } else {
-        double v = Double.isNaN(crossheadRate_mm_per_s)
-            ? setup.crossheadRate_mm_per_s() : crossheadRate_mm_per_s;
-        drive = new CrossheadDrive.ConstantRate(v);
-        motorised = true;
-        driveRate = v;
-      }
-    }
-    return new SimulatedFrame(this, setup, cell, drive, motorised, driveRate);
+    return new SimulatedFrame(this, cell);
   }
 }

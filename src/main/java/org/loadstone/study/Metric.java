@@ -14,7 +14,7 @@ import org.loadstone.units.LoadstoneException;
  * unit, the significant digits it is shown with, and a typed accessor on {@link RunMetrics}.
  *
  * <p>Figures a group comparison makes sense of are {@linkplain #comparable() comparable}; the
- * break sample index and the fit's R² are shown but not compared.
+ * break sample index, the fit's R², its 95 % interval and its window are shown but not compared.
  */
 public enum Metric {
   PEAK("peak", "peak_N", "peak force", "N", 4, m -> some(m.analysis().peakForce_N())),
@@ -30,6 +30,21 @@ public enum Metric {
       m -> m.analysis().stiffness_N_per_mm()),
   STIFFNESS_R2("stiffness-r2", "stiffness_r_squared", "stiffness fit R2", "", 4,
       m -> m.analysis().stiffness().map(s -> some(s.rSquared())).orElse(OptionalDouble.empty())),
+  STIFFNESS_CI95_LOW("stiffness-ci95-low", "stiffness_ci95_low_N_per_mm",
+      "stiffness 95 % from", "N/mm", 4,
+      m -> m.analysis().stiffness().map(s -> some(s.ci95Low_N_per_mm()))
+          .orElse(OptionalDouble.empty())),
+  STIFFNESS_CI95_HIGH("stiffness-ci95-high", "stiffness_ci95_high_N_per_mm",
+      "stiffness 95 % to", "N/mm", 4,
+      m -> m.analysis().stiffness().map(s -> some(s.ci95High_N_per_mm()))
+          .orElse(OptionalDouble.empty())),
+  STIFFNESS_WINDOW_FROM("stiffness-window-from", "stiffness_window_from_N",
+      "stiffness window from", "N", 4,
+      m -> m.analysis().stiffness().map(s -> some(s.fromForce_N()))
+          .orElse(OptionalDouble.empty())),
+  STIFFNESS_WINDOW_TO("stiffness-window-to", "stiffness_window_to_N", "stiffness window to",
+      "N", 4, m -> m.analysis().stiffness().map(s -> some(s.toForce_N()))
+          .orElse(OptionalDouble.empty())),
   TOE_OFFSET("toe-offset", "toe_offset_mm", "toe offset", "mm", 3,
       m -> m.analysis().toeOffset_mm()),
   DISPLACEMENT_AT_PEAK("displacement-at-peak", "displacement_at_peak_mm", "displacement at peak",
@@ -42,6 +57,9 @@ public enum Metric {
       m -> m.analysis().energyToBreak_J()),
   FLEXURAL_STRESS("flexural-stress", "flexural_stress_at_peak_MPa", "flexural stress at peak",
       "MPa", 4, RunMetrics::flexuralStressAtPeak_MPa),
+  FLEXURAL_STRESS_LARGE_DEFLECTION("flexural-stress-large-deflection",
+      "flexural_stress_at_peak_large_deflection_MPa", "flexural stress at peak, large deflection",
+      "MPa", 4, RunMetrics::flexuralStressAtPeakLargeDeflection_MPa),
   FLEXURAL_MODULUS("flexural-modulus", "flexural_modulus_MPa", "flexural modulus", "MPa", 4,
       RunMetrics::flexuralModulus_MPa),
   CORE_SHEAR("core-shear", "core_shear_stress_at_peak_MPa", "core shear stress at peak", "MPa",
@@ -106,9 +124,14 @@ public enum Metric {
     return unit.isEmpty() ? label : label + " (" + unit + ")";
   }
 
-  /** @return whether groups can be compared on it (a sample index or a fit quality cannot) */
+  /**
+   * @return whether groups can be compared on it (a sample index, a fit quality or the bounds of
+   *     a fit's interval or window cannot)
+   */
   public boolean comparable() {
-    return this != BREAK_SAMPLE && this != STIFFNESS_R2;
+    return this != BREAK_SAMPLE && this != STIFFNESS_R2 && this != STIFFNESS_CI95_LOW
+        && this != STIFFNESS_CI95_HIGH && this != STIFFNESS_WINDOW_FROM
+        && this != STIFFNESS_WINDOW_TO;
   }
 
   /**

@@ -116,8 +116,8 @@ public record RunAdjust(RunMetadata metadata, RunData data, List<String> notes) 
     if (i1 - i0 < 1) {
       throw new LoadstoneException(String.format(Locale.ROOT, "the position table covers run "
           + "times %.4f to %.4f s, which holds fewer than 2 of the run's samples (run: %.4f to "
-          + "%.4f s): check --table-offset-s or the table's time unit", lo, hi, t[0],
-          t[t.length - 1]));
+          + "%.4f s): check the table's time offset against the run and its time unit", lo, hi,
+          t[0], t[t.length - 1]), org.loadstone.units.Setting.TABLE_OFFSET);
     }
     RunAdjust cut = i0 == 0 && i1 == t.length - 1 ? this : trimmed(i0, i1);
     double[] x = table.resampleOnto(cut.data.time_s(), off);
@@ -127,6 +127,20 @@ public record RunAdjust(RunMetadata metadata, RunData data, List<String> notes) 
     return cut.with(cut.metadata, cut.withPosition(x), String.format(Locale.ROOT,
         "position from an imported table, %s: table time = run time %+.4f s%s", how, off,
         trimNote));
+  }
+
+  /**
+   * Records what the run's position channel measures (crosshead, a mid-span gauge, a video point),
+   * which decides the four-point deflection formula; the samples are unchanged.
+   *
+   * @param source what the position measures
+   */
+  public RunAdjust positionMeasures(org.loadstone.analysis.PositionSource source) {
+    Precondition.notNull(source, "source");
+    java.util.Map<String, Object> extra = new java.util.LinkedHashMap<>(metadata.extra());
+    extra.put(org.loadstone.analysis.PositionSource.METADATA_KEY, source.wireName());
+    return with(metadata.toBuilder().extra(extra).build(), data,
+        "the position channel measures: " + source.wireName());
   }
 
   /**

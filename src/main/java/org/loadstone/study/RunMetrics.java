@@ -11,6 +11,8 @@ import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
 import org.loadstone.analysis.AnalysisSettings;
+import org.loadstone.analysis.BendFigures;
+import org.loadstone.analysis.PositionSource;
 import org.loadstone.analysis.Curve;
 import org.loadstone.analysis.Flexure;
 import org.loadstone.analysis.RunAnalyzer;
@@ -35,8 +37,12 @@ import org.loadstone.units.Precondition;
  * @param metadata the run's metadata, not null
  * @param curve the curve analysed (with position when the run has it), not null
  * @param analysis the run analysis, not null
+ * @param settings the analysis settings used (with a recorded break when one was used), not null
  * @param flexuralStressAtPeak_MPa three- or four-point flexural stress at peak (ASTM D790/D6272)
- * @param flexuralModulus_MPa flexural modulus from the stiffness (apparent, for a sandwich)
+ * @param flexuralStressAtPeakLargeDeflection_MPa three-point flexural stress at peak corrected
+ *     for a mid-span deflection beyond a tenth of the span (ASTM D790); empty otherwise
+ * @param flexuralModulus_MPa flexural modulus from the stiffness (apparent, for a sandwich), with
+ *     the formula for what the run's position channel measures ({@link #positionSource})
  * @param coreShearStressAtPeak_MPa sandwich core shear stress P/((d + c)b) at peak (ASTM C393)
  * @param facingStressAtPeak_MPa sandwich facing stress PL/(2t(d + c)b) at peak (ASTM C393)
  * @param compressionStressAtPeak_MPa P/A at peak for a compression test
@@ -50,7 +56,9 @@ public record RunMetrics(
     RunMetadata metadata,
     Curve curve,
     RunResult analysis,
+    AnalysisSettings settings,
     OptionalDouble flexuralStressAtPeak_MPa,
+    OptionalDouble flexuralStressAtPeakLargeDeflection_MPa,
     OptionalDouble flexuralModulus_MPa,
     OptionalDouble coreShearStressAtPeak_MPa,
     OptionalDouble facingStressAtPeak_MPa,
@@ -66,7 +74,9 @@ public record RunMetrics(
     Precondition.notNull(metadata, "metadata");
     Precondition.notNull(curve, "curve");
     Precondition.notNull(analysis, "analysis");
-    for (OptionalDouble o : new OptionalDouble[] {flexuralStressAtPeak_MPa, flexuralModulus_MPa,
+    Precondition.notNull(settings, "settings");
+    for (OptionalDouble o : new OptionalDouble[] {flexuralStressAtPeak_MPa,
+        flexuralStressAtPeakLargeDeflection_MPa, flexuralModulus_MPa,
         coreShearStressAtPeak_MPa, facingStressAtPeak_MPa, compressionStressAtPeak_MPa,
         specificPeak_N_per_g, specificEnergyToPeak_J_per_g, specificEnergyToBreak_J_per_g,
         specificStiffness_N_per_mm_per_g}) {
@@ -112,7 +122,7 @@ public record RunMetrics(
     RunResult r = RunAnalyzer.analyze(curve, used);
     List<String> all = new ArrayList<>(r.notes());
     all.addAll(notes);
-    return new Builder(metadata, curve, r, all).build();
+    return new Builder(metadata, curve, r, used, all).build();
   }
 
   /**
@@ -123,6 +133,17 @@ public record RunMetrics(
   public static Curve curveOf(RunData data) {
     Precondition.notNull(data, "data");
     return Curve.over(data.time_s(), data.force_N(), data.position_mm());
+  }
+
+  /**
+   * What the run's position channel measures, as recorded in its metadata under {@link
+   * PositionSource#METADATA_KEY}; a run that records nothing has the crosshead's position.
+   *
+   * @throws LoadstoneException when the recorded name is not a known source
+   */
+  public static PositionSource positionSource(RunMetadata metadata) {
+    Object v = metadata.extra().get(PositionSource.METADATA_KEY);
+    return v == null ? PositionSource.CROSSHEAD : PositionSource.parse(v.toString());
   }
 
   private static int firstPeak(double[] f) {
@@ -139,7 +160,10 @@ public record RunMetrics(
    * A JSON-friendly view with units in the keys: the run's identity ({@code run_id, specimen,
    * group, test_type}), {@code sample_count, peak_index, break_detected}, then every figure of the
    * {@link Metric} catalogue under its {@link Metric#key()} (always present, {@code null} when
-   * absent; a count as a whole number), then {@code notes}. Key order is fixed.
+   * absent; a count as a whole number), then how the stiffness was taken ({@code
+   * stiffness_method, stiffness_se_N_per_mm}, the window in mm and samples, {@code
+   * stiffness_refused} with the reason when there is none), {@code notes} and the {@code
+   * analysis_settings}. Key order is fixed.
    */
   public Map<String, Object> toJsonMap() {
     RunResult r = analysis;
@@ -156,7 +180,15 @@ public record RunMetrics(
       m.put(metric.key(), v.isEmpty() ? null
           : metric.digits() == 0 ? (Object) Math.round(v.getAsDouble()) : v.getAsDouble());
     }
+    m.put("stiffness_method", r.stiffness().map(s -> s.method().words()).orElse(null));
+    m.put("stiffness_se_N_per_mm", r.stiffness().map(s -> s.slopeSe_N_per_mm()).orElse(null));
+    m.put("stiffness_window_from_mm", r.stiffness().map(s -> s.fromDisplacement_mm()).orElse(null));
+    m.put("stiffness_window_to_mm", r.stiffness().map(s -> s.toDisplacement_mm()).orElse(null));
+    m.put("stiffness_window_from_index", r.stiffness().map(s -> s.fromIndex()).orElse(null));
+    m.put("stiffness_window_to_index", r.stiffness().map(s -> s.toIndex()).orElse(null));
+    m.put("stiffness_refused", r.stiffnessRefusal().map(s -> s.reason()).orElse(null));
     m.put("notes", notes);
+    m.put("analysis_settings", settings.toMap());
     return m;
   }
 
@@ -165,19 +197,23 @@ public record RunMetrics(
     private final RunMetadata meta;
     private final Curve curve;
     private final RunResult r;
+    private final AnalysisSettings settings;
     private final List<String> notes;
     private final Geometry g;
     private final double peak;
     private OptionalDouble flexStress = OptionalDouble.empty();
+    private OptionalDouble flexStressLarge = OptionalDouble.empty();
     private OptionalDouble flexModulus = OptionalDouble.empty();
     private OptionalDouble coreShear = OptionalDouble.empty();
     private OptionalDouble facing = OptionalDouble.empty();
     private OptionalDouble compression = OptionalDouble.empty();
 
-    Builder(RunMetadata meta, Curve curve, RunResult r, List<String> notes) {
+    Builder(RunMetadata meta, Curve curve, RunResult r, AnalysisSettings settings,
+        List<String> notes) {
       this.meta = meta;
       this.curve = curve;
       this.r = r;
+      this.settings = settings;
       this.notes = notes;
       this.g = meta.geometry();
       this.peak = r.peakForce_N();
@@ -216,7 +252,8 @@ public record RunMetrics(
               Specific.stiffness_N_per_mm_per_g(r.stiffness_N_per_mm().getAsDouble(), mass));
         }
       }
-      return new RunMetrics(meta, curve, r, flexStress, flexModulus, coreShear, facing,
+      return new RunMetrics(meta, curve, r, settings, flexStress, flexStressLarge, flexModulus,
+          coreShear, facing,
           compression, sPeak, sEp, sEb, sK, notes);
     }
 
@@ -237,21 +274,16 @@ public record RunMetrics(
       if (!missing.isEmpty()) {
         notes.add("Geometry lacks " + String.join(", ", missing)
             + ": flexural stress and modulus are absent.");
-      } else if (four) {
-        flexStress = OptionalDouble.of(Flexure.fourPointStress_MPa(
-            peak, g.span_mm(), g.loadSpan_mm(), g.width_mm(), g.depth_mm()));
-        if (r.stiffness_N_per_mm().isPresent()) {
-          flexModulus = OptionalDouble.of(Flexure.fourPointModulus_MPa(
-              r.stiffness_N_per_mm().getAsDouble(), g.span_mm(), g.loadSpan_mm(), g.width_mm(),
-              g.depth_mm()));
-        }
       } else {
-        flexStress = OptionalDouble.of(
-            Flexure.threePointStress_MPa(peak, g.span_mm(), g.width_mm(), g.depth_mm()));
-        if (r.stiffness_N_per_mm().isPresent()) {
-          flexModulus = OptionalDouble.of(Flexure.threePointModulus_MPa(
-              r.stiffness_N_per_mm().getAsDouble(), g.span_mm(), g.width_mm(), g.depth_mm()));
-        }
+        OptionalDouble deflection = r.correctedDisplacementAtPeak_mm().isPresent()
+            ? r.correctedDisplacementAtPeak_mm() : r.displacementAtPeak_mm();
+        BendFigures b = BendFigures.of(g.span_mm(), four ? g.loadSpan_mm() : null,
+            g.width_mm(), g.depth_mm(), peak, r.stiffness_N_per_mm(), deflection,
+            positionSource(meta));
+        flexStress = OptionalDouble.of(b.stressAtPeak_MPa());
+        flexStressLarge = b.stressAtPeakLargeDeflection_MPa();
+        flexModulus = b.modulus_MPa();
+        notes.addAll(b.notes());
       }
       if (missing.isEmpty() && r.stiffness_N_per_mm().isEmpty()) {
         notes.add("No stiffness: flexural modulus is absent.");

@@ -192,7 +192,7 @@ final class ArchivePane {
           select();
         });
       } catch (LoadstoneException e) {
-        Platform.runLater(() -> status.setText(e.getMessage()));
+        Platform.runLater(() -> status.setText(ConsoleHints.withHow(e)));
       }
     }, "archive review");
     t.setDaemon(true);

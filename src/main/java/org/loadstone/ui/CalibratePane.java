@@ -205,7 +205,7 @@ final class CalibratePane {
       prepareStep();
       timer.start();
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 
@@ -227,7 +227,7 @@ final class CalibratePane {
     try {
       weights.load(s.mass_kg());
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 
@@ -244,7 +244,7 @@ final class CalibratePane {
         state[0] = session.offer(c);
       }, Integer.MAX_VALUE);
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage()); // not settled in time: the judgement starts again
+      message.setText(ConsoleHints.withHow(e)); // not settled in time: the judgement starts again
       return;
     }
     if (Double.isNaN(last[0])) {
@@ -274,7 +274,7 @@ final class CalibratePane {
       prepareStep();
     } catch (LoadstoneException e) {
       captureWanted = false;
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 
@@ -288,7 +288,7 @@ final class CalibratePane {
       message.setText("step skipped (" + session.skipped() + " so far)");
       prepareStep();
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 
@@ -346,7 +346,7 @@ final class CalibratePane {
     } catch (IOException e) {
       message.setText("cannot create the folder " + dir + ": " + e.getMessage());
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 
@@ -356,7 +356,7 @@ final class CalibratePane {
       message.setText("the live force and the next runs use " + saved.getFileName());
       use.setDisable(true);
     } catch (LoadstoneException e) {
-      message.setText(e.getMessage());
+      message.setText(ConsoleHints.withHow(e));
     }
   }
 

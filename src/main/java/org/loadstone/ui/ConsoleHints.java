@@ -12,7 +12,7 @@ import org.loadstone.units.Setting;
 final class ConsoleHints {
   private ConsoleHints() {}
 
-  /** @return where the console changes this setting */
+  /** @return where the console changes this setting, or null where the console has no say */
   static String where(Setting s) {
     return switch (s) {
       case CALIBRATION -> "Calibrate tab: make or use a calibration";
@@ -20,6 +20,15 @@ final class ConsoleHints {
       case RATED_CAPACITY -> "start the console with the cell's capacity (--capacity-N)";
       case ZERO_DRIFT_LIMIT -> "start the console with another limit (--zero-drift-N)";
       case ZERO_SAMPLES -> "the console averages half a second of samples";
+      case START_THRESHOLD, PRETRIGGER, BREAK_DROP, ARMING_LEVEL, DEBOUNCE, ABSOLUTE_STOP, TAIL,
+          OVERLOAD_WARNING, OVERLOAD_STOP, TIME_LIMIT ->
+          "the console uses the default run settings; set them with 'loadstone record'";
+      case ARCHIVE_FOLDER -> "start the console with another folder (--archive)";
+      case PORT -> "start the console on another port (--port)";
+      case SIM_SCENARIO -> "start the console with --scenario dead-weight";
+      case SIM_SPEED -> "start the console with another --sim-speed";
+      case IMPORT_TIME_UNIT, IMPORT_FORCE_UNIT, IMPORT_LENGTH_UNIT, IMPORT_DELIMITER,
+          IMPORT_DECIMAL_COMMA, TABLE_DECIMAL_COMMA, TABLE_OFFSET -> null;
     };
   }
 
@@ -30,7 +39,10 @@ final class ConsoleHints {
   static String withHow(LoadstoneException e) {
     Set<String> how = new LinkedHashSet<>();
     for (Setting s : e.settings()) {
-      how.add(where(s));
+      String w = where(s);
+      if (w != null) {
+        how.add(w);
+      }
     }
     return how.isEmpty() ? e.getMessage()
         : e.getMessage() + " (in the console: " + String.join("; or ", how) + ")";

@@ -83,6 +83,7 @@ final class LivePane {
       }
     }, this::newSpecimen);
     build();
+    run.recoverJournals(); // runs a killed console left, before any new run
   }
 
   Parent root() {
@@ -182,6 +183,7 @@ final class LivePane {
     ok.setOnAction(e -> {
       notice.acknowledge();
       header.getChildren().remove(banner);
+      root.requestFocus(); // back to the window, so the one-key commands act (not a field)
     });
     return banner;
   }
@@ -191,11 +193,15 @@ final class LivePane {
   }
 
   /**
-   * The one-key commands (Z, P, A, S, X), active while {@code active} says so (the live view is
+   * The one-key commands (Z, P, A, S, X, and N on the simulated frame; Esc stops from anywhere), active while {@code active} says so (the live view is
    * the one shown) and not while typing in a field.
    */
   void installKeys(Scene scene, java.util.function.BooleanSupplier active) {
     scene.addEventHandler(javafx.scene.input.KeyEvent.KEY_PRESSED, e -> {
+      if (e.getCode() == KeyCode.ESCAPE) {
+        run.stop(); // stop is one key from anywhere, even while typing in a field
+        return;
+      }
       if (!active.getAsBoolean() || e.getTarget() instanceof javafx.scene.control.TextInputControl) {
         return; // typing a specimen id, or looking at the archive: not a shortcut
       }
@@ -209,11 +215,17 @@ final class LivePane {
         run.stop();
       } else if (e.getCode() == KeyCode.X) {
         togglePlot();
+      } else if (e.getCode() == KeyCode.N) {
+        run.nextSpecimen();
       }
     });
   }
 
   private void tare() {
+    if (run.holdsZero()) {
+      run.refuse("zero");
+      return;
+    }
     if (feed != null) {
       feed.tare(20);
       feed.restartCurve();
@@ -221,6 +233,10 @@ final class LivePane {
   }
 
   private void clearPeak() {
+    if (run.holdsZero()) {
+      run.refuse("clear peak");
+      return;
+    }
     newSpecimen();
   }
 
@@ -249,7 +265,7 @@ final class LivePane {
     try {
       t = config.connect().get();
     } catch (LoadstoneException e) {
-      showLost(e.getMessage());
+      showLost(ConsoleHints.withHow(e));
       return;
     }
     reader = new DeviceReader(t, new SampleRing(1 << 20));

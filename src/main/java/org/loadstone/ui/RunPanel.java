@@ -24,6 +24,7 @@ import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.RunTemplate;
 import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.archive.Run;
+import org.loadstone.device.PressOperator;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.archive.RunReader;
 import org.loadstone.units.LoadstoneException;
@@ -70,6 +71,10 @@ final class RunPanel {
   private volatile boolean runEnded;
   /** The last run was disarmed before it started: nothing was stored. */
   private volatile boolean disarmed;
+  /** A was pressed while connecting or zeroing: arm as soon as the zero is done. */
+  private boolean armQueued;
+  /** Journals left by a run that never finished are being stored: no new run until then. */
+  private volatile boolean recovering;
   private int runCount;
 
   /**
@@ -96,6 +101,13 @@ final class RunPanel {
     HBox buttons = new HBox(8, arm, stop);
     HBox.setHgrow(arm, Priority.ALWAYS);
     HBox.setHgrow(stop, Priority.ALWAYS);
+    if (config.deviceFields().containsKey("sim_scenario")) {
+      // the simulated press: the program stands in for the hands that change the specimen
+      Button next = new Button("Next specimen  [N]");
+      next.setId("next-specimen-button");
+      next.setOnAction(e -> nextSpecimen());
+      buttons.getChildren().add(next);
+    }
     HBox idLine = new HBox(8, groupField, massField);
     HBox.setHgrow(groupField, Priority.ALWAYS);
     massField.setPrefWidth(110);
@@ -137,14 +149,18 @@ final class RunPanel {
     LiveFeed feed = device.feed();
     RunSetup setup = device.setup();
     Recorder r = recorder;
-    if (reader == null || feed == null || setup == null || preparing || (r != null && !runEnded
+    if (preparing || (r != null && !runEnded
         && r.status().state() != RunControl.State.FINISHED && r.failure().isEmpty())) {
       return;
     }
-    if (feed.taring()) {
-      runResult.setText("wait for the zero to finish, then arm");
+    if (reader == null || feed == null || setup == null || feed.taring() || recovering) {
+      armQueued = true; // never lost: armed as soon as the zero is done (S cancels)
+      runState.setText("arming…");
+      runResult.setText("arming once the zero is done");
+      root.requestFocus();
       return;
     }
+    armQueued = false;
     RunSetup.Request request;
     JournalRunStore store;
     try {
@@ -210,12 +226,35 @@ final class RunPanel {
     }
   }
 
+  /**
+   * Puts a new specimen in the simulated press (a real press: the operator does). Refused while a
+   * run is armed or recording.
+   */
+  void nextSpecimen() {
+    DeviceReader reader = device.reader();
+    Recorder r = recorder;
+    if (reader == null) {
+      return;
+    }
+    if (r != null && !runEnded && r.status().state() != RunControl.State.FINISHED) {
+      runResult.setText("a run is armed or recording: stop it before changing the specimen");
+      return;
+    }
+    PressOperator.forTransport(reader.transport()).nextSpecimen();
+    runResult.setText("a new specimen is in the press: arm to load it");
+  }
+
   /** The mass typed in, or null when the field is empty. */
   private Double mass() {
     return SpecimenFields.number(massField, "mass", "grams");
   }
 
   void stop() {
+    if (armQueued) {
+      armQueued = false;
+      runState.setText("no run armed");
+      runResult.setText("arming cancelled");
+    }
     if (preparing) {
       stopWhilePreparing = true;
     }
@@ -227,8 +266,12 @@ final class RunPanel {
 
   /** Called every display frame: the run's state in words. */
   void refresh() {
+    LiveFeed feed = device.feed();
+    if (armQueued && feed != null && !feed.taring() && !recovering) {
+      arm();
+    }
     Recorder r = recorder;
-    if (r != null && !preparing) {
+    if (r != null && !preparing && !armQueued) {
       runState.setText(switch (r.status().state()) {
         case IDLE -> "no run armed";
         case ARMED -> "armed: waiting for load";
@@ -237,6 +280,54 @@ final class RunPanel {
         case FINISHED -> !runEnded ? "finishing…" : disarmed ? "no run armed" : "run stored";
       });
     }
+  }
+
+  /**
+   * Stores the runs whose journals a killed or crashed console left, through the same service as
+   * {@code record}, off the JavaFX thread; the result line names them. Arming waits for it.
+   */
+  void recoverJournals() {
+    recovering = true;
+    Thread t = new Thread(() -> {
+      String notice;
+      try {
+        List<String> names = new java.util.ArrayList<>();
+        for (org.loadstone.archive.StoredRun r
+            : org.loadstone.archive.JournalRecovery.recoverAll(config.archive())) {
+          names.add(r.csv().getFileName().toString());
+        }
+        notice = names.isEmpty() ? null : "recovered an unfinished run from its journal: "
+            + String.join(", ", names);
+      } catch (LoadstoneException e) {
+        notice = ConsoleHints.withHow(e);
+      }
+      String shown = notice;
+      Platform.runLater(() -> {
+        recovering = false;
+        if (shown != null) {
+          runResult.setText(shown);
+        }
+      });
+    }, "journal recovery");
+    t.setDaemon(true);
+    t.start();
+  }
+
+  /** Whether recovery of left journals is still running. */
+  boolean recovering() {
+    return recovering;
+  }
+
+  /** Whether a run is armed or recording, so its zero and peak must stay as they are. */
+  boolean holdsZero() {
+    Recorder r = recorder;
+    return preparing || armQueued
+        || (r != null && !runEnded && r.status().state().holdsZero());
+  }
+
+  /** Shows why a one-key command was refused. */
+  void refuse(String what) {
+    runResult.setText(what + " refused: a run is armed or recording (stop it first: S)");
   }
 
   /** Stops a run in progress, waits for it to be stored, and lets the recorder go. */

@@ -39,6 +39,16 @@ public class LoadstoneException extends RuntimeException {
     settings = java.util.List.of();
   }
 
+  /**
+   * @param message what failed, where, and what to do about it, in the domain's words
+   * @param cause the underlying failure, kept for the log
+   * @param fixedBy the settings the message asks to change
+   */
+  public LoadstoneException(String message, Throwable cause, Setting... fixedBy) {
+    super(message, cause);
+    settings = java.util.List.of(fixedBy);
+  }
+
   /** @return the settings whose change would fix this (may be empty) */
   public java.util.List<Setting> settings() {
     return settings;

@@ -15,7 +15,49 @@ public enum Setting {
   /** The largest zero shift accepted between two tares without a warning. */
   ZERO_DRIFT_LIMIT("zero-drift limit"),
   /** How many samples the zero averages. */
-  ZERO_SAMPLES("samples in the zero");
+  ZERO_SAMPLES("samples in the zero"),
+  /** The force at which recording starts. */
+  START_THRESHOLD("start threshold"),
+  /** The history kept before the start. */
+  PRETRIGGER("pre-trigger history"),
+  /** How far force must fall below the peak for a break. */
+  BREAK_DROP("break drop"),
+  /** The peak a break needs first. */
+  ARMING_LEVEL("arming level"),
+  /** How long a drop must last to count. */
+  DEBOUNCE("debounce time"),
+  /** A force below which the run also ends. */
+  ABSOLUTE_STOP("absolute stop level"),
+  /** How long recording goes on after the break. */
+  TAIL("post-break tail"),
+  /** The overload warning level. */
+  OVERLOAD_WARNING("overload warning level"),
+  /** The overload stop level. */
+  OVERLOAD_STOP("overload stop level"),
+  /** The longest run. */
+  TIME_LIMIT("time limit"),
+  /** The folder runs are stored in. */
+  ARCHIVE_FOLDER("archive folder"),
+  /** The device's port. */
+  PORT("port"),
+  /** What is on the simulated frame. */
+  SIM_SCENARIO("simulated scenario"),
+  /** How much faster than real time the simulated frame runs. */
+  SIM_SPEED("simulation speed"),
+  /** The time unit of an imported file. */
+  IMPORT_TIME_UNIT("time unit of the file"),
+  /** The force unit of an imported file. */
+  IMPORT_FORCE_UNIT("force unit of the file"),
+  /** The length unit of an imported file. */
+  IMPORT_LENGTH_UNIT("length unit of the file"),
+  /** The column delimiter of an imported file. */
+  IMPORT_DELIMITER("column delimiter of the file"),
+  /** Whether an imported file writes numbers with a decimal comma. */
+  IMPORT_DECIMAL_COMMA("decimal comma of the file"),
+  /** Whether a position table writes numbers with a decimal comma. */
+  TABLE_DECIMAL_COMMA("decimal comma of the position table"),
+  /** The time offset between a position table and the force record. */
+  TABLE_OFFSET("position table's time offset");
 
   private final String label;
 

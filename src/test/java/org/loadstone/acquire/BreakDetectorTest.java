@@ -131,13 +131,20 @@ class BreakDetectorTest {
   }
 
   @Test
-  void badThresholdsAreRefusedWithTheOptionToFix() {
+  void badThresholdsAreRefusedNamingTheSettingToFix() {
+    // core messages speak of the setting; the command line and the console add how to change it
     assertThatThrownBy(() -> RunSettings.builder().breakDropPct(100).build())
-        .isInstanceOf(LoadstoneException.class).hasMessageContaining("--stop-drop-pct");
+        .isInstanceOf(LoadstoneException.class).hasMessageContaining("break drop")
+        .hasMessageNotContaining("--")
+        .satisfies(e -> assertThat(((LoadstoneException) e).settings())
+            .containsExactly(org.loadstone.units.Setting.BREAK_DROP));
     assertThatThrownBy(() -> RunSettings.builder().breakDropPct(0).build())
         .isInstanceOf(LoadstoneException.class);
     assertThatThrownBy(() -> RunSettings.builder().startThreshold_N(-1).build())
-        .isInstanceOf(LoadstoneException.class).hasMessageContaining("--start-at-N");
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessage("the start threshold must be greater than 0, was -1: give a positive value")
+        .satisfies(e -> assertThat(((LoadstoneException) e).settings())
+            .containsExactly(org.loadstone.units.Setting.START_THRESHOLD));
     assertThatThrownBy(() -> RunSettings.builder().startThreshold_N(600).build())
         .isInstanceOf(LoadstoneException.class).hasMessageContaining("overload stop");
     assertThatThrownBy(() -> RunSettings.builder().overloadWarnPct(90).overloadStopPct(85).build())

@@ -3,35 +3,35 @@ package org.loadstone.acquire;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.ByteArrayOutputStream;
-import java.io.IOException;
+import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.Test;
-import org.loadstone.device.Transport;
 import org.loadstone.protocol.Encoding;
 import org.loadstone.protocol.WireEncoder;
 
 /** The reader thread's handling of what a device says about itself. */
 class DeviceReaderTest {
-  /** A device that sends fixed bytes once, then nothing. */
-  static final class Canned implements Transport {
+  /**
+   * A device that sends fixed bytes once, then nothing. {@link #fed} opens when the reader asks
+   * for more: by then every byte sent has gone through the decoder into the ring.
+   */
+  static final class Canned extends FakeLink {
+    final CountDownLatch fed = new CountDownLatch(1);
     private final byte[] bytes;
     private boolean sent;
-    private volatile boolean open = true;
 
     Canned(byte[] bytes) {
+      super("canned");
       this.bytes = bytes;
     }
 
     @Override
-    public String name() {
-      return "canned";
-    }
-
-    @Override
     public int read(byte[] buf, int off, int len) {
-      if (!open) {
+      if (!isOpen()) {
         return -1;
       }
       if (sent) {
+        fed.countDown();
         try {
           Thread.sleep(5);
         } catch (InterruptedException e) {
@@ -42,19 +42,6 @@ class DeviceReaderTest {
       sent = true;
       System.arraycopy(bytes, 0, buf, off, bytes.length);
       return bytes.length;
-    }
-
-    @Override
-    public void write(byte[] data) throws IOException {}
-
-    @Override
-    public boolean isOpen() {
-      return open;
-    }
-
-    @Override
-    public void close() {
-      open = false;
     }
   }
 
@@ -71,10 +58,10 @@ class DeviceReaderTest {
 
   @Test
   void anUnknownProtocolVersionIsNamedAndItsSamplesAreNotUsed() throws Exception {
-    DeviceReader r = new DeviceReader(new Canned(stream("I proto=2 fw=9.0 rate=80", 50)),
-        new SampleRing(1024));
+    Canned device = new Canned(stream("I proto=2 fw=9.0 rate=80", 50));
+    DeviceReader r = new DeviceReader(device, new SampleRing(1024));
     r.start();
-    Thread.sleep(300);
+    assertThat(device.fed.await(60, TimeUnit.SECONDS)).isTrue();
     assertThat(r.unsupportedVersion()).hasValueSatisfying(m -> assertThat(m)
         .contains("protocol version 2").contains("speaks version 1").contains("firmware"));
     assertThat(r.samplesAccepted()).isZero();
@@ -92,9 +79,10 @@ class DeviceReaderTest {
     for (int i = 0; i < 4; i++) {
       out.write(b, 0, e.sample(b, 0, i, (us + 1000L * i) & 0xFFFF_FFFFL, 7, false, 0));
     }
-    DeviceReader r = new DeviceReader(new Canned(out.toByteArray()), new SampleRing(1024));
+    Canned device = new Canned(out.toByteArray());
+    DeviceReader r = new DeviceReader(device, new SampleRing(1024));
     r.start();
-    Thread.sleep(300);
+    assertThat(device.fed.await(60, TimeUnit.SECONDS)).isTrue();
     r.close();
     assertThat(r.samplesAccepted()).isEqualTo(4);
     // unwrapped time keeps increasing by 1000 µs through the wrap

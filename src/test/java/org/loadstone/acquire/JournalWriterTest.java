@@ -20,6 +20,7 @@ import org.loadstone.archive.JournalRecovery;
 import org.loadstone.archive.Run;
 import org.loadstone.archive.RunData;
 import org.loadstone.archive.RunFixtures;
+import org.loadstone.archive.RunMetadata;
 import org.loadstone.archive.RunReader;
 import org.loadstone.archive.RunWriter;
 import org.loadstone.archive.StoredRun;
@@ -72,16 +73,42 @@ class JournalWriterTest {
   }
 
   @Test
-  void aSecondJournalForTheSameIdIsRefusedAndDiscardNeedsFinish() {
+  void aSecondRunStartingUnderTheSameIdGetsTheNextOneAndDiscardNeedsFinish() {
     SampleRing ring = new SampleRing(16);
     try (JournalWriter w = JournalWriter.start(archive, RunFixtures.startMetadata("w2", false),
-        ring.cursorAtEnd())) {
-      assertThatThrownBy(() -> JournalWriter.start(archive,
-          RunFixtures.startMetadata("w2", false), ring.cursorAtEnd()))
-          .isInstanceOf(LoadstoneException.class).hasMessageContaining("already exists");
+        ring.cursorAtEnd());
+        JournalWriter second = JournalWriter.start(archive,
+            RunFixtures.startMetadata("w2", false), ring.cursorAtEnd())) {
+      assertThat(w.runId()).isEqualTo("w2");
+      assertThat(second.runId()).isEqualTo("w2-2");
+      assertThat(second.file()).isEqualTo(JournalFormat.journalFile(archive, "w2-2"));
+      assertThat(JournalRecovery.readJournal(second.file()).startInfo().runId())
+          .isEqualTo("w2-2");
       assertThatThrownBy(w::discard).isInstanceOf(IllegalStateException.class);
     }
     assertThat(JournalFormat.journalFile(archive, "w2")).exists(); // close keeps it
+  }
+
+  @Test
+  void twoStationsStartingTheSameRunIdInOneArchiveBothStoreTheirRun() {
+    // two recorders proposed the same id (same millisecond, same specimen): neither run is lost
+    SampleRing a = new SampleRing(1 << 10);
+    SampleRing b = new SampleRing(1 << 10);
+    RunMetadata proposed = RunFixtures.startMetadata("20261203T101500.000Z-balsa-07", false);
+    RunStore.Recording first = new JournalRunStore(archive).begin(proposed, a, 0);
+    RunStore.Recording second = new JournalRunStore(archive).begin(proposed, b, 0);
+    for (long i = 0; i < 100; i++) {
+      JournalSamples.put(a, i);
+      JournalSamples.put(b, 1000 + i);
+    }
+    RunStore.Stored sa = first.finish(99, proposed);
+    RunStore.Stored sb = second.finish(1099, proposed);
+    assertThat(sa.runId()).isEqualTo(proposed.runId());
+    assertThat(sb.runId()).isEqualTo(proposed.runId() + "-2");
+    assertSamples(RunReader.read(sa.csv()).data(), 0, 100);
+    assertSamples(RunReader.read(sb.csv()).data(), 1000, 100);
+    assertThat(RunReader.read(sb.csv()).metadata().runId()).isEqualTo(sb.runId());
+    assertThat(JournalRecovery.recoverAll(archive)).isEmpty(); // both journals were removed
   }
 
   @Test

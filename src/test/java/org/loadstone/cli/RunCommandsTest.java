@@ -97,6 +97,12 @@ class RunCommandsTest {
     assertThat(run("import", src.toString(), "--map", "time=1,force=2", "--force-unit", "kips"))
         .isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(err).contains("unknown force unit 'kips'");
+    // the core says what would fix it; the command line adds its option
+    Path out2 = dir.resolve("plain2.csv");
+    assertThat(run("import", src.toString(), "--map", "time=Zeit [ms],force=2,position=Weg [mm]",
+        "--out", out2.toString())).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
+    assertThat(err).contains("'0,0' is not a number")
+        .contains("read it with a decimal comma. (--decimal-comma)");
   }
 
   @Test

@@ -50,7 +50,8 @@ class SerialEndToEndTest {
       assertThat(reader.counters().dropped()).isZero();
       assertThat(reader.counters().checksumErrors()).isZero();
 
-      SimulatedFrame truth = new SimSetup("brittle", 7, rateHz, false, 1).buildFrame();
+      // the simulate command's press starts by itself (nobody arms a stand-alone stream)
+      SimulatedFrame truth = new SimSetup("brittle", 7, rateHz, false, 1, Double.NaN).buildFrame();
       SampleRing.Cursor c = ring.cursorAtOldest();
       int[] mismatches = {0};
       c.drain((i, seq, us, tUs, counts, hasPos, pos) -> truth.next((s2, us2, load2, pos2) -> {
@@ -96,6 +97,9 @@ class SerialEndToEndTest {
             () -> SerialTransport.open("/dev/ttyNOPE42", SerialSettings.DEFAULT))
         .isInstanceOf(LoadstoneException.class)
         .hasMessageContaining("/dev/ttyNOPE42")
-        .hasMessageContaining("loadstone ports");
+        .hasMessageContaining("choose one of the serial ports present")
+        .hasMessageNotContaining("--")
+        .satisfies(e -> Assertions.assertThat(((LoadstoneException) e).settings())
+            .containsExactly(org.loadstone.units.Setting.PORT));
   }
 }

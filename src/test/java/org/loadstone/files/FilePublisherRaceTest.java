@@ -2,10 +2,7 @@ package org.loadstone.files;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
-import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStreamReader;
-import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -95,45 +92,22 @@ class FilePublisherRaceTest {
 
   @Test
   void twoProgramsRacingForOneNameOneWinsAndItsBytesStay() throws Exception {
-    String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
-    List<Process> children = new ArrayList<>();
-    List<BufferedReader> answers = new ArrayList<>();
-    List<Writer> orders = new ArrayList<>();
-    try {
-      for (String name : List.of("first", "second")) {
-        Process p = new ProcessBuilder(java, "-cp", System.getProperty("java.class.path"),
-            PublishChild.class.getName(), name)
-            .redirectError(ProcessBuilder.Redirect.INHERIT).start();
-        children.add(p);
-        answers.add(new BufferedReader(new InputStreamReader(p.getInputStream(),
-            StandardCharsets.UTF_8)));
-        orders.add(new java.io.OutputStreamWriter(p.getOutputStream(), StandardCharsets.UTF_8));
-      }
-      for (BufferedReader a : answers) {
-        assertThat(a.readLine()).isEqualTo("ready");
-      }
+    try (ChildProgram first = new ChildProgram(PublishChild.class, "first");
+        ChildProgram second = new ChildProgram(PublishChild.class, "second")) {
       int rounds = 60;
       for (int round = 0; round < rounds; round++) {
         Path target = tmp.resolve("proc-" + round + ".txt");
-        for (Writer w : orders) {
-          w.write(target + "\n");
-          w.flush();
-        }
-        String a = answers.get(0).readLine();
-        String b = answers.get(1).readLine();
+        first.send(target.toString());
+        second.send(target.toString());
+        String a = first.answer();
+        String b = second.answer();
         assertThat(List.of(a, b)).as("round %d", round).containsExactlyInAnyOrder("won", "lost");
         String winner = a.equals("won") ? "first" : "second";
         assertThat(Files.readString(target)).isEqualTo(winner + " " + target);
       }
-      for (Writer w : orders) {
-        w.close();
-      }
-      for (Process p : children) {
-        assertThat(p.waitFor()).isZero();
-      }
+      assertThat(first.finish()).isZero();
+      assertThat(second.finish()).isZero();
       assertThat(names(tmp)).hasSize(rounds).allMatch(n -> n.matches("proc-\\d+\\.txt"));
-    } finally {
-      children.forEach(Process::destroyForcibly);
     }
   }
 }

@@ -94,7 +94,9 @@ class CsvImportTest {
         .isInstanceOf(LoadstoneException.class)
         .hasMessageContaining("k.csv line 1 column 'F [kips]'")
         .hasMessageContaining("unknown force unit 'kips'")
-        .hasMessageContaining("--force-unit");
+        .hasMessageContaining("Give the force unit of the file")
+        .satisfies(e -> assertThat(((LoadstoneException) e).settings())
+            .containsExactly(org.loadstone.units.Setting.IMPORT_FORCE_UNIT));
     assertThatThrownBy(() -> LengthUnit.parse("furlong"))
         .hasMessageContaining("use one of mm, um, cm, m, in");
     assertThatThrownBy(() -> DurationUnit.parse("hours"))
@@ -123,7 +125,9 @@ class CsvImportTest {
     assertThatThrownBy(() -> CsvImport.read(comma, ImportSettings.of(ColumnMap.parse(
         "time=t,force=F"))))
         .hasMessageContaining("'1,5' is not a number")
-        .hasMessageContaining("--decimal-comma");
+        .hasMessageContaining("read it with a decimal comma")
+        .satisfies(e -> assertThat(((LoadstoneException) e).settings())
+            .containsExactly(org.loadstone.units.Setting.IMPORT_DECIMAL_COMMA));
   }
 
   @Test

@@ -83,6 +83,9 @@ class RunMetricsTest {
         .cause(FinishCause.BREAK)
         .pretrigger_s(0)
         .softwareVersion("t")
+        // the slope above is the mid-span one, so the run's position is a mid-span gauge (on the
+        // crosshead the load-point formula applies, see FourPointRunTest)
+        .extra(java.util.Map.of("position_source", "mid-span-gauge"))
         .build();
     RunMetrics m = RunMetrics.of(meta, TestRuns.bend(k, 500));
     assertThat(m.flexuralModulus_MPa().getAsDouble()).isCloseTo(e, within(0.005 * e));

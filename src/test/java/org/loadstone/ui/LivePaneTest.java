@@ -187,6 +187,70 @@ class LivePaneTest {
     refusedBeforeArming(robot, "#mass-field", "41.2g", "mass '41.2g'", "grams");
   }
 
+  /** Fires a key at the window, as the keyboard would, on the JavaFX thread. */
+  private void press(javafx.scene.input.KeyCode code) {
+    javafx.event.Event.fireEvent(pane.root(), new javafx.scene.input.KeyEvent(
+        javafx.scene.input.KeyEvent.KEY_PRESSED, "", "", code, false, false, false, false));
+  }
+
+  private String runState(FxRobot robot) {
+    return robot.lookup("#run-state").queryAs(Label.class).getText();
+  }
+
+  @Test
+  void armPressedWhileZeroingIsQueuedAndArmsOnceTheZeroIsDone(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !pane.feed().taring());
+    // a zero and A in the same step on the JavaFX thread: A certainly lands while zeroing
+    String[] seen = new String[2];
+    robot.interact(() -> {
+      pane.feed().tare(2000);
+      press(javafx.scene.input.KeyCode.A);
+      seen[0] = runState(robot);
+      seen[1] = String.valueOf(pane.feed().taring());
+    });
+    assertThat(seen[1]).isEqualTo("true");
+    assertThat(seen[0]).isEqualTo("arming…");
+    WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS,
+        () -> runState(robot).startsWith("armed") || runState(robot).equals("recording"));
+    assertThat(pane.feed().taring()).isFalse();
+  }
+
+  @Test
+  void keysActAfterTheSafetyBanner(FxRobot robot) throws Exception {
+    robot.clickOn("#safety-ack");
+    WaitForAsyncUtils.waitForFxEvents();
+    robot.type(javafx.scene.input.KeyCode.A); // the keyboard, to whatever has the focus
+    WaitForAsyncUtils.waitForFxEvents();
+    var specimen = robot.lookup("#specimen-field").queryAs(javafx.scene.control.TextField.class);
+    assertThat(specimen.getText()).isEmpty(); // not typed into the specimen field
+    WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS,
+        () -> runState(robot).startsWith("armed") || runState(robot).equals("recording"));
+  }
+
+  @Test
+  void zeroAndClearPeakAreRefusedWhileARunIsArmedAndEscStops(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !pane.feed().taring());
+    robot.clickOn("#arm-button");
+    WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS,
+        () -> runState(robot).startsWith("armed") || runState(robot).equals("recording"));
+    boolean[] taring = new boolean[1];
+    String[] result = new String[2];
+    robot.interact(() -> {
+      press(javafx.scene.input.KeyCode.Z);
+      taring[0] = pane.feed().taring();
+      result[0] = pane.runResult().getText();
+      press(javafx.scene.input.KeyCode.P);
+      result[1] = pane.runResult().getText();
+    });
+    assertThat(taring[0]).isFalse(); // the zero the run is measured from stays
+    assertThat(result[0]).contains("zero refused").contains("stop it first");
+    assertThat(result[1]).contains("clear peak refused");
+    // Esc stops from anywhere, even from inside a text field
+    robot.clickOn("#group-field").type(javafx.scene.input.KeyCode.ESCAPE);
+    WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS, () -> !runState(robot).startsWith("armed")
+        && !runState(robot).equals("recording") && !runState(robot).startsWith("break"));
+  }
+
   /** Types {@code text} into a field and arms: refused with a message naming the field. */
   private void refusedBeforeArming(FxRobot robot, String field, String text, String names,
       String unit) {

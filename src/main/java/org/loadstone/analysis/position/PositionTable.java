@@ -58,7 +58,15 @@ public record PositionTable(double[] time_s, double[] position_mm) {
   }
 
   /**
-   * Linearly interpolates the table at the force record's time stamps.
+   * Linearly interpolates the table at the force record's time stamps, except across a jump.
+   *
+   * <p>A jump (a break or a slip moving the tracked point at once) is a step between two rows
+   * larger than ten times the median step plus ten times the noise (the noise from the median
+   * absolute second difference of the rows, 1.4826·median/√6). The instant of a jump between two
+   * rows is unknown, so force samples that fall between those rows are not drawn towards the far
+   * side: they continue the path before the jump at its rate (or hold the last position before
+   * it). A straight line across a 2 mm jump would otherwise add up to 2 mm of travel, and the
+   * energy under it, to the samples before the break.
    *
    * @param forceTime_s force-record times, seconds, increasing
    * @param offset_s table clock minus force clock for the same instant: the table is read at
@@ -73,6 +81,7 @@ public record PositionTable(double[] time_s, double[] position_mm) {
     double first = time_s[0];
     double last = time_s[time_s.length - 1];
     double[] out = new double[forceTime_s.length];
+    boolean[] jump = jumps();
     int j = 0;
     for (int i = 0; i < forceTime_s.length; i++) {
       double tt = forceTime_s[i] + offset_s;
@@ -90,10 +99,43 @@ public record PositionTable(double[] time_s, double[] position_mm) {
       while (j < time_s.length - 2 && time_s[j + 1] < tt) {
         j++;
       }
+      if (jump[j]) {
+        boolean before = j > 0 && !jump[j - 1];
+        double rate = before
+            ? (position_mm[j] - position_mm[j - 1]) / (time_s[j] - time_s[j - 1]) : 0;
+        out[i] = position_mm[j] + rate * (tt - time_s[j]);
+        continue;
+      }
       double w = (tt - time_s[j]) / (time_s[j + 1] - time_s[j]);
       out[i] = position_mm[j] + w * (position_mm[j + 1] - position_mm[j]);
     }
     return out;
+  }
+
+  /** @return for each row j, whether the step from row j to j + 1 is a jump (see resampleOnto) */
+  boolean[] jumps() {
+    int m = position_mm.length - 1;
+    boolean[] jump = new boolean[m];
+    if (m < 4) {
+      return jump;
+    }
+    double[] steps = new double[m];
+    for (int j = 0; j < m; j++) {
+      steps[j] = Math.abs(position_mm[j + 1] - position_mm[j]);
+    }
+    double[] second = new double[m - 1];
+    for (int j = 0; j < m - 1; j++) {
+      second[j] = Math.abs(position_mm[j + 2] - 2 * position_mm[j + 1] + position_mm[j]);
+    }
+    double[] sortedSteps = steps.clone();
+    Arrays.sort(sortedSteps);
+    Arrays.sort(second);
+    double noise = 1.4826 * second[second.length / 2] / Math.sqrt(6);
+    double limit = 10 * sortedSteps[m / 2] + 10 * noise;
+    for (int j = 0; j < m; j++) {
+      jump[j] = steps[j] > limit && limit > 0;
+    }
+    return jump;
   }
 
   @Override

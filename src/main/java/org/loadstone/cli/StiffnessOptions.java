@@ -1,0 +1,71 @@
+package org.loadstone.cli;
+
+import org.loadstone.analysis.AnalysisSettings;
+import org.loadstone.analysis.AnalysisSettings.StiffnessBounds;
+import org.loadstone.units.LoadstoneException;
+import picocli.CommandLine.Option;
+
+/** How the stiffness is taken, shared by {@code analyze} and {@code record}. */
+final class StiffnessOptions {
+  @Option(names = "--stiffness-from-N", paramLabel = "A",
+      description = "Fit the stiffness over every sample between this force and --stiffness-to-N "
+          + "instead of searching.")
+  Double fromN;
+
+  @Option(names = "--stiffness-to-N", paramLabel = "B", description = "Upper force of the band.")
+  Double toN;
+
+  @Option(names = "--stiffness-band-pct", paramLabel = "LO,HI", split = ",",
+      description = "Fit the stiffness between two percentages of the peak force, e.g. 10,40.")
+  double[] bandPct;
+
+  @Option(names = "--stiffness-from-mm", paramLabel = "A",
+      description = "Fit the stiffness between two displacements from the first sample (with "
+          + "--stiffness-to-mm).")
+  Double fromMm;
+
+  @Option(names = "--stiffness-to-mm", paramLabel = "B",
+      description = "Upper displacement of the band, mm.")
+  Double toMm;
+
+  @Option(names = "--stiffness-precision-pct", paramLabel = "P", defaultValue = "3",
+      description = "The automatic stiffness must be known to ±P % (95 % interval), else it is "
+          + "refused with the reason (default: ${DEFAULT-VALUE}).")
+  double precisionPct;
+
+  /**
+   * @return the settings with the chosen stiffness method
+   * @throws LoadstoneException when a band is half given, or more than one band is given
+   */
+  AnalysisSettings apply(AnalysisSettings settings) {
+    if ((fromN == null) != (toN == null)) {
+      throw new LoadstoneException("--stiffness-from-N and --stiffness-to-N go together; give "
+          + "both or neither.");
+    }
+    if ((fromMm == null) != (toMm == null)) {
+      throw new LoadstoneException("--stiffness-from-mm and --stiffness-to-mm go together; give "
+          + "both or neither.");
+    }
+    if (bandPct != null && bandPct.length != 2) {
+      throw new LoadstoneException("--stiffness-band-pct takes two percentages of the peak, "
+          + "e.g. 10,40.");
+    }
+    int bands = (fromN != null ? 1 : 0) + (fromMm != null ? 1 : 0) + (bandPct != null ? 1 : 0);
+    if (bands > 1) {
+      throw new LoadstoneException("Give one stiffness band: forces (--stiffness-from-N/-to-N), "
+          + "percentages of the peak (--stiffness-band-pct) or displacements "
+          + "(--stiffness-from-mm/-to-mm).");
+    }
+    AnalysisSettings s = settings.withStiffnessPrecision(precisionPct / 100.0);
+    if (fromN != null) {
+      return s.withStiffnessBounds(StiffnessBounds.force_N(fromN, toN));
+    }
+    if (bandPct != null) {
+      return s.withStiffnessBounds(StiffnessBounds.peakFraction(bandPct[0] / 100, bandPct[1] / 100));
+    }
+    if (fromMm != null) {
+      return s.withStiffnessBounds(StiffnessBounds.displacement_mm(fromMm, toMm));
+    }
+    return s;
+  }
+}
