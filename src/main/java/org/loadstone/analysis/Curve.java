@@ -124,6 +124,27 @@ public final class Curve {
     return position_mm == null ? null : position_mm.clone();
   }
 
+  /** @return the time of sample {@code i}, seconds, without copying anything */
+  public double time_s(int i) {
+    return time_s[i];
+  }
+
+  /** @return the force of sample {@code i}, newtons */
+  public double force_N(int i) {
+    return force_N[i];
+  }
+
+  /**
+   * @return the position of sample {@code i}, millimetres
+   * @throws IllegalStateException when the curve has no position
+   */
+  public double position_mm(int i) {
+    if (position_mm == null) {
+      throw new IllegalStateException("the curve has no position channel");
+    }
+    return position_mm[i];
+  }
+
   /** @return the number of samples, at least 2 */
   public int size() {
     return time_s.length;

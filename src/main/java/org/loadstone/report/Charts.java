@@ -9,6 +9,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.function.IntToDoubleFunction;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.annotations.XYLineAnnotation;
 import org.jfree.chart.annotations.XYPointerAnnotation;
@@ -61,26 +62,20 @@ public final class Charts {
     Precondition.notNull(m, "metrics");
     Curve c = m.curve();
     RunResult r = m.analysis();
-    double[] x = xValues(c);
-    double[] f = c.force_N();
-    XYSeriesCollection ds = new XYSeriesCollection();
-    XYSeries curve = new XYSeries("force", false, true);
-    for (int i = 0; i < f.length; i++) {
-      curve.add(x[i], f[i], false);
-    }
-    ds.addSeries(curve);
+    IntToDoubleFunction x = xOf(c, c.hasPosition());
+    TraceDataset ds = new TraceDataset();
+    ds.add("force", c.size(), x, c::force_N, TraceDataset.DEFAULT_COLUMNS);
     XYLineAndShapeRenderer rend = new XYLineAndShapeRenderer(true, false);
+    rend.setDrawSeriesLineAsPath(true); // one path per curve, not a call per segment
     rend.setSeriesPaint(0, PALETTE[0]);
     rend.setSeriesStroke(0, new BasicStroke(1.6f));
     int next = 1;
     if (c.hasPosition() && r.stiffness().isPresent()) {
       StiffnessFit fit = r.stiffness().get();
       double top = r.peakForce_N(); // up to the peak level, so the curve's departure shows
-      XYSeries line = new XYSeries(String.format(Locale.ROOT, "stiffness %.4g N/mm",
-          fit.slope_N_per_mm()), false, true);
-      line.add(fit.toeOffset_mm(), 0.0);
-      line.add((top - fit.intercept_N()) / fit.slope_N_per_mm(), top);
-      ds.addSeries(line);
+      ds.add(String.format(Locale.ROOT, "stiffness %.4g N/mm", fit.slope_N_per_mm()),
+          new double[] {fit.toeOffset_mm(), (top - fit.intercept_N()) / fit.slope_N_per_mm()},
+          new double[] {0.0, top});
       rend.setSeriesPaint(next, PALETTE[2]);
       rend.setSeriesStroke(next, new BasicStroke(1.4f, BasicStroke.CAP_ROUND,
           BasicStroke.JOIN_ROUND, 1f, new float[] {6f, 4f}, 0f));
@@ -88,9 +83,7 @@ public final class Charts {
     }
     if (r.breakPoint().isPresent()) {
       int b = r.breakPoint().get().index();
-      XYSeries brk = new XYSeries("break", false, true);
-      brk.add(x[b], f[b]);
-      ds.addSeries(brk);
+      ds.add("break", new double[] {x.applyAsDouble(b)}, new double[] {c.force_N(b)});
       rend.setSeriesLinesVisible(next, false);
       rend.setSeriesShapesVisible(next, true);
       rend.setSeriesShape(next, new Rectangle2D.Double(-4, -4, 8, 8));
@@ -100,7 +93,8 @@ public final class Charts {
     XYPlot plot = plot(ds, rend, new NumberAxis(xLabel), "force (N)");
     int p = r.peakIndex();
     XYPointerAnnotation peak = new XYPointerAnnotation(
-        String.format(Locale.ROOT, "peak %.4g N", r.peakForce_N()), x[p], f[p], -2.6);
+        String.format(Locale.ROOT, "peak %.4g N", r.peakForce_N()), x.applyAsDouble(p),
+        c.force_N(p), -2.6);
     peak.setFont(LABEL);
     peak.setPaint(INK);
     peak.setArrowPaint(INK);
@@ -135,21 +129,18 @@ public final class Charts {
     if (count == 0) {
       throw new LoadstoneException("An overlay chart needs at least one run; select runs first.");
     }
-    XYSeriesCollection ds = new XYSeriesCollection();
+    TraceDataset ds = new TraceDataset();
     XYLineAndShapeRenderer rend = new XYLineAndShapeRenderer(true, false);
+    rend.setDrawSeriesLineAsPath(true); // one path per curve, not a call per segment
     int g = 0;
     int s = 0;
     for (Map.Entry<String, List<RunMetrics>> e : groups.entrySet()) {
       Color colour = PALETTE[g % PALETTE.length];
       boolean first = true;
       for (RunMetrics m : e.getValue()) {
-        XYSeries series = new XYSeries(first ? e.getKey() : e.getKey() + " #" + s, false, true);
-        double[] x = allPosition ? displacement(m.curve()) : m.curve().time_s();
-        double[] f = m.curve().force_N();
-        for (int i = 0; i < f.length; i++) {
-          series.add(x[i], f[i], false);
-        }
-        ds.addSeries(series);
+        Curve c = m.curve();
+        ds.add(first ? e.getKey() : e.getKey() + " #" + s, c.size(), xOf(c, allPosition),
+            c::force_N, TraceDataset.DEFAULT_COLUMNS);
         rend.setSeriesPaint(s, colour);
         rend.setSeriesStroke(s, new BasicStroke(1.1f));
         rend.setSeriesVisibleInLegend(s, first);
@@ -245,20 +236,16 @@ public final class Charts {
     return chart(result.metric() + " by group (mean and 95 % interval)", plot, false);
   }
 
-  private static double[] xValues(Curve c) {
-    return c.hasPosition() ? displacement(c) : c.time_s();
-  }
-
-  private static double[] displacement(Curve c) {
-    double[] p = c.position_mm();
-    double p0 = p[0];
-    for (int i = 0; i < p.length; i++) {
-      p[i] -= p0;
+  /** Displacement from the first sample, or time; read from the curve, never copied. */
+  private static IntToDoubleFunction xOf(Curve c, boolean displacement) {
+    if (!displacement) {
+      return c::time_s;
     }
-    return p;
+    double p0 = c.position_mm(0);
+    return i -> c.position_mm(i) - p0;
   }
 
-  private static XYPlot plot(XYSeriesCollection ds, XYLineAndShapeRenderer rend,
+  private static XYPlot plot(org.jfree.data.xy.XYDataset ds, XYLineAndShapeRenderer rend,
       org.jfree.chart.axis.ValueAxis xAxis, String yLabel) {
     NumberAxis yAxis = new NumberAxis(yLabel);
     for (org.jfree.chart.axis.ValueAxis a : new org.jfree.chart.axis.ValueAxis[] {xAxis, yAxis}) {
