@@ -111,54 +111,14 @@ public final class Recorder implements AutoCloseable {
   }
 
   /**
-   * A zero (tare) taken from the stream.
-   *
-   * @param counts mean counts of the samples averaged
-   * @param nextIndex ring index of the first sample after them: a run armed on this zero is
-   *     decided from there, so load that comes on while the run is being set up is not missed
-   */
-  public record Zero(double counts, long nextIndex) {}
-
-  /**
-   * Averages the next {@code samples} samples from the ring as the zero (tare), waiting for them.
+   * Averages the next {@code samples} samples from the ring as the zero (tare), waiting for them
+   * ({@link Zeroing#take}).
    *
    * @return mean counts
    * @throws LoadstoneException when the samples do not come in time (device silent or lost)
    */
   public static double tare(DeviceReader reader, int samples, long timeoutMs) {
-    return zero(reader, samples, timeoutMs).counts();
-  }
-
-  /**
-   * Averages the next {@code samples} samples from the ring as the zero (tare), waiting for them.
-   *
-   * @return the mean counts and where the samples after them begin
-   * @throws LoadstoneException when the samples do not come in time (device silent or lost)
-   */
-  public static Zero zero(DeviceReader reader, int samples, long timeoutMs) {
-    SampleRing.Cursor c = reader.ring().cursorAtEnd();
-    double[] sum = {0};
-    int[] n = {0};
-    long until = System.nanoTime() + timeoutMs * 1_000_000;
-    while (n[0] < samples) {
-      c.drain((i, s, d, t, counts, hp, p) -> {
-        if (n[0] < samples) {
-          sum[0] += counts;
-          n[0]++;
-        }
-      }, samples - n[0]);
-      if (n[0] < samples) {
-        if (System.nanoTime() > until || reader.lostReason().isPresent()) {
-          throw new LoadstoneException("zeroing failed: only " + n[0] + " of " + samples
-              + " samples arrived from " + reader.transport().name() + " in "
-              + timeoutMs / 1000.0 + " s"
-              + reader.lostReason().map(w -> " (" + w + ")").orElse(
-                  "; check that the device is streaming samples"));
-        }
-        sleep(5);
-      }
-    }
-    return new Zero(sum[0] / samples, c.position());
+    return Zeroing.take(reader, samples, timeoutMs).counts();
   }
 
   /**
@@ -176,7 +136,7 @@ public final class Recorder implements AutoCloseable {
    * rule in order, so the first sample at the threshold starts the run even when it arrived
    * before this call (e.g. between the zero and the arming, on a fast device).
    *
-   * @param fromIndex first ring index to decide on, e.g. {@link Zero#nextIndex()}; clamped to
+   * @param fromIndex first ring index to decide on, e.g. {@link Zeroing.Zero#nextIndex()}; clamped to
    *     the samples still held
    * @throws IllegalStateException when the recorder was already armed or started
    */

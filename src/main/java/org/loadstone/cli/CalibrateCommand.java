@@ -261,10 +261,12 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
 
   private void refuseLiveOptions() {
     List<String> given = new ArrayList<>();
-    for (String o : List.of("--port", "--baud", "--reset-wait-ms", "--loads", "--loads-file",
-        "--descending", "--series", "--scenario", "--seed", "--rate", "--hand", "--sim-speed",
-        "--sim-start-delay-s",
-        "--window-s", "--max-sd-counts", "--max-drift", "--timeout-s")) {
+    List<String> live = new ArrayList<>(List.of("--port", "--baud", "--reset-wait-ms", "--loads",
+        "--loads-file", "--descending", "--series", "--scenario", "--seed", "--rate", "--hand",
+        "--sim-speed", "--sim-start-delay-s",
+        "--window-s", "--max-sd-counts", "--max-drift", "--timeout-s"));
+    live.addAll(SimImperfectionOptions.NAMES);
+    for (String o : live) {
       if (matched(o)) {
         given.add(o);
       }

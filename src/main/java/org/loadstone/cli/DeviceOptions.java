@@ -4,6 +4,7 @@ import org.loadstone.device.DeviceOpener;
 import org.loadstone.device.SimSetup;
 import org.loadstone.device.SerialSettings;
 import org.loadstone.device.Transport;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 
 /** Options that choose and open a device, shared by the commands that talk to one. */
@@ -58,6 +59,8 @@ public final class DeviceOptions {
           + "this many simulated seconds later (default: ${DEFAULT-VALUE}).")
   double simStartDelay_s;
 
+  @Mixin SimImperfectionOptions imperfections;
+
   /** @return whether the chosen port is the simulated frame */
   public boolean simulated() {
     return DeviceOpener.SIM.equalsIgnoreCase(port.trim());
@@ -65,7 +68,8 @@ public final class DeviceOptions {
 
   /** @return the simulator settings these options describe */
   public SimSetup simSetup() {
-    return new SimSetup(scenario, seed, rateHz, hand, simSpeed, simStartDelay_s);
+    return new SimSetup(scenario, seed, rateHz, hand, simSpeed, simStartDelay_s,
+        imperfections.imperfections());
   }
 
   /** Opens the device. */

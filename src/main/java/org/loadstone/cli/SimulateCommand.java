@@ -57,6 +57,8 @@ public final class SimulateCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE|-|DEVICE", description = "Where the bytes go: a new file, - for standard output, or a device path.")
   String out;
 
+  @CommandLine.Mixin SimImperfectionOptions imperfections;
+
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   @Override
@@ -65,7 +67,8 @@ public final class SimulateCommand implements Callable<Integer> {
       throw new LoadstoneException("--seconds must be greater than 0, was " + seconds);
     }
     Scenario.parse(scenario);
-    SimSetup setup = new SimSetup(scenario, seed, rateHz, hand, 1, Double.NaN);
+    SimSetup setup = new SimSetup(scenario, seed, rateHz, hand, 1, Double.NaN,
+        imperfections.imperfections());
     SampleSource source = new FrameSampleSource(setup.buildFrame());
     long total = Math.round(seconds * rateHz);
     WireEncoder enc = new WireEncoder(binary ? Encoding.BINARY : Encoding.TEXT);

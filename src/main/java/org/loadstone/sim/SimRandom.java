@@ -15,6 +15,8 @@ final class SimRandom {
   static final long NOISE = 3;
   static final long TIMING = 4;
   static final long FAILURE = 5;
+  static final long DRIFT = 6;
+  static final long SPIKES = 7;
 
   private long s0;
   private long s1;

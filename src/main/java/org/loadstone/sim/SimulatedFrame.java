@@ -39,6 +39,8 @@ public final class SimulatedFrame {
   private final Press press;
   private final DeadWeightRig rig;
   private final boolean averagingConverter;
+  private final SimImperfections imperfections;
+  private final CellErrors errors;
   private double rateHz;
 
   private int lastSeq;
@@ -66,6 +68,8 @@ public final class SimulatedFrame {
     this.clock = new SampleClock(b.rateHz, b.jitter_us, b.rateError_pct, b.firstSequence,
         b.clockStart_us, SimRandom.stream(b.seed, SimRandom.TIMING));
     this.noise = SimRandom.stream(b.seed, SimRandom.NOISE);
+    this.imperfections = b.imperfections;
+    this.errors = new CellErrors(b.imperfections, cell, b.seed);
     if (b.scenario.hasSpecimen()) {
       press = new Press(b);
       rig = null;
@@ -124,6 +128,7 @@ public final class SimulatedFrame {
         deadWeightPeak_s = t;
       }
     }
+    converted_counts += errors.counts(t, force);
     long counts = Math.round(converted_counts + cell.noiseRms_counts() * noise.nextGaussian());
     lastSaturated = counts > LoadCell.MAX_COUNTS || counts < LoadCell.MIN_COUNTS;
     if (lastSaturated) {
@@ -246,6 +251,34 @@ public final class SimulatedFrame {
   /** @return whether the last sample was clipped at a 24-bit limit */
   public boolean lastSaturated() {
     return lastSaturated;
+  }
+
+  /** @return the cell's and amplifier's imperfections this frame simulates */
+  public SimImperfections imperfections() {
+    return imperfections;
+  }
+
+  /**
+   * @return the true shift of the zero at the last sample (warm-up plus drift, without creep,
+   *     noise or spikes), counts
+   */
+  public double lastZeroShift_counts() {
+    return errors.zeroShift_counts();
+  }
+
+  /** @return the true creep at the last sample, as apparent force, N */
+  public double lastCreep_N() {
+    return errors.creep_N();
+  }
+
+  /** @return whether the last sample carried a spike */
+  public boolean lastSpike() {
+    return errors.lastSpike();
+  }
+
+  /** @return how many samples carried a spike so far */
+  public long spikeCount() {
+    return errors.spikes();
   }
 
   /** @return true time the next sample will be taken, s (for pacing) */

@@ -29,6 +29,7 @@ public final class SimulatedFrameBuilder {
   double settling_s = 0.2;
   boolean averaging = true;
   double operatorDelay_s = Double.NaN;
+  SimImperfections imperfections = SimImperfections.NONE;
 
   SimulatedFrameBuilder() {}
 
@@ -102,6 +103,16 @@ public final class SimulatedFrameBuilder {
    */
   public SimulatedFrameBuilder cellId(String id) {
     this.cellId = Precondition.notNull(id, "id");
+    return this;
+  }
+
+  /**
+   * @param i the cell's and amplifier's imperfections: noise, warm-up, drift, creep, spikes
+   *     (default {@link SimImperfections#NONE}: converter noise only; {@link
+   *     SimImperfections#TYPICAL} for a typical bridge amplifier)
+   */
+  public SimulatedFrameBuilder imperfections(SimImperfections i) {
+    this.imperfections = Precondition.notNull(i, "imperfections");
     return this;
   }
 
@@ -237,6 +248,9 @@ public final class SimulatedFrameBuilder {
           "0…60 s");
     }
     LoadCell cell = loadCell != null ? loadCell : LoadCell.frameCell(rateHz);
+    if (!Double.isNaN(imperfections.noiseRms_counts())) {
+      cell = cell.withNoiseRms_counts(imperfections.noiseRms_counts());
+    }
     if (!Double.isNaN(noiseRms_counts)) {
       cell = cell.withNoiseRms_counts(noiseRms_counts);
     }

@@ -176,7 +176,9 @@ class RunSetupTest {
   @Test
   @Timeout(60)
   void aZeroThatMovedSinceTheLastTareIsWarnedAboutAndStoredWithTheRun() {
-    SimSetup sim = new SimSetup("brittle", 5, 1000, false, 1);
+    // an ideal cell (no warm-up or drift), so its zero is the data sheet's offset
+    SimSetup sim = new SimSetup("brittle", 5, 1000, false, 1, 1.0,
+        org.loadstone.sim.SimImperfections.NONE);
     DeviceReader reader = new DeviceReader(sim.openTransport(), new SampleRing(1 << 20));
     reader.start();
     try {
