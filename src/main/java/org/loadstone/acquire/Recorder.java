@@ -75,6 +75,7 @@ public final class Recorder implements AutoCloseable {
   private volatile boolean stopRequested;
   private volatile boolean startRequested;
   private volatile boolean closing;
+  private boolean resetSeen;
   private volatile Result result;
   private volatile String failure;
   private RunStore.Recording recording;
@@ -148,7 +149,12 @@ public final class Recorder implements AutoCloseable {
         }
       }, samples - n[0]);
       if (n[0] < samples) {
-        if (System.nanoTime() > until || reader.lostReason().isPresent()) {
+        if (reader.lostReason().isPresent()) {
+          throw new DeviceLostException("zeroing failed: only " + n[0] + " of " + samples
+              + " samples arrived from " + reader.transport().name() + " ("
+              + reader.lostReason().get() + ")");
+        }
+        if (System.nanoTime() > until) {
           throw new LoadstoneException("zeroing failed: only " + n[0] + " of " + samples
               + " samples arrived from " + reader.transport().name() + " in "
               + timeoutMs / 1000.0 + " s"
@@ -244,6 +250,8 @@ public final class Recorder implements AutoCloseable {
   private void loop() {
     SampleRing ring = reader.ring();
     SampleRing.Cursor cursor = ring.cursorAt(decideFrom);
+    int[] resetsKnown = {reader.resets()};
+    long[] resetAt = {reader.firstResetFrom(decideFrom)};
     try {
       while (control.state() != RunControl.State.FINISHED && !closing) {
         if (startRequested) {
@@ -255,6 +263,18 @@ public final class Recorder implements AutoCloseable {
         }
         int n = cursor.drain((i, seq, dev, tUs, counts, hp, pos) -> {
           if (control.state() == RunControl.State.FINISHED) {
+            return;
+          }
+          if (reader.resets() != resetsKnown[0]) { // rare: look again where the restart is
+            resetsKnown[0] = reader.resets();
+            resetAt[0] = reader.firstResetFrom(decideFrom);
+          }
+          if (i >= resetAt[0]) { // the device restarted: nothing from it joins this run
+            resetSeen = true;
+            RunControl.Finished f = control.deviceReset();
+            if (f != null) {
+              onEvent(f);
+            }
             return;
           }
           double f = scale.force_N(counts - zero_counts);
@@ -306,6 +326,9 @@ public final class Recorder implements AutoCloseable {
       if (result == null && failure == null && started == null) {
         listener.onDisarmed(reader.lostReason().isPresent()
             ? "the device was lost before load came on: no run stored"
+            : resetSeen
+            ? "the device restarted before load came on: no run stored, and none started on"
+                + " the restarted device (its zero is not known)"
             : "disarmed before load came on: no run stored");
       }
       done.countDown();
@@ -344,8 +367,20 @@ public final class Recorder implements AutoCloseable {
     if (recording == null) {
       return;
     }
+    if (f.cause() == FinishCause.DEVICE_RESET) {
+      String text = reader.resetReason().orElse("the device restarted")
+          + ": the run ends at its last sample before the restart";
+      synchronized (this) {
+        warnings.add(text);
+      }
+      listener.onWarning(text);
+    }
     DecoderCounters now = reader.counters();
     long dropped = now.dropped() - atStart.dropped();
+    if (f.cause() == FinishCause.DEVICE_RESET) {
+      long before = reader.droppedBeforeReset(reader.firstResetFrom(decideFrom));
+      dropped = before < 0 ? dropped : before - atStart.dropped();
+    }
     long crc = now.checksumErrors() - atStart.checksumErrors();
     BreakDetector.Break b = control.breakDetail();
     Integer breakIndex = b == null ? null : (int) (b.index() - started.firstIndex());
