@@ -32,7 +32,7 @@ class DeviceResetTest {
     SimTransport t = setup.openTransport();
     DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 20));
     reader.start();
-    double zero = Recorder.tare(reader, 200, 5000);
+    double zero = Tare.counts(reader, 200, 5000);
     RunSettings s = RunSettings.builder().startThreshold_N(5).pretrigger_s(0.1)
         .ratedCapacity_N(500).build();
     MemoryRunStore store = new MemoryRunStore();
@@ -83,7 +83,7 @@ class DeviceResetTest {
     SimTransport t = setup.openTransport();
     DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 20));
     reader.start();
-    double zero = Recorder.tare(reader, 100, 5000);
+    double zero = Tare.counts(reader, 100, 5000);
     RunSettings s = RunSettings.builder().startThreshold_N(1e6).ratedCapacity_N(2e6).build();
     MemoryRunStore store = new MemoryRunStore();
     AtomicReference<String> why = new AtomicReference<>();
