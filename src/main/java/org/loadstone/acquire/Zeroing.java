@@ -7,7 +7,7 @@ import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Setting;
 
 /**
- * The zero (tare) before a run: the next samples from the stream averaged, taken again while the
+ * The zero (tare) before a run ({@link Tare}, with how still it was): the next samples from the stream averaged, taken again while the
  * reading is still moving, and refused after {@link #MAX_TRIES} tries that never came to rest.
  *
  * <p>At rest means: the means of the first and second half of the zero's samples differ by no
@@ -73,7 +73,12 @@ public final class Zeroing {
         }
       }, samples - n[0]);
       if (n[0] < samples) {
-        if (System.nanoTime() > until || reader.lostReason().isPresent()) {
+        if (reader.lostReason().isPresent()) {
+          throw new DeviceLostException("zeroing failed: only " + n[0] + " of " + samples
+              + " samples arrived from " + reader.transport().name() + " ("
+              + reader.lostReason().get() + ")");
+        }
+        if (System.nanoTime() > until) {
           throw new LoadstoneException("zeroing failed: only " + n[0] + " of " + samples
               + " samples arrived from " + reader.transport().name() + " in "
               + timeoutMs / 1000.0 + " s"

@@ -49,7 +49,7 @@ class RecorderSimTest {
     SimSetup setup = new SimSetup("brittle", 5, 1000, false, 1);
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
-    double zero = Recorder.tare(reader, 100, 5000);
+    double zero = Tare.counts(reader, 100, 5000);
     // a start level the specimen never reaches
     RunSettings s = RunSettings.builder().startThreshold_N(1e6).ratedCapacity_N(2e6).build();
     MemoryRunStore store = new MemoryRunStore();
@@ -84,7 +84,7 @@ class RecorderSimTest {
     DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 20));
     reader.start();
     double countsPerN = setup.nominalCountsPerN();
-    double zero = Recorder.tare(reader, 200, 5000);
+    double zero = Tare.counts(reader, 200, 5000);
     // the simulated press starts 1 s after the arming and touches the specimen 0.6 s later: 0.3 s
     // of history fits
     RunSettings s = RunSettings.builder().startThreshold_N(5).pretrigger_s(0.3)
@@ -141,7 +141,7 @@ class RecorderSimTest {
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
     double k = setup.nominalCountsPerN();
-    double zero = Recorder.tare(reader, 100, 5000);
+    double zero = Tare.counts(reader, 100, 5000);
     double capacity = setup.buildFrame().truth().loadCell().capacity_N();
     RunSettings s = RunSettings.builder().ratedCapacity_N(capacity).build();
     MemoryRunStore store = new MemoryRunStore();
@@ -175,7 +175,7 @@ class RecorderSimTest {
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
     double countsPerN = setup.nominalCountsPerN();
-    double zero = Recorder.tare(reader, 200, 5000);
+    double zero = Tare.counts(reader, 200, 5000);
     MemoryRunStore store = new MemoryRunStore();
     // the break at rupture, not at the necking's fall to about half the peak
     RunSettings s = RunSettings.builder().ratedCapacity_N(500).breakDropPct(90).build();
@@ -209,7 +209,7 @@ class RecorderSimTest {
     SimTransport t = setup.openTransport();
     DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 20));
     reader.start();
-    double zero = Recorder.tare(reader, 100, 5000);
+    double zero = Tare.counts(reader, 100, 5000);
     MemoryRunStore store = new MemoryRunStore();
     java.util.concurrent.atomic.AtomicReference<RunControl.Started> started =
         new java.util.concurrent.atomic.AtomicReference<>();

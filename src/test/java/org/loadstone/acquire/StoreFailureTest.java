@@ -29,7 +29,7 @@ class StoreFailureTest {
     SimTransport t = setup.openTransport();
     DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 20));
     reader.start();
-    double zero = Recorder.tare(reader, 100, 5000);
+    double zero = Tare.counts(reader, 100, 5000);
     // the seam stands for the store running out of heap half-way through
     JournalRunStore store = new JournalRunStore(archive, (dir, journal, last, meta) -> {
       throw new OutOfMemoryError("Java heap space");

@@ -27,7 +27,7 @@ class TriggerAtSimSpeedTest {
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
     try {
-      Zeroing.Zero zero = Zeroing.take(reader, 40, 20_000);
+      Tare zero = Tare.take(reader, 40, 20_000);
       RunSettings s = RunSettings.builder().startThreshold_N(START_N).pretrigger_s(1.0)
           .ratedCapacity_N(1000).build();
       MemoryRunStore store = new MemoryRunStore();

@@ -114,14 +114,14 @@ class LivePaneTest {
     var run = org.loadstone.archive.RunReader.read(csv);
     var m = org.loadstone.study.RunMetrics.of(run.metadata(), run.data());
     assertThat(robot.lookup("#figure-peak").queryAs(Label.class).getText())
-        .isEqualTo(RunPanel.fmt(m.analysis().peakForce_N(), "N"));
+        .isEqualTo(RunFigures.fmt(m.analysis().peakForce_N(), "N"));
     assertThat(robot.lookup("#figure-stiffness").queryAs(Label.class).getText())
-        .isEqualTo(RunPanel.fmt(m.analysis().stiffness_N_per_mm().getAsDouble(), "N/mm"));
+        .isEqualTo(RunFigures.fmt(m.analysis().stiffness_N_per_mm().getAsDouble(), "N/mm"));
     assertThat(robot.lookup("#figure-energy").queryAs(Label.class).getText())
-        .isEqualTo(RunPanel.fmt(m.analysis().energyToBreak_J().getAsDouble(), "J"));
+        .isEqualTo(RunFigures.fmt(m.analysis().energyToBreak_J().getAsDouble(), "J"));
     assertThat(run.metadata().mass_g()).isEqualTo(37.5);
     assertThat(robot.lookup("#figure-per-gram").queryAs(Label.class).getText())
-        .isEqualTo(RunPanel.fmt(m.analysis().peakForce_N() / 37.5, "N/g"));
+        .isEqualTo(RunFigures.fmt(m.analysis().peakForce_N() / 37.5, "N/g"));
     assertThat(run.metadata().geometry().span_mm()).isEqualTo(200.0);
     assertThat(run.metadata().testType()).isEqualTo(org.loadstone.archive.TestType.THREE_POINT_BEND);
     // flexural stress at peak 3PL/(2bd²) (ASTM D790), from the sizes typed
@@ -129,7 +129,7 @@ class LivePaneTest {
     assertThat(m.flexuralStressAtPeak_MPa().getAsDouble())
         .isCloseTo(sigma, org.assertj.core.data.Offset.offset(1e-9));
     assertThat(robot.lookup("#figure-flexural-stress").queryAs(Label.class).getText())
-        .isEqualTo(RunPanel.fmt(sigma, "MPa"));
+        .isEqualTo(RunFigures.fmt(sigma, "MPa"));
   }
 
   @Test
