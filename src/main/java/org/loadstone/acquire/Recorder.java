@@ -7,6 +7,7 @@ import java.util.concurrent.TimeUnit;
 import org.loadstone.archive.FinishCause;
 import org.loadstone.archive.RunMetadata;
 import org.loadstone.device.PressOperator;
+import org.loadstone.protocol.DecoderCounters;
 import org.loadstone.protocol.HostCommand;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
@@ -75,6 +76,7 @@ public final class Recorder implements AutoCloseable {
   private volatile boolean stopRequested;
   private volatile boolean startRequested;
   private volatile boolean closing;
+  private boolean resetSeen;
   private volatile Result result;
   private volatile String failure;
   private RunStore.Recording recording;
@@ -191,6 +193,8 @@ public final class Recorder implements AutoCloseable {
   private void loop() {
     SampleRing ring = reader.ring();
     SampleRing.Cursor cursor = ring.cursorAt(decideFrom);
+    int[] resetsKnown = {reader.resets()};
+    long[] resetAt = {reader.firstResetFrom(decideFrom)};
     try {
       while (control.state() != RunControl.State.FINISHED && !closing) {
         if (startRequested) {
@@ -202,6 +206,18 @@ public final class Recorder implements AutoCloseable {
         }
         int n = cursor.drain((i, seq, dev, tUs, counts, hp, pos) -> {
           if (control.state() == RunControl.State.FINISHED) {
+            return;
+          }
+          if (reader.resets() != resetsKnown[0]) { // rare: look again where the restart is
+            resetsKnown[0] = reader.resets();
+            resetAt[0] = reader.firstResetFrom(decideFrom);
+          }
+          if (i >= resetAt[0]) { // the device restarted: nothing from it joins this run
+            resetSeen = true;
+            RunControl.Finished f = control.deviceReset();
+            if (f != null) {
+              onEvent(f);
+            }
             return;
           }
           double f = scale.force_N(counts - zero_counts);
@@ -253,6 +269,9 @@ public final class Recorder implements AutoCloseable {
       if (result == null && failure == null && started == null) {
         listener.onDisarmed(reader.lostReason().isPresent()
             ? "the device was lost before load came on: no run stored"
+            : resetSeen
+            ? "the device restarted before load came on: no run stored, and none started on"
+                + " the restarted device (its zero is not known)"
             : "disarmed before load came on: no run stored");
       }
       done.countDown();
@@ -288,9 +307,24 @@ public final class Recorder implements AutoCloseable {
     if (recording == null) {
       return;
     }
+    DecoderCounters now = reader.counters();
+    if (f.cause() == FinishCause.DEVICE_RESET) {
+      String text = reader.resetReason().orElse("the device restarted")
+          + ": the run ends at its last sample before the restart";
+      synchronized (this) {
+        warnings.add(text);
+      }
+      listener.onWarning(text);
+      // a sequence that started over is no loss: the count as it was before the restart
+      long before = reader.droppedBeforeReset(reader.firstResetFrom(decideFrom));
+      if (before >= 0) {
+        now = new DecoderCounters(now.samples(), now.messages(), now.checksumErrors(),
+            now.resyncs(), before, now.unknown(), now.bytes());
+      }
+    }
     BreakDetector.Break b = control.breakDetail();
-    RunRecordMeta.Finished done = record.atFinish(f.cause(), b, unloaded.force_N(),
-        reader.counters(), warnings());
+    RunRecordMeta.Finished done = record.atFinish(f.cause(), b, unloaded.force_N(), now,
+        warnings());
     RunStore.Stored stored = recording.finish(f.lastIndex(), done.metadata());
     result = new Result(stored, f.cause(), control.peak_N(), stored.samples(), done.dropped(),
         done.checksumErrors(), b, done.metadata().returnToZero_N());

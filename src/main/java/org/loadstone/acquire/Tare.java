@@ -34,7 +34,12 @@ public record Tare(double counts, long nextIndex) {
         }
       }, samples - n[0]);
       if (n[0] < samples) {
-        if (System.nanoTime() > until || reader.lostReason().isPresent()) {
+        if (reader.lostReason().isPresent()) {
+          throw new DeviceLostException("zeroing failed: only " + n[0] + " of " + samples
+              + " samples arrived from " + reader.transport().name() + " ("
+              + reader.lostReason().get() + ")");
+        }
+        if (System.nanoTime() > until) {
           throw new LoadstoneException("zeroing failed: only " + n[0] + " of " + samples
               + " samples arrived from " + reader.transport().name() + " in "
               + timeoutMs / 1000.0 + " s"
