@@ -1,5 +1,7 @@
 package org.loadstone.cli;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -65,7 +67,7 @@ class RecordCommandTest {
   }
 
   @Test
-  @Timeout(90)
+  @Timeout(HangGuard.TEST_S)
   void brittleRunOnTheSimulatorStopsAtTheBreakAndIsStored() throws Exception {
     // an earlier run of the same device whose tare read 10 N more than the cell's zero
     SimSetup sim = new SimSetup("panel-balsa", 1, 1000, false, 8);
@@ -111,7 +113,7 @@ class RecordCommandTest {
   }
 
   @Test
-  @Timeout(90)
+  @Timeout(HangGuard.TEST_S)
   void aRunWithACalibrationReferencesItByIdAndHashAndCarriesItsWarnings() throws Exception {
     Path calDir = tmp.resolve("cal");
     Path project = Path.of(System.getProperty("loadstone.projectDir", "."), "calibration");
@@ -195,7 +197,7 @@ class RecordCommandTest {
   }
 
   @Test
-  @Timeout(90)
+  @Timeout(HangGuard.TEST_S)
   void cablePulledMidRunKeepsTheDataAsDeviceLost() throws Exception {
     try (SocatPair pty = SocatPair.start()) {
       streamDuctile(pty);
@@ -224,7 +226,7 @@ class RecordCommandTest {
   }
 
   @Test
-  @Timeout(90)
+  @Timeout(HangGuard.TEST_S)
   void cablePulledWhileArmedEndsRecordWithTheDeviceLostCode() throws Exception {
     // issue 14: record never ended (and spun a core) when the device went while armed
     try (SocatPair pty = SocatPair.start()) {
@@ -246,7 +248,7 @@ class RecordCommandTest {
           "--counts-per-n", "100", "--capacity-N", "1e6", "--start-at-N", "5e5", "--specimen",
           "armed", "--archive", tmp.toString())));
       rec.start();
-      assertThat(armed.await(60, TimeUnit.SECONDS)).as(e.toString()).isTrue();
+      assertThat(armed.await(HangGuard.S, TimeUnit.SECONDS)).as(e.toString()).isTrue();
       pty.kill();
       rec.join(30_000);
       assertThat(rec.isAlive()).as("record ended").isFalse();
@@ -258,7 +260,7 @@ class RecordCommandTest {
   }
 
   @Test
-  @Timeout(120)
+  @Timeout(HangGuard.TEST_S)
   void killedWithSigkillTheJournalIsRecoveredAtTheNextStart() throws Exception {
     ProcessBuilder pb = new ProcessBuilder(Path.of(System.getProperty("java.home"), "bin", "java")
         .toString(), "-cp", System.getProperty("java.class.path"), "org.loadstone.Main", "record",
@@ -274,7 +276,7 @@ class RecordCommandTest {
     }
     awaitJournalSamples(tmp, 2000); // counted in the journal, not timed
     p.destroyForcibly(); // SIGKILL
-    assertThat(p.waitFor(60, TimeUnit.SECONDS)).isTrue();
+    assertThat(p.waitFor(HangGuard.S, TimeUnit.SECONDS)).isTrue();
     assertThat(Files.list(tmp).filter(f -> f.toString().endsWith(".csv")).count()).isZero();
 
     List<StoredRun> recovered = JournalRecovery.recoverAll(tmp);
