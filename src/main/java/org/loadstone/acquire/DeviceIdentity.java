@@ -27,7 +27,7 @@ public final class DeviceIdentity {
       pause();
     }
     reader.lostReason().ifPresent(why -> {
-      throw new LoadstoneException(why);
+      throw new DeviceLostException(why);
     });
     reader.unsupportedVersion().ifPresent(why -> {
       throw new LoadstoneException(why);

@@ -30,7 +30,20 @@ public final class DeviceReader implements AutoCloseable {
 
     /** The device is gone; {@code why} is a sentence for the user. No more samples will come. */
     default void onDeviceLost(String why) {}
+
+    /**
+     * The device restarted: samples from ring index {@code firstIndex} on come from the
+     * restarted device; {@code why} says how it showed.
+     */
+    default void onDeviceReset(String why, long firstIndex) {}
   }
+
+  /**
+   * A device-time step between two samples longer than this is a clock jump (a restart), not a
+   * pause: a device that streams never pauses, and a link that lost this much would leave no
+   * usable run either. (Our own limit; 10 s is 800 samples of the slowest converter.)
+   */
+  public static final long CLOCK_JUMP_US = 10_000_000;
 
   private final Transport transport;
   private final SampleRing ring;
@@ -48,7 +61,15 @@ public final class DeviceReader implements AutoCloseable {
   private volatile long samplesAccepted;
 
   private long lastDeviceUs = -1;
+  private int lastSeq = -1;
   private long timeUs;
+  private double period_us = Double.NaN; // typical device-time step of one sample
+  private String resetPending; // an unasked-for identity arrived; the next sample is the restart
+  private final java.util.concurrent.atomic.AtomicInteger identitiesAsked =
+      new java.util.concurrent.atomic.AtomicInteger();
+  private final CopyOnWriteArrayList<long[]> resets = new CopyOnWriteArrayList<>();
+  private volatile int resetCount;
+  private volatile String resetReason;
 
   /**
    * @param transport an open device link; closed by {@link #close()}
@@ -83,6 +104,9 @@ public final class DeviceReader implements AutoCloseable {
    */
   public boolean send(HostCommand command) {
     try {
+      if (command.verb() == HostCommand.Verb.WHO) {
+        identitiesAsked.incrementAndGet(); // its answer is not a restart
+      }
       transport.write(command.toWire());
       return true;
     } catch (IOException e) {
@@ -115,6 +139,44 @@ public final class DeviceReader implements AutoCloseable {
   /** @return why the device was lost, if it was */
   public Optional<String> lostReason() {
     return Optional.ofNullable(lostReason);
+  }
+
+  /** @return how many times the device restarted while read (see {@link #firstResetFrom}) */
+  public int resets() {
+    return resetCount;
+  }
+
+  /**
+   * @param index a ring index
+   * @return the ring index of the first sample after the first restart at or after {@code
+   *     index}, or {@link Long#MAX_VALUE} when the device has not restarted since
+   */
+  public long firstResetFrom(long index) {
+    for (long[] r : resets) {
+      if (r[0] >= index) {
+        return r[0];
+      }
+    }
+    return Long.MAX_VALUE;
+  }
+
+  /**
+   * @param firstIndex a restart's first ring index ({@link #firstResetFrom})
+   * @return the decoder's count of dropped samples before that restart (a sequence that started
+   *     over is not a loss), or -1 for an index that is no restart
+   */
+  public long droppedBeforeReset(long firstIndex) {
+    for (long[] r : resets) {
+      if (r[0] == firstIndex) {
+        return r[1];
+      }
+    }
+    return -1;
+  }
+
+  /** @return how the last restart of the device showed, if it restarted */
+  public Optional<String> resetReason() {
+    return Optional.ofNullable(resetReason);
   }
 
   /** @return a message when the device speaks a protocol version this host does not */
@@ -198,16 +260,67 @@ public final class DeviceReader implements AutoCloseable {
         return;
       }
       if (lastDeviceUs >= 0) {
-        timeUs += (deviceUs - lastDeviceUs) & 0xFFFF_FFFFL;
+        long dt = (deviceUs - lastDeviceUs) & 0xFFFF_FFFFL;
+        int missing = (seq - lastSeq - 1) & 0xFFFF;
+        String restart = resetPending != null ? resetPending : restartShown(dt, missing);
+        if (restart != null) {
+          // the time axis goes on by one sample: the restarted clock means nothing to it
+          timeUs += Double.isNaN(period_us) ? 0 : Math.round(period_us);
+          // the decoder counted the jump of the sequence as lost samples unless an identity came
+          reset(restart, decoder.counters().dropped() - (resetPending != null ? 0 : missing));
+        } else {
+          timeUs += dt;
+          if (missing == 0 && dt > 0) {
+            period_us = Double.isNaN(period_us) ? dt : 0.9 * period_us + 0.1 * dt;
+          }
+        }
       }
+      resetPending = null;
       lastDeviceUs = deviceUs;
+      lastSeq = seq;
       ring.put(seq, deviceUs, timeUs, counts, hasPosition, pos);
       samplesAccepted++;
+    }
+
+    /**
+     * @return how the samples show a restart, or null: the device clock jumped (back, or forward
+     *     by more than {@link #CLOCK_JUMP_US}), or the sequence moved far ahead of the clock
+     */
+    private String restartShown(long dt, int missing) {
+      if (dt > CLOCK_JUMP_US) {
+        return "the device clock jumped by " + describeJump(dt) + " between two samples";
+      }
+      if (missing > 0 && !Double.isNaN(period_us)
+          && (missing + 1) * period_us > 4.0 * dt + 4.0 * period_us) {
+        return "the device's sample sequence started over";
+      }
+      return null;
+    }
+
+    private String describeJump(long dt) {
+      long back = (1L << 32) - dt;
+      return back < dt ? "-" + String.format(java.util.Locale.ROOT, "%.3f s", back / 1e6)
+          : String.format(java.util.Locale.ROOT, "%.3f s", dt / 1e6);
+    }
+
+    private void reset(String why, long droppedBefore) {
+      long first = ring.written();
+      String text = "the device on " + transport.name() + " restarted (" + why + ")";
+      resets.add(new long[] {first, droppedBefore}); // before the sample is published: a reader of it sees the restart
+      resetReason = text;
+      resetCount++;
+      for (Listener l : listeners) {
+        l.onDeviceReset(text, first);
+      }
     }
 
     @Override
     public void onMessage(DeviceMessage message) {
       if (message instanceof DeviceMessage.Identity id) {
+        boolean asked = identitiesAsked.getAndUpdate(n -> Math.max(0, n - 1)) > 0;
+        if (!asked && samplesAccepted > 0) {
+          resetPending = "it sent its identity again";
+        }
         identity = id;
         if (!id.supported()) {
           unsupported = "the device on " + transport.name() + " speaks protocol version "

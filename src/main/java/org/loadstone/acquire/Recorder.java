@@ -1,6 +1,5 @@
 package org.loadstone.acquire;
 
-import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.CountDownLatch;
@@ -18,6 +17,8 @@ import org.loadstone.units.Precondition;
  * drives {@link RunControl}, starts the {@link RunStore} at the start (with the pre-trigger history)
  * and finishes it at the break, overload, time limit, manual stop or loss of the device. Sends
  * {@code HALT} to a motorised frame at every stop. The device reader thread is never blocked.
+ * This class keeps the run's lifecycle (thread, arming, start, stop, status, outcome); what is
+ * written about the run is {@link RunRecordMeta}'s, and the zero before it {@link Tare}'s.
  */
 public final class Recorder implements AutoCloseable {
   /** Told about the run's progress, on the recorder's thread; must return quickly. */
@@ -75,14 +76,13 @@ public final class Recorder implements AutoCloseable {
   private volatile boolean stopRequested;
   private volatile boolean startRequested;
   private volatile boolean closing;
+  private boolean resetSeen;
   private volatile Result result;
   private volatile String failure;
   private RunStore.Recording recording;
   private RunControl.Started started;
-  private DecoderCounters atStart;
-  private double runStartTime_s;
+  private RunRecordMeta record;
   private final ReturnToZero unloaded;
-  private Instant startedAt;
 
   /**
    * @param reader the running device reader
@@ -111,57 +111,6 @@ public final class Recorder implements AutoCloseable {
   }
 
   /**
-   * A zero (tare) taken from the stream.
-   *
-   * @param counts mean counts of the samples averaged
-   * @param nextIndex ring index of the first sample after them: a run armed on this zero is
-   *     decided from there, so load that comes on while the run is being set up is not missed
-   */
-  public record Zero(double counts, long nextIndex) {}
-
-  /**
-   * Averages the next {@code samples} samples from the ring as the zero (tare), waiting for them.
-   *
-   * @return mean counts
-   * @throws LoadstoneException when the samples do not come in time (device silent or lost)
-   */
-  public static double tare(DeviceReader reader, int samples, long timeoutMs) {
-    return zero(reader, samples, timeoutMs).counts();
-  }
-
-  /**
-   * Averages the next {@code samples} samples from the ring as the zero (tare), waiting for them.
-   *
-   * @return the mean counts and where the samples after them begin
-   * @throws LoadstoneException when the samples do not come in time (device silent or lost)
-   */
-  public static Zero zero(DeviceReader reader, int samples, long timeoutMs) {
-    SampleRing.Cursor c = reader.ring().cursorAtEnd();
-    double[] sum = {0};
-    int[] n = {0};
-    long until = System.nanoTime() + timeoutMs * 1_000_000;
-    while (n[0] < samples) {
-      c.drain((i, s, d, t, counts, hp, p) -> {
-        if (n[0] < samples) {
-          sum[0] += counts;
-          n[0]++;
-        }
-      }, samples - n[0]);
-      if (n[0] < samples) {
-        if (System.nanoTime() > until || reader.lostReason().isPresent()) {
-          throw new LoadstoneException("zeroing failed: only " + n[0] + " of " + samples
-              + " samples arrived from " + reader.transport().name() + " in "
-              + timeoutMs / 1000.0 + " s"
-              + reader.lostReason().map(w -> " (" + w + ")").orElse(
-                  "; check that the device is streaming samples"));
-        }
-        sleep(5);
-      }
-    }
-    return new Zero(sum[0] / samples, c.position());
-  }
-
-  /**
    * Arms (waits for the start threshold) and starts the recorder's thread. The start is decided
    * on every sample from the one that arrives next, however late the thread gets to them. On the
    * simulated frame the program then stands in for the operator and starts the press ({@link
@@ -176,7 +125,7 @@ public final class Recorder implements AutoCloseable {
    * rule in order, so the first sample at the threshold starts the run even when it arrived
    * before this call (e.g. between the zero and the arming, on a fast device).
    *
-   * @param fromIndex first ring index to decide on, e.g. {@link Zero#nextIndex()}; clamped to
+   * @param fromIndex first ring index to decide on, e.g. {@link Tare#nextIndex()}; clamped to
    *     the samples still held
    * @throws IllegalStateException when the recorder was already armed or started
    */
@@ -244,6 +193,8 @@ public final class Recorder implements AutoCloseable {
   private void loop() {
     SampleRing ring = reader.ring();
     SampleRing.Cursor cursor = ring.cursorAt(decideFrom);
+    int[] resetsKnown = {reader.resets()};
+    long[] resetAt = {reader.firstResetFrom(decideFrom)};
     try {
       while (control.state() != RunControl.State.FINISHED && !closing) {
         if (startRequested) {
@@ -255,6 +206,18 @@ public final class Recorder implements AutoCloseable {
         }
         int n = cursor.drain((i, seq, dev, tUs, counts, hp, pos) -> {
           if (control.state() == RunControl.State.FINISHED) {
+            return;
+          }
+          if (reader.resets() != resetsKnown[0]) { // rare: look again where the restart is
+            resetsKnown[0] = reader.resets();
+            resetAt[0] = reader.firstResetFrom(decideFrom);
+          }
+          if (i >= resetAt[0]) { // the device restarted: nothing from it joins this run
+            resetSeen = true;
+            RunControl.Finished f = control.deviceReset();
+            if (f != null) {
+              onEvent(f);
+            }
             return;
           }
           double f = scale.force_N(counts - zero_counts);
@@ -306,6 +269,9 @@ public final class Recorder implements AutoCloseable {
       if (result == null && failure == null && started == null) {
         listener.onDisarmed(reader.lostReason().isPresent()
             ? "the device was lost before load came on: no run stored"
+            : resetSeen
+            ? "the device restarted before load came on: no run stored, and none started on"
+                + " the restarted device (its zero is not known)"
             : "disarmed before load came on: no run stored");
       }
       done.countDown();
@@ -315,11 +281,8 @@ public final class Recorder implements AutoCloseable {
   private void onEvent(RunControl.Event e) {
     if (e instanceof RunControl.Started s) {
       started = s;
-      atStart = reader.counters();
-      runStartTime_s = reader.ring().timeUsAt(s.firstIndex()) / 1e6;
-      startedAt = Instant.now().minusNanos((long) ((s.triggerTime_s() - runStartTime_s) * 1e9));
-      RunMetadata meta = copy(template, FinishCause.MANUAL, null, null, null, null, 0, 0, s);
-      recording = store.begin(meta, reader.ring(), s.firstIndex());
+      record = new RunRecordMeta(template, zero_counts, control.settings(), s, reader);
+      recording = store.begin(record.atStart(warnings()), reader.ring(), s.firstIndex());
       listener.onStarted(s);
     } else if (e instanceof RunControl.OverloadWarning w) {
       String text = String.format(java.util.Locale.ROOT,
@@ -345,64 +308,27 @@ public final class Recorder implements AutoCloseable {
       return;
     }
     DecoderCounters now = reader.counters();
-    long dropped = now.dropped() - atStart.dropped();
-    long crc = now.checksumErrors() - atStart.checksumErrors();
+    if (f.cause() == FinishCause.DEVICE_RESET) {
+      String text = reader.resetReason().orElse("the device restarted")
+          + ": the run ends at its last sample before the restart";
+      synchronized (this) {
+        warnings.add(text);
+      }
+      listener.onWarning(text);
+      // a sequence that started over is no loss: the count as it was before the restart
+      long before = reader.droppedBeforeReset(reader.firstResetFrom(decideFrom));
+      if (before >= 0) {
+        now = new DecoderCounters(now.samples(), now.messages(), now.checksumErrors(),
+            now.resyncs(), before, now.unknown(), now.bytes());
+      }
+    }
     BreakDetector.Break b = control.breakDetail();
-    Integer breakIndex = b == null ? null : (int) (b.index() - started.firstIndex());
-    Double breakTime = null;
-    if (b != null) {
-      breakTime = b.time_s();
-    }
-    RunMetadata meta = copy(template, f.cause(), breakIndex, breakTime,
-        b == null ? null : b.peakBefore_N(), b == null ? null : b.dropPct(), dropped, crc, started)
-        .toBuilder().returnToZero_N(unloaded.force_N()).build();
-    RunStore.Stored stored = recording.finish(f.lastIndex(), meta);
-    result = new Result(stored, f.cause(), control.peak_N(), stored.samples(), dropped, crc, b,
-        meta.returnToZero_N());
+    RunRecordMeta.Finished done = record.atFinish(f.cause(), b, unloaded.force_N(), now,
+        warnings());
+    RunStore.Stored stored = recording.finish(f.lastIndex(), done.metadata());
+    result = new Result(stored, f.cause(), control.peak_N(), stored.samples(), done.dropped(),
+        done.checksumErrors(), b, done.metadata().returnToZero_N());
     listener.onFinished(result);
-  }
-
-  private RunMetadata copy(RunMetadata t, FinishCause cause, Integer breakIndex,
-      Double breakTime_s, Double peakBefore, Double dropPct, long dropped, long crc,
-      RunControl.Started s) {
-    List<String> w;
-    synchronized (this) {
-      w = List.copyOf(warnings);
-    }
-    Double breakRelative = breakTime_s == null ? null : breakTime_s - runStartTime_s;
-    return RunMetadata.builder()
-        .runId(t.runId())
-        .startedAt(startedAt != null ? startedAt : t.startedAt())
-        .specimen(t.specimen())
-        .group(t.group())
-        .tags(t.tags())
-        .operator(t.operator())
-        .notes(t.notes())
-        .mass_g(t.mass_g())
-        .geometry(t.geometry())
-        .testType(t.testType())
-        .device(t.device())
-        .sampleRate_Hz(t.sampleRate_Hz())
-        .sampleRateSource(t.sampleRateSource())
-        .calibrationId(t.calibrationId())
-        .calibrationSha256(t.calibrationSha256())
-        .scale(t.scale())
-        .scaleSpec(t.scaleSpec())
-        .zeroOffset_counts(zero_counts)
-        .dropped(dropped)
-        .checksumErrors(crc)
-        .cause(cause)
-        .breakIndex(breakIndex)
-        .breakTime_s(breakRelative)
-        .peakBeforeBreak_N(peakBefore)
-        .dropAtBreak_pct(dropPct)
-        .pretrigger_s(control.settings().pretrigger_s())
-        .startThreshold_N(s != null && s.manual() ? null : control.settings().startThreshold_N())
-        .checkWeight(t.checkWeight())
-        .warnings(w)
-        .softwareVersion(t.softwareVersion())
-        .extra(t.extra())
-        .build();
   }
 
   private static void sleep(long ms) {

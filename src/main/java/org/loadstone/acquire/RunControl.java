@@ -166,8 +166,27 @@ public final class RunControl {
    * @return the finish event when a run was recording, else null
    */
   public Finished deviceLost() {
+    return endedBy(FinishCause.DEVICE_LOST);
+  }
+
+  /**
+   * The device restarted: the run finishes with cause {@code device-reset} at the last sample
+   * offered (the one before the restart); a wait for the start ends without a run.
+   *
+   * @return the finish event when a run was recording, else null
+   */
+  public Finished deviceReset() {
+    return endedBy(FinishCause.DEVICE_RESET);
+  }
+
+  /**
+   * Ends the run now for {@code cause} at the last sample offered; a wait for the start ends.
+   *
+   * @return the finish event when a run was recording, else null
+   */
+  public Finished endedBy(FinishCause cause) {
     if (state == State.RECORDING || state == State.TAIL) {
-      return finish(FinishCause.DEVICE_LOST, lastSeen);
+      return finish(cause, lastSeen);
     }
     state = State.FINISHED;
     publish();

@@ -180,7 +180,7 @@ public final class RunSetup {
     int n = r.zeroSamples() != null ? r.zeroSamples()
         : rateNow.samplesIn(ZERO_S, ZERO_MIN_SAMPLES);
     say.accept("zeroing on " + n + " samples: keep the specimen unloaded");
-    Recorder.Zero taken = Recorder.zero(reader, n, 10_000 + (long) (n / rateNow.rate_Hz() * 2000));
+    Tare taken = Tare.take(reader, n, 10_000 + (long) (n / rateNow.rate_Hz() * 2000));
     double zero = taken.counts();
     ZeroCheck.Tare fresh = new ZeroCheck.Tare(zero, clock.instant());
     List<String> warnings = new ArrayList<>(scale.warnings());

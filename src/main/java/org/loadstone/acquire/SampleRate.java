@@ -124,7 +124,7 @@ public record SampleRate(double rate_Hz, Source source) {
         return r.get();
       }
       reader.lostReason().ifPresent(why -> {
-        throw new LoadstoneException(why);
+        throw new DeviceLostException(why);
       });
       if (System.nanoTime() > until) {
         throw new LoadstoneException("the device on " + reader.transport().name()

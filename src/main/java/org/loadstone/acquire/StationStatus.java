@@ -154,6 +154,10 @@ public final class StationStatus {
           + "press and check the cell before the next run");
       case DEVICE_LOST -> fault("DEVICE LOST", "the device stopped during the run; the run is "
           + "stored up to the loss");
+      case DEVICE_RESET -> fault("DEVICE RESET", "the device restarted during the run; the run "
+          + "is stored up to the restart");
+      case DISK_FULL -> fault("DISK FULL", "the journal could not be written; the run holds "
+          + "what was kept: free space before the next run");
       case RECOVERED, IMPORTED -> done("STORED", "the run is in the archive");
     };
   }

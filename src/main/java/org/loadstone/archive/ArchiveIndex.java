@@ -39,44 +39,106 @@ public final class ArchiveIndex {
   private final Path dir;
   private final List<Entry> entries;
   private final List<Unreadable> problems;
+  private final List<String> notes;
+  private final FigureCache figures;
 
-  private ArchiveIndex(Path dir, List<Entry> entries, List<Unreadable> problems) {
+  ArchiveIndex(Path dir, List<Entry> entries, List<Unreadable> problems, List<String> notes,
+      FigureCache figures) {
     this.dir = dir;
-    this.entries = List.copyOf(entries);
+    List<Entry> sorted = new ArrayList<>(entries);
+    sorted.sort(Comparator.comparing((Entry e) -> e.metadata().startedAt())
+        .thenComparing(e -> e.metadata().runId()));
+    this.entries = List.copyOf(sorted);
     this.problems = List.copyOf(problems);
+    this.notes = List.copyOf(notes);
+    this.figures = figures;
   }
 
   /**
-   * Scans a folder (not its sub-folders).
+   * Reads every sidecar of a folder (not its sub-folders): the reference the archive index is
+   * held to. Keeps no figures.
    *
    * @throws LoadstoneException when the folder does not exist or cannot be listed
    */
   public static ArchiveIndex scan(Path dir) {
+    return scan(dir, List.of());
+  }
+
+  /**
+   * The runs of a folder from its archive index ({@link RunIndex}), brought up to date with the
+   * run files first: only sidecars that are new or changed since the index last saw them are
+   * read. The run files stay the truth: when the index cannot be used (damaged, busy past its
+   * wait, written by a newer Loadstone, or the folder cannot be written), the sidecars are read
+   * as {@link #scan} does and {@link #notes()} says why.
+   *
+   * @param dir the archive folder, not null
+   * @throws LoadstoneException when the folder does not exist or cannot be listed
+   */
+  public static ArchiveIndex load(Path dir) {
     Precondition.notNull(dir, "dir");
+    checkFolder(dir);
+    return RunIndex.listing(dir);
+  }
+
+  static ArchiveIndex scan(Path dir, List<String> notes) {
+    Precondition.notNull(dir, "dir");
+    checkFolder(dir);
+    List<Entry> found = new ArrayList<>();
+    List<Unreadable> problems = new ArrayList<>();
+    for (Path json : sidecars(dir)) {
+      Object one = read(json);
+      if (one instanceof Entry e) {
+        found.add(e);
+      } else {
+        problems.add((Unreadable) one);
+      }
+    }
+    return new ArchiveIndex(dir, found, problems, notes, FigureCache.NONE);
+  }
+
+  private static void checkFolder(Path dir) {
     if (!Files.isDirectory(dir)) {
       throw new LoadstoneException("archive folder " + dir + " does not exist: record a run "
           + "first, or choose the archive folder that holds your runs",
           org.loadstone.units.Setting.ARCHIVE_FOLDER);
     }
-    List<Entry> found = new ArrayList<>();
-    List<Unreadable> problems = new ArrayList<>();
+  }
+
+  /** @return the sidecars of a folder, by name */
+  static List<Path> sidecars(Path dir) {
     try (Stream<Path> s = Files.list(dir)) {
-      for (Path json : (Iterable<Path>) s.filter(p -> p.toString().endsWith(".json")).sorted()::iterator) {
-        try {
-          RunMetadata m = RunReader.readMetadata(json);
-          String stem = json.getFileName().toString().replaceFirst("\\.json$", "");
-          found.add(new Entry(m, json, json.resolveSibling(stem + ".csv")));
-        } catch (LoadstoneException e) {
-          problems.add(new Unreadable(json, e.getMessage()));
-        }
-      }
+      return s.filter(p -> p.toString().endsWith(".json")).sorted().toList();
     } catch (IOException e) {
       throw new LoadstoneException("archive folder " + dir + " cannot be listed: "
           + e.getMessage(), e);
     }
-    found.sort(Comparator.comparing((Entry e) -> e.metadata().startedAt())
-        .thenComparing(e -> e.metadata().runId()));
-    return new ArchiveIndex(dir, found, problems);
+  }
+
+  /** @return the run of one sidecar as an {@link Entry}, or why not as an {@link Unreadable} */
+  static Object read(Path json) {
+    try {
+      return entry(json, RunReader.readMetadata(json));
+    } catch (LoadstoneException e) {
+      return new Unreadable(json, e.getMessage());
+    }
+  }
+
+  static Entry entry(Path json, RunMetadata m) {
+    String stem = json.getFileName().toString().replaceFirst("\\.json$", "");
+    return new Entry(m, json, json.resolveSibling(stem + ".csv"));
+  }
+
+  /**
+   * @return what the reader should know about how the runs were found (the index rebuilt, busy,
+   *     or not usable), empty when the index answered as usual
+   */
+  public List<String> notes() {
+    return notes;
+  }
+
+  /** @return where figures computed from these runs are kept between calls */
+  public FigureCache figures() {
+    return figures;
   }
 
   /** @return the folder */

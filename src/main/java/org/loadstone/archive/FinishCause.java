@@ -13,8 +13,18 @@ public enum FinishCause {
   MANUAL,
   /** the run reached its longest allowed duration */
   TIME_LIMIT,
-  /** the device stopped answering (cable pulled, board reset) */
+  /** the device stopped answering (cable pulled, port gone) */
   DEVICE_LOST,
+  /**
+   * the device restarted during the run (it sent its identity again, its sample sequence or
+   * clock started over); the run ends at the last sample before the restart
+   */
+  DEVICE_RESET,
+  /**
+   * the journal could not be written during the run (disk full); the run holds what was kept,
+   * and its break, if it had one
+   */
+  DISK_FULL,
   /** the program ended during the run; the run was rebuilt from its journal at the next start */
   RECOVERED,
   /** the run was imported from another program's file */
@@ -33,6 +43,7 @@ public enum FinishCause {
       }
     }
     throw new LoadstoneException("unknown finish cause '" + text + "': expected one of "
-        + "break, overload, manual, time-limit, device-lost, recovered, imported");
+        + "break, overload, manual, time-limit, device-lost, device-reset, disk-full, recovered,"
+        + " imported");
   }
 }

@@ -5,6 +5,7 @@ import java.io.IOException;
 import java.io.Reader;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import org.loadstone.units.InputException;
 import org.loadstone.units.JsonInput;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.TextFiles;
@@ -68,7 +69,17 @@ public final class RunReader {
     if (!Files.exists(json)) {
       throw missing(json, json);
     }
-    JsonNode root = JsonInput.readObject(json, "run file",
+    return metadataFromText(json, TextFiles.read(json, "run file"));
+  }
+
+  /**
+   * The sidecar from text already read from {@code json} (the archive index keeps it), checked
+   * exactly as {@link #readMetadata} checks the file.
+   *
+   * @throws LoadstoneException naming the file and the field when invalid
+   */
+  static RunMetadata metadataFromText(Path json, String text) {
+    JsonNode root = JsonInput.parseObject(text, InputException.in("run file", json),
         "correct the file (keep a copy) or restore it from a backup");
     return RunJson.fromTree(root, "run file " + json, null);
   }

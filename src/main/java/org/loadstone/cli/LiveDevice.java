@@ -21,7 +21,7 @@ import org.loadstone.units.LoadstoneException;
  */
 final class LiveDevice implements AutoCloseable {
   /** The device went away during a command. */
-  static final class DeviceLostException extends LoadstoneException {
+  static final class DeviceLostException extends org.loadstone.acquire.DeviceLostException {
     private static final long serialVersionUID = 1L;
 
     DeviceLostException(String message) {
@@ -81,11 +81,8 @@ final class LiveDevice implements AutoCloseable {
       java.util.Optional<DeviceMessage.Identity> id;
       try {
         id = DeviceIdentity.await(r);
-      } catch (LoadstoneException e) {
-        if (r.lostReason().isPresent()) {
-          throw new DeviceLostException(r.lostReason().get());
-        }
-        throw e;
+      } catch (org.loadstone.acquire.DeviceLostException e) {
+        throw new DeviceLostException(e.getMessage());
       }
       SampleRate rate = SampleRate.await(r, DeviceIdentity.WAIT_MS);
       String text = id.isPresent()

@@ -35,7 +35,10 @@ import picocli.CommandLine.Command;
 public final class LoadstoneCommand implements Runnable {
   /** Exit code for an expected failure the user can fix (bad file, missing port, bad entry). */
   public static final int EXIT_USER_ERROR = 2;
-  /** Exit code when the device was lost during a command. */
+  /**
+   * Exit code when the device was lost or restarted during a command ({@code record}: while
+   * zeroing, armed or recording; a run recorded until then is stored, its cause saying which).
+   */
   public static final int EXIT_DEVICE_LOST = 3;
   /** Exit code for an unexpected internal failure. */
   public static final int EXIT_INTERNAL = 70;
@@ -87,7 +90,8 @@ public final class LoadstoneCommand implements Runnable {
           if (ex instanceof LoadstoneException le) {
             w.println("loadstone: " + CliHints.withHow(le, commandLine));
             w.flush();
-            return EXIT_USER_ERROR;
+            return le instanceof org.loadstone.acquire.DeviceLostException ? EXIT_DEVICE_LOST
+                : EXIT_USER_ERROR;
           }
           w.println("loadstone: internal error: " + ex);
           ex.printStackTrace(w);

@@ -23,6 +23,7 @@ import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.SampleRate;
 import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.acquire.ScalePolicy;
+import org.loadstone.archive.FinishCause;
 import org.loadstone.archive.Geometry;
 import org.loadstone.archive.JournalRecovery;
 import org.loadstone.archive.StoredRun;
@@ -42,6 +43,13 @@ import picocli.CommandLine.Option;
       "",
       "Zero, wait for load, record with a pre-trigger history, stop by itself at",
       "the load drop (or overload, time limit, Ctrl-C)."
+    },
+    exitCodeListHeading = "%nExit codes:%n",
+    exitCodeList = {
+      "0:a run was stored, or none was started (stopped while armed)",
+      "2:refused or failed: the message names the fault and the fix",
+      "3:the device was lost or restarted; a run recorded until then is stored",
+      "70:internal error (a bug; please report it)"
     })
 public final class RecordCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
@@ -216,10 +224,20 @@ public final class RecordCommand implements Callable<Integer> {
         throw new LoadstoneException(rec.failure().get());
       }
       if (result.isEmpty()) {
-        say(err, reader.lostReason().orElse("stopped before any load: no run recorded"));
-        return reader.lostReason().isPresent() ? LoadstoneCommand.EXIT_DEVICE_LOST : 0;
+        java.util.Optional<String> gone = reader.lostReason().or(reader::resetReason);
+        say(err, gone.map(why -> why + ": no run recorded (the device was lost or restarted"
+            + " before load came on)").orElse("stopped before any load: no run recorded"));
+        return gone.isPresent() ? LoadstoneCommand.EXIT_DEVICE_LOST : 0;
       }
       RecordSummary.print(result.get(), json, archive.archive, analysis, out);
+      FinishCause cause = result.get().cause();
+      if (cause == FinishCause.DEVICE_LOST || cause == FinishCause.DEVICE_RESET) {
+        say(err, (cause == FinishCause.DEVICE_LOST ? reader.lostReason() : reader.resetReason())
+            .orElse("the device went away") + ": the run is stored up to the last sample"
+            + " received before (" + result.get().samples() + " samples, cause "
+            + cause.wireName() + ")");
+        return LoadstoneCommand.EXIT_DEVICE_LOST;
+      }
       return 0;
     } finally {
       reader.close();

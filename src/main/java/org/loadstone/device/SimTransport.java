@@ -30,6 +30,10 @@ public final class SimTransport implements Transport {
   private long streamStartNanos;
   private long emitted;
   private int pendingOffset;
+  private volatile Restart restartAsked;
+  private boolean held;
+  private int seqBase;
+  private long usBase;
 
   /**
    * @param source what the simulated cell measures
@@ -124,12 +128,43 @@ public final class SimTransport implements Transport {
     int w = off;
     int end = off + len;
     while (emitted < due && end - w >= WireEncoder.MAX_SAMPLE_BYTES) {
-      source.next(slot);
-      w += encoder.sample(buf, w, slot.seq, slot.deviceUs, slot.counts,
-          source.hasPosition(), slot.positionCounts);
+      if (!held) {
+        source.next(slot);
+      }
+      held = false;
+      Restart r = restartAsked;
+      if (r != null) {
+        restartAsked = null;
+        seqBase = slot.seq;
+        usBase = r.clock() ? (slot.deviceUs - BOOT_US) & 0xFFFF_FFFFL : 0;
+        if (r.identity()) { // the identity goes first; the sample waits for the next read
+          reply(identityBody());
+          held = true;
+          return w - off;
+        }
+      }
+      w += encoder.sample(buf, w, (slot.seq - seqBase) & 0xFFFF,
+          (slot.deviceUs - usBase) & 0xFFFF_FFFFL, slot.counts, source.hasPosition(),
+          slot.positionCounts);
       emitted++;
     }
     return w - off;
+  }
+
+  /** How a simulated restart shows: an identity line, and whether the clock starts over. */
+  private record Restart(boolean identity, boolean clock) {}
+
+  /** Device time at the first sample after a simulated restart, µs. */
+  private static final long BOOT_US = 2000;
+
+  /**
+   * Simulates the board restarting while it streams (a brown-out, a watchdog): before the next
+   * sample its sequence starts over at 0 and, when {@code clockRestarts}, its clock at 2 ms;
+   * with {@code sendsIdentity} it first sends its identity, as a board does on power-up (without,
+   * as if that line were damaged). The load it measures goes on.
+   */
+  public void restartDevice(boolean sendsIdentity, boolean clockRestarts) {
+    restartAsked = new Restart(sendsIdentity, clockRestarts);
   }
 
   private long dueSamples() {

@@ -17,8 +17,6 @@ import java.util.Iterator;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
@@ -37,14 +35,12 @@ import org.loadstone.units.TextFiles;
  *
  * <p>Every refusal is a {@link LoadstoneException} naming the file, the line (1-based, counted
  * in the whole file) and the column, with the fix: unknown unit, empty or NaN cell, text that is
- * not a number, time that does not increase, fewer than 2 data rows, missing column.
+ * not a number, time that does not increase, fewer than 2 data rows, missing column. This class
+ * reads the rows into a run; the layout (delimiter, columns, units) is {@link ImportColumns}',
+ * the cells {@link ImportCells}'.
  */
 public final class CsvImport {
   private CsvImport() {}
-
-  private static final Pattern UNIT_IN_HEADER = Pattern.compile("[\\[(]\\s*([^\\])]+?)\\s*[\\])]\\s*$");
-  private static final Pattern NUMBER =
-      Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
 
   /**
    * Reads a CSV with columns {@code time_s, force_N} and optionally {@code position_mm} (other
@@ -88,7 +84,7 @@ public final class CsvImport {
     int bodyStart = lineStarts[s.skipLines()];
     String body = text.substring(bodyStart);
     char delim = s.delimiter() != null ? s.delimiter()
-        : detectDelimiter(body, s.decimalComma(), name, s.skipLines() + 1);
+        : ImportColumns.delimiter(body, s.decimalComma(), name, s.skipLines() + 1);
     // a plain file separated by ';' or tab may use either decimal mark (a spreadsheet export)
     boolean decimalComma = s.decimalComma() || (plain && delim != ',');
     List<String> notes = new ArrayList<>();
@@ -117,18 +113,19 @@ public final class CsvImport {
       throw CsvInput.translate(e, InputException.in("import file", file),
           "check quotes and the delimiter");
     }
-    int ti = column(s.columns().time(), header, name, headerLine, false);
-    int fi = column(s.columns().force(), header, name, headerLine, false);
+    int ti = ImportColumns.column(s.columns().time(), header, name, headerLine, false);
+    int fi = ImportColumns.column(s.columns().force(), header, name, headerLine, false);
     int pi = s.columns().position() == null ? -1
-        : column(s.columns().position(), header, name, headerLine, plain);
-    if (isIndex(s.columns().time()) && isIndex(s.columns().force())
-        && numeric(header, ti, decimalComma) && numeric(header, fi, decimalComma)) {
+        : ImportColumns.column(s.columns().position(), header, name, headerLine, plain);
+    if (ImportColumns.isIndex(s.columns().time()) && ImportColumns.isIndex(s.columns().force())
+        && ImportColumns.numeric(header, ti, decimalComma)
+        && ImportColumns.numeric(header, fi, decimalComma)) {
       rows.add(0, header.toArray(new String[0])); // no header row: the first line is data
       rowLines.add(0, headerLine);
       header = null;
       notes.add("No header row: the first line was read as data.");
     }
-    if (pi >= 0 && plain && allBlank(rows, pi)) {
+    if (pi >= 0 && plain && ImportColumns.allBlank(rows, pi)) {
       pi = -1;
       notes.add("The position column is empty: the run has no position.");
     }
@@ -136,18 +133,20 @@ public final class CsvImport {
       throw new LoadstoneException("File " + name + " has " + rows.size() + " data row(s); a run "
           + "needs at least 2. Check the skip count and that the whole file was saved.");
     }
-    DurationUnit tu = unit(s.timeUnit(), header, ti, "time", DurationUnit.S, DurationUnit::parse,
-        DurationUnit::symbol, name, headerLine, notes, Setting.IMPORT_TIME_UNIT);
-    ForceUnit fu = unit(s.forceUnit(), header, fi, "force", ForceUnit.N, ForceUnit::parse,
-        ForceUnit::symbol, name, headerLine, notes, Setting.IMPORT_FORCE_UNIT);
-    LengthUnit lu = pi < 0 ? null : unit(s.lengthUnit(), header, pi, "position", LengthUnit.MM,
-        LengthUnit::parse, LengthUnit::symbol, name, headerLine, notes, Setting.IMPORT_LENGTH_UNIT);
+    DurationUnit tu = ImportColumns.unit(s.timeUnit(), header, ti, "time", DurationUnit.S,
+        DurationUnit::parse, DurationUnit::symbol, name, headerLine, notes,
+        Setting.IMPORT_TIME_UNIT);
+    ForceUnit fu = ImportColumns.unit(s.forceUnit(), header, fi, "force", ForceUnit.N,
+        ForceUnit::parse, ForceUnit::symbol, name, headerLine, notes, Setting.IMPORT_FORCE_UNIT);
+    LengthUnit lu = pi < 0 ? null : ImportColumns.unit(s.lengthUnit(), header, pi, "position",
+        LengthUnit.MM, LengthUnit::parse, LengthUnit::symbol, name, headerLine, notes,
+        Setting.IMPORT_LENGTH_UNIT);
 
     int n = rows.size();
     double[] t = new double[n];
     double[] f = new double[n];
     double[] x = pi < 0 ? null : new double[n];
-    Cells c = new Cells(name, header, decimalComma);
+    ImportCells c = new ImportCells(name, header, decimalComma);
     for (int i = 0; i < n; i++) {
       String[] row = rows.get(i);
       int line = rowLines.get(i);
@@ -191,10 +190,10 @@ public final class CsvImport {
 
   /** A run CSV's own raw columns, kept when present (raw is truth); null when absent. */
   private static RunData withRaw(double[] t, double[] f, double[] x, List<String[]> rows,
-      List<Integer> lines, List<String> header, Cells c, List<String> notes) {
-    int rc = column("raw_counts", header, "", 0, true);
-    int sq = column("seq", header, "", 0, true);
-    int rp = x == null ? -1 : column("raw_position", header, "", 0, true);
+      List<Integer> lines, List<String> header, ImportCells c, List<String> notes) {
+    int rc = ImportColumns.column("raw_counts", header, "", 0, true);
+    int sq = ImportColumns.column("seq", header, "", 0, true);
+    int rp = x == null ? -1 : ImportColumns.column("raw_position", header, "", 0, true);
     if (rc < 0 || sq < 0 || (x != null && rp < 0)) {
       return null;
     }
@@ -279,146 +278,5 @@ public final class CsvImport {
     }
     int k = Arrays.binarySearch(starts, offset);
     return (k >= 0 ? k : -k - 2) + 1;
-  }
-
-  private static char detectDelimiter(String body, boolean decimalComma, String name, int line) {
-    int end = body.indexOf('\n');
-    String first = end < 0 ? body : body.substring(0, end);
-    char best = 0;
-    long bestCount = 0;
-    for (char d : new char[] {';', '\t', ','}) {
-      if (d == ',' && decimalComma) {
-        continue;
-      }
-      long count = first.chars().filter(ch -> ch == d).count();
-      if (count > bestCount) {
-        best = d;
-        bestCount = count;
-      }
-    }
-    if (best == 0) {
-      throw new LoadstoneException("File " + name + " line " + line + ": no comma, semicolon or "
-          + "tab found, so the columns cannot be told apart. Give the file's column delimiter "
-          + "or check the skip count.", Setting.IMPORT_DELIMITER);
-    }
-    return best;
-  }
-
-  private static boolean isIndex(String ref) {
-    return ref.chars().allMatch(Character::isDigit);
-  }
-
-  private static int column(String ref, List<String> header, String name, int line,
-      boolean optional) {
-    if (isIndex(ref)) {
-      int k = Integer.parseInt(ref);
-      if (k < 1 || k > header.size()) {
-        throw new LoadstoneException("File " + name + " line " + line + " has " + header.size()
-            + " column(s); column number " + ref + " does not exist. Columns count from 1.");
-      }
-      return k - 1;
-    }
-    for (int i = 0; i < header.size(); i++) {
-      if (header.get(i).trim().equalsIgnoreCase(ref)) {
-        return i;
-      }
-    }
-    if (optional) {
-      return -1;
-    }
-    throw new LoadstoneException("File " + name + " line " + line + " has no column named '" + ref
-        + "'; its columns are " + header + ". Map by one of these names or by number.");
-  }
-
-  private static boolean numeric(List<String> header, int i, boolean decimalComma) {
-    String v = header.get(i).trim();
-    return NUMBER.matcher(decimalComma ? v.replace(',', '.') : v).matches();
-  }
-
-  private static boolean allBlank(List<String[]> rows, int col) {
-    for (String[] r : rows) {
-      if (col < r.length && !r[col].isBlank()) {
-        return false;
-      }
-    }
-    return true;
-  }
-
-  private static <U> U unit(U given, List<String> header, int col, String role, U fallback,
-      java.util.function.Function<String, U> parse, java.util.function.Function<U, String> symbol,
-      String file, int line, List<String> notes, Setting option) {
-    String fromHeader = null;
-    if (header != null) {
-      Matcher m = UNIT_IN_HEADER.matcher(header.get(col).trim());
-      if (m.find()) {
-        fromHeader = m.group(1);
-      }
-    }
-    if (given != null) {
-      if (fromHeader != null && !fromHeader.equalsIgnoreCase(symbol.apply(given))) {
-        notes.add("The " + role + " header says '" + fromHeader + "' but the unit "
-            + symbol.apply(given) + " was given; the given unit is used.");
-      }
-      return given;
-    }
-    if (fromHeader != null) {
-      try {
-        return parse.apply(fromHeader);
-      } catch (LoadstoneException e) {
-        throw new LoadstoneException("File " + file + " line " + line + " column "
-            + InputException.shown(header.get(col).trim()) + ": " + e.getMessage() + ". Give the " + role
-            + " unit of the file.", e, option);
-      }
-    }
-    notes.add("No " + role + " unit given or in the header: " + symbol.apply(fallback)
-        + " assumed.");
-    return fallback;
-  }
-
-  /** Turns cells into numbers with messages naming file, line and column. */
-  private record Cells(String file, List<String> header, boolean decimalComma) {
-    String label(int col) {
-      return header == null ? "#" + (col + 1) : InputException.shown(header.get(col).trim());
-    }
-
-    double number(String[] row, int col, int line) {
-      String where = "File " + file + " line " + line + " column " + label(col);
-      if (col >= row.length || row[col].isBlank()) {
-        throw new LoadstoneException(where + ": the cell is empty. Fill it or remove the row.");
-      }
-      String raw = row[col].trim();
-      String low = raw.toLowerCase(Locale.ROOT);
-      if (low.equals("nan") || low.contains("inf")) {
-        throw new LoadstoneException(where + ": the cell holds " + InputException.shown(raw)
-            + ", not a measured "
-            + "value. Remove or repair that row.");
-      }
-      String v = decimalComma ? raw.replace(',', '.') : raw;
-      if (!NUMBER.matcher(v).matches()) {
-        boolean comma = !decimalComma && raw.matches("[+-]?\\d+,\\d+");
-        String hint = comma
-            ? " The file seems to use a decimal comma: read it with a decimal comma."
-            : " Check the column mapping and the skip count.";
-        throw new LoadstoneException(where + ": " + InputException.shown(raw)
-            + " is not a number." + hint,
-            comma ? new Setting[] {Setting.IMPORT_DECIMAL_COMMA} : new Setting[0]);
-      }
-      double d = Double.parseDouble(v);
-      if (!Double.isFinite(d)) {
-        throw new LoadstoneException(where + ": " + InputException.shown(raw) + " is out of the"
-            + " range of numbers. Repair the cell or remove the row.");
-      }
-      return d;
-    }
-
-    int integer(String[] row, int col, int line) {
-      double v = number(row, col, line);
-      if (v != Math.rint(v) || Math.abs(v) > Integer.MAX_VALUE) {
-        throw new LoadstoneException("File " + file + " line " + line + " column " + label(col)
-            + ": " + InputException.shown(row[col].trim()) + " is not a whole number of counts. Repair the cell or "
-            + "drop the raw columns.");
-      }
-      return (int) v;
-    }
   }
 }

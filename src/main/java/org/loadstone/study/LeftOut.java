@@ -62,6 +62,10 @@ public record LeftOut(String runId, String specimen, String group, List<Kind> ki
     OVERLOAD("overload", "stopped at the overload level, not ended by a break"),
     /** the device stopped answering during the run */
     DEVICE_LOST("device-lost", "the device stopped answering during the run"),
+    /** the device restarted during the run */
+    DEVICE_RESET("device-reset", "the device restarted during the run"),
+    /** the journal could not be written during the run */
+    DISK_FULL("disk-full", "the disk filled during the run; samples may be missing"),
     /** rebuilt from its journal after the program ended during the run */
     RECOVERED("recovered", "rebuilt from its journal after the program stopped during the run; "
         + "how it ended is unknown"),

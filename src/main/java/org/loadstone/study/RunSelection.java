@@ -130,6 +130,8 @@ public record RunSelection(Set<Kind> admitted, List<String> groups) {
       case TIME_LIMIT -> Optional.of(Kind.TIME_LIMIT);
       case OVERLOAD -> Optional.of(Kind.OVERLOAD);
       case DEVICE_LOST -> Optional.of(Kind.DEVICE_LOST);
+      case DEVICE_RESET -> Optional.of(Kind.DEVICE_RESET);
+      case DISK_FULL -> Optional.of(Kind.DISK_FULL);
       case RECOVERED -> Optional.of(Kind.RECOVERED);
     };
   }

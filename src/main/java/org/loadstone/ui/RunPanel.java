@@ -2,9 +2,7 @@ package org.loadstone.ui;
 
 import java.util.List;
 import java.util.Locale;
-import java.util.OptionalDouble;
 import java.util.concurrent.TimeUnit;
-import java.util.function.Supplier;
 import javafx.application.Platform;
 import javafx.scene.Parent;
 import javafx.scene.control.Button;
@@ -24,17 +22,15 @@ import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.RunTemplate;
 import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.acquire.StationStatus;
-import org.loadstone.archive.Run;
 import org.loadstone.device.PressOperator;
 import org.loadstone.study.RunMetrics;
-import org.loadstone.archive.RunReader;
 import org.loadstone.units.LoadstoneException;
 
 /**
  * The run section of the console: specimen, group and mass; arm and stop; the run's state; and,
  * once a run is stored, its post-run figures (peak, break, stiffness, energy, per gram) as the
- * archive's analysis gives them. Thin: recording is {@link Recorder}'s, figures {@link
- * RunMetrics}'.
+ * archive's analysis gives them ({@link RunFigures}). Thin: recording is {@link Recorder}'s,
+ * figures {@link RunMetrics}'.
  */
 final class RunPanel {
   /** Where the device and its live feed are, once connected. */
@@ -57,8 +53,8 @@ final class RunPanel {
   private final TextField groupField = field("group-field", "group (e.g. balsa)");
   private final TextField massField = field("mass-field", "mass (g)");
   private final Label runResult = LivePane.label("run-result", "");
-  /** The last run's figures, as tiles: a name over a large value. */
-  private final FlowPane figures = new FlowPane(28, 8);
+  /** The last run's figures, read back from the archive. */
+  private final RunFigures figures = new RunFigures();
   private final SpecimenFields specimenFields = new SpecimenFields();
   private final VBox root;
   /** Arm, stop (and next specimen on the simulated press), for the state band. */
@@ -124,9 +120,6 @@ final class RunPanel {
       root.getChildren().add(next);
     }
     runResult.setWrapText(true);
-    figures.setId("run-figures");
-    figures.getStyleClass().add("run-figures");
-    showFigures(false);
     actions = buttons;
     root.getChildren().add(runResult);
   }
@@ -154,7 +147,7 @@ final class RunPanel {
 
   /** The last run's figures, for a place of their own (empty until a run is stored). */
   FlowPane figures() {
-    return figures;
+    return figures.node();
   }
 
   /**
@@ -208,8 +201,7 @@ final class RunPanel {
     notStored = false;
     lastCause = null;
     note = null;
-    figures.getChildren().clear();
-    showFigures(false);
+    figures.clear();
     runResult.setText("");
     Thread t = new Thread(() -> prepareAndArm(setup, feed, request, store), "run set-up");
     t.setDaemon(true);
@@ -393,7 +385,8 @@ final class RunPanel {
           r.cause().wireName(), r.samples()) + (r.returnToZero_N() == null ? ""
               : String.format(Locale.ROOT, " · return to zero %+.3g N", r.returnToZero_N()));
       Platform.runLater(() -> runResult.setText(text));
-      analyse(r.stored().csv());
+      figures.analyse(r.stored().csv(),
+          why -> runResult.setText(runResult.getText() + " · not analysed: " + why));
     }
 
     @Override
@@ -410,85 +403,5 @@ final class RunPanel {
       disarmed = true;
       Platform.runLater(() -> runResult.setText(why));
     }
-  }
-
-  /** Reads the stored run back and shows its figures; off the JavaFX thread. */
-  private void analyse(java.nio.file.Path csv) {
-    Supplier<Runnable> work = () -> {
-      try {
-        Run run = RunReader.read(csv);
-        RunMetrics m = RunMetrics.of(run.metadata(), run.data());
-        return () -> show(m);
-      } catch (LoadstoneException e) {
-        return () -> runResult.setText(runResult.getText() + " · not analysed: " + e.getMessage());
-      }
-    };
-    Thread t = new Thread(() -> Platform.runLater(work.get()), "post-run analysis");
-    t.setDaemon(true);
-    t.start();
-  }
-
-  private void showFigures(boolean on) {
-    figures.setVisible(on);
-    figures.setManaged(on);
-  }
-
-  private void show(RunMetrics m) {
-    figures.getChildren().clear();
-    showFigures(true);
-    var r = m.analysis();
-    tile("peak", fmt(r.peakForce_N(), "N"), at(r.displacementAtPeak_mm()));
-    r.breakPoint().ifPresent(b -> tile("break", fmt(b.force_N(), "N"),
-        at(r.displacementAtBreak_mm())));
-    tile("stiffness", r.stiffness().map(s -> fmt(s.slope_N_per_mm(), "N/mm")).orElse("—"),
-        r.stiffness().map(s -> String.format(Locale.ROOT, "R² %.4f", s.rSquared())).orElse(""));
-    tile("energy", opt(r.energyToBreak_J(), "J"), "to break · " + opt(r.energyToPeak_J(), "J")
-        + " to peak");
-    if (m.flexuralStressAtPeak_MPa().isPresent()) {
-      tile("flexural stress", opt(m.flexuralStressAtPeak_MPa(), "MPa"), "at peak · modulus "
-          + opt(m.flexuralModulus_MPa(), "MPa"));
-    }
-    if (m.coreShearStressAtPeak_MPa().isPresent()) {
-      tile("core shear", opt(m.coreShearStressAtPeak_MPa(), "MPa"), "at peak · facing "
-          + opt(m.facingStressAtPeak_MPa(), "MPa"));
-    }
-    if (m.compressionStressAtPeak_MPa().isPresent()) {
-      tile("compression", opt(m.compressionStressAtPeak_MPa(), "MPa"), "stress at peak");
-    }
-    if (m.specificPeak_N_per_g().isPresent()) {
-      tile("per gram", opt(m.specificPeak_N_per_g(), "N/g"),
-          opt(m.specificEnergyToBreak_J_per_g(), "J/g") + " to break");
-    }
-    if (!m.notes().isEmpty()) {
-      Label note = LivePane.label("run-note", "note: " + m.notes().get(0));
-      note.setWrapText(true);
-      figures.getChildren().add(note);
-    }
-  }
-
-  private void tile(String name, String value, String detail) {
-    Label k = new Label(name.toUpperCase(Locale.ROOT));
-    k.getStyleClass().add("figure-name");
-    Label v = new Label(value);
-    v.getStyleClass().add("figure-value");
-    v.setId("figure-" + name.replace(' ', '-'));
-    Label d = new Label(detail);
-    d.getStyleClass().add("figure-detail");
-    figures.getChildren().add(new VBox(2, k, v, d));
-  }
-
-  private static String at(OptionalDouble travel_mm) {
-    return travel_mm.isPresent()
-        ? String.format(Locale.ROOT, "at %.2f mm", travel_mm.getAsDouble()) : "";
-  }
-
-  private static String opt(OptionalDouble v, String unit) {
-    return v.isPresent() ? fmt(v.getAsDouble(), unit) : "—";
-  }
-
-  static String fmt(double v, String unit) {
-    double a = Math.abs(v);
-    String f = a >= 1000 ? "%.0f" : a >= 100 ? "%.1f" : a >= 1 ? "%.2f" : "%.3g";
-    return String.format(Locale.ROOT, f, v) + " " + unit;
   }
 }

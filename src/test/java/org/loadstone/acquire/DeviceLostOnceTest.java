@@ -1,5 +1,7 @@
 package org.loadstone.acquire;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
@@ -69,7 +71,7 @@ class DeviceLostOnceTest {
     }
     await(go);
     link.cut.countDown(); // and the read fails at the same time
-    assertThat(heard.await(60, TimeUnit.SECONDS)).isTrue();
+    assertThat(heard.await(HangGuard.S, TimeUnit.SECONDS)).isTrue();
     for (Thread t : threads) {
       t.join();
     }

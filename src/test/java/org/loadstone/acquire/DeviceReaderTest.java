@@ -1,5 +1,7 @@
 package org.loadstone.acquire;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.ByteArrayOutputStream;
@@ -61,7 +63,7 @@ class DeviceReaderTest {
     Canned device = new Canned(stream("I proto=2 fw=9.0 rate=80", 50));
     DeviceReader r = new DeviceReader(device, new SampleRing(1024));
     r.start();
-    assertThat(device.fed.await(60, TimeUnit.SECONDS)).isTrue();
+    assertThat(device.fed.await(HangGuard.S, TimeUnit.SECONDS)).isTrue();
     assertThat(r.unsupportedVersion()).hasValueSatisfying(m -> assertThat(m)
         .contains("protocol version 2").contains("speaks version 1").contains("firmware"));
     assertThat(r.samplesAccepted()).isZero();
@@ -82,7 +84,7 @@ class DeviceReaderTest {
     Canned device = new Canned(out.toByteArray());
     DeviceReader r = new DeviceReader(device, new SampleRing(1024));
     r.start();
-    assertThat(device.fed.await(60, TimeUnit.SECONDS)).isTrue();
+    assertThat(device.fed.await(HangGuard.S, TimeUnit.SECONDS)).isTrue();
     r.close();
     assertThat(r.samplesAccepted()).isEqualTo(4);
     // unwrapped time keeps increasing by 1000 µs through the wrap

@@ -1,5 +1,7 @@
 package org.loadstone.acquire;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
@@ -159,7 +161,7 @@ class JournalWriterTest {
         reportedDurable = Long.parseLong(line.split(" ")[3]);
       }
       p.destroyForcibly(); // SIGKILL on Linux: no shutdown hooks, no final flush
-      assertThat(p.waitFor(60, TimeUnit.SECONDS)).isTrue();
+      assertThat(p.waitFor(HangGuard.S, TimeUnit.SECONDS)).isTrue();
     }
     assertThat(reportedDurable).as("durable samples the child reported").isGreaterThanOrEqualTo(1500);
 

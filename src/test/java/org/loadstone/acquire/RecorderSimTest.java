@@ -1,5 +1,7 @@
 package org.loadstone.acquire;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.time.Instant;
@@ -44,12 +46,12 @@ class RecorderSimTest {
   }
 
   @Test
-  @Timeout(30)
+  @Timeout(HangGuard.TEST_S)
   void stoppedBeforeLoadComesOnItSaysSoAndStoresNothing() throws Exception {
     SimSetup setup = new SimSetup("brittle", 5, 1000, false, 1);
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
-    double zero = Recorder.tare(reader, 100, 5000);
+    double zero = Tare.counts(reader, 100, HangGuard.MS);
     // a start level the specimen never reaches
     RunSettings s = RunSettings.builder().startThreshold_N(1e6).ratedCapacity_N(2e6).build();
     MemoryRunStore store = new MemoryRunStore();
@@ -67,7 +69,8 @@ class RecorderSimTest {
       Thread.sleep(5); // until the armed recorder has weighed a sample
     }
     rec.stop();
-    assertThat(rec.await(10, TimeUnit.SECONDS)).isEmpty();
+    assertThat(rec.await(HangGuard.S, TimeUnit.SECONDS)).isEmpty();
+    assertThat(rec.ended()).as("the recorder ended, not only the wait").isTrue();
     reader.close();
     assertThat(why.get()).isEqualTo("disarmed before load came on: no run stored");
     assertThat(store.startMeta).as("no run begun").isNull();
@@ -75,7 +78,7 @@ class RecorderSimTest {
   }
 
   @Test
-  @Timeout(60)
+  @Timeout(HangGuard.TEST_S)
   void brittleRunStopsAtTheBreakWithTheTruePeakAndKeepsThePretrigger() throws Exception {
     int rate = 1000;
     SimSetup setup = new SimSetup("brittle", 5, rate, false, 8);
@@ -84,7 +87,7 @@ class RecorderSimTest {
     DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 20));
     reader.start();
     double countsPerN = setup.nominalCountsPerN();
-    double zero = Recorder.tare(reader, 200, 5000);
+    double zero = Tare.counts(reader, 200, HangGuard.MS);
     // the simulated press starts 1 s after the arming and touches the specimen 0.6 s later: 0.3 s
     // of history fits
     RunSettings s = RunSettings.builder().startThreshold_N(5).pretrigger_s(0.3)
@@ -93,7 +96,7 @@ class RecorderSimTest {
     Recorder rec = new Recorder(reader, ForceScale.linear(countsPerN, "nominal"), zero, s,
         template("b1", rate), store, null);
     rec.arm();
-    Recorder.Result r = rec.await(50, TimeUnit.SECONDS).orElseThrow();
+    Recorder.Result r = rec.await(HangGuard.S, TimeUnit.SECONDS).orElseThrow();
     reader.close();
 
     assertThat(r.cause()).isEqualTo(FinishCause.BREAK);
@@ -135,13 +138,13 @@ class RecorderSimTest {
   }
 
   @Test
-  @Timeout(60)
+  @Timeout(HangGuard.TEST_S)
   void overRangeSpecimenStopsForOverload() throws Exception {
     SimSetup setup = new SimSetup("over-range", 2, 1000, false, 8);
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
     double k = setup.nominalCountsPerN();
-    double zero = Recorder.tare(reader, 100, 5000);
+    double zero = Tare.counts(reader, 100, HangGuard.MS);
     double capacity = setup.buildFrame().truth().loadCell().capacity_N();
     RunSettings s = RunSettings.builder().ratedCapacity_N(capacity).build();
     MemoryRunStore store = new MemoryRunStore();
@@ -154,7 +157,7 @@ class RecorderSimTest {
           }
         });
     rec.arm();
-    Recorder.Result r = rec.await(50, TimeUnit.SECONDS).orElseThrow();
+    Recorder.Result r = rec.await(HangGuard.S, TimeUnit.SECONDS).orElseThrow();
     reader.close();
     assertThat(r.cause()).isEqualTo(FinishCause.OVERLOAD);
     assertThat(warnings).anySatisfy(w -> assertThat(w).contains("overload warning"));
@@ -165,21 +168,21 @@ class RecorderSimTest {
   }
 
   @Test
-  @Timeout(60)
+  @Timeout(HangGuard.TEST_S)
   void aRunThatEndsUnloadedStoresItsReturnToZero() throws Exception {
     int rate = 1000;
     SimSetup setup = new SimSetup("ductile", 3, rate, false, 8);
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
     double countsPerN = setup.nominalCountsPerN();
-    double zero = Recorder.tare(reader, 200, 5000);
+    double zero = Tare.counts(reader, 200, HangGuard.MS);
     MemoryRunStore store = new MemoryRunStore();
     // the break at rupture, not at the necking's fall to about half the peak
     RunSettings s = RunSettings.builder().ratedCapacity_N(500).breakDropPct(90).build();
     Recorder rec = new Recorder(reader, ForceScale.linear(countsPerN, "nominal"), zero, s,
         template("rz", rate), store, null);
     rec.arm();
-    Recorder.Result r = rec.await(50, TimeUnit.SECONDS).orElseThrow();
+    Recorder.Result r = rec.await(HangGuard.S, TimeUnit.SECONDS).orElseThrow();
     reader.close();
     assertThat(r.cause()).isEqualTo(FinishCause.BREAK);
     // the ductile specimen ruptures and carries no load after it (simulator: SuddenDrop to 0),
@@ -200,13 +203,13 @@ class RecorderSimTest {
   }
 
   @Test
-  @Timeout(60)
+  @Timeout(HangGuard.TEST_S)
   void cablePulledFinishesAsDeviceLostWithTheData() throws Exception {
     SimSetup setup = new SimSetup("ductile", 3, 1000, false, 4);
     SimTransport t = setup.openTransport();
     DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 20));
     reader.start();
-    double zero = Recorder.tare(reader, 100, 5000);
+    double zero = Tare.counts(reader, 100, HangGuard.MS);
     MemoryRunStore store = new MemoryRunStore();
     java.util.concurrent.atomic.AtomicReference<RunControl.Started> started =
         new java.util.concurrent.atomic.AtomicReference<>();
@@ -222,7 +225,7 @@ class RecorderSimTest {
       Thread.sleep(5);
     }
     t.pullCable();
-    Recorder.Result r = rec.await(20, TimeUnit.SECONDS).orElseThrow();
+    Recorder.Result r = rec.await(HangGuard.S, TimeUnit.SECONDS).orElseThrow();
     assertThat(r.cause()).isEqualTo(FinishCause.DEVICE_LOST);
     // every sample from the start to the last one before the cable was pulled
     assertThat(r.samples()).isEqualTo(reader.samplesAccepted() - started.get().firstIndex());

@@ -1,5 +1,7 @@
 package org.loadstone.acquire;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
@@ -73,7 +75,7 @@ class RunSetupTest {
   }
 
   @Test
-  @Timeout(60)
+  @Timeout(HangGuard.TEST_S)
   void withAnIdentityTheRateIsTheStatedOneAndTheZeroHalfASecondOfIt() {
     SimSetup sim = new SimSetup("brittle", 5, 1000, false, 1);
     DeviceReader reader = new DeviceReader(sim.openTransport(), new SampleRing(1 << 20));
@@ -101,7 +103,7 @@ class RunSetupTest {
   }
 
   @Test
-  @Timeout(60)
+  @Timeout(HangGuard.TEST_S)
   void withoutAnIdentityTheRateComesFromTheDeviceClockDespiteLostSamplesAndIsStated() {
     // a 1 kS/s device whose identity never arrives and that loses every third sample line
     SimSetup sim = new SimSetup("brittle", 5, 1000, false, 1);
@@ -174,7 +176,7 @@ class RunSetupTest {
   }
 
   @Test
-  @Timeout(60)
+  @Timeout(HangGuard.TEST_S)
   void aZeroThatMovedSinceTheLastTareIsWarnedAboutAndStoredWithTheRun() {
     SimSetup sim = new SimSetup("brittle", 5, 1000, false, 1);
     DeviceReader reader = new DeviceReader(sim.openTransport(), new SampleRing(1 << 20));

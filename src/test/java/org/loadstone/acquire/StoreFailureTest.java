@@ -1,5 +1,7 @@
 package org.loadstone.acquire;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.nio.file.Files;
@@ -23,13 +25,13 @@ class StoreFailureTest {
   @TempDir Path archive;
 
   @Test
-  @Timeout(60)
+  @Timeout(HangGuard.TEST_S)
   void outOfMemoryWhileStoringEndsWithAMessageAndKeepsTheJournal() throws Exception {
     SimSetup setup = new SimSetup("ductile", 3, 1000, false, 4);
     SimTransport t = setup.openTransport();
     DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 20));
     reader.start();
-    double zero = Recorder.tare(reader, 100, 5000);
+    double zero = Tare.counts(reader, 100, HangGuard.MS);
     // the seam stands for the store running out of heap half-way through
     JournalRunStore store = new JournalRunStore(archive, (dir, journal, last, meta) -> {
       throw new OutOfMemoryError("Java heap space");
@@ -48,7 +50,7 @@ class StoreFailureTest {
       Thread.sleep(5);
     }
     t.pullCable(); // ends the run (device lost), which stores it
-    assertThat(rec.await(30, TimeUnit.SECONDS)).isEmpty();
+    assertThat(rec.await(HangGuard.S, TimeUnit.SECONDS)).isEmpty();
     reader.close();
     assertThat(rec.ended()).as("the run-control thread is done, not spinning").isTrue();
     Path journal = JournalFormat.journalFile(archive, "test-oom");

@@ -1,5 +1,7 @@
 package org.loadstone.acquire;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.concurrent.CountDownLatch;
@@ -20,14 +22,14 @@ class TriggerAtSimSpeedTest {
 
   @ParameterizedTest
   @ValueSource(doubles = {1, 20, 100})
-  @Timeout(120)
+  @Timeout(HangGuard.TEST_S)
   void firstStoredSampleIsBelowTheThresholdAndTheHistoryIsWhole(double speed) throws Exception {
     SimSetup setup = new SimSetup("panel-board", 6, 80, false, speed, 0.5);
     double countsPerN = setup.nominalCountsPerN();
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
     try {
-      Recorder.Zero zero = Recorder.zero(reader, 40, 20_000);
+      Tare zero = Tare.take(reader, 40, HangGuard.MS);
       RunSettings s = RunSettings.builder().startThreshold_N(START_N).pretrigger_s(1.0)
           .ratedCapacity_N(1000).build();
       MemoryRunStore store = new MemoryRunStore();
@@ -43,7 +45,7 @@ class TriggerAtSimSpeedTest {
       rec.arm(zero.nextIndex());
       assertThat(started.await(100, TimeUnit.SECONDS)).isTrue();
       rec.stop();
-      assertThat(rec.await(20, TimeUnit.SECONDS)).isPresent();
+      assertThat(rec.await(HangGuard.S, TimeUnit.SECONDS)).isPresent();
 
       // 80 samples of history (1 s at 80 samples/s), then the first sample at the threshold
       assertThat(store.samples.size()).isGreaterThanOrEqualTo(81);

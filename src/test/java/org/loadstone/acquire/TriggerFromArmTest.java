@@ -1,5 +1,7 @@
 package org.loadstone.acquire;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.concurrent.TimeUnit;
@@ -53,7 +55,7 @@ class TriggerFromArmTest {
   }
 
   @Test
-  @Timeout(30)
+  @Timeout(HangGuard.TEST_S)
   void loadThatArrivesBeforeTheThreadLooksStillStartsTheRunAtTheCrossing() throws Exception {
     SampleRing ring = new SampleRing(1 << 14);
     DeviceReader reader = new DeviceReader(new Silent(), ring);
@@ -72,7 +74,7 @@ class TriggerFromArmTest {
     Recorder rec = new Recorder(reader, ForceScale.linear(1000, "test"), 0, s,
         RecorderSimTest.template("ramp", RATE_HZ), store, null);
     rec.arm(afterZero);
-    Recorder.Result r = rec.await(20, TimeUnit.SECONDS).orElseThrow();
+    Recorder.Result r = rec.await(HangGuard.S, TimeUnit.SECONDS).orElseThrow();
 
     assertThat(r.cause()).isEqualTo(FinishCause.BREAK);
     // the ramp reaches 5 N at t = 3.5 s, sample 350; a full second (100 samples) of history
@@ -90,7 +92,7 @@ class TriggerFromArmTest {
   }
 
   @Test
-  @Timeout(30)
+  @Timeout(HangGuard.TEST_S)
   void armWithoutAnIndexDecidesFromTheNextSampleWritten() throws Exception {
     SampleRing ring = new SampleRing(1 << 14);
     DeviceReader reader = new DeviceReader(new Silent(), ring);
@@ -108,7 +110,7 @@ class TriggerFromArmTest {
       int counts = i < 300 ? 60_000 : 0; // 60 N, then the break
       ring.put(i, i * 10_000L, i * 10_000L, counts, false, 0);
     }
-    Recorder.Result r = rec.await(20, TimeUnit.SECONDS).orElseThrow();
+    Recorder.Result r = rec.await(HangGuard.S, TimeUnit.SECONDS).orElseThrow();
     assertThat(r.cause()).isEqualTo(FinishCause.BREAK);
     // the first sample decided on is the first written after arm(): index 100, 20 back
     assertThat(store.firstIndex).isEqualTo(80);

@@ -1,5 +1,7 @@
 package org.loadstone.cli;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -23,7 +25,7 @@ import org.loadstone.sim.SimTruth;
  * calibration applied to the raw counts, and positions from an imported table or a crosshead
  * rate — checked against the simulator's ground truth.
  */
-@Timeout(120)
+@Timeout(HangGuard.TEST_S)
 class PositionSourcesCommandTest {
   @TempDir static Path tmp;
   static Path archive;

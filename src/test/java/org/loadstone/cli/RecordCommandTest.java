@@ -1,5 +1,7 @@
 package org.loadstone.cli;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -65,7 +67,7 @@ class RecordCommandTest {
   }
 
   @Test
-  @Timeout(90)
+  @Timeout(HangGuard.TEST_S)
   void brittleRunOnTheSimulatorStopsAtTheBreakAndIsStored() throws Exception {
     // an earlier run of the same device whose tare read 10 N more than the cell's zero
     SimSetup sim = new SimSetup("panel-balsa", 1, 1000, false, 8);
@@ -111,7 +113,7 @@ class RecordCommandTest {
   }
 
   @Test
-  @Timeout(90)
+  @Timeout(HangGuard.TEST_S)
   void aRunWithACalibrationReferencesItByIdAndHashAndCarriesItsWarnings() throws Exception {
     Path calDir = tmp.resolve("cal");
     Path project = Path.of(System.getProperty("loadstone.projectDir", "."), "calibration");
@@ -185,15 +187,20 @@ class RecordCommandTest {
     assertThat(r2.err()).contains("--capacity-N");
   }
 
+  /** A simulated ductile specimen (seed 4, 1 kS/s, 60 s) streamed into the pair's other end. */
+  private static void streamDuctile(SocatPair pty) {
+    Thread writer = new Thread(() -> LoadstoneCommand.run(new PrintWriter(new StringWriter()),
+        new PrintWriter(new StringWriter()), "simulate", "--scenario", "ductile", "--rate",
+        "1000", "--seconds", "60", "--seed", "4", "--out", pty.a().toString()));
+    writer.setDaemon(true);
+    writer.start();
+  }
+
   @Test
-  @Timeout(90)
+  @Timeout(HangGuard.TEST_S)
   void cablePulledMidRunKeepsTheDataAsDeviceLost() throws Exception {
     try (SocatPair pty = SocatPair.start()) {
-      Thread writer = new Thread(() -> LoadstoneCommand.run(new PrintWriter(new StringWriter()),
-          new PrintWriter(new StringWriter()), "simulate", "--scenario", "ductile", "--rate",
-          "1000", "--seconds", "60", "--seed", "4", "--out", pty.a().toString()));
-      writer.setDaemon(true);
-      writer.start();
+      streamDuctile(pty);
       AtomicInteger exit = new AtomicInteger(-1);
       StringWriter o = new StringWriter();
       StringWriter e = new StringWriter();
@@ -206,8 +213,10 @@ class RecordCommandTest {
       awaitJournalSamples(tmp, 1100); // counted in the journal, not timed
       pty.kill();
       rec.join(30_000);
-      assertThat(exit.get()).as(e.toString()).isZero();
+      // the run is stored, and the exit code says the device was lost
+      assertThat(exit.get()).as(e.toString()).isEqualTo(LoadstoneCommand.EXIT_DEVICE_LOST);
       Outcome r = new Outcome(exit.get(), o.toString(), e.toString());
+      assertThat(r.err()).contains("the run is stored up to the last sample received");
       assertThat(r.json().get("cause").asText()).isEqualTo("device-lost");
       assertThat(r.json().get("samples").asLong()).isGreaterThan(1000);
       assertThat(r.err()).doesNotContain("Exception").doesNotContain("\tat ");
@@ -217,7 +226,41 @@ class RecordCommandTest {
   }
 
   @Test
-  @Timeout(120)
+  @Timeout(HangGuard.TEST_S)
+  void cablePulledWhileArmedEndsRecordWithTheDeviceLostCode() throws Exception {
+    // issue 14: record never ended (and spun a core) when the device went while armed
+    try (SocatPair pty = SocatPair.start()) {
+      streamDuctile(pty);
+      AtomicInteger exit = new AtomicInteger(-1);
+      StringWriter e = new StringWriter();
+      java.util.concurrent.CountDownLatch armed = new java.util.concurrent.CountDownLatch(1);
+      PrintWriter errors = new PrintWriter(e, true) {
+        @Override
+        public void println(String x) {
+          super.println(x);
+          if (x.startsWith("armed")) {
+            armed.countDown();
+          }
+        }
+      };
+      Thread rec = new Thread(() -> exit.set(LoadstoneCommand.run(
+          new PrintWriter(new StringWriter()), errors, "record", "--port", pty.b().toString(),
+          "--counts-per-n", "100", "--capacity-N", "1e6", "--start-at-N", "5e5", "--specimen",
+          "armed", "--archive", tmp.toString())));
+      rec.start();
+      assertThat(armed.await(HangGuard.S, TimeUnit.SECONDS)).as(e.toString()).isTrue();
+      pty.kill();
+      rec.join(30_000);
+      assertThat(rec.isAlive()).as("record ended").isFalse();
+      assertThat(exit.get()).as(e.toString()).isEqualTo(LoadstoneCommand.EXIT_DEVICE_LOST);
+      assertThat(e.toString()).contains("stopped answering").contains("no run recorded")
+          .doesNotContain("\tat ");
+      assertThat(Files.list(tmp).filter(f -> f.toString().endsWith(".csv")).count()).isZero();
+    }
+  }
+
+  @Test
+  @Timeout(HangGuard.TEST_S)
   void killedWithSigkillTheJournalIsRecoveredAtTheNextStart() throws Exception {
     ProcessBuilder pb = new ProcessBuilder(Path.of(System.getProperty("java.home"), "bin", "java")
         .toString(), "-cp", System.getProperty("java.class.path"), "org.loadstone.Main", "record",
@@ -233,7 +276,7 @@ class RecordCommandTest {
     }
     awaitJournalSamples(tmp, 2000); // counted in the journal, not timed
     p.destroyForcibly(); // SIGKILL
-    assertThat(p.waitFor(60, TimeUnit.SECONDS)).isTrue();
+    assertThat(p.waitFor(HangGuard.S, TimeUnit.SECONDS)).isTrue();
     assertThat(Files.list(tmp).filter(f -> f.toString().endsWith(".csv")).count()).isZero();
 
     List<StoredRun> recovered = JournalRecovery.recoverAll(tmp);

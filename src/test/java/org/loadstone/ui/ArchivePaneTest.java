@@ -1,5 +1,7 @@
 package org.loadstone.ui;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.nio.file.Path;
@@ -52,17 +54,17 @@ class ArchivePaneTest {
 
   /** Ticks the box that counts nominal-scale runs and waits for the demo's 15 runs. */
   private void countNominalRuns(FxRobot robot) throws Exception {
-    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS,
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
         () -> robot.lookup("#archive-status").queryAs(Label.class).getText().contains("counted"));
     robot.clickOn("#archive-include-uncalibrated");
-    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> pane.table().getItems().size() == 15);
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> pane.table().getItems().size() == 15);
     WaitForAsyncUtils.waitForFxEvents(); // the charts are drawn in the same step as the list
   }
 
   @Test
   void listsTheRunsAndComparesTheGroupsAsTheArchiveStudyDoes(FxRobot robot) throws Exception {
     countNominalRuns(robot);
-    WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
         () -> robot.lookup("#archive-groups").tryQuery().isPresent());
     WaitForAsyncUtils.waitForFxEvents(); // the FX step that added the table may still be filling it
     StudyResult expected = GroupStudy.study(DEMO, NOMINAL_TOO, Metric.PEAK, 0.10);
@@ -117,14 +119,14 @@ class ArchivePaneTest {
           .setText(copy.toString());
       pane.reload();
     });
-    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> robot.lookup("#archive-status")
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> robot.lookup("#archive-status")
         .queryAs(Label.class).getText().contains("counted in " + copy));
     if (!pane.include(LeftOut.Kind.UNCALIBRATED).isSelected()) {
       robot.clickOn("#archive-include-uncalibrated");
     }
-    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> pane.table().getItems().size() == 15);
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> pane.table().getItems().size() == 15);
     robot.clickOn("#archive-report");
-    WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS,
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
         () -> robot.lookup("#archive-status").queryAs(Label.class).getText()
             .startsWith("report written to "));
     try (var files = java.nio.file.Files.list(copy)) {
@@ -144,7 +146,7 @@ class ArchivePaneTest {
           .setText(mixed.toString());
       pane.reload();
     });
-    WaitForAsyncUtils.waitFor(20, TimeUnit.SECONDS, () -> robot.lookup("#archive-status")
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> robot.lookup("#archive-status")
         .queryAs(Label.class).getText().contains("counted in " + mixed));
     WaitForAsyncUtils.waitForFxEvents();
     // the service call the pane makes, on a fresh scan of the folder

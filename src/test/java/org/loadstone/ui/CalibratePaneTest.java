@@ -1,5 +1,7 @@
 package org.loadstone.ui;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
@@ -61,7 +63,7 @@ class CalibratePaneTest {
 
   @Test
   void walksThePlanFitsTheSimulatedSensitivityAndSavesIt(FxRobot robot) throws Exception {
-    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> reader.identity().isPresent());
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> reader.identity().isPresent());
     robot.interact(() -> {
       text(robot, "#cal-cell").setText("sim-cell");
       text(robot, "#cal-loads").setText("10 kg, 20 kg, 30 kg, 40 kg");
@@ -72,7 +74,7 @@ class CalibratePaneTest {
     Label message = robot.lookup("#cal-message").queryAs(Label.class);
     for (int i = 1; i <= 5; i++) {
       int n = i;
-      WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS,
+      WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
           () -> step.getText().startsWith("[" + n + "/5]"));
       if (n == 1) {
         // the session's rule, as on the command line: a zero step cannot be skipped
@@ -80,25 +82,25 @@ class CalibratePaneTest {
       }
       if (n == 3) {
         robot.clickOn("#cal-skip"); // 20 kg skipped: the session allows it for a load step
-        WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS, () -> step.getText().startsWith("[4/5]"));
+        WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> step.getText().startsWith("[4/5]"));
         continue;
       }
       if (n == 4) {
         // 10 kg was read already in this series, going up: the session refuses the repeat
         robot.interact(() -> text(robot, "#cal-placed").setText("10 kg"));
         robot.clickOn("#cal-step").type(javafx.scene.input.KeyCode.C);
-        WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS,
+        WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
             () -> message.getText().contains("already read in this series and direction"));
         assertThat(step.getText()).startsWith("[4/5]");
         robot.interact(() -> text(robot, "#cal-placed").clear());
       }
       robot.clickOn("#cal-step").type(javafx.scene.input.KeyCode.C); // capture once steady
-      WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS,
+      WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
           () -> !step.getText().startsWith("[" + n + "/5]"));
     }
     assertThat(step.getText()).isEqualTo("all readings taken: 4 points, 1 step(s) skipped");
     TextArea result = robot.lookup("#cal-result").queryAs(TextArea.class);
-    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !result.getText().isEmpty());
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> !result.getText().isEmpty());
     String fit = result.getText();
     // the simulator's own sensitivity (its ground truth) over the loads used, within 0.02 %: the
     // slope of the least-squares line through the model's noise-free readings (Commons Math
@@ -120,7 +122,7 @@ class CalibratePaneTest {
 
     robot.clickOn("#cal-save");
     Path file = CalibrationFiles.fileFor(dir, "sim-cell-" + java.time.LocalDate.now());
-    WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS, () -> Files.exists(file));
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> Files.exists(file));
     assertThat(dir.resolve(file.getFileName().toString().replace(".json", ".points.csv")))
         .exists();
     assertThat(CalibrationFiles.readCalibration(file).cellId()).isEqualTo("sim-cell");

@@ -1,5 +1,7 @@
 package org.loadstone.ui;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.nio.file.Files;
@@ -43,23 +45,23 @@ class ConsoleAppTest extends FxRobot {
   @Test
   void oneKeyCommandsActOnTheLiveTabOnly() throws Exception {
     TabPane tabs = lookup(".console-tabs").queryAs(TabPane.class);
-    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS,
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
         () -> lookup("#health-line").queryAs(Label.class).getText().contains("samples/s"));
     interact(() -> tabs.getSelectionModel().select(tab(tabs, "archive-tab")));
-    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS,
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
         () -> lookup("#archive-status").queryAs(Label.class).getText().startsWith("no runs yet"));
     clickOn("#archive-status").type(KeyCode.A); // on the Archive tab: not a command
     WaitForAsyncUtils.waitForFxEvents();
     interact(() -> tabs.getSelectionModel().select(tab(tabs, "live-tab")));
     Label state = lookup("#run-state").queryAs(Label.class);
     assertThat(state.getText()).isEqualTo("NOT ARMED");
-    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS,
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
         () -> !lookup("#raw-value").queryAs(Label.class).getText().contains("zeroing"));
     clickOn("#force-value").type(KeyCode.A); // on the Live tab: arm
-    WaitForAsyncUtils.waitFor(5, TimeUnit.SECONDS, () -> !state.getText().equals("NOT ARMED"));
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> !state.getText().equals("NOT ARMED"));
     type(KeyCode.S);
     // stopped while armed or while recording: either nothing was stored, or a manual run was
-    WaitForAsyncUtils.waitFor(15, TimeUnit.SECONDS, () -> {
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> {
       String text = lookup("#run-result").queryAs(Label.class).getText();
       return text.contains("no run stored") || text.contains(": manual");
     });

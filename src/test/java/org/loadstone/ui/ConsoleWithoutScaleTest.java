@@ -1,5 +1,7 @@
 package org.loadstone.ui;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.nio.file.Files;
@@ -42,12 +44,12 @@ class ConsoleWithoutScaleTest {
 
   @AfterEach
   void stop() throws Exception {
-    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(5, TimeUnit.SECONDS);
+    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @Test
   void armingIsRefusedUntilACalibrationIsChosen(FxRobot robot) throws Exception {
-    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> !pane.feed().taring());
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> !pane.feed().taring());
     assertThat(robot.lookup("#device-line").queryAs(Label.class).getText())
         .contains("no calibration chosen");
     robot.clickOn("#arm-button");
@@ -55,7 +57,7 @@ class ConsoleWithoutScaleTest {
     assertThat(pane.runResult().getText())
         .startsWith("no calibration is chosen for /dev/ttyTEST")
         .contains("(in the console: Calibrate tab");
-    assertThat(robot.lookup("#run-state").queryAs(Label.class).getText()).isEqualTo("no run armed");
+    assertThat(robot.lookup("#run-state").queryAs(Label.class).getText()).isEqualTo("NOT ARMED");
     assertThat(Files.exists(archive) ? Files.list(archive).count() : 0L).isZero();
   }
 }

@@ -1,5 +1,7 @@
 package org.loadstone.ui;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.nio.file.Files;
@@ -49,12 +51,12 @@ class LiveRecoveryTest {
 
   @AfterEach
   void stop() throws Exception {
-    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(5, TimeUnit.SECONDS);
+    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @Test
   void aJournalLeftByAKilledRunIsStoredAndNamed() throws Exception {
-    WaitForAsyncUtils.waitFor(30, TimeUnit.SECONDS, () -> !pane.run().recovering());
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> !pane.run().recovering());
     WaitForAsyncUtils.waitForFxEvents();
     Path csv;
     try (var files = Files.list(archive)) {

@@ -1,0 +1,127 @@
+package org.loadstone.ui;
+
+import java.nio.file.Path;
+import java.util.Locale;
+import java.util.OptionalDouble;
+import java.util.function.Consumer;
+import java.util.function.Supplier;
+import javafx.application.Platform;
+import javafx.scene.control.Label;
+import javafx.scene.layout.FlowPane;
+import javafx.scene.layout.VBox;
+import org.loadstone.archive.Run;
+import org.loadstone.archive.RunReader;
+import org.loadstone.study.RunMetrics;
+import org.loadstone.units.LoadstoneException;
+
+/**
+ * The console's post-run figures: the stored run read back from the archive and shown as tiles (a
+ * name over a large value: peak, break, stiffness, energy, bending or compression stresses, per
+ * gram). Thin: the figures are {@link RunMetrics}'; {@link RunPanel} says when a run is stored.
+ */
+final class RunFigures {
+  /** The last run's figures, as tiles. */
+  private final FlowPane figures = new FlowPane(28, 8);
+
+  RunFigures() {
+    figures.setId("run-figures");
+    figures.getStyleClass().add("run-figures");
+    showFigures(false);
+  }
+
+  /** The tiles, for a place of their own (empty until a run is stored). */
+  FlowPane node() {
+    return figures;
+  }
+
+  /**
+   * Reads the stored run back and shows its figures; the reading is off the JavaFX thread.
+   *
+   * @param csv the stored run
+   * @param failed told on the JavaFX thread why the run could not be analysed
+   */
+  void analyse(Path csv, Consumer<String> failed) {
+    Supplier<Runnable> work = () -> {
+      try {
+        Run run = RunReader.read(csv);
+        RunMetrics m = RunMetrics.of(run.metadata(), run.data());
+        return () -> show(m);
+      } catch (LoadstoneException e) {
+        return () -> failed.accept(e.getMessage());
+      }
+    };
+    Thread t = new Thread(() -> Platform.runLater(work.get()), "post-run analysis");
+    t.setDaemon(true);
+    t.start();
+  }
+
+  /** Empties the tiles and hides them until the next run is shown. */
+  void clear() {
+    figures.getChildren().clear();
+    showFigures(false);
+  }
+
+  private void showFigures(boolean on) {
+    figures.setVisible(on);
+    figures.setManaged(on);
+  }
+
+  private void show(RunMetrics m) {
+    figures.getChildren().clear();
+    showFigures(true);
+    var r = m.analysis();
+    tile("peak", fmt(r.peakForce_N(), "N"), at(r.displacementAtPeak_mm()));
+    r.breakPoint().ifPresent(b -> tile("break", fmt(b.force_N(), "N"),
+        at(r.displacementAtBreak_mm())));
+    tile("stiffness", r.stiffness().map(s -> fmt(s.slope_N_per_mm(), "N/mm")).orElse("—"),
+        r.stiffness().map(s -> String.format(Locale.ROOT, "R² %.4f", s.rSquared())).orElse(""));
+    tile("energy", opt(r.energyToBreak_J(), "J"), "to break · " + opt(r.energyToPeak_J(), "J")
+        + " to peak");
+    if (m.flexuralStressAtPeak_MPa().isPresent()) {
+      tile("flexural stress", opt(m.flexuralStressAtPeak_MPa(), "MPa"), "at peak · modulus "
+          + opt(m.flexuralModulus_MPa(), "MPa"));
+    }
+    if (m.coreShearStressAtPeak_MPa().isPresent()) {
+      tile("core shear", opt(m.coreShearStressAtPeak_MPa(), "MPa"), "at peak · facing "
+          + opt(m.facingStressAtPeak_MPa(), "MPa"));
+    }
+    if (m.compressionStressAtPeak_MPa().isPresent()) {
+      tile("compression", opt(m.compressionStressAtPeak_MPa(), "MPa"), "stress at peak");
+    }
+    if (m.specificPeak_N_per_g().isPresent()) {
+      tile("per gram", opt(m.specificPeak_N_per_g(), "N/g"),
+          opt(m.specificEnergyToBreak_J_per_g(), "J/g") + " to break");
+    }
+    if (!m.notes().isEmpty()) {
+      Label note = LivePane.label("run-note", "note: " + m.notes().get(0));
+      note.setWrapText(true);
+      figures.getChildren().add(note);
+    }
+  }
+
+  private void tile(String name, String value, String detail) {
+    Label k = new Label(name.toUpperCase(Locale.ROOT));
+    k.getStyleClass().add("figure-name");
+    Label v = new Label(value);
+    v.getStyleClass().add("figure-value");
+    v.setId("figure-" + name.replace(' ', '-'));
+    Label d = new Label(detail);
+    d.getStyleClass().add("figure-detail");
+    figures.getChildren().add(new VBox(2, k, v, d));
+  }
+
+  private static String at(OptionalDouble travel_mm) {
+    return travel_mm.isPresent()
+        ? String.format(Locale.ROOT, "at %.2f mm", travel_mm.getAsDouble()) : "";
+  }
+
+  private static String opt(OptionalDouble v, String unit) {
+    return v.isPresent() ? fmt(v.getAsDouble(), unit) : "—";
+  }
+
+  static String fmt(double v, String unit) {
+    double a = Math.abs(v);
+    String f = a >= 1000 ? "%.0f" : a >= 100 ? "%.1f" : a >= 1 ? "%.2f" : "%.3g";
+    return String.format(Locale.ROOT, f, v) + " " + unit;
+  }
+}
