@@ -190,6 +190,14 @@ public final class DeviceReader implements AutoCloseable {
   }
 
   /**
+   * @return when the last read that brought samples returned, on the {@link System#nanoTime()}
+   *     clock, or −1 before the first sample (see {@link SampleFreshness})
+   */
+  public long lastArrivalNanos() {
+    return lastArrivalNanos;
+  }
+
+  /**
    * Sample rate measured from the arrival of the first to the last sample, so idle time before the
    * stream starts does not count.
    *

@@ -20,6 +20,8 @@ import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.LiveFeed;
 import org.loadstone.acquire.SampleRing;
 import org.loadstone.acquire.ScaleChoice;
+import org.loadstone.acquire.CapacityGauge;
+import org.loadstone.acquire.StationStatus;
 import org.loadstone.device.Transport;
 import org.loadstone.protocol.DecoderCounters;
 import org.loadstone.units.LoadstoneException;
@@ -40,7 +42,10 @@ final class LivePane {
   private final Label raw = label("raw-value", "raw —");
   private final Label device = label("device-line", "");
   private final Label health = label("health-line", "");
-  private final Label state = label("state-chip", "connecting");
+  private final CapacityBar capacity = new CapacityBar();
+  private StateBand band;
+  private StationStatus.Link link = StationStatus.Link.CONNECTING;
+  private String lostReason;
   private final Button reconnect = new Button("Reconnect");
   private final Button plotAxis = new Button();
   private final RunPanel run;
@@ -104,7 +109,7 @@ final class LivePane {
     HBox.setHgrow(grow, Priority.ALWAYS);
     device.setText(config.deviceLabel() + (scale == null
         ? "  ·  no calibration chosen: the readout shows counts" : ""));
-    HBox top = new HBox(16, mark, device, grow, state);
+    HBox top = new HBox(16, mark, device, grow);
     top.getStyleClass().add("top-bar");
     top.setAlignment(Pos.CENTER_LEFT);
 
@@ -113,6 +118,8 @@ final class LivePane {
     if (notice.needed()) {
       header.getChildren().add(safetyBanner(notice, header));
     }
+    band = new StateBand(run.actions());
+    header.getChildren().add(band.node());
     root.setTop(header);
 
     Label forceCaption = label("force-caption", "FORCE  ·  N");
@@ -147,7 +154,7 @@ final class LivePane {
     scroll.setHbarPolicy(javafx.scene.control.ScrollPane.ScrollBarPolicy.NEVER);
     scroll.getStyleClass().add("controls-scroll");
     VBox.setVgrow(scroll, Priority.ALWAYS);
-    VBox readout = new VBox(6, forceCaption, force, peak, position, raw, scroll);
+    VBox readout = new VBox(6, forceCaption, force, capacity.node(), peak, position, raw, scroll);
     readout.getStyleClass().add("readout");
     readout.setPrefWidth(380);
     root.setLeft(readout);
@@ -284,7 +291,8 @@ final class LivePane {
     reader.start();
     reconnect.setVisible(false);
     reconnect.setManaged(false);
-    setState("live", "state-live");
+    link = StationStatus.Link.LIVE;
+    lostReason = null;
     timer = new AnimationTimer() {
       @Override
       public void handle(long now) {
@@ -311,8 +319,33 @@ final class LivePane {
     return c != null ? c.scale() : ForceScale.linear(1, "counts: no calibration chosen");
   }
 
-  private void refresh(long now) {
+  /** One display frame at {@code now} (System.nanoTime clock; tests pass their own). */
+  void refresh(long now) {
     LiveFeed.Snapshot s = feed.poll();
+    DeviceReader r = reader;
+    StationStatus.View view = StationStatus.of(new StationStatus.Stream(link, lostReason,
+        s.samples(), r == null ? -1 : r.lastArrivalNanos(), now, s.rateHz()), run.status());
+    band.show(view);
+    ScaleChoice sc = scale;
+    double capacity_N;
+    try {
+      capacity_N = org.loadstone.acquire.ScalePolicy.capacity_N(config.ratedCapacity_N(), sc);
+    } catch (LoadstoneException e) {
+      capacity_N = Double.NaN;
+    }
+    CapacityGauge gauge = CapacityGauge.of(sc == null ? Double.NaN : s.force_N(), s.counts(),
+        capacity_N, org.loadstone.acquire.RunSettings.DEFAULTS);
+    capacity.show(gauge);
+    band.flag(gauge);
+    for (Label l : new Label[] {force, peak, position, raw}) {
+      if (view.noData() != l.getStyleClass().contains("stale")) {
+        if (view.noData()) {
+          l.getStyleClass().add("stale");
+        } else {
+          l.getStyleClass().remove("stale");
+        }
+      }
+    }
     force.setText(Double.isNaN(s.force_N()) ? "—" : fmt(s.force_N()));
     peak.setText("peak " + (Double.isNaN(s.peak_N()) ? "—" : fmt(s.peak_N()) + " N"));
     position.setText("crosshead " + (Double.isNaN(s.position_mm()) ? "—"
@@ -322,7 +355,7 @@ final class LivePane {
     health.setText(String.format(Locale.ROOT,
         "%.1f samples/s   ·   %d samples   ·   dropped %d   ·   checksum errors %d   ·   "
             + "resyncs %d%s",
-        s.rateHz(), s.samples(), c.dropped(), c.checksumErrors(), c.resyncs(),
+        view.shownRate_Hz(), s.samples(), c.dropped(), c.checksumErrors(), c.resyncs(),
         s.displayLost() > 0 ? "   ·   display skipped " + s.displayLost() : ""));
     run.refresh();
     if (now - lastChartNanos > 100_000_000L) {
@@ -341,16 +374,23 @@ final class LivePane {
   }
 
   private void showLost(String why) {
-    setState("device lost", "state-lost");
+    link = StationStatus.Link.LOST;
+    lostReason = why;
+    if (band != null) {
+      band.show(StationStatus.of(new StationStatus.Stream(link, why, 0, -1, 0, 0),
+          run.status()));
+    }
     health.setText(why);
     reconnect.setVisible(true);
     reconnect.setManaged(true);
   }
 
-  private void setState(String text, String styleClass) {
-    state.setText(text);
-    state.getStyleClass().removeAll("state-live", "state-lost");
-    state.getStyleClass().add(styleClass);
+  StateBand band() {
+    return band;
+  }
+
+  CapacityBar capacity() {
+    return capacity;
   }
 
   private static String fmt(double v_N) {

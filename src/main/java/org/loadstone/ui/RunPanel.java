@@ -21,6 +21,7 @@ import org.loadstone.acquire.RunSettings;
 import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.RunTemplate;
 import org.loadstone.acquire.ScaleChoice;
+import org.loadstone.acquire.StationStatus;
 import org.loadstone.device.PressOperator;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.units.LoadstoneException;
@@ -51,12 +52,13 @@ final class RunPanel {
   private final TextField specimenField = field("specimen-field", "specimen id");
   private final TextField groupField = field("group-field", "group (e.g. balsa)");
   private final TextField massField = field("mass-field", "mass (g)");
-  private final Label runState = LivePane.label("run-state", "no run armed");
   private final Label runResult = LivePane.label("run-result", "");
   /** The last run's figures, read back from the archive. */
   private final RunFigures figures = new RunFigures();
   private final SpecimenFields specimenFields = new SpecimenFields();
   private final VBox root;
+  /** Arm, stop (and next specimen on the simulated press), for the state band. */
+  private final HBox actions;
   private volatile Recorder recorder;
   /** A run is being set up (zero, zero check) off the JavaFX thread. */
   private volatile boolean preparing;
@@ -67,6 +69,14 @@ final class RunPanel {
   private volatile boolean runEnded;
   /** The last run was disarmed before it started: nothing was stored. */
   private volatile boolean disarmed;
+  /** What the run set-up is doing, or why the last run was not stored; null for nothing. */
+  private volatile String note;
+  /** The last run could not be stored. */
+  private volatile boolean notStored;
+  /** How the last stored run ended, or null. */
+  private volatile org.loadstone.archive.FinishCause lastCause;
+  /** The force at which the armed run starts. */
+  private volatile double startThreshold_N = RunSettings.DEFAULTS.startThreshold_N();
   /** A was pressed while connecting or zeroing: arm as soon as the zero is done. */
   private boolean armQueued;
   /** Journals left by a run that never finished are being stored: no new run until then. */
@@ -95,21 +105,23 @@ final class RunPanel {
     arm.setMaxWidth(Double.MAX_VALUE);
     stop.setMaxWidth(Double.MAX_VALUE);
     HBox buttons = new HBox(8, arm, stop);
-    HBox.setHgrow(arm, Priority.ALWAYS);
-    HBox.setHgrow(stop, Priority.ALWAYS);
+    buttons.getStyleClass().add("run-actions");
+    HBox idLine = new HBox(8, groupField, massField);
+    HBox.setHgrow(groupField, Priority.ALWAYS);
+    massField.setPrefWidth(110);
+    root = new VBox(6, LivePane.label("run-caption", "RUN"), specimenField, idLine,
+        specimenFields.node());
     if (config.deviceFields().containsKey("sim_scenario")) {
       // the simulated press: the program stands in for the hands that change the specimen
       Button next = new Button("Next specimen  [N]");
       next.setId("next-specimen-button");
       next.setOnAction(e -> nextSpecimen());
-      buttons.getChildren().add(next);
+      next.setMaxWidth(Double.MAX_VALUE);
+      root.getChildren().add(next);
     }
-    HBox idLine = new HBox(8, groupField, massField);
-    HBox.setHgrow(groupField, Priority.ALWAYS);
-    massField.setPrefWidth(110);
     runResult.setWrapText(true);
-    root = new VBox(6, LivePane.label("run-caption", "RUN"), specimenField, idLine,
-        specimenFields.node(), buttons, runState, runResult);
+    actions = buttons;
+    root.getChildren().add(runResult);
   }
 
   /** A text field with an id (for tests and styles) and a prompt. */
@@ -122,6 +134,11 @@ final class RunPanel {
 
   Parent node() {
     return root;
+  }
+
+  /** Arm and stop (and next specimen on the simulated press), placed by the live pane. */
+  HBox actions() {
+    return actions;
   }
 
   Label result() {
@@ -148,7 +165,7 @@ final class RunPanel {
     }
     if (reader == null || feed == null || setup == null || feed.taring() || recovering) {
       armQueued = true; // never lost: armed as soon as the zero is done (S cancels)
-      runState.setText("arming…");
+      note = null;
       runResult.setText("arming once the zero is done");
       root.requestFocus();
       return;
@@ -181,6 +198,9 @@ final class RunPanel {
     stopWhilePreparing = false;
     runEnded = false;
     disarmed = false;
+    notStored = false;
+    lastCause = null;
+    note = null;
     figures.clear();
     runResult.setText("");
     Thread t = new Thread(() -> prepareAndArm(setup, feed, request, store), "run set-up");
@@ -194,7 +214,8 @@ final class RunPanel {
       JournalRunStore store) {
     try {
       RunSetup.Prepared p = setup.prepare(request,
-          text -> Platform.runLater(() -> runState.setText(text)));
+          text -> note = text);
+      startThreshold_N = p.settings().startThreshold_N();
       feed.useZero(p.zero_counts());
       Recorder rec = setup.recorder(p, store, new Events());
       recorder = rec;
@@ -211,8 +232,7 @@ final class RunPanel {
     } catch (LoadstoneException e) {
       Platform.runLater(() -> {
         preparing = false;
-        runEnded = true;
-        runState.setText("no run armed");
+        recorder = null; // the one before has ended: no run now
         runResult.setText(ConsoleHints.withHow(e));
       });
     }
@@ -244,7 +264,6 @@ final class RunPanel {
   void stop() {
     if (armQueued) {
       armQueued = false;
-      runState.setText("no run armed");
       runResult.setText("arming cancelled");
     }
     if (preparing) {
@@ -256,22 +275,37 @@ final class RunPanel {
     }
   }
 
-  /** Called every display frame: the run's state in words. */
+  /** Called every display frame: arms a run asked for while the zero was being taken. */
   void refresh() {
     LiveFeed feed = device.feed();
     if (armQueued && feed != null && !feed.taring() && !recovering) {
       arm();
     }
-    Recorder r = recorder;
-    if (r != null && !preparing && !armQueued) {
-      runState.setText(switch (r.status().state()) {
-        case IDLE -> "no run armed";
-        case ARMED -> "armed: waiting for load";
-        case RECORDING -> "recording";
-        case TAIL -> "break: recording the tail";
-        case FINISHED -> !runEnded ? "finishing…" : disarmed ? "no run armed" : "run stored";
-      });
+  }
+
+  /** The run's phase for the state band ({@link StationStatus} puts it in words). */
+  StationStatus.Run status() {
+    if (armQueued || preparing) {
+      return new StationStatus.Run(StationStatus.Phase.ARMING, null,
+          armQueued ? (recovering ? "arming once the left runs are stored"
+              : "arming once the zero is done") : note, startThreshold_N);
     }
+    Recorder r = recorder;
+    StationStatus.Phase phase;
+    if (r == null) {
+      phase = StationStatus.Phase.NONE;
+    } else if (runEnded) {
+      phase = notStored ? StationStatus.Phase.NOT_STORED : disarmed
+          ? StationStatus.Phase.DISARMED : StationStatus.Phase.STORED;
+    } else {
+      phase = switch (r.status().state()) {
+        case IDLE, ARMED -> StationStatus.Phase.ARMED;
+        case RECORDING -> StationStatus.Phase.RECORDING;
+        case TAIL -> StationStatus.Phase.TAIL;
+        case FINISHED -> StationStatus.Phase.STORING;
+      };
+    }
+    return new StationStatus.Run(phase, lastCause, note, startThreshold_N);
   }
 
   /**
@@ -345,6 +379,7 @@ final class RunPanel {
 
     @Override
     public void onFinished(Recorder.Result r) {
+      lastCause = r.cause();
       runEnded = true;
       String text = String.format(Locale.ROOT, "run %s: %s · %d samples", r.stored().runId(),
           r.cause().wireName(), r.samples()) + (r.returnToZero_N() == null ? ""
@@ -356,6 +391,8 @@ final class RunPanel {
 
     @Override
     public void onFailed(String why) {
+      note = why;
+      notStored = true;
       runEnded = true;
       Platform.runLater(() -> runResult.setText(why));
     }

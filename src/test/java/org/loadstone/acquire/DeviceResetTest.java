@@ -1,5 +1,7 @@
 package org.loadstone.acquire;
 
+import org.loadstone.HangGuard;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.concurrent.CountDownLatch;
@@ -25,7 +27,7 @@ class DeviceResetTest {
 
   @ParameterizedTest(name = "identity {0}, clock restarts {1}")
   @CsvSource({"true, true", "false, true", "false, false"})
-  @Timeout(60)
+  @Timeout(HangGuard.TEST_S)
   void aRestartDuringARunEndsItAtTheLastSampleBefore(boolean identity, boolean clock)
       throws Exception {
     SimSetup setup = new SimSetup("brittle", 3, RATE, false, 4);
@@ -51,7 +53,7 @@ class DeviceResetTest {
       Thread.sleep(2); // some of the run recorded (a count, not a time)
     }
     t.restartDevice(identity, clock);
-    Recorder.Result r = rec.await(30, TimeUnit.SECONDS).orElseThrow();
+    Recorder.Result r = rec.await(HangGuard.S, TimeUnit.SECONDS).orElseThrow();
     long resetAt = reader.firstResetFrom(0);
     reader.close();
 
@@ -77,7 +79,7 @@ class DeviceResetTest {
   }
 
   @Test
-  @Timeout(60)
+  @Timeout(HangGuard.TEST_S)
   void aRestartWhileArmedEndsTheWaitWithoutARun() throws Exception {
     SimSetup setup = new SimSetup("brittle", 4, RATE, false, 4);
     SimTransport t = setup.openTransport();
@@ -99,7 +101,7 @@ class DeviceResetTest {
       Thread.sleep(2); // until the armed recorder has weighed a sample
     }
     t.restartDevice(true, true);
-    assertThat(rec.await(30, TimeUnit.SECONDS)).isEmpty();
+    assertThat(rec.await(HangGuard.S, TimeUnit.SECONDS)).isEmpty();
     assertThat(rec.ended()).isTrue();
     // the live time axis goes on by one sample across the restart, no jump
     long resetAt = reader.firstResetFrom(0);

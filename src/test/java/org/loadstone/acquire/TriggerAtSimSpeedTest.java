@@ -43,7 +43,7 @@ class TriggerAtSimSpeedTest {
             }
           });
       rec.arm(zero.nextIndex());
-      assertThat(started.await(100, TimeUnit.SECONDS)).isTrue();
+      assertThat(started.await(HangGuard.S, TimeUnit.SECONDS)).isTrue();
       rec.stop();
       assertThat(rec.await(HangGuard.S, TimeUnit.SECONDS)).isPresent();
 

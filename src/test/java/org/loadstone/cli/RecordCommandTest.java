@@ -212,7 +212,7 @@ class RecordCommandTest {
       rec.start();
       awaitJournalSamples(tmp, 1100); // counted in the journal, not timed
       pty.kill();
-      rec.join(30_000);
+      rec.join(HangGuard.MS);
       // the run is stored, and the exit code says the device was lost
       assertThat(exit.get()).as(e.toString()).isEqualTo(LoadstoneCommand.EXIT_DEVICE_LOST);
       Outcome r = new Outcome(exit.get(), o.toString(), e.toString());
@@ -250,7 +250,7 @@ class RecordCommandTest {
       rec.start();
       assertThat(armed.await(HangGuard.S, TimeUnit.SECONDS)).as(e.toString()).isTrue();
       pty.kill();
-      rec.join(30_000);
+      rec.join(HangGuard.MS);
       assertThat(rec.isAlive()).as("record ended").isFalse();
       assertThat(exit.get()).as(e.toString()).isEqualTo(LoadstoneCommand.EXIT_DEVICE_LOST);
       assertThat(e.toString()).contains("stopped answering").contains("no run recorded")

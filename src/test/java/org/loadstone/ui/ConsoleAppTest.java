@@ -54,11 +54,11 @@ class ConsoleAppTest extends FxRobot {
     WaitForAsyncUtils.waitForFxEvents();
     interact(() -> tabs.getSelectionModel().select(tab(tabs, "live-tab")));
     Label state = lookup("#run-state").queryAs(Label.class);
-    assertThat(state.getText()).isEqualTo("no run armed");
+    assertThat(state.getText()).isEqualTo("NOT ARMED");
     WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
         () -> !lookup("#raw-value").queryAs(Label.class).getText().contains("zeroing"));
     clickOn("#force-value").type(KeyCode.A); // on the Live tab: arm
-    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> !state.getText().equals("no run armed"));
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> !state.getText().equals("NOT ARMED"));
     type(KeyCode.S);
     // stopped while armed or while recording: either nothing was stored, or a manual run was
     WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> {

@@ -57,7 +57,7 @@ class ConsoleWithoutScaleTest {
     assertThat(pane.runResult().getText())
         .startsWith("no calibration is chosen for /dev/ttyTEST")
         .contains("(in the console: Calibrate tab");
-    assertThat(robot.lookup("#run-state").queryAs(Label.class).getText()).isEqualTo("no run armed");
+    assertThat(robot.lookup("#run-state").queryAs(Label.class).getText()).isEqualTo("NOT ARMED");
     assertThat(Files.exists(archive) ? Files.list(archive).count() : 0L).isZero();
   }
 }

@@ -208,7 +208,7 @@ class LivePaneTest {
    */
   private boolean armedOrLater(FxRobot robot) {
     String state = runState(robot);
-    return !state.equals("arming…") && !state.equals("no run armed")
+    return !state.equals("ARMING…") && !state.equals("NOT ARMED")
         || pane.runResult().getText().startsWith("run ");
   }
 
@@ -220,11 +220,13 @@ class LivePaneTest {
     robot.interact(() -> {
       pane.feed().tare(2000);
       press(javafx.scene.input.KeyCode.A);
-      seen[0] = runState(robot);
+      seen[0] = org.loadstone.acquire.StationStatus.of(new org.loadstone.acquire.StationStatus
+          .Stream(org.loadstone.acquire.StationStatus.Link.LIVE, null, 1, 0, 0, 0),
+          pane.run().status()).words();
       seen[1] = String.valueOf(pane.feed().taring());
     });
     assertThat(seen[1]).isEqualTo("true");
-    assertThat(seen[0]).isEqualTo("arming…");
+    assertThat(seen[0]).isEqualTo("ARMING…");
     WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> armedOrLater(robot));
     assertThat(pane.feed().taring()).isFalse();
   }
@@ -245,7 +247,7 @@ class LivePaneTest {
     WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> !pane.feed().taring());
     robot.clickOn("#arm-button");
     WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
-        () -> runState(robot).startsWith("armed") || runState(robot).equals("recording"));
+        () -> runState(robot).startsWith("ARMED") || runState(robot).equals("RECORDING"));
     boolean[] taring = new boolean[1];
     String[] result = new String[2];
     robot.interact(() -> {
@@ -260,8 +262,42 @@ class LivePaneTest {
     assertThat(result[1]).contains("clear peak refused");
     // Esc stops from anywhere, even from inside a text field
     robot.clickOn("#group-field").type(javafx.scene.input.KeyCode.ESCAPE);
-    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> !runState(robot).startsWith("armed")
-        && !runState(robot).equals("recording") && !runState(robot).startsWith("break"));
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> !runState(robot).startsWith("ARMED")
+        && !runState(robot).equals("RECORDING") && !runState(robot).startsWith("BREAK"));
+  }
+
+  @Test
+  void aStoppedStreamShowsNoDataAndAStateBandFitsAt1024x640(FxRobot robot) throws Exception {
+    WaitForAsyncUtils.waitFor(10, TimeUnit.SECONDS, () -> pane.reader().lastArrivalNanos() > 0);
+    String[] seen = new String[4];
+    robot.interact(() -> {
+      long last = pane.reader().lastArrivalNanos();
+      pane.refresh(last + 1_000_000_000L); // the injected clock: one second without a sample
+      seen[0] = runState(robot);
+      seen[1] = String.valueOf(robot.lookup("#force-value").queryAs(Label.class)
+          .getStyleClass().contains("stale"));
+      seen[2] = robot.lookup("#health-line").queryAs(Label.class).getText();
+      seen[3] = pane.band().tone().name();
+    });
+    assertThat(seen[0]).isEqualTo("NO DATA");
+    assertThat(seen[1]).isEqualTo("true");
+    assertThat(seen[2]).startsWith("0.0 samples/s");
+    assertThat(seen[3]).isEqualTo("FAULT");
+    // the band, the state and arm/stop stay in view at 1024×640, safety banner shown
+    robot.interact(() -> {
+      pane.root().getScene().getWindow().setWidth(1024);
+      pane.root().getScene().getWindow().setHeight(640);
+    });
+    WaitForAsyncUtils.waitForFxEvents();
+    javafx.scene.Scene scene = pane.root().getScene();
+    for (String id : new String[] {"#run-state", "#arm-button", "#stop-button", "#state-band"}) {
+      javafx.geometry.Bounds b = robot.lookup(id).query().localToScene(
+          robot.lookup(id).query().getBoundsInLocal());
+      assertThat(b.getMinX()).as(id).isGreaterThanOrEqualTo(0);
+      assertThat(b.getMinY()).as(id).isGreaterThanOrEqualTo(0);
+      assertThat(b.getMaxX()).as(id).isLessThanOrEqualTo(scene.getWidth() + 0.5);
+      assertThat(b.getMaxY()).as(id).isLessThanOrEqualTo(scene.getHeight() + 0.5);
+    }
   }
 
   /** Types {@code text} into a field and arms: refused with a message naming the field. */
@@ -275,6 +311,6 @@ class LivePaneTest {
     robot.clickOn("#arm-button");
     WaitForAsyncUtils.waitForFxEvents();
     assertThat(pane.runResult().getText()).contains(names).contains(unit);
-    assertThat(robot.lookup("#run-state").queryAs(Label.class).getText()).isEqualTo("no run armed");
+    assertThat(robot.lookup("#run-state").queryAs(Label.class).getText()).isEqualTo("NOT ARMED");
   }
 }
