@@ -1,6 +1,8 @@
 package org.loadstone.analysis;
 
+import java.lang.ref.SoftReference;
 import java.util.Arrays;
+import java.util.function.Supplier;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -15,6 +17,11 @@ import org.loadstone.units.Precondition;
  * <p>The arrays are copied on construction and on every accessor call, so a curve never changes
  * (except {@link #over}, which takes arrays that their owner no longer changes).
  *
+ * <p>A {@linkplain #deferred deferred} curve knows its size and whether it has position, and
+ * reads its samples only when they are asked for (a chart of a run whose figures came from the
+ * archive index); it keeps them only as long as memory allows, so a study of thousands of runs
+ * does not hold their samples.
+ *
  * @param time_s sample times in seconds, strictly increasing, finite
  * @param force_N force in newtons, finite, same length as {@code time_s}
  * @param position_mm position in millimetres, finite, same length, or {@code null} when unknown
@@ -26,6 +33,10 @@ public final class Curve {
   private final double[] time_s;
   private final double[] force_N;
   private final double[] position_mm;
+  private final int size;
+  private final boolean hasPosition;
+  private final Supplier<Curve> source;
+  private volatile SoftReference<Curve> read = new SoftReference<>(null);
 
   /** Validates and copies the arrays. */
   public Curve(double[] time_s, double[] force_N, double[] position_mm) {
@@ -40,6 +51,9 @@ public final class Curve {
     this.time_s = time_s;
     this.force_N = force_N;
     this.position_mm = position_mm;
+    this.size = time_s.length;
+    this.hasPosition = position_mm != null;
+    this.source = null;
     if (time_s.length < 2) {
       throw new LoadstoneException(
           "Run curve has " + time_s.length + " sample(s); analysis needs at least 2. "
@@ -81,17 +95,71 @@ public final class Curve {
     return new Curve(time_s, force_N, position_mm, true);
   }
 
+  private Curve(int size, boolean hasPosition, Supplier<Curve> source) {
+    this.time_s = null;
+    this.force_N = null;
+    this.position_mm = null;
+    this.size = size;
+    this.hasPosition = hasPosition;
+    this.source = source;
+  }
+
+  /**
+   * A curve whose samples are read when first asked for, and read again if memory ran short
+   * meanwhile.
+   *
+   * @param size its number of samples, at least 2
+   * @param hasPosition whether it has a position channel
+   * @param source reads the curve; must give one of {@code size} samples with position as
+   *     stated, and throws {@link LoadstoneException} when it cannot (the run's file gone or
+   *     changed), which then reaches the caller of the accessor
+   */
+  public static Curve deferred(int size, boolean hasPosition, Supplier<Curve> source) {
+    Precondition.notNull(source, "source");
+    if (size < 2) {
+      throw new IllegalArgumentException("a curve has at least 2 samples, not " + size);
+    }
+    return new Curve(size, hasPosition, source);
+  }
+
+  /**
+   * @return a curve that holds its samples: this one, or a deferred curve's samples, read now
+   * @throws LoadstoneException when a deferred curve's samples cannot be read
+   */
+  public Curve read() {
+    return samples();
+  }
+
+  /** @return the curve holding the samples: this one, or a deferred curve's samples */
+  private Curve samples() {
+    if (source == null) {
+      return this;
+    }
+    Curve c = read.get();
+    if (c == null) {
+      c = source.get();
+      if (c.size() != size || c.hasPosition() != hasPosition) {
+        throw new LoadstoneException("the run's samples changed since its figures were "
+            + "computed (" + c.size() + " samples where " + size + " were analysed): list the "
+            + "archive again to analyse the run anew");
+      }
+      read = new SoftReference<>(c.samples());
+      c = c.samples();
+    }
+    return c;
+  }
+
   /** The arrays themselves, for the analysis in this package, which only reads them. */
   double[] timeColumn() {
-    return time_s;
+    return samples().time_s;
   }
 
   double[] forceColumn() {
-    return force_N;
+    return samples().force_N;
   }
 
   double[] positionColumn() {
-    return position_mm;
+    return samples().position_mm;
   }
 
   /** A curve without a position channel. */
@@ -111,27 +179,28 @@ public final class Curve {
 
   /** @return a copy of the sample times, seconds */
   public double[] time_s() {
-    return time_s.clone();
+    return samples().time_s.clone();
   }
 
   /** @return a copy of the forces, newtons */
   public double[] force_N() {
-    return force_N.clone();
+    return samples().force_N.clone();
   }
 
   /** @return a copy of the positions in millimetres, or {@code null} when there is no position */
   public double[] position_mm() {
-    return position_mm == null ? null : position_mm.clone();
+    double[] p = samples().position_mm;
+    return p == null ? null : p.clone();
   }
 
   /** @return the time of sample {@code i}, seconds, without copying anything */
   public double time_s(int i) {
-    return time_s[i];
+    return source == null ? time_s[i] : samples().time_s[i];
   }
 
   /** @return the force of sample {@code i}, newtons */
   public double force_N(int i) {
-    return force_N[i];
+    return source == null ? force_N[i] : samples().force_N[i];
   }
 
   /**
@@ -139,34 +208,39 @@ public final class Curve {
    * @throws IllegalStateException when the curve has no position
    */
   public double position_mm(int i) {
-    if (position_mm == null) {
+    if (!hasPosition) {
       throw new IllegalStateException("the curve has no position channel");
     }
-    return position_mm[i];
+    return source == null ? position_mm[i] : samples().position_mm[i];
   }
 
   /** @return the number of samples, at least 2 */
   public int size() {
-    return time_s.length;
+    return size;
   }
 
   /** @return whether the curve has a position channel */
   public boolean hasPosition() {
-    return position_mm != null;
+    return hasPosition;
   }
 
   @Override
   public boolean equals(Object o) {
-    return o instanceof Curve c
-        && Arrays.equals(time_s, c.time_s)
-        && Arrays.equals(force_N, c.force_N)
-        && Arrays.equals(position_mm, c.position_mm);
+    if (!(o instanceof Curve c)) {
+      return false;
+    }
+    Curve a = samples();
+    Curve b = c.samples();
+    return Arrays.equals(a.time_s, b.time_s)
+        && Arrays.equals(a.force_N, b.force_N)
+        && Arrays.equals(a.position_mm, b.position_mm);
   }
 
   @Override
   public int hashCode() {
-    return 31 * (31 * Arrays.hashCode(time_s) + Arrays.hashCode(force_N))
-        + Arrays.hashCode(position_mm);
+    Curve a = samples();
+    return 31 * (31 * Arrays.hashCode(a.time_s) + Arrays.hashCode(a.force_N))
+        + Arrays.hashCode(a.position_mm);
   }
 
   @Override

@@ -43,6 +43,14 @@ import org.sqlite.SQLiteConfig;
  *   <li>Writes are SQLite transactions in write-ahead-log mode (the database's own files beside
  *       it, {@code -wal} and {@code -shm}); two programs updating one index wait for each other.
  * </ul>
+ *
+ * <p>Amendments (a correction kept beside a run, its raw files untouched): the figures kept by
+ * {@code study.ArchiveRuns} carry a hash of the metadata they were computed from and are
+ * computed again when the listing hands out other metadata, so an amendment applied where the
+ * listing builds each {@link ArchiveIndex.Entry} is followed with nothing more. An amendment
+ * file the listing reads must also join the freshness check in {@code refresh} (its size and
+ * time beside the sidecar's, {@link IndexRow#matches}) so that a changed amendment is read
+ * again: that is the one hook.
  */
 public final class RunIndex {
   /** The index file's name inside the archive folder. */

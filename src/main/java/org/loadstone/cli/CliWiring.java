@@ -43,7 +43,7 @@ final class CliWiring {
       throw new LoadstoneException("no run '" + reference + "': it is not a file, and the "
           + "archive " + archiveDir + " does not exist; give a CSV path or --archive DIR");
     }
-    ArchiveIndex.Entry e = ArchiveIndex.scan(archiveDir).find(reference);
+    ArchiveIndex.Entry e = ArchiveIndex.load(archiveDir).find(reference);
     Run r = RunReader.read(e.json());
     return new ResolvedRun(r.metadata(), r.data(), r.csv().toString());
   }

@@ -76,7 +76,9 @@ public final class ReportCommand implements Callable<Integer> {
         PdfReport.writeRun(m, out);
       }
     } else {
-      Selection sel = ArchiveRuns.scan(archive.folder()).select(select.selection());
+      ArchiveRuns runs = ArchiveRuns.scan(archive.folder());
+      runs.notes().forEach(n -> spec.commandLine().getErr().println("note: " + n));
+      Selection sel = runs.select(select.selection());
       GroupStudy.Report study;
       try {
         study = GroupStudy.compareEach(sel, PdfReport.DEFAULT_METRICS,

@@ -14,37 +14,66 @@ import org.loadstone.archive.ArchiveIndex;
 import org.loadstone.archive.Run;
 import org.loadstone.archive.RunMetadata;
 import org.loadstone.archive.RunReader;
+import org.loadstone.study.KeptFigures.Analysed;
 import org.loadstone.study.LeftOut.Kind;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
 /**
- * The runs of an archive folder as a study sees them: read from the index, analysed on demand
- * (each run once; raw data is not touched) and {@linkplain #select selected} by the one rule of
- * {@link RunSelection}. Thread-safe: analyses may run on a background thread while another
- * selects.
+ * The runs of an archive folder as a study sees them: listed by the archive index ({@link
+ * ArchiveIndex#load}), analysed on demand and {@linkplain #select selected} by the one rule of
+ * {@link RunSelection}. This is the one way {@code compare}, {@code report --group}, {@code runs}
+ * and the console's archive reach the figures of stored runs.
+ *
+ * <p>Each run is analysed once: its figures are kept in the archive index under the run's
+ * content, the analysis settings and the analysing code ({@link KeptFigures}), so a later call
+ * reads them instead of the samples; a run that is new, changed, or whose listed metadata
+ * changed (an amendment) is analysed again. The figures kept for a study hold no samples: a
+ * run's curve is read from its file when a chart asks for it. Thread-safe: analyses may run on a
+ * background thread while another selects.
  */
 public final class ArchiveRuns {
-  /** What analysing one run gave: its metrics, or why it could not be analysed. */
-  private record Analysed(RunMetadata metadata, RunMetrics metrics, String failure) {}
-
   private final ArchiveIndex index;
   private final AnalysisSettings settings;
+  private final String settingsKey;
   private final Map<Path, Analysed> analysed = new ConcurrentHashMap<>();
+  private final Map<Path, String> toKeep = new ConcurrentHashMap<>();
+  private volatile Map<Path, String> kept;
 
   private ArchiveRuns(ArchiveIndex index, AnalysisSettings settings) {
     this.index = index;
     this.settings = settings;
+    this.settingsKey = KeptFigures.settingsKey(settings);
   }
 
   /**
-   * Reads the index of a folder; nothing is analysed yet.
+   * Lists the runs of a folder through its archive index (brought up to date with the files
+   * first); nothing is analysed yet.
    *
    * @param dir the archive folder, not null
    * @throws LoadstoneException when the folder does not exist or cannot be listed
    */
   public static ArchiveRuns scan(Path dir) {
-    return new ArchiveRuns(ArchiveIndex.scan(dir), AnalysisSettings.DEFAULTS);
+    return of(ArchiveIndex.load(dir));
+  }
+
+  /**
+   * The runs of a listing already made ({@link ArchiveIndex#load}, or {@link ArchiveIndex#scan}
+   * for the reference that reads every file and keeps nothing).
+   *
+   * @param listing the runs of one folder, not null
+   */
+  public static ArchiveRuns of(ArchiveIndex listing) {
+    Precondition.notNull(listing, "listing");
+    return new ArchiveRuns(listing, AnalysisSettings.DEFAULTS);
+  }
+
+  /**
+   * @return what the reader should know about how the runs were listed (the archive index
+   *     rebuilt, busy or not usable, so the files were read), empty as a rule
+   */
+  public List<String> notes() {
+    return index.notes();
   }
 
   /**
@@ -77,9 +106,25 @@ public final class ArchiveRuns {
     return index.entries().size();
   }
 
-  /** Analyses every run not analysed yet, so later selections need no file access. */
+  /**
+   * Analyses every run not analysed yet and reads its samples, so that later selections and
+   * their charts need no file access (the console's archive view, whose charts are drawn on the
+   * display thread). Holds every run's samples: a command that needs figures only should
+   * {@link #select} alone.
+   */
   public void analyseAll() {
-    index.entries().forEach(this::analysis);
+    for (ArchiveIndex.Entry e : index.entries()) {
+      Analysed a = analysis(e);
+      if (a.metrics() != null) {
+        try {
+          analysed.put(e.json(), new Analysed(a.metadata(),
+              KeptFigures.withSamples(a.metrics(), a.metrics().curve().read()), null));
+        } catch (LoadstoneException ex) {
+          analysed.put(e.json(), new Analysed(a.metadata(), null, ex.getMessage()));
+        }
+      }
+    }
+    keep();
   }
 
   /**
@@ -127,6 +172,7 @@ public final class ArchiveRuns {
       }
     }
     ordered.putAll(counted);
+    keep();
     return new Selection(folder(), sel, ordered, leftOut, List.copyOf(inArchive));
   }
 
@@ -153,13 +199,49 @@ public final class ArchiveRuns {
 
   private Analysed analysis(ArchiveIndex.Entry e) {
     return analysed.computeIfAbsent(e.json(), k -> {
+      String text = keptFigures().get(e.json());
+      Analysed a = text == null ? null : KeptFigures.read(text, e.metadata(), samples(e));
+      if (a != null) {
+        return a;
+      }
       try {
         Run run = RunReader.read(e.json());
-        return new Analysed(e.metadata(), RunMetrics.of(run.metadata(), run.data(), settings),
-            null);
+        RunMetrics m = RunMetrics.of(e.metadata(), run.data(), settings);
+        a = new Analysed(e.metadata(), KeptFigures.withoutSamples(m, samples(e)), null);
       } catch (LoadstoneException ex) {
-        return new Analysed(e.metadata(), null, ex.getMessage());
+        a = new Analysed(e.metadata(), null, ex.getMessage());
       }
+      String keep = KeptFigures.text(a);
+      if (keep != null) {
+        toKeep.put(e.json(), keep);
+      }
+      return a;
     });
+  }
+
+  /** The figures the index kept for these settings, read once. */
+  private Map<Path, String> keptFigures() {
+    Map<Path, String> k = kept;
+    if (k == null) {
+      k = index.figures().load(settingsKey);
+      kept = k;
+    }
+    return k;
+  }
+
+  /** Hands the figures computed since the last call to the index, in one write. */
+  private synchronized void keep() {
+    if (toKeep.isEmpty()) {
+      return;
+    }
+    Map<Path, String> batch = new java.util.HashMap<>(toKeep);
+    batch.keySet().forEach(toKeep::remove);
+    index.figures().store(settingsKey, batch);
+  }
+
+  /** Reads a run's curve again when a chart asks for it; the run's samples are the truth. */
+  private static java.util.function.Supplier<org.loadstone.analysis.Curve> samples(
+      ArchiveIndex.Entry e) {
+    return () -> RunMetrics.curveOf(RunReader.read(e.json()).data());
   }
 }

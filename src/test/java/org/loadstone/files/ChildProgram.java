@@ -38,6 +38,28 @@ public final class ChildProgram implements AutoCloseable {
     }
   }
 
+  /**
+   * The child's side: answers {@code ready}, then one line per order line until its input ends.
+   *
+   * @param answer the answer to one order line
+   */
+  public static void serve(ThrowingFunction answer) throws Exception {
+    BufferedReader in = new BufferedReader(new InputStreamReader(System.in,
+        StandardCharsets.UTF_8));
+    System.out.println("ready");
+    System.out.flush();
+    for (String line; (line = in.readLine()) != null; ) {
+      System.out.println(answer.apply(line));
+      System.out.flush();
+    }
+  }
+
+  /** An answer to an order line, which may fail. */
+  public interface ThrowingFunction {
+    /** @return the answer line */
+    String apply(String order) throws Exception;
+  }
+
   /** Sends one order line. */
   public void send(String line) throws IOException {
     orders.write(line + "\n");
