@@ -55,6 +55,27 @@ public final class SampleRing {
   private final boolean[] hasPosition;
   private volatile long head; // number of samples ever written
 
+  /** Heap bytes one slot takes: the six columns. */
+  static final int BYTES_PER_SLOT = 4 + 8 + 8 + 4 + 4 + 1;
+
+  /**
+   * The slots to ask for, given what the program may use: {@code wanted}, or the largest power
+   * of two at or below it whose columns take at most a quarter of the heap the program was
+   * given ({@code Runtime.maxMemory()}), never below 2^16 (1.3 s at 50,000 samples/s; the
+   * journal writer reads the ring continuously, so a smaller ring loses nothing at the rates a
+   * load frame produces while the writer keeps up).
+   *
+   * @param wanted a power of two from 2^16 to 2^24
+   * @param maxHeapBytes the heap the program may use
+   */
+  public static int capacityFor(int wanted, long maxHeapBytes) {
+    int c = wanted;
+    while (c > (1 << 16) && (long) c * BYTES_PER_SLOT > maxHeapBytes / 4) {
+      c >>= 1;
+    }
+    return c;
+  }
+
   /**
    * @param capacityPowerOfTwo slots, a power of two from 16 to 2^24; a reader can take up to
    *     {@code capacityPowerOfTwo - 1} samples behind the writer intact (class comment)

@@ -99,7 +99,19 @@ public final class LoadstoneCommand implements Runnable {
           w.flush();
           return EXIT_INTERNAL;
         });
-    return cl.execute(args);
+    try {
+      return cl.execute(args);
+    } catch (OutOfMemoryError e) {
+      // an Error passes picocli's handler; the heap is short, so say it plainly and end
+      PrintWriter w = cl.getErr();
+      w.println("loadstone: ran out of memory (" + e.getMessage() + ") with the "
+          + Runtime.getRuntime().maxMemory() / (1 << 20) + " MiB of heap this program was "
+          + "given: start it with more, e.g. java -Xmx1g -jar loadstone.jar …; a run being "
+          + "recorded stays in the archive's .journal folder and is stored by the next record "
+          + "or console start");
+      w.flush();
+      return EXIT_INTERNAL;
+    }
   }
 
   /** Reports the version from the jar manifest. */

@@ -164,7 +164,8 @@ public final class RecordCommand implements Callable<Integer> {
         manualStart, LoadstoneCommand.softwareVersion());
     RunSetup.check(request, device.port); // before the device is opened
 
-    DeviceReader reader = new DeviceReader(device.open(), new SampleRing(1 << 21));
+    DeviceReader reader = new DeviceReader(device.open(), new SampleRing(
+        SampleRing.capacityFor(1 << 21, Runtime.getRuntime().maxMemory())));
     reader.start();
     try {
       RunSetup setup = new RunSetup(reader, dir, device.simulated() ? device.simSetup() : null,
