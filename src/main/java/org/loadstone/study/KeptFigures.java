@@ -64,7 +64,7 @@ final class KeptFigures {
   /** @return the figures as text for the index, null when they cannot be kept */
   static String text(Analysed a) {
     ObjectNode o = NODES.objectNode();
-    o.put("metadata", sha256(String.valueOf(a.metadata())));
+    o.put("metadata", sha256(stable(a.metadata())));
     try {
       if (a.metrics() == null) {
         o.put("failure", a.failure());
@@ -97,7 +97,7 @@ final class KeptFigures {
       java.util.function.Supplier<Curve> samples) {
     try {
       JsonNode o = JSON.readTree(text);
-      if (!sha256(String.valueOf(metadata)).equals(o.path("metadata").asText())) {
+      if (!sha256(stable(metadata)).equals(o.path("metadata").asText())) {
         return null;
       }
       if (o.has("failure")) {
@@ -254,6 +254,52 @@ final class KeptFigures {
     Class<?>[] types = Stream.of(record.getRecordComponents()).map(RecordComponent::getType)
         .toArray(Class<?>[]::new);
     return record.getDeclaredConstructor(types);
+  }
+
+  /**
+   * A value as text that is the same in every run of the program: records by component, maps
+   * by key order (the iteration order of {@code Map.of} and {@code Map.copyOf} changes from one
+   * JVM to the next), lists in their order, anything else as its {@code toString}.
+   */
+  static String stable(Object v) {
+    StringBuilder b = new StringBuilder();
+    stable(v, b);
+    return b.toString();
+  }
+
+  private static void stable(Object v, StringBuilder b) {
+    if (v instanceof Record r) {
+      b.append(r.getClass().getSimpleName()).append('[');
+      for (RecordComponent c : r.getClass().getRecordComponents()) {
+        b.append(c.getName()).append('=');
+        try {
+          stable(c.getAccessor().invoke(r), b);
+        } catch (ReflectiveOperationException e) {
+          throw new IllegalStateException("a record's accessor is public", e);
+        }
+        b.append(", ");
+      }
+      b.append(']');
+    } else if (v instanceof Map<?, ?> m) {
+      Map<String, Object> sorted = new TreeMap<>();
+      m.forEach((k, x) -> sorted.put(String.valueOf(k), x));
+      b.append('{');
+      sorted.forEach((k, x) -> {
+        b.append(k).append('=');
+        stable(x, b);
+        b.append(", ");
+      });
+      b.append('}');
+    } else if (v instanceof java.util.Collection<?> c) {
+      b.append('[');
+      for (Object x : c) {
+        stable(x, b);
+        b.append(", ");
+      }
+      b.append(']');
+    } else {
+      b.append(v);
+    }
   }
 
   private static String sha256(String text) {
