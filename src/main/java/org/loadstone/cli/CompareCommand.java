@@ -57,9 +57,7 @@ public final class CompareCommand implements Callable<Integer> {
     }
     Metric m = Metric.parse(metric);
     PrintWriter out = spec.commandLine().getOut();
-    ArchiveRuns runs = ArchiveRuns.scan(archive.folder());
-    runs.notes().forEach(n -> spec.commandLine().getErr().println("note: " + n));
-    Selection sel = runs.select(select.selection());
+    Selection sel = ArchiveRuns.scan(archive.folder()).select(select.selection());
     StudyResult r;
     try {
       r = GroupStudy.compare(sel, m, targetPct / 100);

@@ -54,6 +54,7 @@ public final class RunsCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
     ArchiveIndex idx = ArchiveIndex.load(archive.folder());
+    idx.notes().forEach(n -> err.println("note: " + n)); // the index rebuilt, busy or unusable
     ArchiveIndex.Query q = new ArchiveIndex.Query(day(from, "--from", 0), day(to, "--to", 1),
         specimen, group, tag, cause == null ? null : FinishCause.parse(cause));
     List<ArchiveIndex.Entry> found = idx.search(q);
@@ -83,7 +84,6 @@ public final class RunsCommand implements Callable<Integer> {
     for (String p : idx.problems()) {
       err.println("warning: " + p);
     }
-    idx.notes().forEach(n -> err.println("note: " + n));
     if (json) {
       out.println(om.writeValueAsString(Map.of("runs", found.size(), "unreadable",
           idx.problems().size())));
