@@ -26,6 +26,8 @@ import picocli.CommandLine.Command;
       RunsCommand.class,
       CompareCommand.class,
       AnalyzeCommand.class,
+      AmendCommand.class,
+      RetireCommand.class,
       ImportCommand.class,
       ExportCommand.class,
       ReportCommand.class,
