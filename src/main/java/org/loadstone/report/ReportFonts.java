@@ -2,6 +2,7 @@ package org.loadstone.report;
 
 import java.awt.Font;
 import java.awt.FontFormatException;
+import java.io.ByteArrayInputStream;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
@@ -38,11 +39,44 @@ final class ReportFonts {
    * @return regular, then bold
    */
   static PDType0Font[] pdf(PDDocument doc) {
-    try (InputStream r = stream(REGULAR_FILE); InputStream b = stream(BOLD_FILE)) {
-      return new PDType0Font[] {PDType0Font.load(doc, r, true), PDType0Font.load(doc, b, true)};
+    try {
+      return new PDType0Font[] {
+        PDType0Font.load(doc, new ByteArrayInputStream(REGULAR_BYTES), true),
+        PDType0Font.load(doc, new ByteArrayInputStream(BOLD_BYTES), true)};
     } catch (IOException e) {
       throw new UncheckedIOException("cannot load the report font", e);
     }
+  }
+
+  private static final byte[] REGULAR_BYTES = withoutLigatures(REGULAR_FILE);
+  private static final byte[] BOLD_BYTES = withoutLigatures(BOLD_FILE);
+
+  /**
+   * The font file with its glyph-substitution table hidden: PDFBox applies a font's Latin
+   * ligatures when it shows text, which would print "stiffness" with an ff glyph that a reader
+   * searching or copying the PDF gets back as U+FB00. The table's tag in the file's table
+   * directory (12 bytes of header, then 16 bytes per table, tag first; TrueType/OpenType "Table
+   * directory") is renamed, so the table is not found, and a subset written into the PDF leaves
+   * it out.
+   */
+  static byte[] withoutLigatures(String file) {
+    byte[] b;
+    try (InputStream in = stream(file)) {
+      b = in.readAllBytes();
+    } catch (IOException e) {
+      throw new UncheckedIOException("cannot load the report font " + file, e);
+    }
+    int tables = ((b[4] & 0xFF) << 8) | (b[5] & 0xFF);
+    for (int i = 0; i < tables; i++) {
+      int at = 12 + 16 * i;
+      if (b[at] == 'G' && b[at + 1] == 'S' && b[at + 2] == 'U' && b[at + 3] == 'B') {
+        b[at] = 'g';
+        b[at + 1] = 's';
+        b[at + 2] = 'u';
+        b[at + 3] = 'b';
+      }
+    }
+    return b;
   }
 
   private static InputStream stream(String file) {

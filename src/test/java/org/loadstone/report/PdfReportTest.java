@@ -51,9 +51,9 @@ class PdfReportTest {
     assertThat(t).contains("Run report: FO-17")
         .contains(TestRuns.CAL_HASH)
         .contains("cal-2026-11-20-500N")
-        .contains("peak force (N) 460.0")
+        .contains("peak force 460.0 N")
         // C393 core shear stress 460/((26+20)·50) = 0.2 MPa, printed with 4 digits
-        .contains("core shear stress at peak (MPa) 0.2000")
+        .contains("core shear stress at peak 0.2000 MPa")
         .contains("R. Okafor")
         .contains("shield and eye protection")
         .contains("does not replace the press's own mechanical limits or an emergency stop")
