@@ -128,14 +128,16 @@ final class RunFacts {
 
   private static String coefficients(RunMetadata md) {
     List<Double> c = md.scaleSpec().responseCoefficients();
-    List<String> terms = new ArrayList<>();
+    StringBuilder terms = new StringBuilder();
     for (int i = 0; i < c.size(); i++) {
-      terms.add(fact(c.get(i), 6) + (i == 0 ? "" : i == 1 ? " F" : " F^" + i));
+      double v = c.get(i);
+      String term = fact(Math.abs(v), 6) + (i == 0 ? "" : i == 1 ? " F" : " F^" + i);
+      terms.append(i == 0 ? (v < 0 ? "−" : "") + term : (v < 0 ? " − " : " + ") + term);
     }
     String range = md.scaleSpec().validFrom_N() == null && md.scaleSpec().validTo_N() == null ? ""
         : "; calibrated from " + value(md.scaleSpec().validFrom_N()) + " to "
             + value(md.scaleSpec().validTo_N()) + " N";
-    return md.scaleSpec().kind() + ": counts = " + String.join(" + ", terms) + " (F in N)" + range;
+    return md.scaleSpec().kind() + ": counts = " + terms + " (F in N)" + range;
   }
 
   private static String value(Object v) {
