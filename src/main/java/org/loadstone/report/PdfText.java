@@ -103,7 +103,7 @@ final class PdfText {
         b.appendCodePoint(c);
       } else {
         replaced = true;
-        b.append(String.format(java.util.Locale.ROOT, "[U+%04X]", c));
+        b.append(ReportFonts.code(c));
       }
     });
     return b.toString();

@@ -28,6 +28,28 @@ final class ReportFonts {
   private static final Font REGULAR = awtFont(REGULAR_FILE);
   private static final Font BOLD = awtFont(BOLD_FILE);
 
+  /**
+   * Text the report font can show: each character it has no glyph for written as its Unicode
+   * number, e.g. {@code [U+8BD5]} (the same mark the PDF text gets from {@link PdfText}), so a
+   * chart never prints empty boxes.
+   */
+  static String printable(String s) {
+    StringBuilder b = new StringBuilder(s.length());
+    s.codePoints().forEach(c -> {
+      if (REGULAR.canDisplay(c) && BOLD.canDisplay(c)) {
+        b.appendCodePoint(c);
+      } else {
+        b.append(code(c));
+      }
+    });
+    return b.toString();
+  }
+
+  /** @return the mark of a character without a glyph, e.g. {@code [U+8BD5]} */
+  static String code(int codePoint) {
+    return String.format(java.util.Locale.ROOT, "[U+%04X]", codePoint);
+  }
+
   /** @return the chart font at {@code size} points */
   static Font awt(boolean bold, float size) {
     return (bold ? BOLD : REGULAR).deriveFont(size);

@@ -134,6 +134,8 @@ class PdfReportTest {
     // U+8BD5 is the code point of 试 (Unicode Character Database, CJK Unified Ideographs)
     assertThat(text(pdf)).contains("Run report: σ-µ²-≥-[U+8BD5]")
         .contains("shown as their Unicode number");
+    // the chart marks it the same way rather than drawing an empty box
+    assertThat(Charts.run(m).getTitle().getText()).isEqualTo("σ-µ²-≥-[U+8BD5]");
   }
 
   @Test
