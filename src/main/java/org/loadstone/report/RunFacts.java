@@ -27,6 +27,9 @@ final class RunFacts {
 
   static List<String[]> rows(RunMetadata md) {
     List<String[]> rows = new ArrayList<>();
+    if (md.amendments().any()) {
+      rows.add(new String[] {"amendments", amendments(md)});
+    }
     add(rows, "specimen", md.specimen());
     add(rows, "group", md.group());
     add(rows, "tags", String.join(", ", md.tags()));
@@ -62,6 +65,18 @@ final class RunFacts {
       add(rows, "other fields", String.join("; ", parts));
     }
     return rows;
+  }
+
+  /** @return what was amended, when, by whom and why, in one cell */
+  static String amendments(RunMetadata md) {
+    List<String> parts = new ArrayList<>();
+    parts.add(md.amendments().summary());
+    for (org.loadstone.archive.Amendment a : md.amendments().log()) {
+      parts.add(when(a.at()) + (a.operator().isEmpty() ? "" : " by " + a.operator()) + ": "
+          + a.reason());
+    }
+    return String.join("; ", parts) + " (values below as amended; the run's files are as "
+        + "recorded)";
   }
 
   /** Heads of the check-weight table. */
