@@ -51,6 +51,17 @@ final class GroupReport {
     p.heading("Results of every specimen", 80);
     p.table(specimenHeads(), specimenRows(sel), new float[] {0.08f, 0.12f, 0.2f, 0.08f, 0.09f,
         0.08f, 0.08f, 0.09f, 0.18f}, 7);
+    List<String> amended = new ArrayList<>();
+    for (RunMetadata md : counted) {
+      if (md.amendments().any()) {
+        amended.add("Run " + md.runId() + " (" + md.specimen() + "): "
+            + RunFacts.amendments(md));
+      }
+    }
+    if (!amended.isEmpty()) {
+      p.heading("Amended runs (counted with their amended values)", 60);
+      p.bullets(amended, 8);
+    }
     if (!sel.leftOut().isEmpty()) {
       p.heading("Runs left out", 60);
       p.bullets(sel.leftOut().stream().map(l -> "Run " + l.line()

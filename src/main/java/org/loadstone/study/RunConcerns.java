@@ -17,7 +17,8 @@ import org.loadstone.units.Precondition;
  * banner of the reports (and any other face that marks doubtful runs). A run raises a concern when
  * the last check-weight verification of its calibration failed, its calibration had expired or
  * did not match, its force came from a nominal scale or another program's file, it did not end in
- * a break, or it carries any other warning stored with it.
+ * a break, its record was amended or it was retired, or it carries any other warning stored
+ * with it.
  */
 public final class RunConcerns {
   private RunConcerns() {}
@@ -103,7 +104,10 @@ public final class RunConcerns {
         out.add(concern(md, Kind.WARNING, w)); // the two above say it already, with figures
       }
     }
-    // amendments (corrections and retirements) join here as Kind.AMENDED once runs carry them
+    if (md.amendments().any()) {
+      out.add(concern(md, Kind.AMENDED, md.amendments().summary() + " (figures use the amended "
+          + "values; the run's files are as recorded)"));
+    }
     out.sort(java.util.Comparator.comparing(Concern::kind));
     return List.copyOf(out);
   }

@@ -55,6 +55,20 @@ class RunConcernsTest {
   }
 
   @Test
+  void anAmendedRunSaysWhatChanged() {
+    org.loadstone.archive.Amendment a = new org.loadstone.archive.Amendment(
+        java.time.Instant.parse("2026-12-03T09:00:00Z"), "R. Okafor", "weighed again",
+        Map.of("mass_g", 41.2), null, "0.1.0-test");
+    RunMetadata md = run("F").mass_g(41.2).amendments(new org.loadstone.archive.RunAmendments(
+        List.of(a), List.of(new org.loadstone.archive.RunAmendments.Change("mass_g", "50",
+            "41.2")), null)).build();
+    assertThat(RunConcerns.of(md)).singleElement().satisfies(c -> {
+      assertThat(c.kind()).isEqualTo(Kind.AMENDED);
+      assertThat(c.text()).startsWith("amended: mass_g 41.2 (was 50)");
+    });
+  }
+
+  @Test
   void aCheckRecordWithoutAVerdictIsNotReadAsAFailure() {
     Map<String, Object> c = TestRuns.checkWeight(true, 0.1);
     c.remove("pass");
