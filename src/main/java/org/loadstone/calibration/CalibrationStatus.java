@@ -74,6 +74,25 @@ public record CalibrationStatus(State state, String warning, CalibrationDocument
     return new CalibrationStatus(State.OK, "", d);
   }
 
+  /**
+   * What a warning this class wrote says, read back from a run that stored it (runs keep their
+   * warnings as text).
+   *
+   * @param warning a stored warning, not null
+   * @return {@link State#EXPIRED} or {@link State#HASH_MISMATCH} when the warning is one of those
+   *     this class writes, else empty
+   */
+  public static java.util.Optional<State> stateOf(String warning) {
+    if (warning.startsWith("Calibration ") && warning.contains(" expired on ")) {
+      return java.util.Optional.of(State.EXPIRED);
+    }
+    if (warning.startsWith("Calibration ") && (warning.contains("Do not trust its forces")
+        || warning.contains("is not the one this setup refers to"))) {
+      return java.util.Optional.of(State.HASH_MISMATCH);
+    }
+    return java.util.Optional.empty();
+  }
+
   private static String shortHash(String h) {
     return h == null ? "(none)" : h.substring(0, Math.min(12, h.length()));
   }

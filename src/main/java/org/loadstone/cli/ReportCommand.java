@@ -73,7 +73,7 @@ public final class ReportCommand implements Callable<Integer> {
         spec.commandLine().getOut().println("chart written to " + png);
       }
       if (out != null) {
-        PdfReport.writeRun(m, out);
+        PdfReport.writeRun(m, r.source(), out);
       }
     } else {
       ArchiveRuns runs = ArchiveRuns.scan(archive.folder());

@@ -7,7 +7,6 @@ import java.awt.geom.Ellipse2D;
 import java.awt.geom.Rectangle2D;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.function.IntToDoubleFunction;
 import org.jfree.chart.JFreeChart;
@@ -27,6 +26,7 @@ import org.loadstone.analysis.RunResult;
 import org.loadstone.analysis.StiffnessFit;
 import org.loadstone.analysis.stats.ComparisonResult;
 import org.loadstone.analysis.stats.GroupSummary;
+import org.loadstone.study.Metric;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
@@ -77,7 +77,7 @@ public final class Charts {
     if (c.hasPosition() && r.stiffness().isPresent()) {
       StiffnessFit fit = r.stiffness().get();
       double top = r.peakForce_N(); // up to the peak level, so the curve's departure shows
-      ds.add(String.format(Locale.ROOT, "stiffness %.4g N/mm", fit.slope_N_per_mm()),
+      ds.add("stiffness " + Metric.STIFFNESS.format(fit.slope_N_per_mm()) + " N/mm",
           new double[] {fit.toeOffset_mm(), (top - fit.intercept_N()) / fit.slope_N_per_mm()},
           new double[] {0.0, top});
       rend.setSeriesPaint(next, PALETTE[4]);
@@ -97,7 +97,7 @@ public final class Charts {
     XYPlot plot = plot(ds, rend, new NumberAxis(xLabel), "force (N)");
     int p = r.peakIndex();
     XYPointerAnnotation peak = new XYPointerAnnotation(
-        String.format(Locale.ROOT, "peak %.4g N", r.peakForce_N()), x.applyAsDouble(p),
+        "peak " + Metric.PEAK.format(r.peakForce_N()) + " N", x.applyAsDouble(p),
         c.force_N(p), -2.6);
     peak.setFont(LABEL);
     peak.setPaint(INK);
@@ -149,7 +149,8 @@ public final class Charts {
       boolean first = true;
       for (RunMetrics m : e.getValue()) {
         Curve c = m.curve();
-        ds.add(first ? legendName(e.getKey(), e.getValue().size()) : e.getKey() + " #" + s,
+        ds.add(ReportFonts.printable(first ? legendName(e.getKey(), e.getValue().size())
+            : e.getKey() + " #" + s),
             c.size(), xOf(c, allPosition), c::force_N, TraceDataset.DEFAULT_COLUMNS);
         rend.setSeriesPaint(s, colour);
         rend.setSeriesStroke(s, colours.line(e.getKey(), width));
@@ -163,8 +164,8 @@ public final class Charts {
   }
 
   /**
-   * The curves of one group. Up to {@link #PER_RUN_LEGEND_MAX} runs: one colour per run, the
-   * legend naming the specimens. More: every curve in the group's colour and no per-run legend
+   * The curves of one group, in the group's colour. Up to {@link #PER_RUN_LEGEND_MAX} runs: one
+   * line pattern (and shade) per run, the legend naming the specimens. More: every curve in the group's colour and no per-run legend
    * (the group report's tables name the runs), the run count in the subtitle.
    *
    * @param group group name, used as the title, not null
@@ -194,12 +195,45 @@ public final class Charts {
       ch.addSubtitle(sub);
       return ch;
     }
-    Map<String, List<RunMetrics>> each = new java.util.LinkedHashMap<>();
+    // a few runs: each named in the legend, in the group's colour, told apart by a line
+    // pattern and a lighter shade
+    boolean allPosition = allPosition(runs);
+    TraceDataset ds = new TraceDataset();
+    XYLineAndShapeRenderer rend = new XYLineAndShapeRenderer(true, false);
+    rend.setDrawSeriesLineAsPath(true);
+    java.util.Set<String> names = new java.util.HashSet<>();
     for (int i = 0; i < runs.size(); i++) {
       String name = runs.get(i).metadata().specimen();
-      each.put(each.containsKey(name) ? name + " (" + (i + 1) + ")" : name, List.of(runs.get(i)));
+      Curve c = runs.get(i).curve();
+      ds.add(ReportFonts.printable(names.add(name) ? name : name + " (" + (i + 1) + ")"), c.size(),
+          xOf(c, allPosition), c::force_N, TraceDataset.DEFAULT_COLUMNS);
+      rend.setSeriesPaint(i, lighter(colours.colour(group), 0.07f * i));
+      rend.setSeriesStroke(i, RUN_LINES.get(i % RUN_LINES.size()));
     }
-    return overlay(group, each, GroupColours.of(each.keySet()));
+    String xLabel = allPosition ? "displacement (mm)" : "time (s)";
+    return chart(group, plot(ds, rend, new NumberAxis(xLabel), "force (N)"), true);
+  }
+
+  /** Line patterns that tell a group's runs apart: solid, dashes, dots and mixes. */
+  private static final List<BasicStroke> RUN_LINES = List.of(
+      new BasicStroke(1.3f),
+      dashed(7f, 3f),
+      dashed(1.5f, 2.5f),
+      dashed(7f, 2.5f, 1.5f, 2.5f),
+      dashed(12f, 3f),
+      dashed(4f, 4f),
+      dashed(12f, 2.5f, 1.5f, 2.5f, 1.5f, 2.5f),
+      dashed(2.5f, 5f));
+
+  private static BasicStroke dashed(float... pattern) {
+    return new BasicStroke(1.3f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_ROUND, 1f, pattern, 0f);
+  }
+
+  /** The colour moved toward white by {@code share} (0 to 1). */
+  private static Color lighter(Color c, float share) {
+    return new Color(Math.round(c.getRed() + (255 - c.getRed()) * share),
+        Math.round(c.getGreen() + (255 - c.getGreen()) * share),
+        Math.round(c.getBlue() + (255 - c.getBlue()) * share));
   }
 
   private static String legendName(String group, int runs) {
@@ -256,7 +290,7 @@ public final class Charts {
     BasicStroke thin = new BasicStroke(1.2f);
     for (int gi = 0; gi < groups.size(); gi++) {
       GroupSummary gs = groups.get(gi);
-      names[gi] = gs.name();
+      names[gi] = ReportFonts.printable(gs.name());
       XYSeries pts = new XYSeries(gs.name(), false, true);
       List<Double> v = values.getOrDefault(gs.name(), List.of());
       for (int i = 0; i < v.size(); i++) {
@@ -320,6 +354,7 @@ public final class Charts {
     if (xAxis instanceof NumberAxis n) {
       n.setAutoRangeIncludesZero(false);
     }
+    rend.setLegendLine(new java.awt.geom.Line2D.Double(-11, 0, 11, 0)); // long enough to show a dash
     XYPlot plot = new XYPlot(ds, xAxis, yAxis, rend);
     plot.setBackgroundPaint(Color.WHITE);
     plot.setDomainGridlinePaint(GRID);
@@ -332,7 +367,7 @@ public final class Charts {
   }
 
   private static JFreeChart chart(String title, XYPlot plot, boolean legend) {
-    JFreeChart ch = new JFreeChart(title, TITLE, plot, legend);
+    JFreeChart ch = new JFreeChart(ReportFonts.printable(title), TITLE, plot, legend);
     ch.setBackgroundPaint(Color.WHITE);
     ch.setAntiAlias(true);
     TextTitle t = ch.getTitle();

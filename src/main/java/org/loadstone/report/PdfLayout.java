@@ -4,17 +4,12 @@ import java.awt.Color;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
-import java.util.Calendar;
-import java.util.HashMap;
 import java.util.List;
-import java.util.Map;
 import org.apache.pdfbox.pdmodel.PDDocument;
-import org.apache.pdfbox.pdmodel.PDDocumentInformation;
 import org.apache.pdfbox.pdmodel.PDPage;
 import org.apache.pdfbox.pdmodel.PDPageContentStream;
 import org.apache.pdfbox.pdmodel.common.PDRectangle;
 import org.apache.pdfbox.pdmodel.font.PDType0Font;
-import org.apache.pdfbox.pdmodel.interactive.viewerpreferences.PDViewerPreferences;
 import org.jfree.chart.JFreeChart;
 
 /**
@@ -40,11 +35,10 @@ final class PdfLayout implements AutoCloseable {
   final PDDocument doc = new PDDocument();
   private final PDType0Font regular;
   private final PDType0Font bold;
-  private final Map<Integer, Boolean> encodable = new HashMap<>();
+  private final PdfText fonts;
   private final String footer;
   private PDPageContentStream cs;
   private float y;
-  private boolean replaced;
   private java.util.function.Consumer<JFreeChart> chartsDrawn = c -> { };
 
   /**
@@ -58,7 +52,8 @@ final class PdfLayout implements AutoCloseable {
     PDType0Font[] fonts = ReportFonts.pdf(doc);
     regular = fonts[0];
     bold = fonts[1];
-    describe(info);
+    this.fonts = new PdfText(regular, bold);
+    PdfPages.describe(doc, info);
     newPage();
   }
 
@@ -74,31 +69,14 @@ final class PdfLayout implements AutoCloseable {
   record PdfInfo(String title, String author, String subject, String keywords,
       String producer) {}
 
-  private void describe(PdfInfo info) {
-    PDDocumentInformation d = doc.getDocumentInformation();
-    d.setTitle(info.title());
-    if (!info.author().isBlank()) {
-      d.setAuthor(info.author());
-    }
-    d.setSubject(info.subject());
-    d.setKeywords(info.keywords());
-    d.setProducer(info.producer());
-    d.setCreator(info.producer());
-    d.setCreationDate(Calendar.getInstance());
-    PDViewerPreferences prefs = new PDViewerPreferences(new org.apache.pdfbox.cos.COSDictionary());
-    prefs.setDisplayDocTitle(true);
-    doc.getDocumentCatalog().setViewerPreferences(prefs);
-    doc.getDocumentCatalog().setLanguage("en");
-  }
-
   /** @return whether some character was printed as its Unicode number (no glyph in the font) */
   boolean replacedAny() {
-    return replaced;
+    return fonts.replacedAny();
   }
 
   /** When some character had no glyph so far: a line saying how such characters are shown. */
   void glyphNote() {
-    if (replaced) {
+    if (fonts.replacedAny()) {
       paragraph("Some characters have no glyph in the report font (" + ReportFonts.REGULAR_NAME
           + ") and are shown as their Unicode number in brackets, e.g. [U+8BD5]; the run files "
           + "keep the text unchanged.", 8);
@@ -240,12 +218,27 @@ final class PdfLayout implements AutoCloseable {
     y -= height + 8;
   }
 
-  /** A tinted, framed box with a bold heading and bullet lines. */
+  /** Colours of a framed box: its fill, its frame and its marks. */
+  record Tone(Color fill, Color edge) {}
+
+  static final Tone CAUTION_TONE = new Tone(CAUTION, CAUTION_EDGE);
+  static final Tone ALERT_TONE = new Tone(new Color(0xFB, 0xEA, 0xE8), new Color(0xA8, 0x32, 0x2B));
+
+  /** A tinted, framed box with a bold heading and marked lines. */
   void cautionBox(String head, List<String> items, float size) {
+    box(head, items.stream().map(i -> new String[] {"", i}).toList(), CAUTION_TONE, size);
+  }
+
+  /**
+   * A tinted, framed box with a bold heading and one marked line per item; an item is {lead,
+   * text}, the lead (may be empty) in bold before the text.
+   */
+  void box(String head, List<String[]> items, Tone tone, float size) {
     List<List<String>> wrapped = new ArrayList<>();
     int lines = 0;
-    for (String s : items) {
-      List<String> l = wrap(s, regular, size, TEXT_WIDTH - 28);
+    for (String[] item : items) {
+      String lead = item[0].isEmpty() ? "" : item[0] + ": ";
+      List<String> l = wrap(lead + item[1], regular, size, TEXT_WIDTH - 28);
       wrapped.add(l);
       lines += l.size();
     }
@@ -253,10 +246,10 @@ final class PdfLayout implements AutoCloseable {
     need(h + 8);
     y -= 4;
     try {
-      cs.setNonStrokingColor(CAUTION);
+      cs.setNonStrokingColor(tone.fill());
       cs.addRect(MARGIN, y - h, TEXT_WIDTH, h);
       cs.fill();
-      cs.setStrokingColor(CAUTION_EDGE);
+      cs.setStrokingColor(tone.edge());
       cs.setLineWidth(1.2f);
       cs.addRect(MARGIN, y - h, TEXT_WIDTH, h);
       cs.stroke();
@@ -265,16 +258,66 @@ final class PdfLayout implements AutoCloseable {
     }
     text(bold, 10.5f, INK, MARGIN + 10, y - 15, head);
     float ly = y - 22 - size;
-    for (List<String> l : wrapped) {
+    for (int k = 0; k < wrapped.size(); k++) {
+      List<String> l = wrapped.get(k);
+      String lead = items.get(k)[0].isEmpty() ? "" : safe(items.get(k)[0] + ":");
       for (int i = 0; i < l.size(); i++) {
         if (i == 0) {
-          text(regular, size, CAUTION_EDGE, MARGIN + 10, ly, "!");
+          text(bold, size, tone.edge(), MARGIN + 10, ly, "!");
         }
-        text(regular, size, INK, MARGIN + 20, ly, l.get(i));
+        if (i == 0 && !lead.isEmpty() && l.get(0).startsWith(lead)) {
+          // the lead in bold, the rest of the first line after it
+          text(bold, size, INK, MARGIN + 20, ly, lead);
+          text(regular, size, INK, MARGIN + 20 + width(bold, size, lead), ly,
+              l.get(0).substring(lead.length()));
+        } else {
+          text(regular, size, INK, MARGIN + 20, ly, l.get(i));
+        }
         ly -= size + 3.5f;
       }
     }
     y -= h + 8;
+  }
+
+  /**
+   * Boxes side by side to be signed: each with its label, what is known already (may be empty)
+   * and a line to sign on.
+   *
+   * @param fields {label, known, what goes on the line} per box
+   */
+  void signatures(List<String[]> fields, float size) {
+    float h = 58;
+    need(h + 10);
+    float w = TEXT_WIDTH / fields.size();
+    try {
+      cs.setStrokingColor(RULE);
+      cs.setLineWidth(0.8f);
+      cs.addRect(MARGIN, y - h, TEXT_WIDTH, h);
+      for (int i = 1; i < fields.size(); i++) {
+        cs.moveTo(MARGIN + i * w, y);
+        cs.lineTo(MARGIN + i * w, y - h);
+      }
+      cs.stroke();
+      cs.setStrokingColor(MUTED);
+      cs.setLineWidth(0.5f);
+      for (int i = 0; i < fields.size(); i++) {
+        cs.moveTo(MARGIN + i * w + 8, y - h + 14);
+        cs.lineTo(MARGIN + (i + 1) * w - 8, y - h + 14);
+      }
+      cs.stroke();
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+    for (int i = 0; i < fields.size(); i++) {
+      float x = MARGIN + i * w + 8;
+      text(bold, size, INK, x, y - 4 - size, fields.get(i)[0]);
+      List<String> known = wrap(fields.get(i)[1], regular, size - 1, w - 16);
+      if (!known.isEmpty() && !known.get(0).isEmpty()) {
+        text(regular, size - 1, MUTED, x, y - 8 - 2 * size, known.get(0));
+      }
+      text(regular, size - 1.5f, MUTED, x, y - h + 5, fields.get(i)[2]);
+    }
+    y -= h + 10;
   }
 
   void space(float pt) {
@@ -299,84 +342,19 @@ final class PdfLayout implements AutoCloseable {
   }
 
   private void text(PDType0Font font, float size, Color c, float x, float baseline, String s) {
-    try {
-      cs.beginText();
-      cs.setFont(font, size);
-      cs.setNonStrokingColor(c);
-      cs.newLineAtOffset(x, baseline);
-      cs.showText(safe(s));
-      cs.endText();
-    } catch (IOException e) {
-      throw new UncheckedIOException(e);
-    }
+    fonts.show(cs, font, size, c, x, baseline, s);
   }
 
   private List<String> wrap(String s, PDType0Font font, float size, float width) {
-    List<String> out = new ArrayList<>();
-    for (String para : safe(s).split("\n", -1)) {
-      StringBuilder line = new StringBuilder();
-      for (String word : para.split(" ")) {
-        String trial = line.length() == 0 ? word : line + " " + word;
-        if (width(font, size, trial) <= width || line.length() == 0) {
-          line.setLength(0);
-          line.append(trial);
-          while (width(font, size, line.toString()) > width && line.length() > 1) {
-            int cut = Math.max(1, (int) (line.length() * width / width(font, size, line.toString())) - 1);
-            out.add(line.substring(0, cut));
-            line.delete(0, cut);
-          }
-        } else {
-          out.add(line.toString());
-          line.setLength(0);
-          line.append(word);
-        }
-      }
-      out.add(line.toString());
-    }
-    return out;
+    return fonts.wrap(s, font, size, width);
   }
 
   private float width(PDType0Font font, float size, String s) {
-    try {
-      return font.getStringWidth(s) / 1000 * size;
-    } catch (IOException e) {
-      throw new UncheckedIOException(e);
-    }
+    return fonts.width(font, size, s);
   }
 
-  /**
-   * The text as the report font can print it: tabs and carriage returns as spaces, other control
-   * characters dropped, and each character without a glyph as its Unicode number, e.g. {@code
-   * [U+8BD5]}.
-   */
   String safe(String s) {
-    StringBuilder b = new StringBuilder(s.length());
-    s.codePoints().forEach(c -> {
-      if (c == '\n') {
-        b.append('\n');
-      } else if (c == '\t' || c == '\r') {
-        b.append(' ');
-      } else if (Character.isISOControl(c)) {
-        replaced = true;
-      } else if (encodable.computeIfAbsent(c, this::canEncode)) {
-        b.appendCodePoint(c);
-      } else {
-        replaced = true;
-        b.append(String.format(java.util.Locale.ROOT, "[U+%04X]", c));
-      }
-    });
-    return b.toString();
-  }
-
-  private boolean canEncode(int c) {
-    String one = new String(Character.toChars(c));
-    try {
-      regular.encode(one);
-      bold.encode(one);
-      return true;
-    } catch (IOException | IllegalArgumentException e) {
-      return false;
-    }
+    return fonts.safe(s);
   }
 
   @Override

@@ -87,6 +87,25 @@ public final class TestRuns {
         .build();
   }
 
+  /**
+   * A check-weight verification as a run stores it: 20 kg expected at 196.133 N, read {@code
+   * errorPct} off, tolerance 0.5 %, on 2026-12-01 07:45:12.345 UTC, of calibration
+   * cal-2026-11-20-500N.
+   */
+  public static Map<String, Object> checkWeight(boolean pass, double errorPct) {
+    Map<String, Object> c = new java.util.LinkedHashMap<>();
+    c.put("time", "2026-12-01T07:45:12.345Z");
+    c.put("calibration_id", "cal-2026-11-20-500N");
+    c.put("calibration_sha256", CAL_HASH);
+    c.put("mass_kg", 20.0);
+    c.put("expected_N", 196.133);
+    c.put("indicated_N", 196.133 * (1 + errorPct / 100));
+    c.put("error_pct", errorPct);
+    c.put("tolerance_pct", 0.5);
+    c.put("pass", pass);
+    return c;
+  }
+
   /** A sandwich panel geometry: span 400, width 50, depth 26, core 20, facings 3 (mm). */
   public static Geometry panel() {
     return new Geometry(400.0, null, 50.0, 26.0, 3.0, 20.0, null);

@@ -169,6 +169,14 @@ class CalibrationFilesTest {
     CalibrationStatus e = CalibrationStatus.check(edited, null, LocalDate.of(2027, 1, 1));
     assertThat(e.state()).isEqualTo(CalibrationStatus.State.HASH_MISMATCH);
     assertThat(e.warning()).contains("changed since it was saved");
+    // a run stores these warnings as text; reading them back gives the state again
+    assertThat(CalibrationStatus.stateOf(expired.warning())).contains(
+        CalibrationStatus.State.EXPIRED);
+    assertThat(CalibrationStatus.stateOf(e.warning())).contains(
+        CalibrationStatus.State.HASH_MISMATCH);
+    assertThat(CalibrationStatus.stateOf(CalibrationStatus.check(f, "0".repeat(64),
+        LocalDate.of(2027, 1, 1)).warning())).contains(CalibrationStatus.State.HASH_MISMATCH);
+    assertThat(CalibrationStatus.stateOf("calibration is 12 days old")).isEmpty();
   }
 
   @Test
