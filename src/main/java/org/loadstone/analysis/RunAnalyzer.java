@@ -1,11 +1,9 @@
 package org.loadstone.analysis;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
-import org.loadstone.analysis.AnalysisSettings.CrushWindow;
 import org.loadstone.analysis.RunResult.BreakPoint;
 import org.loadstone.analysis.RunResult.CrushResult;
 import org.loadstone.units.LoadstoneException;
@@ -30,7 +28,8 @@ public final class RunAnalyzer {
    *   <li>Toe compensation: the fitted line meets zero force at the toe offset; corrected
    *       displacement = displacement − toe offset (ASTM D790 annex A1, ISO 178).
    *   <li>Energy: trapezoidal area under force–displacement, N·mm / 1000 = J.
-   *   <li>Crush: area over the stroke window divided by its length; efficiency = mean / peak.
+   *   <li>Crush ({@link CrushFigures}): energy over the forward stroke in the window, mean crush
+   *       force = that energy / the window's length, efficiency = mean / peak.
    * </ul>
    *
    * <p>A run has "no rise" when the peak is the first sample, or the rise (peak − first force) is
@@ -126,7 +125,7 @@ public final class RunAnalyzer {
     Optional<CrushResult> crush =
         settings.crushWindow() == null
             ? Optional.empty()
-            : Optional.of(crush(x, f, settings.crushWindow(), f[peak]));
+            : Optional.of(CrushFigures.over(x, f, settings.crushWindow(), f[peak]));
 
     return new RunResult(
         n, f[0], peak, f[peak], t[peak], OptionalDouble.of(pos[peak]), brk,
@@ -192,36 +191,5 @@ public final class RunAnalyzer {
       sum += 0.5 * (f[i] + f[i - 1]) * (x[i] - x[i - 1]);
     }
     return sum;
-  }
-
-  private static CrushResult crush(double[] x, double[] f, CrushWindow w, double peak_N) {
-    double a = w.from_mm();
-    double b = w.to_mm();
-    double max = Arrays.stream(x).max().orElseThrow();
-    if (b > max) {
-      throw new LoadstoneException(
-          String.format(
-              "Crush window %.4g to %.4g mm reaches past the largest displacement of the run, "
-                  + "%.4g mm. End the window at or before %.4g mm.",
-              a, b, max, max));
-    }
-    double area = 0;
-    for (int i = 1; i < x.length; i++) {
-      double x0 = x[i - 1];
-      double x1 = x[i];
-      if (x1 <= x0) {
-        continue; // only forward stroke contributes; rebound or pauses are skipped
-      }
-      double lo = Math.max(x0, a);
-      double hi = Math.min(x1, b);
-      if (hi <= lo) {
-        continue;
-      }
-      double flo = f[i - 1] + (f[i] - f[i - 1]) * (lo - x0) / (x1 - x0);
-      double fhi = f[i - 1] + (f[i] - f[i - 1]) * (hi - x0) / (x1 - x0);
-      area += 0.5 * (flo + fhi) * (hi - lo);
-    }
-    double mean = area / (b - a);
-    return new CrushResult(a, b, mean, mean / peak_N);
   }
 }

@@ -95,6 +95,8 @@ public record RunResult(
    * @param to_mm window end, displacement in millimetres
    * @param meanForce_N area under force–displacement over the window divided by its length, N
    * @param efficiency crush-force efficiency, mean crush force divided by peak force
+   * @param energy_J energy absorbed over the window's forward stroke, joules
    */
-  public record CrushResult(double from_mm, double to_mm, double meanForce_N, double efficiency) {}
+  public record CrushResult(double from_mm, double to_mm, double meanForce_N, double efficiency,
+      double energy_J) {}
 }

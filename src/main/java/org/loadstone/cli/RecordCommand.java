@@ -55,6 +55,7 @@ public final class RecordCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
   @Mixin ArchiveOption archive;
   @Mixin StiffnessOptions stiffness;
+  @Mixin CrushOptions crush;
 
   @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file to turn counts into force.")
   Path cal;
@@ -78,7 +79,7 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--mass-g", description = "Specimen mass in g (for strength per weight).")
   Double mass_g;
 
-  @Option(names = "--test", defaultValue = "three-point", description = "three-point, four-point, compression or tension (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--test", defaultValue = "three-point", description = "three-point, four-point, compression, tension or crush (default: ${DEFAULT-VALUE}).")
   String test;
 
   @Option(names = "--span-mm", description = "Support span L (bend tests).") Double span;
@@ -142,7 +143,8 @@ public final class RecordCommand implements Callable<Integer> {
     PrintWriter err = spec.commandLine().getErr();
     Path dir = archive.folder();
     org.loadstone.analysis.AnalysisSettings analysis =
-        stiffness.apply(org.loadstone.analysis.AnalysisSettings.DEFAULTS); // refuse before a run
+        crush.apply(stiffness.apply(org.loadstone.analysis.AnalysisSettings.DEFAULTS)); // refuse
+    // a bad band or stroke before a run
     JournalRunStore store = new JournalRunStore(dir);
     store.checkWritable();
     for (StoredRun r : JournalRecovery.recoverAll(dir, n -> say(err, n))) {

@@ -62,7 +62,9 @@ final class RecordSummary {
         for (String k : new String[] {"stiffness_N_per_mm", "stiffness_ci95_low_N_per_mm",
             "stiffness_ci95_high_N_per_mm", "stiffness_method", "stiffness_refused",
             "energy_to_peak_J",
-            "energy_to_break_J", "specific_peak_N_per_g"}) {
+            "energy_to_break_J", "specific_peak_N_per_g", "mean_crush_force_N",
+            "crush_force_efficiency", "crush_energy_J", "crush_from_mm", "crush_to_mm",
+            "specific_crush_energy_J_per_g"}) {
           m.put(k, a.get(k));
         }
       }
@@ -87,6 +89,12 @@ final class RecordSummary {
             metrics.specificPeak_N_per_g().isPresent() ? String.format(Locale.ROOT,
                 ", peak %.4g N/g", metrics.specificPeak_N_per_g().getAsDouble()) : "");
         a.stiffnessRefusal().ifPresent(no -> out.println("no stiffness: " + no.reason()));
+        RunMetrics shown = metrics;
+        a.crush().ifPresent(c -> out.printf(Locale.ROOT, "crush %.4g to %.4g mm: mean crush force"
+            + " %.4g N, crush-force efficiency %.3f, energy %.4g J%s%n", c.from_mm(), c.to_mm(),
+            c.meanForce_N(), c.efficiency(), c.energy_J(),
+            shown.specificCrushEnergy_J_per_g().isPresent() ? String.format(Locale.ROOT,
+                " (%.3g J/g)", shown.specificCrushEnergy_J_per_g().getAsDouble()) : ""));
         out.println("details: loadstone analyze " + r.stored().runId()
             + (archive != null ? " --archive " + archive : ""));
       } else {

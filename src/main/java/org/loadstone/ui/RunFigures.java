@@ -16,8 +16,8 @@ import org.loadstone.units.LoadstoneException;
 
 /**
  * The console's post-run figures: the stored run read back from the archive and shown as tiles (a
- * name over a large value: peak, break, stiffness, energy, bending or compression stresses, per
- * gram). Thin: the figures are {@link RunMetrics}'; {@link RunPanel} says when a run is stored.
+ * name over a large value: peak, break, stiffness, energy, bending or compression stresses, the
+ * mean crush force of a crush run, per gram). Thin: the figures are {@link RunMetrics}'; {@link RunPanel} says when a run is stored.
  */
 final class RunFigures {
   /** The last run's figures, as tiles. */
@@ -88,6 +88,11 @@ final class RunFigures {
     if (m.compressionStressAtPeak_MPa().isPresent()) {
       tile("compression", opt(m.compressionStressAtPeak_MPa(), "MPa"), "stress at peak");
     }
+    r.crush().ifPresent(c -> tile("mean crush", fmt(c.meanForce_N(), "N"),
+        String.format(Locale.ROOT, "efficiency %.2f · %s over %.1f–%.1f mm", c.efficiency(),
+            fmt(c.energy_J(), "J"), c.from_mm(), c.to_mm())
+            + (m.specificCrushEnergy_J_per_g().isPresent()
+                ? " · " + opt(m.specificCrushEnergy_J_per_g(), "J/g") : "")));
     if (m.specificPeak_N_per_g().isPresent()) {
       tile("per gram", opt(m.specificPeak_N_per_g(), "N/g"),
           opt(m.specificEnergyToBreak_J_per_g(), "J/g") + " to break");

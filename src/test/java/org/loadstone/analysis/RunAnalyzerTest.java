@@ -231,13 +231,25 @@ class RunAnalyzerTest {
     RunResult.CrushResult c = r.crush().orElseThrow();
     assertThat(c.meanForce_N()).isCloseTo(60, within(1e-9));
     assertThat(c.efficiency()).isCloseTo(0.6, within(1e-9));
+    // energy over the stroke is the area: 60 N × 6.995 mm = 419.7 N·mm (rectangle)
+    assertThat(c.energy_J()).isCloseTo(60 * (9 - 2.005) / 1000, within(1e-12));
+    // the whole stroke, 0 to 10 mm, by hand: triangle 0.5·1·100 = 50, trapezoid over the drop
+    // 0.2·(100 + 60)/2 = 16, plateau 60·8.8 = 528, so 594 N·mm and a mean of 59.4 N
+    RunResult.CrushResult whole = RunAnalyzer.analyze(new Curve(t, f, x),
+        AnalysisSettings.DEFAULTS.withCrushWindow(CrushWindow.WHOLE_STROKE)).crush().orElseThrow();
+    assertThat(whole.to_mm()).isCloseTo(10, within(1e-12));
+    assertThat(whole.energy_J()).isCloseTo(0.594, within(1e-9));
+    assertThat(whole.meanForce_N()).isCloseTo(59.4, within(1e-9));
+    assertThat(whole.efficiency()).isCloseTo(0.594, within(1e-9));
     assertThatThrownBy(
             () ->
                 RunAnalyzer.analyze(
                     new Curve(t, f, x),
                     AnalysisSettings.DEFAULTS.withCrushWindow(new CrushWindow(2, 20))))
         .isInstanceOf(LoadstoneException.class)
-        .hasMessageContaining("largest displacement");
+        .hasMessageContaining("crush stroke 2.000 to 20.00 mm")
+        .hasMessageContaining("largest displacement of the run, 10.00 mm")
+        .hasMessageContaining("ends at or before 10.00 mm");
   }
 
   @Test
