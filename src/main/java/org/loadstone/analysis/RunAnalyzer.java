@@ -27,7 +27,8 @@ public final class RunAnalyzer {
    *       travels). When the search refuses, {@link RunResult#stiffnessRefusal()} says why.
    *   <li>Toe compensation: the fitted line meets zero force at the toe offset; corrected
    *       displacement = displacement − toe offset (ASTM D790 annex A1, ISO 178).
-   *   <li>Energy: trapezoidal area under force–displacement, N·mm / 1000 = J.
+   *   <li>Energy: trapezoidal area under force–displacement, N·mm / 1000 = J; to the peak and to
+   *       the break both as measured and toe-compensated ({@link #toeCompensatedArea_Nmm}).
    *   <li>Crush ({@link CrushFigures}): energy over the forward stroke in the window, mean crush
    *       force = that energy / the window's length, efficiency = mean / peak.
    * </ul>
@@ -77,7 +78,7 @@ public final class RunAnalyzer {
       return new RunResult(
           n, f[0], peak, f[peak], t[peak], OptionalDouble.empty(), brk, OptionalDouble.empty(),
           OptionalDouble.empty(), Optional.empty(), Optional.empty(), OptionalDouble.empty(),
-          OptionalDouble.empty(),
+          OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
           OptionalDouble.empty(), OptionalDouble.empty(), Optional.empty(), notes);
     }
 
@@ -112,14 +113,18 @@ public final class RunAnalyzer {
     OptionalDouble dispBreak = OptionalDouble.empty();
     OptionalDouble corrBreak = OptionalDouble.empty();
     OptionalDouble energyBreak = OptionalDouble.empty();
+    OptionalDouble toeEnergyBreak = OptionalDouble.empty();
     if (brk.isPresent()) {
       int b = brk.get().index();
       dispBreak = OptionalDouble.of(x[b]);
       energyBreak = OptionalDouble.of(area_Nmm(x, f, b) / 1000.0);
       if (toe.isPresent()) {
         corrBreak = OptionalDouble.of(x[b] - toe.getAsDouble());
+        toeEnergyBreak = OptionalDouble.of(toeCompensatedArea_Nmm(x, f, fit, b) / 1000.0);
       }
     }
+    OptionalDouble toeEnergyPeak = fit == null ? OptionalDouble.empty()
+        : OptionalDouble.of(toeCompensatedArea_Nmm(x, f, fit, peak) / 1000.0);
     OptionalDouble corrPeak =
         toe.isPresent() ? OptionalDouble.of(x[peak] - toe.getAsDouble()) : OptionalDouble.empty();
     Optional<CrushResult> crush =
@@ -131,7 +136,26 @@ public final class RunAnalyzer {
         n, f[0], peak, f[peak], t[peak], OptionalDouble.of(pos[peak]), brk,
         OptionalDouble.of(x[peak]), dispBreak, Optional.ofNullable(fit),
         Optional.ofNullable(refusal), corrPeak, corrBreak,
-        OptionalDouble.of(area_Nmm(x, f, peak) / 1000.0), energyBreak, crush, notes);
+        OptionalDouble.of(area_Nmm(x, f, peak) / 1000.0), energyBreak, toeEnergyPeak,
+        toeEnergyBreak, crush, notes);
+  }
+
+  /**
+   * Area under the toe-compensated curve from the corrected zero to sample {@code last}, N·mm:
+   * the toe (the samples before the straight window) is replaced by the fitted line from where it
+   * meets zero force (the toe offset) to the window's first sample, and the measured curve is
+   * followed from there (ASTM D790 annex A1 and ASTM D638 annex A1, toe compensation; from
+   * memory). Without a toe the two energies agree; with a soft toe the compensated one is lower.
+   */
+  static double toeCompensatedArea_Nmm(double[] x, double[] f, StiffnessFit fit, int last) {
+    int j = Math.min(fit.fromIndex(), last);
+    double run_mm = Math.max(0, x[j] - fit.toeOffset_mm());
+    double line_Nmm = 0.5 * fit.slope_N_per_mm() * run_mm * run_mm;
+    double after = 0;
+    for (int i = j + 1; i <= last; i++) {
+      after += 0.5 * (f[i] + f[i - 1]) * (x[i] - x[i - 1]);
+    }
+    return line_Nmm + after;
   }
 
   /** Analyses with {@link AnalysisSettings#DEFAULTS}. */
