@@ -38,6 +38,8 @@ class CrushRecordTest {
     Run run = RunReader.read(Path.of(j.get("csv").asText()));
     assertThat(run.metadata().testType()).isEqualTo(TestType.CRUSH);
     assertThat(run.metadata().cause()).isEqualTo(FinishCause.TRAVEL_LIMIT);
+    assertThat(run.metadata().extra().get("crush_end")).isEqualTo("at 4 mm of travel, or when "
+        + "force stays below 5 % of the peak for 1 s, at the time limit or by hand");
     double[] x = run.data().position_mm();
     double[] f = run.data().force_N();
     int n = f.length;
