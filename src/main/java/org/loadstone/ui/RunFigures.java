@@ -141,6 +141,11 @@ final class RunFigures {
     }
     figures.getChildren().add(stiffness.node());
     stiffness.show(m);
+    if (m.metadata().amendments().any()) {
+      Label amended = LivePane.label("run-amended", m.metadata().amendments().summary());
+      amended.setWrapText(true);
+      figures.getChildren().add(amended);
+    }
     if (!m.notes().isEmpty()) {
       Label note = LivePane.label("run-note", "note: " + m.notes().get(0));
       note.setWrapText(true);
