@@ -192,6 +192,7 @@ public final class Recorder implements AutoCloseable {
 
   private void loop() {
     SampleRing ring = reader.ring();
+    double countsPerMm = reader.identity().map(id -> id.countsPerMm()).orElse(0.0);
     SampleRing.Cursor cursor = ring.cursorAt(decideFrom);
     int[] resetsKnown = {reader.resets()};
     long[] resetAt = {reader.firstResetFrom(decideFrom)};
@@ -224,7 +225,8 @@ public final class Recorder implements AutoCloseable {
           if (started != null) {
             unloaded.offer(f);
           }
-          control.offer(i, ring.oldestIndex(), tUs / 1e6, f, this::onEvent);
+          control.offer(i, ring.oldestIndex(), tUs / 1e6, f,
+              hp && countsPerMm > 0 ? pos / countsPerMm : Double.NaN, this::onEvent);
         }, 4096);
         if (n == 0) {
           if (reader.lostReason().isPresent() && cursor.available() == 0) {

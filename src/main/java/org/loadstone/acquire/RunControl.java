@@ -8,7 +8,9 @@ import org.loadstone.units.Precondition;
  * caller feeds every sample (ring index, time, force) in order and acts on the returned events.
  * Auto start at the start threshold keeps a pre-trigger history; the break detector declares the
  * break and a post-break tail is recorded; overload stops at once; a time limit, a manual stop and
- * loss of the device finish the run with their own cause.
+ * loss of the device finish the run with their own cause. A crush run ({@link
+ * RunSettings#crushEnd()}) has no break: it goes on through the load drops until its travel
+ * limit or its low-force rule ({@link CrushEnd}), the time limit, an overload or a stop.
  *
  * <p>Threads: one thread owns a run control (the recorder's; the caller before it starts that
  * thread) and is the only one to call its mutating methods. Other threads — the console's FX
@@ -80,12 +82,15 @@ public final class RunControl {
   private long lastSeen = -1;
   private double startTime_s;
   private double tailUntil_s;
+  private double travelFrom_mm = Double.NaN;
+  private double lowSince_s = Double.NaN;
   private boolean warned;
   private boolean manualStartPending;
   private FinishCause pendingStop;
   private Finished finished;
   private double peak_N = Double.NEGATIVE_INFINITY;
   private double force_N = Double.NaN;
+  private double position_mm = Double.NaN;
   private volatile Snapshot snapshot = new Snapshot(State.IDLE, peak_N, force_N, -1, null, null);
 
   /**
@@ -213,8 +218,24 @@ public final class RunControl {
    */
   public void offer(long index, long oldestHeld, double time_s, double force_N,
       java.util.function.Consumer<Event> sink) {
+    offer(index, oldestHeld, time_s, force_N, Double.NaN, sink);
+  }
+
+  /**
+   * Takes one sample with the crosshead's position (for a crush run's travel limit).
+   *
+   * @param index ring index, increasing by one per sample
+   * @param oldestHeld oldest index still available (limits the pre-trigger history)
+   * @param time_s time of the sample
+   * @param force_N force of the sample
+   * @param position_mm crosshead position, mm; NaN when the sample has none
+   * @param sink receives the events this sample causes, in order
+   */
+  public void offer(long index, long oldestHeld, double time_s, double force_N,
+      double position_mm, java.util.function.Consumer<Event> sink) {
     lastSeen = index;
     this.force_N = force_N;
+    this.position_mm = position_mm;
     try {
       take(index, oldestHeld, time_s, force_N, sink);
     } finally {
@@ -269,7 +290,13 @@ public final class RunControl {
       warned = true;
       sink.accept(new OverloadWarning(index, force_N, settings.overloadWarn_N()));
     }
-    if (state == State.RECORDING) {
+    if (settings.crushEnd() != null) {
+      FinishCause crushed = crushEnded(time_s, force_N);
+      if (crushed != null) {
+        sink.accept(finish(crushed, index));
+        return;
+      }
+    } else if (state == State.RECORDING) {
       BreakDetector.Break b = detector.offer(index, time_s, force_N);
       if (b != null) {
         state = State.TAIL;
@@ -284,6 +311,28 @@ public final class RunControl {
     if (settings.maxSeconds() > 0 && time_s - startTime_s >= settings.maxSeconds()) {
       sink.accept(finish(FinishCause.TIME_LIMIT, index));
     }
+  }
+
+  /** A crush run's own ends: its travel limit, then force held below its share of the peak. */
+  private FinishCause crushEnded(double time_s, double force_N) {
+    CrushEnd c = settings.crushEnd();
+    if (Double.isNaN(travelFrom_mm)) {
+      travelFrom_mm = position_mm; // the first position recorded, NaN until one comes
+    }
+    if (c.travelLimit_mm() > 0
+        && Math.abs(position_mm - travelFrom_mm) >= c.travelLimit_mm()) {
+      return FinishCause.TRAVEL_LIMIT;
+    }
+    boolean low = c.lowForceFraction() > 0 && peak_N >= settings.armingLevel_N()
+        && force_N < c.lowForceFraction() * peak_N;
+    if (!low) {
+      lowSince_s = Double.NaN;
+      return null;
+    }
+    if (Double.isNaN(lowSince_s)) {
+      lowSince_s = time_s;
+    }
+    return time_s - lowSince_s >= c.lowForce_s() ? FinishCause.LOW_FORCE : null;
   }
 
   private Finished finish(FinishCause cause, long lastIndex) {

@@ -105,6 +105,18 @@ final class RunRecordMeta {
         .checkWeight(t.checkWeight())
         .warnings(List.copyOf(warnings))
         .softwareVersion(t.softwareVersion())
-        .extra(t.extra());
+        .extra(extra(t));
+  }
+
+  /** The template's other fields, with a crush run's end rule in words under {@code crush_end}. */
+  private java.util.Map<String, Object> extra(RunMetadata t) {
+    if (settings.crushEnd() == null) {
+      return t.extra();
+    }
+    java.util.Map<String, Object> m = new java.util.LinkedHashMap<>(t.extra());
+    String words = settings.crushEnd().words();
+    m.put("crush_end", words.startsWith("by hand") ? words
+        : words + ", at the time limit or by hand");
+    return m;
   }
 }

@@ -19,14 +19,17 @@ import org.loadstone.units.Setting;
  * @param overloadWarnPct warn at this % of rated capacity
  * @param overloadStopPct stop (cause overload) at this % of rated capacity
  * @param maxSeconds longest run, from the start threshold; 0 = no limit
+ * @param crushEnd for a crush run, how it ends instead of at a break (no drop from the peak ends
+ *     it); {@code null} for every other run
  */
 public record RunSettings(double startThreshold_N, double pretrigger_s, double breakDropPct,
     double armingLevel_N, double debounce_s, double absoluteStop_N, double postBreak_s,
-    double ratedCapacity_N, double overloadWarnPct, double overloadStopPct, double maxSeconds) {
+    double ratedCapacity_N, double overloadWarnPct, double overloadStopPct, double maxSeconds,
+    CrushEnd crushEnd) {
 
   /** Defaults for a 500 N cell: start at 5 N, 1 s history, break at a 40 % drop, 0.5 s tail. */
   public static final RunSettings DEFAULTS =
-      new RunSettings(5, 1.0, 40, 10, 0.01, 0, 0.5, 500, 80, 100, 0);
+      new RunSettings(5, 1.0, 40, 10, 0.01, 0, 0.5, 500, 80, 100, 0, null);
 
   public RunSettings {
     positive(startThreshold_N, Setting.START_THRESHOLD);
@@ -115,6 +118,7 @@ public record RunSettings(double startThreshold_N, double pretrigger_s, double b
     private double overloadWarnPct;
     private double overloadStopPct;
     private double maxSeconds;
+    private CrushEnd crushEnd;
     private boolean armingSet;
 
     private Builder(RunSettings s) {
@@ -129,6 +133,7 @@ public record RunSettings(double startThreshold_N, double pretrigger_s, double b
       overloadWarnPct = s.overloadWarnPct;
       overloadStopPct = s.overloadStopPct;
       maxSeconds = s.maxSeconds;
+      crushEnd = s.crushEnd;
     }
 
     public Builder startThreshold_N(double v) {
@@ -188,11 +193,22 @@ public record RunSettings(double startThreshold_N, double pretrigger_s, double b
       return this;
     }
 
+    /** A crush run's end rule; {@code null} (the default) ends the run at a break. */
+    public Builder crushEnd(CrushEnd v) {
+      crushEnd = v;
+      return this;
+    }
+
+    /** @return the crush end rule set so far, or null */
+    public CrushEnd crushEnd() {
+      return crushEnd;
+    }
+
     public RunSettings build() {
       double arm = armingSet ? armingLevel_N : 2 * startThreshold_N;
       return new RunSettings(startThreshold_N, pretrigger_s, breakDropPct, arm, debounce_s,
           absoluteStop_N, postBreak_s, ratedCapacity_N, overloadWarnPct, overloadStopPct,
-          maxSeconds);
+          maxSeconds, crushEnd);
     }
   }
 }

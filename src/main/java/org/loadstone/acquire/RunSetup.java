@@ -9,6 +9,7 @@ import java.util.Map;
 import java.util.function.Consumer;
 import org.loadstone.archive.RunMetadata;
 import org.loadstone.device.SimSetup;
+import org.loadstone.archive.TestType;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 import org.loadstone.units.Setting;
@@ -136,6 +137,16 @@ public final class RunSetup {
   public static RunSettings check(Request r, String device) {
     ScaleChoice scale = ScalePolicy.require(r.scale(), device);
     double capacity_N = ScalePolicy.capacity_N(r.ratedCapacity_N(), scale);
+    boolean crush = r.template().testType() == TestType.CRUSH;
+    if (!crush && r.settings().crushEnd() != null) {
+      throw new LoadstoneException("a travel limit or low-force end is for crush runs, which go "
+          + "on through the load drops; this run is a " + r.template().testType().wireName()
+          + " test and ends at its break: make it a crush test or leave those limits out",
+          Setting.TRAVEL_LIMIT, Setting.LOW_FORCE_LEVEL);
+    }
+    if (crush && r.settings().crushEnd() == null) {
+      r.settings().crushEnd(CrushEnd.DEFAULTS);
+    }
     RunSettings settings = r.settings().ratedCapacity_N(capacity_N).build();
     ZeroCheck.of(r.zeroDriftLimit_N(), capacity_N);
     if (r.zeroSamples() != null && r.zeroSamples() < 1) {
@@ -171,6 +182,13 @@ public final class RunSetup {
           d.geometry(), t.testType());
     }
     SampleRate rateNow = sampleRate();
+    if (settings.crushEnd() != null && settings.crushEnd().travelLimit_mm() > 0
+        && reader.identity().map(id -> id.channels() < 2 || !(id.countsPerMm() > 0))
+            .orElse(true)) {
+      throw new LoadstoneException("the crush run's travel limit needs the crosshead's position, "
+          + "but the device states no position channel with its counts per mm: end the crush "
+          + "by force, by time or by hand instead", Setting.TRAVEL_LIMIT, Setting.TIME_LIMIT);
+    }
     // a calibration made for another cell than the connected one is warned about
     ScaleChoice scale = r.scale().forDevice(reader.identity());
     if (lastTare == null) {

@@ -39,6 +39,7 @@ public final class SimulatedSpecimen {
     Double span = g.span_mm();
     Double width = g.width_mm();
     Double depth = g.depth_mm();
+    Double loadSpan = g.loadSpan_mm();
     Double facing = g.facing_mm();
     Double core = g.core_mm();
     boolean filled = false;
@@ -64,6 +65,9 @@ public final class SimulatedSpecimen {
         span = b.span_mm();
         width = b.width_mm();
         depth = b.depth_mm();
+        if (loadSpan == null && b.loadSpan_mm() > 0) {
+          loadSpan = b.loadSpan_mm();
+        }
         filled = true;
       }
     }
@@ -72,7 +76,7 @@ public final class SimulatedSpecimen {
       mass = Math.round(spec.mass_kg() * 1e4) / 10.0;
       filled = true;
     }
-    Geometry out = new Geometry(span, g.loadSpan_mm(), width, depth, facing, core, g.area_mm2());
+    Geometry out = new Geometry(span, loadSpan, width, depth, facing, core, g.area_mm2());
     return new Described(out, mass, filled);
   }
 }

@@ -150,6 +150,10 @@ public final class StationStatus {
       case BREAK -> done("STORED · BREAK", "the specimen broke; the run is in the archive");
       case MANUAL -> done("STORED · STOPPED", "stopped by hand; the run is in the archive");
       case TIME_LIMIT -> done("STORED · TIME LIMIT", "the run reached its longest allowed time");
+      case TRAVEL_LIMIT -> done("STORED · TRAVEL LIMIT", "the crush reached its travel limit; "
+          + "the run is in the archive");
+      case LOW_FORCE -> done("STORED · FORCE LOW", "force stayed low after the crush; the run is"
+          + " in the archive");
       case OVERLOAD -> fault("OVERLOAD STOP", "force reached the cell's stop level: unload the "
           + "press and check the cell before the next run");
       case DEVICE_LOST -> fault("DEVICE LOST", "the device stopped during the run; the run is "

@@ -14,7 +14,8 @@ import org.loadstone.units.LoadstoneException;
  *     is only long enough when its slope meets this; when none does, the search refuses.
  * @param stiffnessBounds a stiffness band chosen by the user (force, fraction of the peak,
  *     displacement or position), or {@code null} for the automatic search
- * @param crushWindow stroke window for the mean crush force, or {@code null} for none
+ * @param crushWindow stroke window for the mean crush force, or {@code null} for none (a
+ *     crush run's figures then take the whole stroke, see {@code study.RunMetrics})
  */
 public record AnalysisSettings(
     double breakDropFraction,
@@ -80,7 +81,8 @@ public record AnalysisSettings(
    * The settings as plain values with units in the keys, for a run's analysis record: {@code
    * break_drop_fraction, break_index, stiffness_method, stiffness_band_basis,
    * stiffness_band_low, stiffness_band_high, stiffness_precision_95, crush_from_mm,
-   * crush_to_mm}; absent values are {@code null}. Key order is fixed.
+   * crush_to_mm, crush_stroke}; absent values (and an end at the end of the stroke) are {@code
+   * null}. Key order is fixed.
    */
   public java.util.Map<String, Object> toMap() {
     java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
@@ -94,7 +96,9 @@ public record AnalysisSettings(
     m.put("stiffness_band_high", stiffnessBounds == null ? null : stiffnessBounds.high());
     m.put("stiffness_precision_95", stiffnessPrecision);
     m.put("crush_from_mm", crushWindow == null ? null : crushWindow.from_mm());
-    m.put("crush_to_mm", crushWindow == null ? null : crushWindow.to_mm());
+    m.put("crush_to_mm", crushWindow == null || crushWindow.toTheEnd() ? null
+        : crushWindow.to_mm());
+    m.put("crush_stroke", crushWindow == null ? null : crushWindow.words());
     return m;
   }
 
@@ -170,19 +174,40 @@ public record AnalysisSettings(
   }
 
   /**
-   * A stroke window for crushing: displacements from the first sample, millimetres.
+   * A stroke window for crushing: displacements from the first sample, millimetres. An end of
+   * {@code +∞} means "to the end of the stroke" (the run's largest displacement).
    *
    * @param from_mm start of the window, finite, at least 0
-   * @param to_mm end of the window, finite, greater than {@code from_mm}
+   * @param to_mm end of the window, greater than {@code from_mm}; finite or {@code +∞}
    */
   public record CrushWindow(double from_mm, double to_mm) {
+    /** The whole stroke, from the first sample to the largest displacement. */
+    public static final CrushWindow WHOLE_STROKE = new CrushWindow(0, Double.POSITIVE_INFINITY);
+
     /** Checks the window. */
     public CrushWindow {
-      if (!(Double.isFinite(from_mm) && Double.isFinite(to_mm) && from_mm >= 0 && to_mm > from_mm)) {
+      if (!(Double.isFinite(from_mm) && !Double.isNaN(to_mm) && from_mm >= 0
+          && to_mm > from_mm)) {
         throw new LoadstoneException(
-            "Crush window [" + from_mm + ", " + to_mm + "] mm is not valid; give 0 ≤ from < to, "
-                + "as displacements from the start of the run.");
+            "Crush stroke [" + from_mm + ", " + to_mm + "] mm is not valid for the mean crush "
+                + "force; give 0 ≤ from < to, as displacements from the start of the run.");
       }
+    }
+
+    /** @return a window from {@code from_mm} to the end of the stroke */
+    public static CrushWindow toEnd(double from_mm) {
+      return new CrushWindow(from_mm, Double.POSITIVE_INFINITY);
+    }
+
+    /** @return whether the window runs to the end of the stroke */
+    public boolean toTheEnd() {
+      return to_mm == Double.POSITIVE_INFINITY;
+    }
+
+    /** @return the window in words, e.g. "2 to 9 mm" or "0 mm to the end of the stroke" */
+    public String words() {
+      return toTheEnd() ? String.format(java.util.Locale.ROOT, "%.4g mm to the end of the stroke",
+          from_mm) : String.format(java.util.Locale.ROOT, "%.4g to %.4g mm", from_mm, to_mm);
     }
   }
 }

@@ -1,11 +1,9 @@
 package org.loadstone.analysis;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
-import org.loadstone.analysis.AnalysisSettings.CrushWindow;
 import org.loadstone.analysis.RunResult.BreakPoint;
 import org.loadstone.analysis.RunResult.CrushResult;
 import org.loadstone.units.LoadstoneException;
@@ -29,8 +27,10 @@ public final class RunAnalyzer {
    *       travels). When the search refuses, {@link RunResult#stiffnessRefusal()} says why.
    *   <li>Toe compensation: the fitted line meets zero force at the toe offset; corrected
    *       displacement = displacement − toe offset (ASTM D790 annex A1, ISO 178).
-   *   <li>Energy: trapezoidal area under force–displacement, N·mm / 1000 = J.
-   *   <li>Crush: area over the stroke window divided by its length; efficiency = mean / peak.
+   *   <li>Energy: trapezoidal area under force–displacement, N·mm / 1000 = J; to the peak and to
+   *       the break both as measured and toe-compensated ({@link #toeCompensatedArea_Nmm}).
+   *   <li>Crush ({@link CrushFigures}): energy over the forward stroke in the window, mean crush
+   *       force = that energy / the window's length, efficiency = mean / peak.
    * </ul>
    *
    * <p>A run has "no rise" when the peak is the first sample, or the rise (peak − first force) is
@@ -78,7 +78,7 @@ public final class RunAnalyzer {
       return new RunResult(
           n, f[0], peak, f[peak], t[peak], OptionalDouble.empty(), brk, OptionalDouble.empty(),
           OptionalDouble.empty(), Optional.empty(), Optional.empty(), OptionalDouble.empty(),
-          OptionalDouble.empty(),
+          OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(),
           OptionalDouble.empty(), OptionalDouble.empty(), Optional.empty(), notes);
     }
 
@@ -113,26 +113,49 @@ public final class RunAnalyzer {
     OptionalDouble dispBreak = OptionalDouble.empty();
     OptionalDouble corrBreak = OptionalDouble.empty();
     OptionalDouble energyBreak = OptionalDouble.empty();
+    OptionalDouble toeEnergyBreak = OptionalDouble.empty();
     if (brk.isPresent()) {
       int b = brk.get().index();
       dispBreak = OptionalDouble.of(x[b]);
       energyBreak = OptionalDouble.of(area_Nmm(x, f, b) / 1000.0);
       if (toe.isPresent()) {
         corrBreak = OptionalDouble.of(x[b] - toe.getAsDouble());
+        toeEnergyBreak = OptionalDouble.of(toeCompensatedArea_Nmm(x, f, fit, b) / 1000.0);
       }
     }
+    OptionalDouble toeEnergyPeak = fit == null ? OptionalDouble.empty()
+        : OptionalDouble.of(toeCompensatedArea_Nmm(x, f, fit, peak) / 1000.0);
     OptionalDouble corrPeak =
         toe.isPresent() ? OptionalDouble.of(x[peak] - toe.getAsDouble()) : OptionalDouble.empty();
     Optional<CrushResult> crush =
         settings.crushWindow() == null
             ? Optional.empty()
-            : Optional.of(crush(x, f, settings.crushWindow(), f[peak]));
+            : Optional.of(CrushFigures.over(x, f, settings.crushWindow(), f[peak]));
 
     return new RunResult(
         n, f[0], peak, f[peak], t[peak], OptionalDouble.of(pos[peak]), brk,
         OptionalDouble.of(x[peak]), dispBreak, Optional.ofNullable(fit),
         Optional.ofNullable(refusal), corrPeak, corrBreak,
-        OptionalDouble.of(area_Nmm(x, f, peak) / 1000.0), energyBreak, crush, notes);
+        OptionalDouble.of(area_Nmm(x, f, peak) / 1000.0), energyBreak, toeEnergyPeak,
+        toeEnergyBreak, crush, notes);
+  }
+
+  /**
+   * Area under the toe-compensated curve from the corrected zero to sample {@code last}, N·mm:
+   * the toe (the samples before the straight window) is replaced by the fitted line from where it
+   * meets zero force (the toe offset) to the window's first sample, and the measured curve is
+   * followed from there (ASTM D790 annex A1 and ASTM D638 annex A1, toe compensation; from
+   * memory). Without a toe the two energies agree; with a soft toe the compensated one is lower.
+   */
+  static double toeCompensatedArea_Nmm(double[] x, double[] f, StiffnessFit fit, int last) {
+    int j = Math.min(fit.fromIndex(), last);
+    double run_mm = Math.max(0, x[j] - fit.toeOffset_mm());
+    double line_Nmm = 0.5 * fit.slope_N_per_mm() * run_mm * run_mm;
+    double after = 0;
+    for (int i = j + 1; i <= last; i++) {
+      after += 0.5 * (f[i] + f[i - 1]) * (x[i] - x[i - 1]);
+    }
+    return line_Nmm + after;
   }
 
   /** Analyses with {@link AnalysisSettings#DEFAULTS}. */
@@ -192,36 +215,5 @@ public final class RunAnalyzer {
       sum += 0.5 * (f[i] + f[i - 1]) * (x[i] - x[i - 1]);
     }
     return sum;
-  }
-
-  private static CrushResult crush(double[] x, double[] f, CrushWindow w, double peak_N) {
-    double a = w.from_mm();
-    double b = w.to_mm();
-    double max = Arrays.stream(x).max().orElseThrow();
-    if (b > max) {
-      throw new LoadstoneException(
-          String.format(
-              "Crush window %.4g to %.4g mm reaches past the largest displacement of the run, "
-                  + "%.4g mm. End the window at or before %.4g mm.",
-              a, b, max, max));
-    }
-    double area = 0;
-    for (int i = 1; i < x.length; i++) {
-      double x0 = x[i - 1];
-      double x1 = x[i];
-      if (x1 <= x0) {
-        continue; // only forward stroke contributes; rebound or pauses are skipped
-      }
-      double lo = Math.max(x0, a);
-      double hi = Math.min(x1, b);
-      if (hi <= lo) {
-        continue;
-      }
-      double flo = f[i - 1] + (f[i] - f[i - 1]) * (lo - x0) / (x1 - x0);
-      double fhi = f[i - 1] + (f[i] - f[i - 1]) * (hi - x0) / (x1 - x0);
-      area += 0.5 * (flo + fhi) * (hi - lo);
-    }
-    double mean = area / (b - a);
-    return new CrushResult(a, b, mean, mean / peak_N);
   }
 }

@@ -27,6 +27,10 @@ import java.util.OptionalDouble;
  * @param correctedDisplacementAtBreak_mm displacement at break less the toe offset, millimetres
  * @param energyToPeak_J area under force–displacement from the first sample to the peak, joules
  * @param energyToBreak_J the same to the break, joules
+ * @param energyToPeakToeCompensated_J area under the toe-compensated curve (the toe replaced by
+ *     the stiffness line from the toe offset; ASTM D790/D638 annex A1 practice) to the peak,
+ *     joules; empty without a stiffness
+ * @param energyToBreakToeCompensated_J the same to the break; empty without a stiffness or break
  * @param crush mean crush force over the settings' stroke window; empty when none was asked for
  * @param notes plain sentences on what is absent and why; never null
  */
@@ -46,6 +50,8 @@ public record RunResult(
     OptionalDouble correctedDisplacementAtBreak_mm,
     OptionalDouble energyToPeak_J,
     OptionalDouble energyToBreak_J,
+    OptionalDouble energyToPeakToeCompensated_J,
+    OptionalDouble energyToBreakToeCompensated_J,
     Optional<CrushResult> crush,
     List<String> notes) {
 
@@ -55,7 +61,8 @@ public record RunResult(
         new Object[] {
           peakPosition_mm, breakPoint, displacementAtPeak_mm, displacementAtBreak_mm, stiffness,
           stiffnessRefusal, correctedDisplacementAtPeak_mm, correctedDisplacementAtBreak_mm, energyToPeak_J,
-          energyToBreak_J, crush, notes
+          energyToBreak_J, energyToPeakToeCompensated_J, energyToBreakToeCompensated_J, crush,
+          notes
         }) {
       if (o == null) {
         throw new IllegalArgumentException("RunResult fields must not be null; use empty.");
@@ -95,6 +102,8 @@ public record RunResult(
    * @param to_mm window end, displacement in millimetres
    * @param meanForce_N area under force–displacement over the window divided by its length, N
    * @param efficiency crush-force efficiency, mean crush force divided by peak force
+   * @param energy_J energy absorbed over the window's forward stroke, joules
    */
-  public record CrushResult(double from_mm, double to_mm, double meanForce_N, double efficiency) {}
+  public record CrushResult(double from_mm, double to_mm, double meanForce_N, double efficiency,
+      double energy_J) {}
 }

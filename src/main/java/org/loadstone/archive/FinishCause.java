@@ -13,6 +13,10 @@ public enum FinishCause {
   MANUAL,
   /** the run reached its longest allowed duration */
   TIME_LIMIT,
+  /** a crush run: the crosshead travelled as far as the run allows */
+  TRAVEL_LIMIT,
+  /** a crush run: force stayed below the set fraction of the peak for the set time */
+  LOW_FORCE,
   /** the device stopped answering (cable pulled, port gone) */
   DEVICE_LOST,
   /**
@@ -43,7 +47,7 @@ public enum FinishCause {
       }
     }
     throw new LoadstoneException("unknown finish cause '" + text + "': expected one of "
-        + "break, overload, manual, time-limit, device-lost, device-reset, disk-full, recovered,"
+        + "break, overload, manual, time-limit, travel-limit, low-force, device-lost, device-reset, disk-full, recovered,"
         + " imported");
   }
 }

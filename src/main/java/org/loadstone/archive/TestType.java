@@ -8,7 +8,12 @@ public enum TestType {
   THREE_POINT_BEND("three-point"),
   FOUR_POINT_BEND("four-point"),
   COMPRESSION("compression"),
-  TENSION("tension");
+  TENSION("tension"),
+  /**
+   * progressive crushing (a tube, a honeycomb, a crash absorber): the run goes on through the
+   * load drops to a travel, force or time limit, and is read by its mean crush force
+   */
+  CRUSH("crush");
 
   private final String wireName;
 
@@ -30,6 +35,6 @@ public enum TestType {
       }
     }
     throw new LoadstoneException("unknown test type '" + text
-        + "': use three-point, four-point, compression or tension");
+        + "': use three-point, four-point, compression, tension or crush");
   }
 }

@@ -38,6 +38,8 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
   @picocli.CommandLine.Mixin StiffnessOptions stiffness;
 
+  @picocli.CommandLine.Mixin CrushOptions crush;
+
   @Option(names = "--cal", paramLabel = "FILE", description = "Derive force again from the raw counts with this calibration (the stored run is not changed).")
   Path cal;
 
@@ -123,7 +125,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    AnalysisSettings settings = stiffness.apply(AnalysisSettings.DEFAULTS);
+    AnalysisSettings settings = crush.apply(stiffness.apply(AnalysisSettings.DEFAULTS));
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
     RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()));
     RunMetrics m = RunMetrics.of(adj.metadata(), adj.data(), settings);

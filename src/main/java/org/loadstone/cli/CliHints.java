@@ -31,6 +31,9 @@ final class CliHints {
       case OVERLOAD_WARNING -> "--warn-pct";
       case OVERLOAD_STOP -> "--overload-pct";
       case TIME_LIMIT -> "--max-seconds";
+      case TRAVEL_LIMIT -> "--travel-limit-mm";
+      case LOW_FORCE_LEVEL -> "--low-force-pct";
+      case LOW_FORCE_TIME -> "--low-force-s";
       case ARCHIVE_FOLDER -> "--archive DIR";
       case PORT -> "--port PORT, e.g. --port sim or --port /dev/ttyACM0; 'loadstone ports' "
           + "lists the serial ports";

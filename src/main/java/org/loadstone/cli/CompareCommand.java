@@ -37,8 +37,10 @@ public final class CompareCommand implements Callable<Integer> {
 
   @Option(names = "--metric", defaultValue = "peak", description = {"peak, peak-time, break-time, break-force, stiffness, toe-offset,",
       "displacement-at-peak, displacement-at-break, energy, energy-to-break, flexural-stress,",
-      "flexural-modulus, core-shear, facing-stress, compression-stress, specific-peak,",
-      "specific-energy, specific-energy-to-break, specific-stiffness (default: ${DEFAULT-VALUE})."})
+      "flexural-stress-large-deflection, flexural-modulus, core-shear, facing-stress,",
+      "compression-stress, crush-mean, crush-efficiency, crush-energy, specific-peak,",
+      "specific-energy, specific-energy-to-break, specific-stiffness, specific-crush-energy",
+      "(default: ${DEFAULT-VALUE})."})
   String metric;
 
   @Option(names = "--target-pct", defaultValue = "10", description = "Difference the sample-size advice aims to resolve, in per cent (default: ${DEFAULT-VALUE}).")

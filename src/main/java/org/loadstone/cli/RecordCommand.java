@@ -42,7 +42,8 @@ import picocli.CommandLine.Option;
       "Record one hands-free run and store it in the archive.",
       "",
       "Zero, wait for load, record with a pre-trigger history, stop by itself at",
-      "the load drop (or overload, time limit, Ctrl-C)."
+      "the load drop (or overload, time limit, Ctrl-C). A crush test (--test crush)",
+      "goes on through the load drops to its travel limit, low force, time limit or Ctrl-C."
     },
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {
@@ -55,6 +56,7 @@ public final class RecordCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
   @Mixin ArchiveOption archive;
   @Mixin StiffnessOptions stiffness;
+  @Mixin CrushOptions crush;
 
   @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file to turn counts into force.")
   Path cal;
@@ -78,7 +80,7 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--mass-g", description = "Specimen mass in g (for strength per weight).")
   Double mass_g;
 
-  @Option(names = "--test", defaultValue = "three-point", description = "three-point, four-point, compression or tension (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--test", defaultValue = "three-point", description = "three-point, four-point, compression, tension or crush (default: ${DEFAULT-VALUE}).")
   String test;
 
   @Option(names = "--span-mm", description = "Support span L (bend tests).") Double span;
@@ -122,6 +124,15 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--max-seconds", defaultValue = "0", description = "Longest run (0 = no limit).")
   double maxSeconds;
 
+  @Option(names = "--travel-limit-mm", paramLabel = "MM", description = "Crush test: end the run at this crosshead travel from the start (default: no travel limit).")
+  Double travelLimit;
+
+  @Option(names = "--low-force-pct", paramLabel = "P", description = "Crush test: end the run when force stays below P %% of the peak for --low-force-s (default: 5; 0 = off).")
+  Double lowForcePct;
+
+  @Option(names = "--low-force-s", paramLabel = "S", description = "Crush test: how long force must stay low (default: 1).")
+  Double lowForceS;
+
   @Option(names = "--manual-start", description = "Start recording at once instead of waiting for load.")
   boolean manualStart;
 
@@ -142,7 +153,8 @@ public final class RecordCommand implements Callable<Integer> {
     PrintWriter err = spec.commandLine().getErr();
     Path dir = archive.folder();
     org.loadstone.analysis.AnalysisSettings analysis =
-        stiffness.apply(org.loadstone.analysis.AnalysisSettings.DEFAULTS); // refuse before a run
+        crush.apply(stiffness.apply(org.loadstone.analysis.AnalysisSettings.DEFAULTS)); // refuse
+    // a bad band or stroke before a run
     JournalRunStore store = new JournalRunStore(dir);
     store.checkWritable();
     for (StoredRun r : JournalRecovery.recoverAll(dir, n -> say(err, n))) {
@@ -156,6 +168,13 @@ public final class RecordCommand implements Callable<Integer> {
         .overloadWarnPct(warnPct).overloadStopPct(overloadPct).maxSeconds(maxSeconds);
     if (armAt != null) {
       b.armingLevel_N(armAt);
+    }
+    if (travelLimit != null || lowForcePct != null || lowForceS != null) {
+      org.loadstone.acquire.CrushEnd d = org.loadstone.acquire.CrushEnd.DEFAULTS;
+      b.crushEnd(new org.loadstone.acquire.CrushEnd(
+          travelLimit != null ? travelLimit : d.travelLimit_mm(),
+          lowForcePct != null ? lowForcePct / 100 : d.lowForceFraction(),
+          lowForceS != null ? lowForceS : d.lowForce_s()));
     }
     Geometry geometry = new Geometry(span, loadSpan, width, depth, facing, core, area);
     TestType type = TestType.parse(test);
@@ -191,9 +210,12 @@ public final class RecordCommand implements Callable<Integer> {
         say(err, "recording now (manual start)");
         rec.startNow();
       } else {
-        say(err, String.format(Locale.ROOT, "armed: recording starts at %.4g N; the run stops "
-            + "by itself at a %.0f %% drop from the peak (Ctrl-C stops it by hand)",
-            startAt, dropPct));
+        say(err, String.format(Locale.ROOT, "armed: recording starts at %.4g N; %s (Ctrl-C stops "
+            + "it by hand)", startAt, run.settings().crushEnd() != null
+                ? "the crush goes on through the load drops and ends "
+                    + run.settings().crushEnd().words()
+                : String.format(Locale.ROOT, "the run stops by itself at a %.0f %% drop from the "
+                    + "peak", dropPct)));
         rec.arm(run.decideFrom());
       }
       boolean tty = System.console() != null && !json;

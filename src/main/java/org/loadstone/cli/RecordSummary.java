@@ -62,7 +62,10 @@ final class RecordSummary {
         for (String k : new String[] {"stiffness_N_per_mm", "stiffness_ci95_low_N_per_mm",
             "stiffness_ci95_high_N_per_mm", "stiffness_method", "stiffness_refused",
             "energy_to_peak_J",
-            "energy_to_break_J", "specific_peak_N_per_g"}) {
+            "energy_to_break_J", "energy_to_peak_toe_compensated_J",
+            "energy_to_break_toe_compensated_J", "specific_peak_N_per_g", "mean_crush_force_N",
+            "crush_force_efficiency", "crush_energy_J", "crush_from_mm", "crush_to_mm",
+            "specific_crush_energy_J_per_g"}) {
           m.put(k, a.get(k));
         }
       }
@@ -78,15 +81,23 @@ final class RecordSummary {
       out.println("  " + r.stored().json());
       if (metrics != null) {
         var a = metrics.analysis();
-        out.printf(Locale.ROOT, "stiffness %s, energy %s to break, %s to peak%s%n",
+        out.printf(Locale.ROOT, "stiffness %s, energy %s to break, %s to peak (toe-compensated "
+            + "%s and %s)%s%n",
             a.stiffness().map(s -> String.format(Locale.ROOT, "%.4g N/mm (95 %% %.4g to %.4g, "
                 + "%s, %.4g to %.4g N)", s.slope_N_per_mm(), s.ci95Low_N_per_mm(),
                 s.ci95High_N_per_mm(), s.method().words(), s.fromForce_N(), s.toForce_N()))
                 .orElse("-"),
             joules(a.energyToBreak_J()), joules(a.energyToPeak_J()),
+            joules(a.energyToBreakToeCompensated_J()), joules(a.energyToPeakToeCompensated_J()),
             metrics.specificPeak_N_per_g().isPresent() ? String.format(Locale.ROOT,
                 ", peak %.4g N/g", metrics.specificPeak_N_per_g().getAsDouble()) : "");
         a.stiffnessRefusal().ifPresent(no -> out.println("no stiffness: " + no.reason()));
+        RunMetrics shown = metrics;
+        a.crush().ifPresent(c -> out.printf(Locale.ROOT, "crush %.4g to %.4g mm: mean crush force"
+            + " %.4g N, crush-force efficiency %.3f, energy %.4g J%s%n", c.from_mm(), c.to_mm(),
+            c.meanForce_N(), c.efficiency(), c.energy_J(),
+            shown.specificCrushEnergy_J_per_g().isPresent() ? String.format(Locale.ROOT,
+                " (%.3g J/g)", shown.specificCrushEnergy_J_per_g().getAsDouble()) : ""));
         out.println("details: loadstone analyze " + r.stored().runId()
             + (archive != null ? " --archive " + archive : ""));
       } else {

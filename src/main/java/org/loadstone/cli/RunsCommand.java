@@ -41,7 +41,7 @@ public final class RunsCommand implements Callable<Integer> {
   @Option(names = "--tag", description = "Has this tag.")
   String tag;
 
-  @Option(names = "--cause", description = "Finished for this cause: break, overload, manual, time-limit, device-lost, device-reset, disk-full, recovered, imported.")
+  @Option(names = "--cause", description = "Finished for this cause: break, overload, manual, time-limit, travel-limit, low-force, device-lost, device-reset, disk-full, recovered, imported.")
   String cause;
 
   @Option(names = "--json", description = "One JSON object per run, then a summary object on the last line.")

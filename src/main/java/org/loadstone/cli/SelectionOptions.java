@@ -17,7 +17,7 @@ public final class SelectionOptions {
 
   @Option(names = "--include", split = ",", paramLabel = "KIND",
       description = {"Also count runs the default leaves out: uncalibrated, imported, manual,",
-          "time-limit, overload, device-lost, device-reset, disk-full, recovered, or all.",
+          "time-limit, crush-limit, overload, device-lost, device-reset, disk-full, recovered, or all.",
           "By default only runs that ended in a break with force from a calibration count."})
   List<String> include;
 

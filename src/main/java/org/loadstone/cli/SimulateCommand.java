@@ -29,7 +29,7 @@ import picocli.CommandLine.Option;
       "The bytes are exactly what the firmware sends. A device path can be one end of a",
       "pseudo-terminal pair. Output is paced in real time at --rate.",
       "",
-      "Scenarios: brittle, ductile, crush, over-range, rigid-block, panel-foam, panel-balsa,",
+      "Scenarios: brittle, four-point, ductile, crush, over-range, rigid-block, panel-foam, panel-balsa,",
       "panel-board, dead-weight."
     })
 public final class SimulateCommand implements Callable<Integer> {

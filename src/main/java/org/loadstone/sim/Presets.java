@@ -23,6 +23,8 @@ final class Presets {
     switch (scenario) {
       case BRITTLE:
         return brittle(scatter);
+      case FOUR_POINT:
+        return fourPoint(scatter);
       case DUCTILE:
         return ductile(scatter);
       case CRUSH:
@@ -43,8 +45,21 @@ final class Presets {
 
   /** A glassy polymer bar, 64 mm span (16 × depth), fails at about 190 N. */
   private static Setup brittle(SimRandom r) {
-    SolidBeam beam =
-        new SolidBeam(64, 12, 4, 3200 * r.scatter(0.03), 95 * r.scatter(0.06), 1190, 8);
+    return bar(new SolidBeam(64, 12, 4, 3200 * r.scatter(0.03), 95 * r.scatter(0.06), 1190, 8,
+        0), "brittle bar", 0.5);
+  }
+
+  /**
+   * The brittle bar's material as a longer, deeper bar in four-point bending: 96 mm span, 32 mm
+   * load span (L/3), 12 × 6 mm; about 50 N/mm at the loading noses and 430 N at fracture.
+   */
+  private static Setup fourPoint(SimRandom r) {
+    return bar(new SolidBeam(96, 12, 6, 3200 * r.scatter(0.03), 95 * r.scatter(0.06), 1190, 8,
+        32), "brittle bar, four-point", 1.0);
+  }
+
+  /** A bar that is linear after a short toe and fractures at its strength. */
+  private static Setup bar(SolidBeam beam, String kind, double rate_mm_per_s) {
     double toe = 0.08;
     double k = beam.stiffness_N_per_mm();
     double strength = beam.breakLoad_N();
@@ -52,8 +67,8 @@ final class Presets {
         new HistorySpecimen(
             new PreCurve.Elastic(k, toe, strength), new PostFailure.SuddenDrop(0.02, 0.002));
     return new Setup(
-        m, new SpecimenSummary("brittle bar", k, strength, toe, beam.mass_kg(), beam, null),
-        0.5, 0.3);
+        m, new SpecimenSummary(kind, k, strength, toe, beam.mass_kg(), beam, null),
+        rate_mm_per_s, 0.3);
   }
 
   /** Yields near 320 N, necks after about 2.5 mm, ruptures at about 4 mm. */

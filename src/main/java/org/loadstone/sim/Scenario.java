@@ -12,6 +12,8 @@ import org.loadstone.units.LoadstoneException;
 public enum Scenario {
   /** a brittle bar in three-point bending: toe, linear, fracture within ~2 ms */
   BRITTLE("brittle", "brittle bar in three-point bend: linear, then fracture"),
+  /** a brittle bar in four-point bending, load span a third of the support span */
+  FOUR_POINT("four-point", "brittle bar in four-point bend (load span L/3): linear, then fracture"),
   /** a ductile specimen: linear, yield, plateau, gradual drop, rupture */
   DUCTILE("ductile", "ductile specimen: linear, yield, plateau, gradual drop"),
   /** progressive crushing: a saw-tooth of rises and partial drops */

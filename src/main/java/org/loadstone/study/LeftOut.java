@@ -61,6 +61,8 @@ public record LeftOut(String runId, String specimen, String group, List<Kind> ki
     MANUAL("manual", "stopped by the operator, not ended by a break"),
     /** the run reached its longest allowed duration */
     TIME_LIMIT("time-limit", "reached its time limit without a break"),
+    /** a run not of the crush type that stopped at a crush limit (travel or low force) */
+    CRUSH_LIMIT("crush-limit", "stopped at a travel or low-force limit, not ended by a break"),
     /** the run stopped at the overload level */
     OVERLOAD("overload", "stopped at the overload level, not ended by a break"),
     /** the device stopped answering during the run */

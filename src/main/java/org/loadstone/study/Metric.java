@@ -14,7 +14,8 @@ import org.loadstone.units.LoadstoneException;
  * unit, the significant digits it is shown with, and a typed accessor on {@link RunMetrics}.
  *
  * <p>Figures a group comparison makes sense of are {@linkplain #comparable() comparable}; the
- * break sample index, the fit's R², its 95 % interval and its window are shown but not compared.
+ * break sample index, the fit's R², its 95 % interval and its window, and the crush stroke's ends
+ * are shown but not compared.
  */
 public enum Metric {
   PEAK("peak", "peak_N", "peak force", "N", 4, m -> some(m.analysis().peakForce_N())),
@@ -55,6 +56,12 @@ public enum Metric {
       m -> m.analysis().energyToPeak_J()),
   ENERGY_TO_BREAK("energy-to-break", "energy_to_break_J", "energy to break", "J", 4,
       m -> m.analysis().energyToBreak_J()),
+  ENERGY_TOE_COMPENSATED("energy-toe-compensated", "energy_to_peak_toe_compensated_J",
+      "energy to peak, toe-compensated", "J", 4,
+      m -> m.analysis().energyToPeakToeCompensated_J()),
+  ENERGY_TO_BREAK_TOE_COMPENSATED("energy-to-break-toe-compensated",
+      "energy_to_break_toe_compensated_J", "energy to break, toe-compensated", "J", 4,
+      m -> m.analysis().energyToBreakToeCompensated_J()),
   FLEXURAL_STRESS("flexural-stress", "flexural_stress_at_peak_MPa", "flexural stress at peak",
       "MPa", 4, RunMetrics::flexuralStressAtPeak_MPa),
   FLEXURAL_STRESS_LARGE_DEFLECTION("flexural-stress-large-deflection",
@@ -68,6 +75,16 @@ public enum Metric {
       RunMetrics::facingStressAtPeak_MPa),
   COMPRESSION_STRESS("compression-stress", "compression_stress_at_peak_MPa",
       "compression stress at peak", "MPa", 4, RunMetrics::compressionStressAtPeak_MPa),
+  CRUSH_MEAN("crush-mean", "mean_crush_force_N", "mean crush force", "N", 4,
+      m -> m.analysis().crush().map(c -> some(c.meanForce_N())).orElse(OptionalDouble.empty())),
+  CRUSH_EFFICIENCY("crush-efficiency", "crush_force_efficiency", "crush-force efficiency", "", 3,
+      m -> m.analysis().crush().map(c -> some(c.efficiency())).orElse(OptionalDouble.empty())),
+  CRUSH_ENERGY("crush-energy", "crush_energy_J", "energy over the crush stroke", "J", 4,
+      m -> m.analysis().crush().map(c -> some(c.energy_J())).orElse(OptionalDouble.empty())),
+  CRUSH_FROM("crush-from", "crush_from_mm", "crush stroke from", "mm", 4,
+      m -> m.analysis().crush().map(c -> some(c.from_mm())).orElse(OptionalDouble.empty())),
+  CRUSH_TO("crush-to", "crush_to_mm", "crush stroke to", "mm", 4,
+      m -> m.analysis().crush().map(c -> some(c.to_mm())).orElse(OptionalDouble.empty())),
   SPECIFIC_PEAK("specific-peak", "specific_peak_N_per_g", "peak force per gram", "N/g", 3,
       RunMetrics::specificPeak_N_per_g),
   SPECIFIC_ENERGY("specific-energy", "specific_energy_to_peak_J_per_g", "energy to peak per gram",
@@ -75,7 +92,9 @@ public enum Metric {
   SPECIFIC_ENERGY_TO_BREAK("specific-energy-to-break", "specific_energy_to_break_J_per_g",
       "energy to break per gram", "J/g", 3, RunMetrics::specificEnergyToBreak_J_per_g),
   SPECIFIC_STIFFNESS("specific-stiffness", "specific_stiffness_N_per_mm_per_g",
-      "stiffness per gram", "N/mm/g", 3, RunMetrics::specificStiffness_N_per_mm_per_g);
+      "stiffness per gram", "N/mm/g", 3, RunMetrics::specificStiffness_N_per_mm_per_g),
+  SPECIFIC_CRUSH_ENERGY("specific-crush-energy", "specific_crush_energy_J_per_g",
+      "crush energy per gram", "J/g", 3, RunMetrics::specificCrushEnergy_J_per_g);
 
   private final String word;
   private final String key;
@@ -131,7 +150,7 @@ public enum Metric {
   public boolean comparable() {
     return this != BREAK_SAMPLE && this != STIFFNESS_R2 && this != STIFFNESS_CI95_LOW
         && this != STIFFNESS_CI95_HIGH && this != STIFFNESS_WINDOW_FROM
-        && this != STIFFNESS_WINDOW_TO;
+        && this != STIFFNESS_WINDOW_TO && this != CRUSH_FROM && this != CRUSH_TO;
   }
 
   /**

@@ -109,11 +109,17 @@ public record RunMetrics(
     Curve curve = curveOf(data);
     List<String> notes = new ArrayList<>();
     AnalysisSettings used = settings;
+    if (metadata.testType() == TestType.CRUSH && settings.crushWindow() == null
+        && data.position_mm() != null) {
+      used = used.withCrushWindow(AnalysisSettings.CrushWindow.WHOLE_STROKE);
+      notes.add("Crush figures over the whole stroke; choose a stroke to leave out the first "
+          + "collapse or the densification.");
+    }
     Integer recorded = metadata.breakIndex();
     if (settings.breakIndex() == null && recorded != null) {
       int peak = firstPeak(data.force_N());
       if (recorded >= peak && recorded < data.size()) {
-        used = settings.withBreakIndex(recorded);
+        used = used.withBreakIndex(recorded);
       } else {
         notes.add("The recorded break index " + recorded + " lies outside the run after the peak "
             + "(peak at sample " + peak + "); the break was detected from the force drop instead.");
@@ -123,6 +129,20 @@ public record RunMetrics(
     List<String> all = new ArrayList<>(r.notes());
     all.addAll(notes);
     return new Builder(metadata, curve, r, used, all).build();
+  }
+
+  /**
+   * Energy absorbed over the crush stroke per gram of specimen (the specific energy absorption of
+   * the crashworthiness literature, common practice).
+   *
+   * @return J/g; empty without crush figures (not a crush run and no stroke chosen, or no
+   *     position) or without the specimen's mass
+   */
+  public OptionalDouble specificCrushEnergy_J_per_g() {
+    Double mass = metadata.mass_g();
+    return analysis.crush().isPresent() && mass != null
+        ? OptionalDouble.of(Specific.energy_J_per_g(analysis.crush().get().energy_J(), mass))
+        : OptionalDouble.empty();
   }
 
   /**
@@ -222,7 +242,7 @@ public record RunMetrics(
     RunMetrics build() {
       switch (meta.testType()) {
         case THREE_POINT_BEND, FOUR_POINT_BEND -> bend(meta.testType() == TestType.FOUR_POINT_BEND);
-        case COMPRESSION -> {
+        case COMPRESSION, CRUSH -> {
           if (g.area_mm2() != null) {
             compression = OptionalDouble.of(Flexure.compressionStress_MPa(peak, g.area_mm2()));
           } else {

@@ -8,13 +8,15 @@ import java.util.Optional;
 import java.util.Set;
 import org.loadstone.archive.FinishCause;
 import org.loadstone.archive.RunMetadata;
+import org.loadstone.archive.TestType;
 import org.loadstone.study.LeftOut.Kind;
 import org.loadstone.units.Precondition;
 
 /**
  * Which runs a study counts: the one rule for the command line, the console and the reports.
  *
- * <p>By default ({@link #DEFAULT}) a run counts when it ended in a break and its force came from a
+ * <p>By default ({@link #DEFAULT}) a run counts when it ended in a break (a crush run: at its
+ * travel limit, its low-force rule, its time limit or by hand) and its force came from a
  * calibration (the run names a calibration id). Every other run is left out with its reason: a
  * nominal scale ({@link Kind#UNCALIBRATED}), another program's file ({@link Kind#IMPORTED}), a
  * manual stop, the time limit, an overload stop, a lost device or a recovered journal. Each of
@@ -28,6 +30,13 @@ import org.loadstone.units.Precondition;
  *     one group is asked for, it is compared with each of the others.
  */
 public record RunSelection(Set<Kind> admitted, List<String> groups) {
+  /**
+   * How a crush run ends as planned: it goes on through the load drops until its travel limit,
+   * its low-force rule, its time limit or the operator's stop, so none of these leaves it out.
+   */
+  private static final Set<FinishCause> CRUSH_ENDS = EnumSet.of(FinishCause.TRAVEL_LIMIT,
+      FinishCause.LOW_FORCE, FinishCause.TIME_LIMIT, FinishCause.MANUAL);
+
   /** Broken, calibrated runs of every group. */
   public static final RunSelection DEFAULT = new RunSelection(Set.of(), List.of());
 
@@ -88,7 +97,9 @@ public record RunSelection(Set<Kind> admitted, List<String> groups) {
     if (m.amendments().retired()) {
       kinds.add(Kind.RETIRED);
     }
-    ending(m.cause()).ifPresent(kinds::add);
+    if (!(m.testType() == TestType.CRUSH && CRUSH_ENDS.contains(m.cause()))) {
+      ending(m.cause()).ifPresent(kinds::add);
+    }
     boolean calibrated = m.calibrationId() != null && !m.calibrationId().isBlank();
     if (m.cause() != FinishCause.IMPORTED && !calibrated) {
       kinds.add(Kind.UNCALIBRATED);
@@ -130,6 +141,7 @@ public record RunSelection(Set<Kind> admitted, List<String> groups) {
   private static Optional<Kind> ending(FinishCause c) {
     return switch (c) {
       case BREAK -> Optional.empty();
+      case TRAVEL_LIMIT, LOW_FORCE -> Optional.of(Kind.CRUSH_LIMIT);
       case IMPORTED -> Optional.of(Kind.IMPORTED);
       case MANUAL -> Optional.of(Kind.MANUAL);
       case TIME_LIMIT -> Optional.of(Kind.TIME_LIMIT);

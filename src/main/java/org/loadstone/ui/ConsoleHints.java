@@ -21,7 +21,8 @@ final class ConsoleHints {
       case ZERO_DRIFT_LIMIT -> "start the console with another limit (--zero-drift-N)";
       case ZERO_SAMPLES -> "the console averages half a second of samples";
       case START_THRESHOLD, PRETRIGGER, BREAK_DROP, ARMING_LEVEL, DEBOUNCE, ABSOLUTE_STOP, TAIL,
-          OVERLOAD_WARNING, OVERLOAD_STOP, TIME_LIMIT ->
+          OVERLOAD_WARNING, OVERLOAD_STOP, TIME_LIMIT, TRAVEL_LIMIT, LOW_FORCE_LEVEL,
+          LOW_FORCE_TIME ->
           "the console uses the default run settings; set them with 'loadstone record'";
       case ARCHIVE_FOLDER -> "start the console with another folder (--archive)";
       case PORT -> "start the console on another port (--port)";

@@ -9,6 +9,7 @@ import javafx.application.Platform;
 import javafx.scene.control.Label;
 import javafx.scene.layout.FlowPane;
 import javafx.scene.layout.VBox;
+import org.loadstone.analysis.AnalysisSettings;
 import org.loadstone.archive.Run;
 import org.loadstone.archive.RunReader;
 import org.loadstone.study.RunMetrics;
@@ -16,12 +17,16 @@ import org.loadstone.units.LoadstoneException;
 
 /**
  * The console's post-run figures: the stored run read back from the archive and shown as tiles (a
- * name over a large value: peak, break, stiffness, energy, bending or compression stresses, per
- * gram). Thin: the figures are {@link RunMetrics}'; {@link RunPanel} says when a run is stored.
+ * name over a large value: peak, break, stiffness, energy, bending or compression stresses, the
+ * mean crush force of a crush run, per gram). Thin: the figures are {@link RunMetrics}'; {@link RunPanel} says when a run is stored.
  */
 final class RunFigures {
   /** The last run's figures, as tiles. */
   private final FlowPane figures = new FlowPane(28, 8);
+  /** The stiffness window on the run's curve, with a band of one's own. */
+  private final StiffnessView stiffness = new StiffnessView(this::refit);
+  /** The run shown, read back once; null until one is. */
+  private volatile Run run;
 
   RunFigures() {
     figures.setId("run-figures");
@@ -41,15 +46,52 @@ final class RunFigures {
    * @param failed told on the JavaFX thread why the run could not be analysed
    */
   void analyse(Path csv, Consumer<String> failed) {
-    Supplier<Runnable> work = () -> {
+    later(() -> {
       try {
-        Run run = RunReader.read(csv);
-        RunMetrics m = RunMetrics.of(run.metadata(), run.data());
+        Run r = RunReader.read(csv);
+        RunMetrics m = RunMetrics.of(r.metadata(), r.data());
+        run = r;
         return () -> show(m);
       } catch (LoadstoneException e) {
         return () -> failed.accept(e.getMessage());
       }
-    };
+    });
+  }
+
+  /**
+   * Shows a run already read (the archive's, or a test's), analysed with default settings.
+   *
+   * @param r the run
+   */
+  void analyse(Run r) {
+    run = r;
+    refit(null);
+  }
+
+  /**
+   * Analyses the shown run again with a stiffness band (or the automatic search) and shows the
+   * figures; a band the run cannot give is refused with the reason under the chart.
+   *
+   * @param band a force band, or null for the automatic search
+   */
+  void refit(AnalysisSettings.StiffnessBounds band) {
+    Run r = run;
+    if (r == null) {
+      return;
+    }
+    later(() -> {
+      try {
+        RunMetrics m = RunMetrics.of(r.metadata(), r.data(),
+            AnalysisSettings.DEFAULTS.withStiffnessBounds(band));
+        return () -> show(m);
+      } catch (LoadstoneException e) {
+        return () -> stiffness.refuse(e.getMessage());
+      }
+    });
+  }
+
+  /** Works off the JavaFX thread, then runs what the work returns on it. */
+  private static void later(Supplier<Runnable> work) {
     Thread t = new Thread(() -> Platform.runLater(work.get()), "post-run analysis");
     t.setDaemon(true);
     t.start();
@@ -88,10 +130,17 @@ final class RunFigures {
     if (m.compressionStressAtPeak_MPa().isPresent()) {
       tile("compression", opt(m.compressionStressAtPeak_MPa(), "MPa"), "stress at peak");
     }
+    r.crush().ifPresent(c -> tile("mean crush", fmt(c.meanForce_N(), "N"),
+        String.format(Locale.ROOT, "efficiency %.2f · %s over %.1f–%.1f mm", c.efficiency(),
+            fmt(c.energy_J(), "J"), c.from_mm(), c.to_mm())
+            + (m.specificCrushEnergy_J_per_g().isPresent()
+                ? " · " + opt(m.specificCrushEnergy_J_per_g(), "J/g") : "")));
     if (m.specificPeak_N_per_g().isPresent()) {
       tile("per gram", opt(m.specificPeak_N_per_g(), "N/g"),
           opt(m.specificEnergyToBreak_J_per_g(), "J/g") + " to break");
     }
+    figures.getChildren().add(stiffness.node());
+    stiffness.show(m);
     if (m.metadata().amendments().any()) {
       Label amended = LivePane.label("run-amended", m.metadata().amendments().summary());
       amended.setWrapText(true);

@@ -36,6 +36,12 @@ public enum Setting {
   OVERLOAD_STOP("overload stop level"),
   /** The longest run. */
   TIME_LIMIT("time limit"),
+  /** The crosshead travel that ends a crush run. */
+  TRAVEL_LIMIT("travel limit"),
+  /** The fraction of the peak below which force ends a crush run. */
+  LOW_FORCE_LEVEL("low-force level"),
+  /** How long force must stay below the low-force level to end a crush run. */
+  LOW_FORCE_TIME("low-force time"),
   /** The folder runs are stored in. */
   ARCHIVE_FOLDER("archive folder"),
   /** The device's port. */

@@ -213,6 +213,46 @@ class RunAnalyzerTest {
   }
 
   @Test
+  void energyIsGivenAsMeasuredAndToeCompensated() {
+    // A parabolic toe f = a·x² tangent at x1 = 1.5 mm to the line f = k(x − x1/2), k = 100 N/mm,
+    // up to a 200 N peak, then a brittle drop. Toe compensation (ASTM D790 annex A1, ASTM D638
+    // annex A1; from memory) replaces the toe by the line from its zero at x1/2 = 0.75 mm, so
+    // the compensated energy to peak is the triangle P²/(2k) = 200 N·mm; the measured one adds
+    // the toe's excess, ∫a·x² − ∫line = k·x1²/24 = 9.375 N·mm (hand integration).
+    double k = 100;
+    double x1 = 1.5;
+    double a = k / (2 * x1);
+    double peak = 200;
+    double xp = x1 / 2 + peak / k;
+    for (long seed = 1; seed <= 5; seed++) {
+      Random rnd = new Random(seed);
+      int n = 3000;
+      double[] t = new double[n];
+      double[] f = new double[n];
+      double[] x = new double[n];
+      for (int i = 0; i < n; i++) {
+        x[i] = i * 0.001;
+        t[i] = i * 0.01;
+        double clean = x[i] < x1 ? a * x[i] * x[i]
+            : x[i] <= xp ? k * (x[i] - x1 / 2) : Math.max(0, peak - 4000 * (x[i] - xp));
+        f[i] = clean + 0.2 * rnd.nextGaussian(); // noise SD = peak/1000
+      }
+      RunResult r = RunAnalyzer.analyze(new Curve(t, f, x));
+      assertThat(r.toeOffset_mm().getAsDouble()).as("seed " + seed)
+          .isCloseTo(0.75, within(0.02));
+      assertThat(r.energyToPeakToeCompensated_J().getAsDouble()).as("seed " + seed)
+          .isCloseTo(0.200, within(0.002));
+      assertThat(r.energyToPeak_J().getAsDouble()).as("seed " + seed)
+          .isCloseTo(0.209375, within(0.002));
+      // past the peak both follow the same measured samples
+      assertThat(r.energyToBreakToeCompensated_J().getAsDouble()
+          - r.energyToPeakToeCompensated_J().getAsDouble())
+          .isCloseTo(r.energyToBreak_J().getAsDouble() - r.energyToPeak_J().getAsDouble(),
+              within(1e-12));
+    }
+  }
+
+  @Test
   void meanCrushForceAndEfficiency() {
     // Rise to 100 N over 1 mm, then a flat 60 N plateau to 10 mm: mean over [2, 9] mm is 60 N,
     // efficiency 0.6 (crush-force efficiency = mean crush force / peak force, common practice).
@@ -231,13 +271,25 @@ class RunAnalyzerTest {
     RunResult.CrushResult c = r.crush().orElseThrow();
     assertThat(c.meanForce_N()).isCloseTo(60, within(1e-9));
     assertThat(c.efficiency()).isCloseTo(0.6, within(1e-9));
+    // energy over the stroke is the area: 60 N × 6.995 mm = 419.7 N·mm (rectangle)
+    assertThat(c.energy_J()).isCloseTo(60 * (9 - 2.005) / 1000, within(1e-12));
+    // the whole stroke, 0 to 10 mm, by hand: triangle 0.5·1·100 = 50, trapezoid over the drop
+    // 0.2·(100 + 60)/2 = 16, plateau 60·8.8 = 528, so 594 N·mm and a mean of 59.4 N
+    RunResult.CrushResult whole = RunAnalyzer.analyze(new Curve(t, f, x),
+        AnalysisSettings.DEFAULTS.withCrushWindow(CrushWindow.WHOLE_STROKE)).crush().orElseThrow();
+    assertThat(whole.to_mm()).isCloseTo(10, within(1e-12));
+    assertThat(whole.energy_J()).isCloseTo(0.594, within(1e-9));
+    assertThat(whole.meanForce_N()).isCloseTo(59.4, within(1e-9));
+    assertThat(whole.efficiency()).isCloseTo(0.594, within(1e-9));
     assertThatThrownBy(
             () ->
                 RunAnalyzer.analyze(
                     new Curve(t, f, x),
                     AnalysisSettings.DEFAULTS.withCrushWindow(new CrushWindow(2, 20))))
         .isInstanceOf(LoadstoneException.class)
-        .hasMessageContaining("largest displacement");
+        .hasMessageContaining("crush stroke 2.000 to 20.00 mm")
+        .hasMessageContaining("largest displacement of the run, 10.00 mm")
+        .hasMessageContaining("ends at or before 10.00 mm");
   }
 
   @Test

@@ -41,6 +41,26 @@ class BeamAndPanelTruthTest {
   }
 
   @Test
+  void fourPointBarStiffnessIsTheLoadPointDeflectionOfTwoSymmetricLoads() {
+    SimulatedFrame f = SimulatedFrame.builder().scenario(Scenario.FOUR_POINT).rateHz(1000).seed(3)
+        .build();
+    SampleBlock b = SimRuns.run(f, 1000, 12);
+    SolidBeam beam = f.truth().specimen().beam();
+    // Two loads P/2 at a = (L − Ls)/2 from the supports: each deflects by
+    // (P/2)·a²(3L − 4a)/(6EI) (Roark's Formulas for Stress and Strain, simply supported beam,
+    // two symmetric loads; from memory), so k = 12EI/(a²(3L − 4a)). Break when 3P·2a/(2bd²)
+    // reaches the strength (ASTM D6272, from memory).
+    double a = (beam.span_mm() - beam.loadSpan_mm()) / 2;
+    double i = beam.width_mm() * Math.pow(beam.depth_mm(), 3) / 12;
+    double k = 12 * beam.modulus_MPa() * i / (a * a * (3 * beam.span_mm() - 4 * a));
+    assertThat(f.truth().specimen().stiffness_N_per_mm()).isCloseTo(k, within(k * 1e-12));
+    assertThat(elasticSlope(b, beam.breakLoad_N())).isCloseTo(k, within(k * 1e-6));
+    double p = beam.flexuralStrength_MPa() * beam.width_mm() * beam.depth_mm()
+        * beam.depth_mm() / (3 * a);
+    assertThat(beam.breakLoad_N()).isCloseTo(p, within(p * 1e-12));
+  }
+
+  @Test
   void brittlePeakIsTheFlexuralStrengthLoadAndTheMaxOfTheTrueForce() {
     // every model step is a sample at 10 000 /s (steps are at most 100 µs)
     SimulatedFrame f = SimulatedFrame.builder().scenario(Scenario.BRITTLE).rateHz(10_000).seed(4)

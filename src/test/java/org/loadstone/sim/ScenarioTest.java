@@ -22,7 +22,7 @@ class ScenarioTest {
     assertThatThrownBy(() -> Scenario.parse("panel-cork"))
         .isInstanceOf(LoadstoneException.class)
         .hasMessageContaining("'panel-cork'")
-        .hasMessageContaining("brittle, ductile, crush, over-range, rigid-block, panel-foam,"
+        .hasMessageContaining("brittle, four-point, ductile, crush, over-range, rigid-block, panel-foam,"
             + " panel-balsa, panel-board, dead-weight");
     assertThatThrownBy(() -> Scenario.parse(null)).isInstanceOf(LoadstoneException.class);
   }

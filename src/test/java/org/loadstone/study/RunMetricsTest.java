@@ -36,6 +36,53 @@ class RunMetricsTest {
   }
 
   @Test
+  void aCrushRunIsReadOverTheWholeStrokeAndPerGram() {
+    // Rise at 1000 N/mm to 400 N (0.4 mm), then teeth between 300 and 340 N every 0.5 mm to 6 mm,
+    // sampled every 0.001 mm. The figures are checked against the same trapezoid sums done here
+    // by hand over the samples: mean crush force = energy / stroke, efficiency = mean / peak
+    // (crashworthiness practice, from memory), energy per gram = energy / mass.
+    int n = 6001;
+    double[] t = new double[n];
+    double[] f = new double[n];
+    double[] x = new double[n];
+    for (int i = 0; i < n; i++) {
+      x[i] = i * 0.001;
+      t[i] = i * 0.002;
+      double tooth = ((x[i] - 0.4) % 0.5) / 0.5;
+      f[i] = x[i] <= 0.4 ? 1000 * x[i] : 300 + 40 * tooth;
+    }
+    double area = 0;
+    for (int i = 1; i < n; i++) {
+      area += 0.5 * (f[i] + f[i - 1]) * (x[i] - x[i - 1]);
+    }
+    int[] zeros = new int[n];
+    RunData data = new RunData(t, f, x, zeros, zeros, zeros);
+    RunMetadata md = TestRuns.meta("C-01", "tubes", new Geometry(null, null, null, null, null,
+        null, 80.0), 12.5).toBuilder().testType(TestType.CRUSH).cause(FinishCause.TRAVEL_LIMIT)
+        .build();
+    RunMetrics m = RunMetrics.of(md, data);
+    var c = m.analysis().crush().orElseThrow();
+    assertThat(c.from_mm()).isZero();
+    assertThat(c.to_mm()).isCloseTo(6.0, within(1e-9));
+    assertThat(c.energy_J()).isCloseTo(area / 1000, within(1e-12));
+    assertThat(c.meanForce_N()).isCloseTo(area / 6.0, within(1e-9));
+    assertThat(c.efficiency()).isCloseTo(area / 6.0 / 400, within(1e-9));
+    assertThat(m.specificCrushEnergy_J_per_g().getAsDouble())
+        .isCloseTo(area / 1000 / 12.5, within(1e-12));
+    // P/A at the peak, as for compression: 400 N / 80 mm² = 5 MPa
+    assertThat(m.compressionStressAtPeak_MPa().getAsDouble()).isCloseTo(5.0, within(1e-12));
+    assertThat(Metric.CRUSH_MEAN.of(m).getAsDouble()).isEqualTo(c.meanForce_N());
+    assertThat(m.toJsonMap().get("specific_crush_energy_J_per_g"))
+        .isEqualTo(m.specificCrushEnergy_J_per_g().getAsDouble());
+    assertThat(m.notes()).anyMatch(s -> s.contains("whole stroke"));
+    // a run of another type shows no crush figures unless a stroke is asked for
+    RunMetrics bend = RunMetrics.of(TestRuns.meta("C-02", "tubes", new Geometry(null, null, null,
+        null, null, null, 80.0), 12.5), data);
+    assertThat(bend.analysis().crush()).isEmpty();
+    assertThat(bend.specificCrushEnergy_J_per_g()).isEmpty();
+  }
+
+  @Test
   void sandwichCoreShearAndFacingStressAsAstmC393() {
     // ASTM C393: τ = P/((d + c)b), σ_f = PL/(2t(d + c)b). Hand-computed for P = 460 N,
     // d = 26, c = 20, t = 3, b = 50, L = 400 mm: τ = 460/(46·50) = 0.2 MPa,

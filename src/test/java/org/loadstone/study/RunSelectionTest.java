@@ -38,6 +38,21 @@ class RunSelectionTest {
   }
 
   @Test
+  void aCrushRunCountsAtItsPlannedEnds() {
+    // a crush run goes on through the load drops: its travel limit, its low-force rule, its time
+    // limit and the operator's stop are its planned ends (issue 12); an overload still is not
+    for (FinishCause c : FinishCause.values()) {
+      RunMetadata crush = run(c, true).toBuilder()
+          .testType(org.loadstone.archive.TestType.CRUSH).build();
+      boolean planned = c == FinishCause.TRAVEL_LIMIT || c == FinishCause.LOW_FORCE
+          || c == FinishCause.TIME_LIMIT || c == FinishCause.MANUAL || c == FinishCause.BREAK;
+      assertThat(RunSelection.DEFAULT.judge(crush).isEmpty()).as(c.wireName()).isEqualTo(planned);
+    }
+    assertThat(RunSelection.kindsOf(run(FinishCause.TRAVEL_LIMIT, true)))
+        .containsExactly(Kind.CRUSH_LIMIT);
+  }
+
+  @Test
   void eachEndingHasItsKindAndReason() {
     assertThat(RunSelection.kindsOf(run(FinishCause.MANUAL, true))).containsExactly(Kind.MANUAL);
     assertThat(RunSelection.kindsOf(run(FinishCause.TIME_LIMIT, true)))

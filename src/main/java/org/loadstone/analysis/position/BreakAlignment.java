@@ -16,6 +16,10 @@ import org.loadstone.units.Precondition;
  *       neighbourhood, so it is found between rows.
  * </ul>
  *
+ * <p>A table with a jump (a step larger than the noise, {@link PositionTable#jumps}: the tracked
+ * point springs at the break or slips) has its break at the jump, between the two rows around
+ * it; lines fitted across a jump would meet far from it.
+ *
  * <p>Each change must stand out: the force drop must be at least 10 × the median absolute
  * sample-to-sample slope, and so must the rate change in the table; otherwise the break is not
  * clear enough and an offset must be given by hand.
@@ -48,8 +52,27 @@ public final class BreakAlignment {
               + forceTime_s.length + " times and " + force_N.length + " forces.");
     }
     double tf = forceBreak(forceTime_s, force_N);
-    double tt = tableBreak(table.time_s(), table.position_mm());
+    double tt = jumpBreak(table);
+    if (Double.isNaN(tt)) {
+      tt = tableBreak(table.time_s(), table.position_mm());
+    }
     return new Alignment(tt - tf, tf, tt);
+  }
+
+  /**
+   * The break of a table with a jump ({@link PositionTable#jumps}): the first jump is the break
+   * itself, at an unknown instant between its two rows, taken as their middle (at most half a
+   * row interval off); NaN when the table has no jump.
+   */
+  static double jumpBreak(PositionTable table) {
+    boolean[] jump = table.jumps();
+    double[] t = table.time_s();
+    for (int j = 0; j < jump.length; j++) {
+      if (jump[j]) {
+        return 0.5 * (t[j] + t[j + 1]);
+      }
+    }
+    return Double.NaN;
   }
 
   static double forceBreak(double[] t, double[] f) {

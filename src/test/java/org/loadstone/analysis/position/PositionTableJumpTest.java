@@ -49,6 +49,39 @@ class PositionTableJumpTest {
   }
 
   @Test
+  void aTableWithAJumpIsAlignedByTheJumpAndKeepsTheRiseRight() {
+    // the same track in its own clock, 0.4 s ahead of the force record's; alignment by the
+    // break must find the offset from the jump (a break in the record) to within a frame
+    double offset = 0.4;
+    double breakAt = 60 * FRAME + 0.031; // force clock
+    int frames = 80;
+    double[] ft = new double[frames];
+    double[] fx = new double[frames];
+    for (int j = 0; j < frames; j++) {
+      ft[j] = offset + j * FRAME;
+      fx[j] = V * j * FRAME + (j * FRAME > breakAt ? 2.0 : 0.0);
+    }
+    PositionTable table = new PositionTable(ft, fx);
+    int n = (int) Math.floor(((frames - 1) * FRAME - 0.1) * 500);
+    double[] t = new double[n];
+    double[] f = new double[n];
+    for (int i = 0; i < n; i++) {
+      t[i] = 0.05 + i / 500.0; // the force record starts a little after the track
+      f[i] = t[i] < breakAt - 0.001 ? K * V * t[i] : 0.05 * K * V * t[i];
+    }
+    BreakAlignment.Alignment a = BreakAlignment.byBreak(t, f, table);
+    assertThat(a.offset_s()).isCloseTo(offset, within(FRAME / 2));
+    double[] x = table.resampleOnto(t, a.offset_s());
+    RunResult r = RunAnalyzer.analyze(new Curve(t, f, x));
+    // truth: the point is at v·t, so the displacement from the first sample is v·(t − t0);
+    // the force K·v·t does ½·K·v²·(t² − t0²) of work over it (elementary mechanics)
+    double d = V * (r.peakTime_s() - t[0]);
+    assertThat(r.displacementAtPeak_mm().orElseThrow()).isCloseTo(d, within(0.02 * d));
+    double energy = 0.5 * K * V * V * (r.peakTime_s() * r.peakTime_s() - t[0] * t[0]) / 1000;
+    assertThat(r.energyToPeak_J().orElseThrow()).isCloseTo(energy, within(0.02 * energy));
+  }
+
+  @Test
   void aSteadyTableHasNoJumps() {
     double[] ft = new double[50];
     double[] fx = new double[50];
