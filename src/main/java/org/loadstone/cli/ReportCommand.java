@@ -76,7 +76,8 @@ public final class ReportCommand implements Callable<Integer> {
         PdfReport.writeRun(m, out);
       }
     } else {
-      Selection sel = ArchiveRuns.scan(archive.folder()).select(select.selection());
+      Selection sel = ArchiveRuns.scan(archive.folder()).select(select.selection(),
+        ProgressLine.onStderr(spec.commandLine().getErr(), "analysing runs"));
       GroupStudy.Report study;
       try {
         study = GroupStudy.compareEach(sel, PdfReport.DEFAULT_METRICS,
