@@ -210,7 +210,7 @@ public final class RecordCommand implements Callable<Integer> {
           long since = progress.startedNanos;
           String line = StatusLine.format(s.state().name().toLowerCase(Locale.ROOT),
               since == 0 ? Double.NaN : (System.nanoTime() - since) / 1e9, s.force_N(),
-              s.peak_N(), s.rateHz(), width);
+              s.travel_mm(), s.peak_N(), s.rateHz(), width);
           err.print("\r" + line + " ".repeat(Math.max(0, width - 1 - line.length())));
           err.flush();
         }

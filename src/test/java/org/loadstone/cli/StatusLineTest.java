@@ -8,16 +8,16 @@ import org.junit.jupiter.api.Test;
 class StatusLineTest {
   @Test
   void theLongestFormThatFitsIsChosenAndNothingWraps() {
-    String wide = StatusLine.format("recording", 72.44, 123.456, 234.567, 80, 160);
-    assertThat(wide).isEqualTo("recording 1:12.4  force    123.46 N  peak    234.57 N     80.0 "
-        + "samples/s");
-    String sixty = StatusLine.format("recording", 72.44, 123.456, 234.567, 80, 60);
-    assertThat(sixty).hasSizeLessThan(60).contains("1:12.4", "123.46 N", "234.57 N");
+    String wide = StatusLine.format("recording", 72.44, 123.456, 2.5, 234.567, 80, 160);
+    assertThat(wide).isEqualTo("recording 1:12.4  force    123.46 N  travel   2.500 mm  peak    "
+        + "234.57 N     80.0 samples/s");
+    String sixty = StatusLine.format("recording", 72.44, 123.456, 2.5, 234.567, 80, 60);
+    assertThat(sixty).isEqualTo("recording 1:12.4 F 123.5 N x 2.50 mm pk 234.6 N");
     for (int w = 20; w <= 200; w++) {
-      assertThat(StatusLine.format("recording", 3599.9, -12345.678, 99999.9, 50000, w))
-          .as("width " + w).hasSizeLessThan(w);
+      assertThat(StatusLine.format("recording", 3599.9, -12345.678, 1234.5678, 99999.9, 50000,
+          w)).as("width " + w).hasSizeLessThan(w);
     }
-    assertThat(StatusLine.format("armed", Double.NaN, 0.01, Double.NaN, 80, 60))
+    assertThat(StatusLine.format("armed", Double.NaN, 0.01, Double.NaN, Double.NaN, 80, 60))
         .startsWith("armed     -:--");
     assertThat(StatusLine.width("60")).isEqualTo(60);
     assertThat(StatusLine.width(null)).isEqualTo(StatusLine.DEFAULT_WIDTH);
