@@ -58,9 +58,14 @@ public final class Recorder implements AutoCloseable {
   public record Result(RunStore.Stored stored, FinishCause cause, double peak_N, long samples,
       long dropped, long checksumErrors, BreakDetector.Break breakDetail, Double returnToZero_N) {}
 
-  /** What a status line shows. */
+  /**
+   * What a status line shows.
+   *
+   * @param travel_mm crosshead travel since the recorder was armed (position counts over the
+   *     device's stated counts per mm), NaN without a position channel or before a sample
+   */
   public record Status(RunControl.State state, double force_N, double peak_N, double rateHz,
-      long samples) {}
+      long samples, double travel_mm) {}
 
   private final DeviceReader reader;
   private final ForceScale scale;
@@ -83,6 +88,11 @@ public final class Recorder implements AutoCloseable {
   private RunControl.Started started;
   private RunRecordMeta record;
   private final ReturnToZero unloaded;
+  /** The device's position counts per mm (its identity's {@code cpm}), 0 when unknown. */
+  private final double countsPerMm;
+  /** Position counts of the first sample read once armed, NaN before. */
+  private double armedPosition = Double.NaN;
+  private volatile double travel_mm = Double.NaN;
 
   /**
    * @param reader the running device reader
@@ -99,6 +109,7 @@ public final class Recorder implements AutoCloseable {
     this.scale = Precondition.notNull(scale, "scale");
     this.zero_counts = zero_counts;
     this.template = Precondition.notNull(template, "template");
+    this.countsPerMm = cpm(template.device().get("cpm"));
     this.store = Precondition.notNull(store, "store");
     this.listener = listener == null ? new Listener() {} : listener;
     this.control = new RunControl(settings, template.sampleRate_Hz());
@@ -162,7 +173,16 @@ public final class Recorder implements AutoCloseable {
     RunControl.Snapshot s = control.snapshot();
     return new Status(s.state(), s.force_N(),
         s.peak_N() == Double.NEGATIVE_INFINITY ? Double.NaN : s.peak_N(),
-        reader.measuredRateHz(), reader.samplesAccepted());
+        reader.measuredRateHz(), reader.samplesAccepted(), travel_mm);
+  }
+
+  private static double cpm(String text) {
+    try {
+      double v = text == null ? 0 : Double.parseDouble(text.trim());
+      return Double.isFinite(v) && v > 0 ? v : 0;
+    } catch (NumberFormatException e) {
+      return 0;
+    }
   }
 
   /**
@@ -222,6 +242,12 @@ public final class Recorder implements AutoCloseable {
             return;
           }
           double f = scale.force_N(counts - zero_counts);
+          if (hp && countsPerMm > 0) {
+            if (Double.isNaN(armedPosition)) {
+              armedPosition = pos;
+            }
+            travel_mm = (pos - armedPosition) / countsPerMm;
+          }
           if (started != null) {
             unloaded.offer(f);
           }

@@ -102,12 +102,12 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
     ForceScale scale = ForceScale.of(spec,
         "calibration " + doc.id() + " (" + doc.fit().kind().label() + ")");
     Map<String, Object> check = null;
-    List<CheckWeightResult> log = CheckWeights.readLog(file);
-    if (log.isEmpty()) {
+    java.util.Optional<CheckWeightResult> lastCheck = CheckWeights.lastCheck(file);
+    if (lastCheck.isEmpty()) {
       warnings.add("calibration " + doc.id() + " has no check-weight verification yet: "
           + "verify it with a known check weight before a day of testing");
     } else {
-      CheckWeightResult last = log.get(log.size() - 1);
+      CheckWeightResult last = lastCheck.get();
       @SuppressWarnings("unchecked")
       Map<String, Object> m = new ObjectMapper().convertValue(last, Map.class);
       check = m;

@@ -51,12 +51,7 @@ public record Amendment(Instant at, String operator, String reason, Map<String, 
           + "corrected or retired (it is kept beside the run for whoever reads it later)");
     }
     reason = reason.strip();
-    Map<String, Object> copy = new LinkedHashMap<>();
-    for (Map.Entry<String, Object> e : (changes == null ? Map.<String, Object>of() : changes)
-        .entrySet()) {
-      copy.put(e.getKey(), checked(e.getKey(), e.getValue()));
-    }
-    changes = Collections.unmodifiableMap(copy);
+    changes = checked(changes == null ? Map.of() : changes);
     if (changes.isEmpty() && retired == null) {
       throw new LoadstoneException("the amendment changes nothing: give a new value for at "
           + "least one of the run's fields, or retire or reinstate the run");
@@ -72,6 +67,19 @@ public record Amendment(Instant at, String operator, String reason, Map<String, 
   /** @return whether this amendment reinstates a retired run */
   public boolean reinstates() {
     return Boolean.FALSE.equals(retired);
+  }
+
+  /**
+   * Checks field names and value types of specimen values.
+   *
+   * @param values sidecar field name → value, as {@link #changes()}
+   * @return an unmodifiable copy in the same order, numbers as {@code Double}
+   * @throws LoadstoneException naming the field and what it must be
+   */
+  public static Map<String, Object> checked(Map<String, Object> values) {
+    Map<String, Object> copy = new LinkedHashMap<>();
+    values.forEach((k, v) -> copy.put(k, checked(k, v)));
+    return Collections.unmodifiableMap(copy);
   }
 
   private static Object checked(String field, Object v) {

@@ -96,15 +96,7 @@ public final class Amendments {
     ObjectNode tree = RunJson.toTree(stored);
     Amendment retiredBy = null;
     for (Amendment a : log) {
-      a.changes().forEach((k, v) -> {
-        ObjectNode target = Amendment.GEOMETRY_FIELDS.contains(k)
-            ? (ObjectNode) tree.get("geometry") : tree;
-        if (v == null) {
-          target.remove(k); // an optional value cleared reads as never given
-        } else {
-          target.set(k, RunJson.LINE.valueToTree(v));
-        }
-      });
+      set(tree, a.changes());
       if (a.retires()) {
         retiredBy = a;
       } else if (a.reinstates()) {
@@ -115,6 +107,35 @@ public final class Amendments {
     checkValues(amended);
     return amended.toBuilder()
         .amendments(new RunAmendments(log, changes(stored, amended), retiredBy)).build();
+  }
+
+  /**
+   * Specimen values set on a run's metadata before it is stored (an import): the same fields
+   * and checks as an amendment, but nothing is recorded as amended.
+   *
+   * @param m the metadata, not null
+   * @param values sidecar field name → value ({@link Amendment#EDITABLE}), not null
+   * @throws LoadstoneException naming the field when a name or value is not valid
+   */
+  public static RunMetadata withValues(RunMetadata m, Map<String, Object> values) {
+    Precondition.notNull(m, "metadata");
+    ObjectNode tree = RunJson.toTree(m);
+    set(tree, Amendment.checked(values));
+    RunMetadata out = RunJson.fromTree(tree, "run " + m.runId(), null);
+    checkValues(out);
+    return out.toBuilder().amendments(m.amendments()).build();
+  }
+
+  private static void set(ObjectNode tree, Map<String, Object> values) {
+    values.forEach((k, v) -> {
+      ObjectNode target = Amendment.GEOMETRY_FIELDS.contains(k)
+          ? (ObjectNode) tree.get("geometry") : tree;
+      if (v == null) {
+        target.remove(k); // an optional value cleared reads as never given
+      } else {
+        target.set(k, RunJson.LINE.valueToTree(v));
+      }
+    });
   }
 
   /**

@@ -14,6 +14,8 @@ import com.fasterxml.jackson.annotation.JsonProperty;
  * @param error_pct (indicated − expected) / expected × 100
  * @param tolerance_pct accepted |error_pct|
  * @param pass whether |error_pct| ≤ tolerance_pct
+ * @param rehearsal true when it was a rehearsal on the simulated frame: logged so, and never
+ *     taken as a check of the real cell (absent in older logs: false)
  */
 public record CheckWeightResult(
     @JsonProperty("time") String time,
@@ -24,4 +26,12 @@ public record CheckWeightResult(
     @JsonProperty("indicated_N") double indicated_N,
     @JsonProperty("error_pct") double error_pct,
     @JsonProperty("tolerance_pct") double tolerance_pct,
-    @JsonProperty("pass") boolean pass) {}
+    @JsonProperty("pass") boolean pass,
+    @JsonProperty("rehearsal") boolean rehearsal) {
+
+  /** @return the same result marked as a rehearsal on the simulated frame */
+  public CheckWeightResult asRehearsal() {
+    return new CheckWeightResult(time, calibrationId, calibrationSha256, mass_kg, expected_N,
+        indicated_N, error_pct, tolerance_pct, pass, true);
+  }
+}

@@ -50,7 +50,19 @@ public final class CheckWeights {
     double indicated = cal.fit().inverse().force_N(netCounts);
     double err = 100 * (indicated - expected) / expected;
     return new CheckWeightResult(time.toString(), cal.id(), cal.contentSha256(), mass_kg,
-        expected, indicated, err, tolerance_pct, Math.abs(err) <= tolerance_pct);
+        expected, indicated, err, tolerance_pct, Math.abs(err) <= tolerance_pct, false);
+  }
+
+  /**
+   * @return the last check of the real cell in the log beside {@code calibrationFile}
+   *     (rehearsals on the simulated frame are not checks), empty if none
+   * @throws LoadstoneException naming the file and line of a bad entry
+   */
+  public static java.util.Optional<CheckWeightResult> lastCheck(Path calibrationFile) {
+    List<CheckWeightResult> real = readLog(calibrationFile).stream()
+        .filter(r -> !r.rehearsal()).toList();
+    return real.isEmpty() ? java.util.Optional.empty()
+        : java.util.Optional.of(real.get(real.size() - 1));
   }
 
   /** @return the log file beside {@code calibrationFile}: {@code <id>.checks.jsonl} */

@@ -87,12 +87,11 @@ final class CliWiring {
    *
    * @return the new run id
    */
-  static StoredRun store(ImportedRun run, Path archiveDir, String specimen, String group) {
+  static StoredRun store(ImportedRun run, Path archiveDir) {
     RunMetadata h = run.metadata();
     Instant now = Instant.now();
-    String spec = specimen != null ? specimen : h.specimen();
-    try (RunIdClaim id = RunIdClaim.claim(archiveDir, RunIds.base(now, spec))) {
-      RunMetadata m = h.withIdentity(id.id(), spec, group != null ? group : h.group());
+    try (RunIdClaim id = RunIdClaim.claim(archiveDir, RunIds.base(now, h.specimen()))) {
+      RunMetadata m = h.withIdentity(id.id(), h.specimen(), h.group());
       return RunWriter.write(archiveDir, m, run.data());
     }
   }

@@ -59,7 +59,8 @@ public final class CompareCommand implements Callable<Integer> {
     }
     Metric m = Metric.parse(metric);
     PrintWriter out = spec.commandLine().getOut();
-    Selection sel = ArchiveRuns.scan(archive.folder()).select(select.selection());
+    Selection sel = ArchiveRuns.scan(archive.folder()).select(select.selection(),
+        ProgressLine.onStderr(spec.commandLine().getErr(), "analysing runs"));
     StudyResult r;
     try {
       r = GroupStudy.compare(sel, m, targetPct / 100);

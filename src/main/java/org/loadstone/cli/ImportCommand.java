@@ -60,11 +60,7 @@ public final class ImportCommand implements Callable<Integer> {
   @Option(names = "--skip-lines", defaultValue = "0", description = "Lines before the header row.")
   int skipLines;
 
-  @Option(names = "--specimen", description = "Specimen id for the imported run (default: the file name).")
-  String specimen;
-
-  @Option(names = "--group", description = "Group for the imported run.")
-  String group;
+  @picocli.CommandLine.Mixin SpecimenOptions specimen;
 
   @Option(names = "--out", paramLabel = "FILE.csv", description = "Write the run as a plain CSV here instead of storing it in the archive.")
   Path out;
@@ -88,8 +84,14 @@ public final class ImportCommand implements Callable<Integer> {
     if (timeUnit != null) {
       s = s.withTimeUnit(DurationUnit.parse(timeUnit));
     }
-    ImportedRun run = CsvImport.read(file, s);
+    ImportedRun read = CsvImport.read(file, s);
+    ImportedRun run = new ImportedRun(org.loadstone.archive.Amendments.withValues(
+        read.metadata(), specimen.given()), read.data(), read.delimiter(), read.columns(),
+        read.notes());
     RunData d = run.data();
+    List<String> warnings = org.loadstone.intake.Plausibility.warnings(run.metadata(), d);
+    warnings.forEach(w -> spec.commandLine().getErr().println("warning: " + w));
+    spec.commandLine().getErr().flush();
     PrintWriter o = spec.commandLine().getOut();
     o.printf(Locale.ROOT, "%s: %d rows, delimiter %s%n", file, d.size(),
         run.delimiter() == '\t' ? "tab" : "'" + run.delimiter() + "'");
@@ -109,7 +111,7 @@ public final class ImportCommand implements Callable<Integer> {
       stored = out.toString();
       o.println("written to " + out);
     } else {
-      StoredRun sr = CliWiring.store(run, archive.folder(), specimen, group);
+      StoredRun sr = CliWiring.store(run, archive.folder());
       stored = sr.csv().toString();
       o.println("stored in the archive as " + sr.csv().getFileName().toString()
           .replaceFirst("\\.csv$", ""));
@@ -124,6 +126,7 @@ public final class ImportCommand implements Callable<Integer> {
       m.put("force_N_range", List.of(f[0], f[1]));
       m.put("position_mm_range", x == null ? null : List.of(x[0], x[1]));
       m.put("notes", run.notes());
+      m.put("warnings", warnings);
       m.put("stored", stored);
       o.println(new ObjectMapper().writeValueAsString(m));
     }

@@ -44,6 +44,11 @@ public final class LoadstoneCommand implements Runnable {
    * zeroing, armed or recording; a run recorded until then is stored, its cause saying which).
    */
   public static final int EXIT_DEVICE_LOST = 3;
+  /**
+   * Exit code when a device sent no samples at all ({@code monitor}: a silent port, or bytes
+   * that are not samples).
+   */
+  public static final int EXIT_NO_DATA = 4;
   /** Exit code for an unexpected internal failure. */
   public static final int EXIT_INTERNAL = 70;
 

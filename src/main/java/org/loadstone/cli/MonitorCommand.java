@@ -24,6 +24,14 @@ import picocli.CommandLine.Option;
       "Show decoded samples from a device live, then the stream's totals.",
       "",
       "Totals: samples, dropped, checksum errors, resyncs and the measured rate."
+    },
+    exitCodeListHeading = "%nExit codes:%n",
+    exitCodeList = {
+      "0:samples came",
+      "2:refused or failed: the message names the fault and the fix",
+      "3:the device was lost",
+      "4:no samples came (a silent port, or bytes that are not samples)",
+      "70:internal error (a bug; please report it)"
     })
 public final class MonitorCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
@@ -94,6 +102,9 @@ public final class MonitorCommand implements Callable<Integer> {
       } else if (reader.lostReason().isPresent()) {
         err.println("loadstone: " + reader.lostReason().get());
         exit = LoadstoneCommand.EXIT_DEVICE_LOST;
+      } else if (reader.samplesAccepted() == 0) {
+        err.println("loadstone: " + silence(device.port, reader.counters()));
+        exit = LoadstoneCommand.EXIT_NO_DATA;
       }
       if (cursor.lost() > 0) {
         err.println("# " + cursor.lost() + " samples were not shown (the terminal fell behind); "
@@ -109,6 +120,19 @@ public final class MonitorCommand implements Callable<Integer> {
       }
     }
     return exit;
+  }
+
+  /** @return why no sample came, from what the decoder saw, with the likely fixes */
+  static String silence(String port, DecoderCounters c) {
+    String where = "port " + port;
+    if (c.bytes() == 0) {
+      return "no samples: " + where + " sent nothing. Check that the device is powered and "
+          + "connected, that this is its port ('loadstone ports' lists them), and, for a board "
+          + "that resets when the port opens, give it time with --reset-wait-ms 2000";
+    }
+    return "no samples: " + where + " sent " + c.bytes() + " bytes but none could be read as "
+        + "samples (" + c.resyncs() + " resyncs, " + c.checksumErrors() + " checksum errors). "
+        + "Check the serial speed (--baud) and that the device speaks the Loadstone protocol";
   }
 
   private void printWaiting(SampleRing.Cursor cursor, StringBuilder lines, PrintWriter out) {

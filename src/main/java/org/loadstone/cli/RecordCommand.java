@@ -50,7 +50,8 @@ import picocli.CommandLine.Option;
       "0:a run was stored, or none was started (stopped while armed)",
       "2:refused or failed: the message names the fault and the fix",
       "3:the device was lost or restarted; a run recorded until then is stored",
-      "70:internal error (a bug; please report it)"
+      "70:internal error (a bug; please report it)",
+      "130:stopped by Ctrl-C: the run recorded until then is stored and printed first"
     })
 public final class RecordCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
@@ -196,15 +197,20 @@ public final class RecordCommand implements Callable<Integer> {
       for (String w : run.warnings()) {
         say(err, "warning: " + w);
       }
-      Recorder rec = setup.recorder(run, store, new Progress(err));
+      Progress progress = new Progress(err);
+      int width = StatusLine.width(System.getenv("COLUMNS"));
+      Recorder rec = setup.recorder(run, store, progress);
+      java.util.concurrent.CountDownLatch printed = new java.util.concurrent.CountDownLatch(1);
       Thread hook = new Thread(() -> {
-        rec.stop();
+        rec.stop(); // Ctrl-C: store what was recorded, and let the command print it
         try {
           rec.await(30, TimeUnit.SECONDS);
+          printed.await(30, TimeUnit.SECONDS);
         } catch (InterruptedException e) {
           Thread.currentThread().interrupt();
         }
       });
+      hookPrinted = printed;
       Runtime.getRuntime().addShutdownHook(hook);
       if (manualStart) {
         say(err, "recording now (manual start)");
@@ -224,9 +230,11 @@ public final class RecordCommand implements Callable<Integer> {
         result = rec.await(200, TimeUnit.MILLISECONDS);
         if (tty && result.isEmpty()) {
           Recorder.Status s = rec.status();
-          err.printf(Locale.ROOT, "\r%-9s force %9.2f N   peak %9.2f N   %7.1f samples/s   ",
-              s.state().name().toLowerCase(Locale.ROOT), s.force_N(),
-              Double.isNaN(s.peak_N()) ? 0.0 : s.peak_N(), s.rateHz());
+          long since = progress.startedNanos;
+          String line = StatusLine.format(s.state().name().toLowerCase(Locale.ROOT),
+              since == 0 ? Double.NaN : (System.nanoTime() - since) / 1e9, s.force_N(),
+              s.travel_mm(), s.peak_N(), s.rateHz(), width);
+          err.print("\r" + line + " ".repeat(Math.max(0, width - 1 - line.length())));
           err.flush();
         }
         if (result.isEmpty() && reader.lostReason().isPresent()
@@ -264,8 +272,16 @@ public final class RecordCommand implements Callable<Integer> {
       return 0;
     } finally {
       reader.close();
+      if (hookPrinted != null) {
+        out.flush();
+        err.flush();
+        hookPrinted.countDown();
+      }
     }
   }
+
+  /** Opened when the command has printed its outcome; the Ctrl-C hook waits for it. */
+  private java.util.concurrent.CountDownLatch hookPrinted;
 
   private Map<String, String> simFields() {
     Map<String, String> m = new LinkedHashMap<>();
@@ -286,6 +302,8 @@ public final class RecordCommand implements Callable<Integer> {
   /** Prints run events as they happen. */
   private static final class Progress implements Recorder.Listener {
     private final PrintWriter err;
+    /** When recording started (System.nanoTime), 0 before: the status line's clock. */
+    volatile long startedNanos;
 
     Progress(PrintWriter err) {
       this.err = err;
@@ -293,6 +311,7 @@ public final class RecordCommand implements Callable<Integer> {
 
     @Override
     public void onStarted(RunControl.Started e) {
+      startedNanos = System.nanoTime();
       say(err, "\nrecording" + (e.manual() ? "" : String.format(Locale.ROOT,
           " (load reached the start threshold at %.3f s)", e.triggerTime_s())));
     }

@@ -78,7 +78,8 @@ public final class ReportCommand implements Callable<Integer> {
     } else {
       ArchiveRuns runs = ArchiveRuns.scan(archive.folder());
       runs.notes().forEach(n -> spec.commandLine().getErr().println("note: " + n));
-      Selection sel = runs.select(select.selection());
+      Selection sel = runs.select(select.selection(),
+          ProgressLine.onStderr(spec.commandLine().getErr(), "analysing runs"));
       GroupStudy.Report study;
       try {
         study = GroupStudy.compareEach(sel, PdfReport.DEFAULT_METRICS,

@@ -136,7 +136,30 @@ public final class ArchiveRuns {
    *     message names the groups there are)
    */
   public Selection select(RunSelection sel) {
+    return select(sel, Progress.NONE);
+  }
+
+  /** Told how far a long selection has come. */
+  @FunctionalInterface
+  public interface Progress {
+    /** Tells nothing. */
+    Progress NONE = (done, total) -> { };
+
+    /**
+     * @param done runs analysed so far (those analysed before count at once)
+     * @param total runs this selection analyses
+     */
+    void analysed(int done, int total);
+  }
+
+  /**
+   * As {@link #select(RunSelection)}, telling {@code progress} after each run it analyses.
+   *
+   * @param progress told on this thread, not null
+   */
+  public Selection select(RunSelection sel, Progress progress) {
     Precondition.notNull(sel, "selection");
+    Precondition.notNull(progress, "progress");
     TreeSet<String> inArchive = new TreeSet<>();
     index.entries().forEach(e -> inArchive.add(groupName(e.metadata().group())));
     List<String> asked = matchGroups(sel.groups(), inArchive, folder());
@@ -146,6 +169,7 @@ public final class ArchiveRuns {
           Kind.UNREADABLE.meaning() + ": " + u.message()));
     }
     Map<String, List<RunMetrics>> counted = new TreeMap<>();
+    List<ArchiveIndex.Entry> studied = new ArrayList<>();
     for (ArchiveIndex.Entry e : index.entries()) {
       RunMetadata m = e.metadata();
       String group = groupName(m.group());
@@ -157,7 +181,14 @@ public final class ArchiveRuns {
         leftOut.add(against.get());
         continue;
       }
+      studied.add(e);
+    }
+    int done = 0;
+    for (ArchiveIndex.Entry e : studied) {
+      RunMetadata m = e.metadata();
+      String group = groupName(m.group());
       Analysed a = analysis(e);
+      progress.analysed(++done, studied.size());
       if (a.metrics() == null) {
         leftOut.add(new LeftOut(m.runId(), m.specimen(), m.group(), Kind.UNREADABLE,
             Kind.UNREADABLE.meaning() + ": " + a.failure()));

@@ -94,10 +94,19 @@ class RecorderSimTest {
         .ratedCapacity_N(500).build();
     MemoryRunStore store = new MemoryRunStore();
     Recorder rec = new Recorder(reader, ForceScale.linear(countsPerN, "nominal"), zero, s,
-        template("b1", rate), store, null);
+        template("b1", rate).toBuilder().device(Map.of("cpm", "400")).build(), store, null);
     rec.arm();
     Recorder.Result r = rec.await(HangGuard.S, TimeUnit.SECONDS).orElseThrow();
     reader.close();
+    // the status line's travel: position counts since arming over the stated 400 counts/mm; the
+    // press stands still until 1 s after arming, so the oldest sample in the ring (read for the
+    // tare) is where it stood when armed
+    long[] atRest = new long[1];
+    reader.ring().cursorAtOldest().drain((i, seq, dev, tUs, counts, hp, pos) -> atRest[0] = pos,
+        1);
+    long[] last = store.samples.get(store.samples.size() - 1);
+    assertThat(rec.status().travel_mm()).isEqualTo((last[4] - atRest[0]) / 400.0);
+    assertThat(rec.status().travel_mm()).isPositive();
 
     assertThat(r.cause()).isEqualTo(FinishCause.BREAK);
     assertThat(r.dropped()).isZero();

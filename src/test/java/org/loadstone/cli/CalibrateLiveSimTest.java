@@ -136,6 +136,16 @@ class CalibrateLiveSimTest {
     assertThat(log).hasSize(before + 1);
     assertThat(log.get(before).pass()).isFalse();
     assertThat(log.get(before).mass_kg()).isEqualTo(21.0);
+    // on the simulated frame it is a rehearsal: logged so, and never the cell's last check
+    assertThat(log.get(before).rehearsal()).isTrue();
+    assertThat(j.get("rehearsal").asBoolean()).isTrue();
+    assertThat(java.nio.file.Files.readAllLines(CheckWeights.logFile(calFile)).get(before))
+        .contains("\"rehearsal\":true");
+    assertThat(CheckWeights.lastCheck(calFile).map(c -> c.time()))
+        .isEqualTo(log.subList(0, before).stream().filter(c -> !c.rehearsal())
+            .reduce((a, b) -> b).map(c -> c.time()));
+    assertThat(org.loadstone.acquire.ScaleChoice.fromCalibration(calFile,
+        java.time.LocalDate.now()).warnings()).noneMatch(w -> w.contains("FAILED"));
   }
 
   @Test

@@ -12,23 +12,45 @@ import org.loadstone.units.Precondition;
 public final class Compliance {
   private Compliance() {}
 
+  /** The peak may lie this far (share of the peak) off the straight line through the rise. */
+  static final double MAX_PEAK_OFF_LINE = 0.05;
+
   /**
-   * The frame stiffness from a run against a rigid block: the stiffness fit of that run.
+   * The frame stiffness from a run against a rigid block: the stiffness fit of that run, once the
+   * run is seen to look like a rigid block. A block (with the frame) is a linear spring up to the
+   * peak (common practice: the frame and a steel block stay elastic at a bench frame's loads),
+   * so the peak must lie on the straight line fitted to the rise within 5 %; a specimen bends
+   * over, yields, crushes or breaks first, and its slope is not the frame's.
    *
    * @param rigidBlockRun the analysis of the rigid-block run
    * @return frame stiffness, N/mm
-   * @throws LoadstoneException when the run has no stiffness fit
+   * @throws LoadstoneException when the run has no stiffness fit or does not look like a rigid
+   *     block (the message says which figure and what to do)
    */
   public static double frameStiffness_N_per_mm(RunResult rigidBlockRun) {
     Precondition.notNull(rigidBlockRun, "rigidBlockRun");
-    return rigidBlockRun
-        .stiffness_N_per_mm()
-        .orElseThrow(
-            () ->
-                new LoadstoneException(
-                    "The rigid-block run has no stiffness fit, so the frame stiffness is unknown. "
-                        + "Repeat the run with a position channel, or set manual stiffness bounds"
-                        + (rigidBlockRun.notes().isEmpty() ? "." : " (" + rigidBlockRun.notes().get(0) + ")")));
+    org.loadstone.analysis.StiffnessFit fit = rigidBlockRun.stiffness().orElseThrow(() ->
+        new LoadstoneException(
+            "The rigid-block run has no stiffness fit, so the frame stiffness is unknown. "
+                + "Repeat the run with a position channel, or set manual stiffness bounds"
+                + (rigidBlockRun.notes().isEmpty() ? "." : " (" + rigidBlockRun.notes().get(0)
+                    + ")")));
+    double peak = rigidBlockRun.peakForce_N();
+    String not = "The run does not look like a rigid block: ";
+    String fix = ". A block against the frame loads in a straight line to its peak: check that a"
+        + " rigid block, not a specimen, was loaded, and that it sat flat in the fixture.";
+    java.util.OptionalDouble xPeak = rigidBlockRun.displacementAtPeak_mm();
+    if (xPeak.isPresent()) {
+      double onLine = fit.slope_N_per_mm() * xPeak.getAsDouble() + fit.intercept_N();
+      double off = Math.abs(onLine - peak) / peak;
+      if (off > MAX_PEAK_OFF_LINE) {
+        throw new LoadstoneException(String.format(java.util.Locale.ROOT, not + "its peak of "
+            + "%.4g N lies %.0f %% off the straight line through its rise (%.4g N at the "
+            + "peak's travel), so it bent over or gave way before the peak" + fix, peak,
+            100 * off, onLine));
+      }
+    }
+    return fit.slope_N_per_mm();
   }
 
   /**

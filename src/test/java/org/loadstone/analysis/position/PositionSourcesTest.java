@@ -146,6 +146,23 @@ class PositionSourcesTest {
         .hasMessageContaining("rigid-block run has no stiffness");
   }
 
+  /**
+   * A specimen run is not a rigid block: a sandwich-panel curve straight to 80 % of its peak then
+   * rounded over (TestRuns-style: the peak lies 20 % below the line through the rise) and a
+   * curve whose straight part is short are refused with the figure; a block loaded straight to
+   * its peak and unloaded is accepted (the test above).
+   */
+  @Test
+  void aRunThatBendsOverIsNotTakenForARigidBlock() {
+    org.loadstone.archive.RunData panel = org.loadstone.archive.TestRuns.bend(57, 468);
+    RunResult bent = RunAnalyzer.analyze(new Curve(panel.time_s(), panel.force_N(),
+        panel.position_mm()));
+    assertThatThrownBy(() -> Compliance.frameStiffness_N_per_mm(bent))
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("does not look like a rigid block")
+        .hasMessageContaining("off the straight line");
+  }
+
   @Test
   void badTableIsRefused() {
     assertThatThrownBy(() -> new PositionTable(new double[] {0, 2, 1}, new double[] {0, 1, 2}))
