@@ -178,6 +178,13 @@ public final class ArchiveIndex {
       return m.get(0);
     }
     if (m.isEmpty()) {
+      // a run whose sidecar cannot be read is named by its file: say why instead of "no run"
+      List<Unreadable> bad = problems.stream()
+          .filter(u -> u.json().getFileName().toString().startsWith(idOrPrefix)).toList();
+      if (bad.size() == 1) {
+        throw new LoadstoneException("run '" + idOrPrefix + "' cannot be read: "
+            + bad.get(0).message());
+      }
       throw new LoadstoneException("no run '" + idOrPrefix + "' in " + dir
           + ": give the id (or its start) of a run the archive lists, or choose the archive "
           + "folder that holds it", org.loadstone.units.Setting.ARCHIVE_FOLDER);
