@@ -270,7 +270,7 @@ final class PdfLayout implements AutoCloseable {
       cs.setFont(font, size);
       cs.setNonStrokingColor(c);
       cs.newLineAtOffset(x, baseline);
-      cs.showText(safe(s));
+      cs.showText(safe(s).replace('\n', ' ')); // one drawn line: a name may hold a line break
       cs.endText();
     } catch (IOException e) {
       throw new UncheckedIOException(e);
