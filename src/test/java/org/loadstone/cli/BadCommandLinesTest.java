@@ -235,7 +235,15 @@ class BadCommandLinesTest {
     Path imp = dir.resolve("bom-import.csv");
     Files.write(imp, concat(bom, "time,force\n0,1\n0.1,5\n0.2,9\n0.3,2\n".getBytes(
         StandardCharsets.UTF_8)));
+    Path bomArc = Files.createDirectories(dir.resolve("bom-archive"));
+    Files.copy(arc.resolve(RUN + ".csv"), bomArc.resolve(RUN + ".csv"));
+    withBom(arc.resolve(RUN + ".json"), bomArc.resolve(RUN + ".json"), bom);
+    Path frame = dir.resolve("bom-frame.json");
+    Files.write(frame, concat(bom, ("{\"id\": \"bench-press\", \"description\": \"\", "
+        + "\"frame_stiffness_N_per_mm\": 48500.0, \"measured_from_run\": \"r\", "
+        + "\"measured_at\": \"2026-12-03T22:10:00Z\"}\n").getBytes(StandardCharsets.UTF_8)));
     List<String[]> lines = List.of(
+        a("analyze", "--archive", bomArc, RUN, "--frame", frame),
         a("analyze", runCsv),
         a("calibrate", "--from", points, "--cell", "c1", "--save", dir.resolve("bom-cal-out")),
         a("analyze", "--archive", arc, RUN, "--cal", cal),

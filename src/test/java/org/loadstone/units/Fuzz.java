@@ -142,7 +142,8 @@ public final class Fuzz {
     return out.toByteArray();
   }
 
-  private static byte[] splice(byte[] b, int at, int remove, byte[] insert) {
+  /** @return {@code b} with {@code remove} bytes at {@code at} replaced by {@code insert} */
+  public static byte[] splice(byte[] b, int at, int remove, byte[] insert) {
     byte[] out = new byte[b.length - remove + insert.length];
     System.arraycopy(b, 0, out, 0, at);
     System.arraycopy(insert, 0, out, at, insert.length);
