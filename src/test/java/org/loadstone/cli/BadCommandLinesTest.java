@@ -48,6 +48,7 @@ class BadCommandLinesTest {
     pts.set(3, String.join(",", row));
     Files.write(dir.resolve("points-1e308.csv"), pts);
     Files.writeString(dir.resolve("table-quote.csv"), "time,pos\n0,0\n\"0.1,1\n0.2,2\n");
+    Files.writeString(dir.resolve("table-ok.csv"), "time,pos\n0,0\n0.1,1\n0.2,2\n");
     Files.write(dir.resolve("latin1.csv"),
         "time,Kraft in N\n0,1\n0.1,2\n".replace("a", "ä").getBytes(StandardCharsets.ISO_8859_1));
     Files.writeString(dir.resolve("big-cell.csv"),
@@ -90,7 +91,7 @@ class BadCommandLinesTest {
             d.resolve("import-1e400.csv"), "--map", "time=9999999999,force=2", "--specimen", "x",
             "--archive", d.resolve("a5")), "9999999999", "does not exist"),
         c("position-table column number past the integers", d -> a("analyze", "--archive", arc,
-            RUN, "--position-table", d.resolve("table-quote.csv"), "--table-map",
+            RUN, "--position-table", d.resolve("table-ok.csv"), "--table-map",
             "time=99999999999,position=2"), "99999999999"),
         c("import not in UTF-8", d -> a("import", d.resolve("latin1.csv"), "--map",
             "time=1,force=2", "--specimen", "x", "--archive", d.resolve("a2")), "UTF-8",
