@@ -114,6 +114,8 @@ class BadCommandLinesTest {
             "not a serial port", "--port"),
         c("a folder as --port", d -> a("monitor", "--port", d.toAbsolutePath(), "--seconds",
             "1"), "not a serial port"),
+        c("a decimal comma in an option", d -> a("compare", "--archive", arc, "--target-pct",
+            "12,5"), "--target-pct", "not a number", "a point, not a comma"),
         c("compare --target-pct NaN", d -> a("compare", "--archive", arc, "--target-pct",
             "NaN"), "--target-pct", "finite"));
   }
