@@ -1,10 +1,12 @@
 package org.loadstone.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.List;
+import net.jqwik.api.Example;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.lifecycle.AfterContainer;
@@ -29,6 +31,17 @@ class LoadListFuzzTest {
   @AfterContainer
   static void clean() {
     Fuzz.delete(dir);
+  }
+
+  /** Found by the long run: 400 nines read as an infinite mass and were accepted. */
+  @Example
+  void aMassPastTheRangeOfNumbersIsRefusedAndNotEchoedWhole() {
+    String huge = "9".repeat(400) + " kg";
+    assertThatThrownBy(() -> LoadList.parse(huge, null))
+        .isInstanceOf(org.loadstone.units.LoadstoneException.class)
+        .hasMessageContaining("thousand tonnes")
+        .satisfies(e -> assertThat(e.getMessage().length()).isLessThan(300));
+    assertThat(LoadList.parse("999 kg, 1000000 kg", null)).containsExactly(999.0, 1e6);
   }
 
   @Property(tries = 150, seed = "140651")
