@@ -80,7 +80,8 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
   }
 
   /**
-   * Loads a calibration for a run.
+   * Loads a calibration for a run: a calibration changed since it was saved is used with its
+   * warning shown and stored with the run.
    *
    * @param file the calibration JSON
    * @param today for the expiry check
@@ -88,7 +89,23 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
    *     field)
    */
   public static ScaleChoice fromCalibration(Path file, LocalDate today) {
+    return fromCalibration(file, today, true);
+  }
+
+  /**
+   * Loads a calibration, refusing one changed since it was saved unless accepted
+   * ({@link CalibrationStatus#refuseChanged}); accepted, its warning is among the warnings.
+   *
+   * @param file the calibration JSON
+   * @param today for the expiry check
+   * @param acceptChanged whether a calibration whose content no longer matches its hash may be
+   *     used
+   * @throws LoadstoneException when the file is missing, unreadable or damaged, or changed and
+   *     not accepted
+   */
+  public static ScaleChoice fromCalibration(Path file, LocalDate today, boolean acceptChanged) {
     CalibrationStatus st = CalibrationStatus.check(file, null, today);
+    st.refuseChanged(acceptChanged);
     if (st.document() == null) {
       throw new LoadstoneException(st.warning());
     }

@@ -187,6 +187,13 @@ public final class ArchiveIndex {
       return m.get(0);
     }
     if (m.isEmpty()) {
+      // a run whose sidecar cannot be read is named by its file: say why instead of "no run"
+      List<Unreadable> bad = problems.stream()
+          .filter(u -> u.json().getFileName().toString().startsWith(ref)).toList();
+      if (bad.size() == 1) {
+        throw new LoadstoneException("run '" + ref + "' cannot be read: "
+            + bad.get(0).message());
+      }
       throw new LoadstoneException("no run '" + ref + "' in " + dir
           + ": give the id (or its start) or the specimen id of a run the archive lists, or "
           + "choose the archive folder that holds it", org.loadstone.units.Setting.ARCHIVE_FOLDER);

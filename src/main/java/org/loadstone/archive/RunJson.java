@@ -133,7 +133,8 @@ final class RunJson {
     Fields f = new Fields(root, where);
     Map<String, Object> extra = new LinkedHashMap<>();
     root.fields().forEachRemaining(e -> {
-      if (!KNOWN.contains(e.getKey())) {
+      // an unknown field set to null says nothing: kept out, as a missing one is
+      if (!KNOWN.contains(e.getKey()) && !e.getValue().isNull()) {
         extra.put(e.getKey(), LINE.convertValue(e.getValue(), Object.class));
       }
     });

@@ -93,6 +93,24 @@ public record CalibrationStatus(State state, String warning, CalibrationDocument
     return java.util.Optional.empty();
   }
 
+  /**
+   * The rule for a calibration changed since it was saved: its forces cannot be trusted, so it
+   * is refused unless the user accepts it knowingly.
+   *
+   * @param accepted whether the user accepted a changed calibration
+   * @return this status
+   * @throws LoadstoneException when the content no longer matches its hash and it was not
+   *     accepted (the message is {@link #warning()} with the way to accept it)
+   */
+  public CalibrationStatus refuseChanged(boolean accepted) {
+    if (state == State.HASH_MISMATCH && !accepted) {
+      throw new LoadstoneException(warning + " To use it anyway, accept the changed calibration "
+          + "explicitly; the figures will say so.", org.loadstone.units.Setting.CALIBRATION,
+          org.loadstone.units.Setting.CHANGED_CALIBRATION);
+    }
+    return this;
+  }
+
   private static String shortHash(String h) {
     return h == null ? "(none)" : h.substring(0, Math.min(12, h.length()));
   }

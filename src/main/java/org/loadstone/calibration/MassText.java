@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.loadstone.units.InputException;
 import org.loadstone.units.LoadstoneException;
 
 /** Parses a mass typed by a person, possibly a sum of several weights: "500 g + 2 kg". */
@@ -14,11 +15,14 @@ public final class MassText {
   private static final Pattern TERM =
       Pattern.compile("^\\s*(\\d+(?:\\.\\d*)?|\\.\\d+)\\s*(mg|g|kg)\\s*$");
 
+  /** The largest mass accepted, kg (a thousand tonnes; more is a typing slip). */
+  private static final double MAX_KG = 1e6;
+
   private MassText() {}
 
   /**
    * @param text terms "number unit" joined by "+"; units mg, g, kg; a decimal point, no comma
-   * @return the total in kg, ≥ 0
+   * @return the total in kg, ≥ 0 and at most a thousand tonnes
    * @throws LoadstoneException naming the term that is wrong and the accepted form
    */
   public static double parse_kg(String text) {
@@ -31,7 +35,8 @@ public final class MassText {
       Matcher m = TERM.matcher(term.toLowerCase(Locale.ROOT));
       if (!m.matches()) {
         throw new LoadstoneException(
-            "mass '" + text + "': cannot read '" + term.trim() + "': write each weight as a"
+            "mass " + InputException.shown(text) + ": cannot read "
+                + InputException.shown(term.trim()) + ": write each weight as a"
                 + " number and a unit (mg, g or kg) with a decimal point, joined by '+', e.g."
                 + " '500 g + 2 kg'");
       }
@@ -41,6 +46,10 @@ public final class MassText {
         case "g" -> v * 1e-3;
         default -> v;
       };
+    }
+    if (!(total <= MAX_KG)) {
+      throw new LoadstoneException("mass " + InputException.shown(text) + " is more than a "
+          + "thousand tonnes: enter the mass of the weights placed, e.g. '20 kg'");
     }
     return total;
   }

@@ -163,6 +163,11 @@ public final class PointsCsv {
     return sb.toString();
   }
 
+  /** The largest reading a converter gives, counts (a signed 32-bit value). */
+  private static final double COUNTS_LIMIT = 2147483648.0;
+  /** The largest load or SD accepted, g or N (a thousand tonnes). */
+  private static final double LOAD_LIMIT = 1e9;
+
   private static double number(CSVRecord rec, int c, List<String> header, String name, long line) {
     String t = rec.get(c);
     double v;
@@ -177,6 +182,12 @@ public final class PointsCsv {
       throw new LoadstoneException("points file " + name + " line " + line + " column '"
           + header.get(c) + "': " + InputException.shown(t)
           + " is out of range: counts and loads are finite numbers");
+    }
+    if (Math.abs(v) > (c == 1 ? COUNTS_LIMIT : LOAD_LIMIT)) {
+      throw new LoadstoneException("points file " + name + " line " + line + " column '"
+          + header.get(c) + "': " + InputException.shown(t) + " is out of range: "
+          + (c == 1 ? "a reading is at most ±2147483648 counts (a 32-bit converter)"
+              : "loads and SDs are at most 1e9 (g or N)") + "; correct the cell");
     }
     if (c != 1 && v < 0) {
       throw new LoadstoneException("points file " + name + " line " + line + " column '"

@@ -43,6 +43,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--cal", paramLabel = "FILE", description = "Derive force again from the raw counts with this calibration (the stored run is not changed).")
   Path cal;
 
+  @Option(names = "--accept-changed-calibration", description = "Use the --cal calibration even though its content changed since it was saved (refused otherwise).")
+  boolean acceptChanged;
+
   @Option(names = "--crosshead-rate-mm-min", paramLabel = "R", description = "Position from a constant crosshead rate, for runs without a position channel.")
   Double crossheadRate;
 
@@ -80,9 +83,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
+  private final java.util.List<String> warnings = new java.util.ArrayList<>();
+
   private RunAdjust adjust(RunAdjust a) {
     if (cal != null) {
-      ScaleChoice c = ScaleChoice.fromCalibration(cal, java.time.LocalDate.now());
+      ScaleChoice c = ScaleChoice.fromCalibration(cal, java.time.LocalDate.now(), acceptChanged);
+      warnings.addAll(c.warnings());
       a = a.recalibrated(c.spec(), c.calibrationId(), c.calibrationSha256());
     }
     if (crossheadRate != null && table != null) {
@@ -140,6 +146,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
     }
     m.analysis().stiffness().ifPresent(s -> out.printf(Locale.ROOT, "  %-28s %14s%n",
         "stiffness chosen by", s.method().words()));
+    for (String w : warnings) {
+      out.println("warning: " + w);
+    }
     for (String note : adj.notes()) {
       out.println("derived: " + note);
     }
@@ -153,6 +162,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
       Map<String, Object> withAdj = new java.util.LinkedHashMap<>(j);
       withAdj.put("derived", adj.notes());
       withAdj.put("calibration_id", adj.metadata().calibrationId());
+      withAdj.put("warnings", warnings);
       withAdj.put("amended", r.metadata().amendments().changes().stream()
           .map(org.loadstone.archive.RunAmendments.Change::line).toList());
       withAdj.put("retired", r.metadata().amendments().retired());

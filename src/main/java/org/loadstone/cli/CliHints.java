@@ -17,6 +17,7 @@ final class CliHints {
   static String option(Setting s) {
     return switch (s) {
       case CALIBRATION -> "--cal FILE";
+      case CHANGED_CALIBRATION -> "--accept-changed-calibration";
       case NOMINAL_SENSITIVITY -> "--counts-per-n K";
       case RATED_CAPACITY -> "--capacity-N";
       case ZERO_DRIFT_LIMIT -> "--zero-drift-N";

@@ -98,6 +98,7 @@ public final class LoadstoneCommand implements Runnable {
         sub.getCommandSpec().mixinStandardHelpOptions(true);
       }
     }
+    OptionRules.install(cl);
     if (stdout != null) {
       cl.setOut(stdout);
     }

@@ -51,10 +51,6 @@ public final class MonitorCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    if (seconds != null && !(seconds > 0)) {
-      throw new CommandLine.ParameterException(spec.commandLine(),
-          "--seconds must be greater than 0, was " + seconds);
-    }
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
     Transport t = device.open();

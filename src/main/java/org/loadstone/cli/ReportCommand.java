@@ -97,6 +97,9 @@ public final class ReportCommand implements Callable<Integer> {
       if (out != null) {
         PdfReport.writeGroups(title, study, out);
       }
+      for (org.loadstone.study.LeftOut l : sel.leftOut()) {
+        spec.commandLine().getOut().println("left out: " + l.line());
+      }
       if (!sel.leftOut().isEmpty()) {
         spec.commandLine().getOut().println(GroupStudy.leftOutSummary(sel.leftOut())
             + (out != null ? ", listed in the report" : "")

@@ -85,12 +85,20 @@ public final class RunsCommand implements Callable<Integer> {
             m.amendments().summary());
       }
     }
-    for (String p : idx.problems()) {
+    List<String> problems = new ArrayList<>(idx.problems());
+    for (ArchiveIndex.Entry e : found) {
+      if (!java.nio.file.Files.isRegularFile(e.csv())) {
+        problems.add("run " + e.metadata().runId() + " cannot be read: its samples file "
+            + e.csv().getFileName() + " is missing beside " + e.json().getFileName()
+            + ": restore it from a backup");
+      }
+    }
+    for (String p : problems) {
       err.println("warning: " + p);
     }
     if (json) {
       out.println(om.writeValueAsString(Map.of("runs", found.size(), "unreadable",
-          idx.problems().size())));
+          problems.size())));
     } else {
       out.println(found.size() + " of " + idx.entries().size() + " runs");
     }

@@ -63,9 +63,6 @@ public final class SimulateCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws IOException {
-    if (!(seconds > 0)) {
-      throw new LoadstoneException("--seconds must be greater than 0, was " + seconds);
-    }
     Scenario.parse(scenario);
     SimSetup setup = new SimSetup(scenario, seed, rateHz, hand, 1, Double.NaN,
         imperfections.imperfections());

@@ -29,7 +29,7 @@ final class StiffnessOptions {
   Double toMm;
 
   @Option(names = "--stiffness-precision-pct", paramLabel = "P", defaultValue = "3",
-      description = "The automatic stiffness must be known to ±P % (95 % interval), else it is "
+      description = "The automatic stiffness must be known to ±P %% (95 %% interval), else it is "
           + "refused with the reason (default: ${DEFAULT-VALUE}).")
   double precisionPct;
 

@@ -14,11 +14,18 @@ public record SerialSettings(int baud, int resetWaitMs, int readTimeoutMs) {
   /** For boards that reset when the port opens (many Arduino-style boards): waits 2 s. */
   public static final SerialSettings RESETTING_BOARD = new SerialSettings(115_200, 2000, 100);
 
+  /** The slowest serial speed accepted, baud. */
+  public static final int MIN_BAUD = 300;
+  /** The fastest serial speed accepted, baud. */
+  public static final int MAX_BAUD = 4_000_000;
+  /** The longest wait after opening, ms. */
+  public static final int MAX_RESET_WAIT_MS = 30_000;
+
   public SerialSettings {
-    if (baud < 300 || baud > 4_000_000) {
+    if (baud < MIN_BAUD || baud > MAX_BAUD) {
       throw new IllegalArgumentException("baud must be 300…4000000, was " + baud);
     }
-    if (resetWaitMs < 0 || resetWaitMs > 30_000) {
+    if (resetWaitMs < 0 || resetWaitMs > MAX_RESET_WAIT_MS) {
       throw new IllegalArgumentException("reset wait must be 0…30000 ms, was " + resetWaitMs);
     }
     if (readTimeoutMs < 1 || readTimeoutMs > 10_000) {

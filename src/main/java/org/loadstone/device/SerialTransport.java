@@ -59,12 +59,25 @@ public final class SerialTransport implements Transport {
   }
 
   private static void checkPathBeforeOpening(String name) {
+    Path path;
+    try {
+      path = Path.of(name);
+    } catch (java.nio.file.InvalidPathException e) {
+      throw notFound(name);
+    }
     if (!name.startsWith("/")) {
+      // a bare name (COM3, ttyUSB0) is the port library's to resolve; only a file or folder
+      // given by a relative path is caught here
+      if (Files.isRegularFile(path) || Files.isDirectory(path)) {
+        throw notAPort(name, Files.isDirectory(path));
+      }
       return;
     }
-    Path path = Path.of(name);
     if (!Files.exists(path)) {
       throw notFound(name);
+    }
+    if (Files.isRegularFile(path) || Files.isDirectory(path)) {
+      throw notAPort(name, Files.isDirectory(path));
     }
     if (!Files.isReadable(path) || !Files.isWritable(path)) {
       throw forbidden(name);
@@ -74,6 +87,13 @@ public final class SerialTransport implements Transport {
   static LoadstoneException notFound(String name) {
     return new LoadstoneException("serial port " + name + " not found: check that the board is "
         + "plugged in and powered, then choose one of the serial ports present",
+        org.loadstone.units.Setting.PORT);
+  }
+
+  static LoadstoneException notAPort(String name, boolean folder) {
+    return new LoadstoneException(name + " is " + (folder ? "a folder" : "an ordinary file")
+        + ", not a serial port: choose the device the board appears as (on Linux /dev/ttyACM0 "
+        + "or /dev/ttyUSB0, on Windows COM3), or the built-in simulated frame",
         org.loadstone.units.Setting.PORT);
   }
 
@@ -88,6 +108,10 @@ public final class SerialTransport implements Transport {
         return notFound(name);
       case 13:
         return forbidden(name);
+      case 25:
+        return new LoadstoneException(name + " is not a serial port (the system says it is not a "
+            + "terminal device): choose the device the board appears as, or the built-in "
+            + "simulated frame", org.loadstone.units.Setting.PORT);
       case 16:
         return new LoadstoneException("serial port " + name + " is busy: another program (a serial "
             + "monitor, another Loadstone) has it open; close that program and try again");

@@ -44,13 +44,14 @@ final class ImportColumns {
   }
 
   static boolean isIndex(String ref) {
-    return ref.chars().allMatch(Character::isDigit);
+    return !ref.isEmpty() && ref.chars().allMatch(Character::isDigit);
   }
 
   static int column(String ref, List<String> header, String name, int line,
       boolean optional) {
     if (isIndex(ref)) {
-      int k = Integer.parseInt(ref);
+      // more digits than any file has columns: refused below as a column that does not exist
+      int k = ref.length() > 9 ? Integer.MAX_VALUE : Integer.parseInt(ref);
       if (k < 1 || k > header.size()) {
         throw new LoadstoneException("File " + name + " line " + line + " has " + header.size()
             + " column(s); column number " + ref + " does not exist. Columns count from 1.");

@@ -74,7 +74,7 @@ public final class PositionTableCsv {
   }
 
   private static int column(List<String> header, String name, Path file, String what) {
-    if (name.matches("[1-9][0-9]*")) {
+    if (name.matches("[1-9][0-9]{0,8}")) {
       int i = Integer.parseInt(name) - 1;
       if (i < header.size()) {
         return i;

@@ -342,7 +342,8 @@ final class PdfLayout implements AutoCloseable {
   }
 
   private void text(PDType0Font font, float size, Color c, float x, float baseline, String s) {
-    fonts.show(cs, font, size, c, x, baseline, s);
+    // one drawn line: a name may hold a line break
+    fonts.show(cs, font, size, c, x, baseline, s == null ? "" : s.replace('\n', ' '));
   }
 
   private List<String> wrap(String s, PDType0Font font, float size, float width) {

@@ -218,7 +218,7 @@ public final class ArchiveRuns {
     List<String> missing = new ArrayList<>();
     for (String w : wanted) {
       inArchive.stream().filter(g -> g.equalsIgnoreCase(w)).findFirst()
-          .ifPresentOrElse(found::add, () -> missing.add("'" + w + "'"));
+          .ifPresentOrElse(found::add, () -> missing.add(org.loadstone.units.InputException.shown(w)));
     }
     if (!missing.isEmpty()) {
       throw new LoadstoneException("no runs of group" + (missing.size() > 1 ? "s " : " ")

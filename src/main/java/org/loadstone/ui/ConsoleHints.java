@@ -16,6 +16,7 @@ final class ConsoleHints {
   static String where(Setting s) {
     return switch (s) {
       case CALIBRATION -> "Calibrate tab: make or use a calibration";
+      case CHANGED_CALIBRATION -> null;
       case NOMINAL_SENSITIVITY -> "start the console with a nominal sensitivity (--counts-per-n)";
       case RATED_CAPACITY -> "start the console with the cell's capacity (--capacity-N)";
       case ZERO_DRIFT_LIMIT -> "start the console with another limit (--zero-drift-N)";

@@ -8,6 +8,8 @@ package org.loadstone.units;
 public enum Setting {
   /** The calibration that turns counts into force. */
   CALIBRATION("calibration"),
+  /** Using a calibration whose content changed since it was saved, knowingly. */
+  CHANGED_CALIBRATION("acceptance of a changed calibration"),
   /** A nominal (data-sheet) sensitivity used instead of a calibration. */
   NOMINAL_SENSITIVITY("nominal sensitivity"),
   /** The load cell's rated capacity. */

@@ -224,6 +224,32 @@ class ArchivePaneTest {
     assertThat(after.getItems().get(2).n()).isEqualTo(6);
   }
 
+  /** Issue 14: a run that cannot be read is listed with its reason, and the others count. */
+  @Test
+  void listsTheRunsThatCannotBeReadWithTheirReasons(FxRobot robot) throws Exception {
+    Path mixed = MixedArchive.write(java.nio.file.Files.createTempDirectory("loadstone-bad"));
+    java.nio.file.Files.writeString(mixed.resolve("20261202T085900.000Z-garbled.json"), "{ ");
+    String damaged = MixedArchive.countedIds("board").get(0);
+    java.nio.file.Files.delete(mixed.resolve(damaged + ".csv"));
+    java.nio.file.Files.writeString(mixed.resolve(damaged + ".csv"), "not a run file\n");
+    robot.interact(() -> {
+      robot.lookup("#archive-folder").queryAs(javafx.scene.control.TextField.class)
+          .setText(mixed.toString());
+      pane.reload();
+    });
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> robot.lookup("#archive-status")
+        .queryAs(Label.class).getText().contains("counted in " + mixed));
+    WaitForAsyncUtils.waitForFxEvents();
+    List<String> notes = robot.lookup(".archive-note").queryAllAs(Label.class).stream()
+        .map(Label::getText).toList();
+    assertThat(notes).anySatisfy(n -> assertThat(n).startsWith("left out: ")
+        .contains("garbled.json").contains("cannot be read"));
+    assertThat(notes).anySatisfy(n -> assertThat(n).startsWith("left out: " + damaged)
+        .contains("cannot be read"));
+    assertThat(robot.lookup("#archive-status").queryAs(Label.class).getText())
+        .contains("12 runs counted").contains("2 unreadable");
+  }
+
   private static int seriesIn(String id, FxRobot robot) {
     ChartViewer v = robot.lookup(id).queryAs(ChartViewer.class);
     return v.getChart().getXYPlot().getDataset().getSeriesCount();

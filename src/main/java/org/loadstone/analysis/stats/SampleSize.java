@@ -60,6 +60,12 @@ public final class SampleSize {
     double df = 2.0 * n - 2;
     double crit = Distributions.studentTQuantile(1 - alpha / 2, df);
     double delta = effectSize * Math.sqrt(n / 2.0);
+    if (delta > 10 * crit + 40) {
+      // a difference of tens of SDs (identical specimens whose scatter is rounding): the
+      // noncentral t's series would need δ²/2 terms, and P(T ≤ crit) is below e^-100 even at
+      // two degrees of freedom (T < crit needs a χ² on 2 df above 2(δ/crit)²)
+      return Math.nextDown(1.0);
+    }
     return 1 - Distributions.noncentralTCdf(crit, df, delta)
         + Distributions.noncentralTCdf(-crit, df, delta);
   }

@@ -43,6 +43,30 @@ class SampleSizeExactTest {
     return 1 - integratedCdf(crit, nu, delta) + integratedCdf(-crit, nu, delta);
   }
 
+  /**
+   * Groups of identical specimens have a scatter of rounding size, so the effect size asked
+   * about is of order 1e14: the advice answers at once (it used to sum δ²/2 series terms, for
+   * ever) with the power the integral gives, on both sides of the shortcut.
+   */
+  @Test
+  void hugeEffectsAnswerAtOnceWithTheIntegralsPower() {
+    for (int n : new int[] {2, 3, 10}) {
+      double crit = new TDistribution(2.0 * n - 2).inverseCumulativeProbability(1 - 0.05 / 2);
+      for (double delta : new double[] {10 * crit + 39, 10 * crit + 41, 1e6, 1e14}) {
+        double d = delta / Math.sqrt(n / 2.0);
+        double p = SampleSize.power(n, d, 0.05);
+        assertThat(p).as("n %d δ %s", n, delta).isLessThanOrEqualTo(1)
+            .isCloseTo(integratedPower(n, d, 0.05), within(1e-12));
+      }
+    }
+    assertThat(SampleSize.perGroup(1e14, 0.05, 0.80)).isEqualTo(2);
+    // three identical peaks whose SD is rounding only: the comparison ends, with advice
+    ComparisonResult r = GroupComparison.compare("peak", java.util.Map.of(
+        "a", java.util.List.of(0.1 + 0.2, 0.3, 0.30000000000000004),
+        "b", java.util.List.of(0.6, 0.6000000000000001, 0.6)));
+    assertThat(r).isNotNull();
+  }
+
   @Test
   void noncentralTAgreesWithTheIntegralOnBothSidesOfZero() {
     for (double nu : new double[] {2, 5, 17, 58}) {
