@@ -40,6 +40,11 @@ public final class LoadstoneCommand implements Runnable {
    * zeroing, armed or recording; a run recorded until then is stored, its cause saying which).
    */
   public static final int EXIT_DEVICE_LOST = 3;
+  /**
+   * Exit code of {@code record} when the archive's disk filled during the run: the run is stored
+   * up to the last sample received, with cause {@code disk-full}; the message says what was kept.
+   */
+  public static final int EXIT_DISK_FULL = 4;
   /** Exit code for an unexpected internal failure. */
   public static final int EXIT_INTERNAL = 70;
 
