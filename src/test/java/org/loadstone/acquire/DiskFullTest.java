@@ -95,6 +95,9 @@ class DiskFullTest {
     assertThat(r.waiting.await(HangGuard.S, TimeUnit.SECONDS)).isTrue();
     assertThat(r.notices.get(r.notices.size() - 1)).contains("is full").contains(
         "more are held in memory; they are written, and the run stored, as soon as space is freed");
+    // watched during the run: the room left (under 92 kB) was too little to store it, said once
+    assertThat(r.notices).filteredOn(n -> n.startsWith("the disk holding the archive has "))
+        .hasSize(1).allSatisfy(n -> assertThat(n).contains("free space on it now"));
     disk.bytesLeft(Long.MAX_VALUE); // space is freed
     Recorder.Result res = r.rec.await(HangGuard.S, TimeUnit.SECONDS).orElseThrow(
         () -> new AssertionError(r.rec.failure().orElse("no result")));
@@ -202,6 +205,16 @@ class DiskFullTest {
         .anySatisfy(w -> assertThat(w).isEqualTo("the disk holding the archive was full when the"
             + " run was stored; it was stored once there was room, with all "
             + run.data().size() + " samples"));
+  }
+
+  @Test
+  void theWatchWarnsOnlyWhenTheRoomLeftCannotStoreWhatIsRecorded() {
+    // storing n samples needs their CSV lines (105 bytes at most), a quarter more, and 4 MiB
+    long n = 100_000;
+    long need = (long) Math.ceil(n * 105 * 1.25) + (4L << 20);
+    assertThat(DiskSpace.shortFall(need, n)).isNull();
+    assertThat(DiskSpace.shortFall(need - 1, n)).contains("storing the 100000 samples");
+    assertThat(DiskSpace.shortFall(-1, n)).as("a disk that does not say").isNull();
   }
 
   // --- helpers ---------------------------------------------------------------------------------
