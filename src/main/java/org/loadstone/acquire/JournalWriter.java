@@ -49,37 +49,9 @@ public final class JournalWriter implements AutoCloseable {
   public static final long WATCH_MS = 1000;
   private static final int BATCH = 4096;
 
-  /** Where records go; a file channel outside tests. */
-  interface Sink extends java.io.Closeable {
-    void write(ByteBuffer records) throws IOException;
-
-    void force() throws IOException;
-  }
-
-  private static Sink of(FileChannel ch) {
-    return new Sink() {
-      @Override
-      public void write(ByteBuffer records) throws IOException {
-        while (records.hasRemaining()) {
-          ch.write(records);
-        }
-      }
-
-      @Override
-      public void force() throws IOException {
-        ch.force(false);
-      }
-
-      @Override
-      public void close() throws IOException {
-        ch.close();
-      }
-    };
-  }
-
   private final Path file;
   private volatile String runId;
-  private final Sink channel;
+  private final JournalSink channel;
   private final SampleRing.Cursor cursor;
   private final Thread thread;
   private final LongSupplier clock_ns;
@@ -95,11 +67,8 @@ public final class JournalWriter implements AutoCloseable {
   private volatile Exception failure;
   private volatile IOException diskFault;
   private volatile long faultIndex = -1;
-  private final java.util.ArrayDeque<ByteBuffer> held = new java.util.ArrayDeque<>();
-  private final long maxHeldBytes;
+  private final HeldRecords held = new HeldRecords(Runtime.getRuntime().maxMemory() / 4);
   private volatile long fileBytes;
-  private volatile long heldBytes;
-  private volatile long lostInMemory;
   private volatile boolean unforced;
   private long retryAt_ns;
   private long watchAt_ns;
@@ -110,14 +79,13 @@ public final class JournalWriter implements AutoCloseable {
   /**
    * @param clock_ns the writer's clock in ns ({@link System#nanoTime} outside tests)
    */
-  JournalWriter(Path file, Sink channel, SampleRing.Cursor cursor, LongSupplier clock_ns) {
+  JournalWriter(Path file, JournalSink channel, SampleRing.Cursor cursor, LongSupplier clock_ns) {
     this.file = file;
     this.channel = channel;
     this.cursor = cursor;
     this.clock_ns = clock_ns;
     this.lastForce_ns = clock_ns.getAsLong();
     this.watchAt_ns = lastForce_ns;
-    this.maxHeldBytes = Runtime.getRuntime().maxMemory() / 4;
     this.thread = new Thread(this::loop, "loadstone-journal-" + file.getFileName());
     this.thread.setDaemon(true);
   }
@@ -142,7 +110,7 @@ public final class JournalWriter implements AutoCloseable {
       SampleRing.Cursor cursor) {
     Precondition.notNull(cursor, "cursor");
     JournalFormat.Opened j = JournalFormat.open(archiveDir, startInfo);
-    JournalWriter w = new JournalWriter(j.file(), of(j.channel()), cursor, System::nanoTime);
+    JournalWriter w = new JournalWriter(j.file(), JournalSink.of(j.channel()), cursor, System::nanoTime);
     w.runId = j.startInfo().runId();
     try {
       w.headerBytes = j.channel().position();
@@ -210,12 +178,12 @@ public final class JournalWriter implements AutoCloseable {
 
   /** @return records waiting in memory for the disk */
   public long samplesHeld() {
-    return (fileBytes + heldBytes) / JournalFormat.RECORD_BYTES - written;
+    return (fileBytes + held.bytes()) / JournalFormat.RECORD_BYTES - written;
   }
 
   /** @return records dropped because memory for held records ran out */
   public long samplesLostInMemory() {
-    return lostInMemory;
+    return held.lost();
   }
 
   /**
@@ -264,7 +232,7 @@ public final class JournalWriter implements AutoCloseable {
         put(buf, first);
       }
       if (buf.hasRemaining()) {
-        hold(buf);
+        held.hold(buf);
       }
       buf.clear();
     }
@@ -303,32 +271,11 @@ public final class JournalWriter implements AutoCloseable {
     }
   }
 
-  /** Keeps the rest of {@code b} in memory, after what is held already. */
-  private void hold(ByteBuffer b) {
-    int bytes = b.remaining();
-    if (!held.isEmpty() && heldBytes + bytes > maxHeldBytes) {
-      lostInMemory += bytes / JournalFormat.RECORD_BYTES; // whole records: the stream stays whole
-      return;
-    }
-    ByteBuffer copy = ByteBuffer.allocate(bytes);
-    copy.put(b).flip();
-    held.addLast(copy);
-    heldBytes += bytes;
-  }
-
   /** Writes what is held, in order, and forces it; stops at the first failure. */
   private void writeHeldNow() {
-    while (!held.isEmpty()) {
-      ByteBuffer b = held.peekFirst();
-      int before = b.remaining();
-      put(b, -1);
-      heldBytes -= before - b.remaining();
-      if (b.hasRemaining()) {
-        return;
-      }
-      held.removeFirst();
+    if (held.writeThrough(b -> put(b, -1))) {
+      forceNow();
     }
-    forceNow();
   }
 
   private void forceNow() {
@@ -402,23 +349,8 @@ public final class JournalWriter implements AutoCloseable {
     if (thread.isAlive()) {
       throw new IllegalStateException("finish the journal before copying it");
     }
-    try (FileChannel in = FileChannel.open(file, java.nio.file.StandardOpenOption.READ)) {
-      long pos = headerBytes;
-      long end = headerBytes + fileBytes;
-      while (pos < end) {
-        long n = in.transferTo(pos, end - pos, target);
-        if (n <= 0) {
-          throw new IOException("journal " + file + " is shorter than the records written to it");
-        }
-        pos += n;
-      }
-    }
-    for (ByteBuffer b : held) {
-      ByteBuffer d = b.duplicate();
-      while (d.hasRemaining()) {
-        target.write(d);
-      }
-    }
+    HeldRecords.copyRange(file, headerBytes, headerBytes + fileBytes, target);
+    held.copyTo(target);
     target.force(true);
   }
 

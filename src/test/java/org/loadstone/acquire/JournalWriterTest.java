@@ -123,7 +123,7 @@ class JournalWriterTest {
     java.util.concurrent.atomic.AtomicLong left =
         new java.util.concurrent.atomic.AtomicLong(100 * JournalFormat.RECORD_BYTES + 17);
     java.io.ByteArrayOutputStream file = new java.io.ByteArrayOutputStream();
-    JournalWriter.Sink full = new JournalWriter.Sink() {
+    JournalSink full = new JournalSink() {
       @Override
       public void write(java.nio.ByteBuffer records) throws java.io.IOException {
         // as a disk does: what fits is written (here a record is cut), then the call fails
