@@ -20,10 +20,11 @@ public final class JournalChild {
 
   public static void main(String[] args) {
     Path archive = Path.of(args[0]);
-    SampleRing ring = new SampleRing(1 << 18); // 262 s at 1 kHz: a starved writer loses nothing
+    long rate = args.length > 2 ? Long.parseLong(args[2]) : 1000;
+    // at least 32 s of samples (262 s at 1 kHz): a writer starved on a busy machine loses nothing
+    SampleRing ring = new SampleRing((int) Math.max(1 << 18, Long.highestOneBit(rate * 32) << 1));
     JournalWriter w = JournalWriter.start(archive, RunFixtures.startMetadata(args[1], false),
         ring.cursorAtEnd());
-    long rate = args.length > 2 ? Long.parseLong(args[2]) : 1000;
     java.nio.MappedByteBuffer counter = args.length > 3 ? map(Path.of(args[3])) : null;
     long t0 = System.nanoTime();
     long put = 0;
