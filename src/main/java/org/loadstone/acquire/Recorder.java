@@ -81,6 +81,9 @@ public final class Recorder implements AutoCloseable {
   private volatile boolean stopRequested;
   private volatile boolean startRequested;
   private volatile boolean closing;
+  private volatile boolean storing;
+  private volatile boolean storeCancelled;
+  private boolean spaceWarned;
   private boolean resetSeen;
   private volatile Result result;
   private volatile String failure;
@@ -163,8 +166,15 @@ public final class Recorder implements AutoCloseable {
     }
   }
 
-  /** Ends the run with cause {@code manual} (or stops waiting for the start). */
+  /**
+   * Ends the run with cause {@code manual} (or stops waiting for the start); while the run waits
+   * for room on a full disk to be stored, gives up the wait (the failure then says where the
+   * samples are).
+   */
   public void stop() {
+    if (storing) {
+      storeCancelled = true;
+    }
     stopRequested = true;
   }
 
@@ -254,6 +264,7 @@ public final class Recorder implements AutoCloseable {
           control.offer(i, ring.oldestIndex(), tUs / 1e6, f,
               hp && countsPerMm > 0 ? pos / countsPerMm : Double.NaN, this::onEvent);
         }, 4096);
+        watchTheDisk();
         if (n == 0) {
           if (reader.lostReason().isPresent() && cursor.available() == 0) {
             RunControl.Finished f = control.deviceLost();
@@ -306,6 +317,28 @@ public final class Recorder implements AutoCloseable {
     }
   }
 
+  /** A journal that could not be written ends the run; a disk running short is warned of. */
+  private void watchTheDisk() {
+    if (recording == null || control.state() == RunControl.State.FINISHED) {
+      return;
+    }
+    if (recording.diskFault().isPresent()) {
+      RunControl.Finished f = control.endedBy(FinishCause.DISK_FULL);
+      if (f != null) {
+        onEvent(f);
+      }
+      return;
+    }
+    String low = spaceWarned ? null : recording.spaceWarning();
+    if (low != null) {
+      spaceWarned = true;
+      synchronized (this) {
+        warnings.add(low);
+      }
+      listener.onWarning(low);
+    }
+  }
+
   private void onEvent(RunControl.Event e) {
     if (e instanceof RunControl.Started s) {
       started = s;
@@ -353,8 +386,21 @@ public final class Recorder implements AutoCloseable {
     BreakDetector.Break b = control.breakDetail();
     RunRecordMeta.Finished done = record.atFinish(f.cause(), b, unloaded.force_N(), now,
         warnings());
-    RunStore.Stored stored = recording.finish(f.lastIndex(), done.metadata());
-    result = new Result(stored, f.cause(), control.peak_N(), stored.samples(), done.dropped(),
+    storing = true;
+    RunStore.Stored stored = recording.finish(f.lastIndex(), done.metadata(),
+        new RunStore.Waiting() {
+          @Override
+          public void say(String text) {
+            listener.onWarning(text);
+          }
+
+          @Override
+          public boolean cancelled() {
+            return storeCancelled || closing;
+          }
+        });
+    FinishCause cause = stored.cause() != null ? stored.cause() : f.cause();
+    result = new Result(stored, cause, control.peak_N(), stored.samples(), done.dropped(),
         done.checksumErrors(), b, done.metadata().returnToZero_N());
     listener.onFinished(result);
   }

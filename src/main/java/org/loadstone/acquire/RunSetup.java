@@ -19,7 +19,8 @@ import org.loadstone.units.Setting;
  * the device's identity (one wait, one time-out), its sample rate ({@link SampleRate}), the scale
  * and the rated capacity ({@link ScalePolicy}), the simulated specimen's sizes ({@link
  * SimulatedSpecimen}), a fresh zero before every run sized from the rate, and the zero check
- * against the last tare ({@link ZeroCheck}). One instance per connection; it remembers the last
+ * against the last tare ({@link ZeroCheck}), and the room the run needs on the archive's disk
+ * ({@link DiskSpace}). One instance per connection; it remembers the last
  * tare, and before its first tare looks for the newest run of the same device in the archive
  * ({@link LastTare}). Not for concurrent use.
  */
@@ -166,7 +167,7 @@ public final class RunSetup {
    * @param say told what is happening (e.g. "zeroing…"), on this thread
    * @return the run, ready to arm with {@link #recorder}
    * @throws LoadstoneException when no scale is chosen, the capacity is unknown, a setting is out
-   *     of range, or the device is lost or silent
+   *     of range, the archive's disk lacks the room for the run, or the device is lost or silent
    */
   public Prepared prepare(Request r, Consumer<String> say) {
     RunSettings settings = check(r, reader.transport().name());
@@ -189,6 +190,8 @@ public final class RunSetup {
           + "but the device states no position channel with its counts per mm: end the crush "
           + "by force, by time or by hand instead", Setting.TRAVEL_LIMIT, Setting.TIME_LIMIT);
     }
+    // before the zero and the arming, so the operator loads no specimen for a run with no room
+    DiskSpace.requireBeforeArming(archive, rateNow.rate_Hz(), settings);
     // a calibration made for another cell than the connected one is warned about
     ScaleChoice scale = r.scale().forDevice(reader.identity());
     if (lastTare == null) {

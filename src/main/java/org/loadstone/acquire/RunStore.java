@@ -32,6 +32,47 @@ public interface RunStore {
      *     then stays on disk and is recovered at the next start
      */
     Stored finish(long lastIndex, RunMetadata finalMetadata);
+
+    /**
+     * As {@link #finish(long, RunMetadata)}, for a store that may have to wait (a full disk):
+     * it tells {@code waiting} what it waits for and gives up when asked to.
+     */
+    default Stored finish(long lastIndex, RunMetadata finalMetadata, Waiting waiting) {
+      return finish(lastIndex, finalMetadata);
+    }
+
+    /**
+     * @return the first failure to write the run's samples (a full disk), or empty while every
+     *     sample is written; the run then ends with cause {@code disk-full}
+     */
+    default java.util.Optional<String> diskFault() {
+      return java.util.Optional.empty();
+    }
+
+    /** @return a warning once the disk lacks the room to store the run so far, else null */
+    default String spaceWarning() {
+      return null;
+    }
+  }
+
+  /** What a store that waits (for space) tells, and asks. */
+  interface Waiting {
+    /** Never told, never cancelled. */
+    Waiting NONE = new Waiting() {
+      @Override
+      public void say(String text) {}
+
+      @Override
+      public boolean cancelled() {
+        return false;
+      }
+    };
+
+    /** @param text what the store is waiting for and what is kept meanwhile */
+    void say(String text);
+
+    /** @return whether to give up waiting (the samples then stay where the message said) */
+    boolean cancelled();
   }
 
   /**
@@ -41,6 +82,14 @@ public interface RunStore {
    * @param csv the samples file
    * @param json the metadata sidecar
    * @param samples number of samples written
+   * @param cause the cause stored when the store changed it (a disk that filled during the run:
+   *     {@code disk-full}), else null (the cause it was given)
    */
-  record Stored(String runId, java.nio.file.Path csv, java.nio.file.Path json, long samples) {}
+  record Stored(String runId, java.nio.file.Path csv, java.nio.file.Path json, long samples,
+      org.loadstone.archive.FinishCause cause) {
+    /** A run stored with the cause it was finished with. */
+    public Stored(String runId, java.nio.file.Path csv, java.nio.file.Path json, long samples) {
+      this(runId, csv, json, samples, null);
+    }
+  }
 }

@@ -29,7 +29,7 @@ public enum FinishCause {
    * and its break, if it had one
    */
   DISK_FULL,
-  /** the program ended during the run; the run was rebuilt from its journal at the next start */
+  /** the program ended before the run was stored; the run was rebuilt from its journal at the next start */
   RECOVERED,
   /** the run was imported from another program's file */
   IMPORTED;

@@ -144,8 +144,9 @@ public final class JournalRecovery {
   private static RunMetadata recoveredMetadata(JournalContents c, String id, Path journal) {
     RunMetadata h = c.startInfo();
     List<String> w = new ArrayList<>(h.warnings());
-    w.add("recovered from journal " + journal.getFileName() + " after the program ended during"
-        + " the run; " + c.data().size() + " samples kept; no break was detected");
+    w.add("recovered from journal " + journal.getFileName() + ": the program ended before the"
+        + " run was stored; " + c.data().size() + " samples kept; why the run ended, and its"
+        + " break if it had one, were not kept");
     if (c.tornBytes() > 0) {
       w.add("the journal ended in " + c.tornBytes() + " bytes of an incomplete record (the last"
           + " write before the program ended); they were left out");

@@ -49,6 +49,11 @@ public final class LoadstoneCommand implements Runnable {
    * that are not samples).
    */
   public static final int EXIT_NO_DATA = 4;
+  /**
+   * Exit code of {@code record} when the archive's disk filled during the run: the run is stored
+   * up to the last sample received, with cause {@code disk-full}; the message says what was kept.
+   */
+  public static final int EXIT_DISK_FULL = 5;
   /** Exit code for an unexpected internal failure. */
   public static final int EXIT_INTERNAL = 70;
 

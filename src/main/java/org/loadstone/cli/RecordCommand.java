@@ -50,6 +50,8 @@ import picocli.CommandLine.Option;
       "0:a run was stored, or none was started (stopped while armed)",
       "2:refused or failed: the message names the fault and the fix",
       "3:the device was lost or restarted; a run recorded until then is stored",
+      "5:the archive's disk filled during the run; the run is stored up to the last sample"
+          + " received, and the message says what was kept",
       "70:internal error (a bug; please report it)",
       "130:stopped by Ctrl-C: the run recorded until then is stored and printed first"
     })
@@ -143,6 +145,9 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--zero-drift-N", description = "Warn before the run when the zero moved more than this since the last tare (default: 0.1 %% of rated capacity).")
   Double zeroDriftLimit;
 
+  @Option(names = "--second-archive", paramLabel = "DIR", description = "Where the run goes when the archive's disk is full (best on another disk); without it a run waits in memory for space.")
+  Path secondArchive;
+
   @Option(names = "--json", description = "End with the result as one JSON object on the last line.")
   boolean json;
 
@@ -156,7 +161,7 @@ public final class RecordCommand implements Callable<Integer> {
     org.loadstone.analysis.AnalysisSettings analysis =
         crush.apply(stiffness.apply(org.loadstone.analysis.AnalysisSettings.DEFAULTS)); // refuse
     // a bad band or stroke before a run
-    JournalRunStore store = new JournalRunStore(dir);
+    JournalRunStore store = new JournalRunStore(dir, secondArchive);
     store.checkWritable();
     for (StoredRun r : JournalRecovery.recoverAll(dir, n -> say(err, n))) {
       say(err, "recovered an unfinished run into " + r.csv());
@@ -239,7 +244,8 @@ public final class RecordCommand implements Callable<Integer> {
         }
         if (result.isEmpty() && reader.lostReason().isPresent()
             && rec.status().state() != RunControl.State.RECORDING
-            && rec.status().state() != RunControl.State.TAIL) {
+            && rec.status().state() != RunControl.State.TAIL
+            && rec.status().state() != RunControl.State.FINISHED) { // not while it is stored
           rec.stop();
         }
       }
@@ -268,6 +274,13 @@ public final class RecordCommand implements Callable<Integer> {
             + " received before (" + result.get().samples() + " samples, cause "
             + cause.wireName() + ")");
         return LoadstoneCommand.EXIT_DEVICE_LOST;
+      }
+      if (cause == FinishCause.DISK_FULL) {
+        say(err, org.loadstone.archive.RunReader.readMetadata(result.get().stored().json())
+            .warnings().stream()
+            .filter(w -> w.startsWith("the disk holding the archive filled")).findFirst()
+            .orElse("the disk holding the archive filled during the run"));
+        return LoadstoneCommand.EXIT_DISK_FULL;
       }
       return 0;
     } finally {

@@ -70,9 +70,9 @@ public record LeftOut(String runId, String specimen, String group, List<Kind> ki
     /** the device restarted during the run */
     DEVICE_RESET("device-reset", "the device restarted during the run"),
     /** the journal could not be written during the run */
-    DISK_FULL("disk-full", "the disk filled during the run; samples may be missing"),
-    /** rebuilt from its journal after the program ended during the run */
-    RECOVERED("recovered", "rebuilt from its journal after the program stopped during the run; "
+    DISK_FULL("disk-full", "the disk filled during the run, which ended there"),
+    /** rebuilt from its journal after the program ended before storing it */
+    RECOVERED("recovered", "rebuilt from its journal after the program stopped before storing it; "
         + "how it ended is unknown"),
     /** its files cannot be read or its curve not analysed */
     UNREADABLE("unreadable", "cannot be read or analysed"),

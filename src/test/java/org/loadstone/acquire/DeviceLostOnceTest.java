@@ -10,6 +10,7 @@ import java.util.concurrent.CopyOnWriteArrayList;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.CyclicBarrier;
 import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.RepeatedTest;
 import org.loadstone.protocol.HostCommand;
 
@@ -17,6 +18,7 @@ import org.loadstone.protocol.HostCommand;
  * The loss of the device is handled once, on the reader thread, however many threads run into
  * it at once: commands failing on eight threads while the read itself fails.
  */
+@Tag("fault")
 class DeviceLostOnceTest {
   /** A link that fails every write, and fails its read once {@link #cut} opens. */
   static final class Failing extends FakeLink {

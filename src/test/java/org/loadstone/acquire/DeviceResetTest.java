@@ -7,6 +7,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicReference;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -22,6 +23,7 @@ import org.loadstone.device.SimTransport;
  * cause {@code device-reset} at the last sample before the restart, on one even time axis, and a
  * restart while armed starts nothing.
  */
+@Tag("fault")
 class DeviceResetTest {
   private static final int RATE = 1000;
 

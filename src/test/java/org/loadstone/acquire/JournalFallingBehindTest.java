@@ -24,7 +24,7 @@ class JournalFallingBehindTest {
   private static final Path FILE = Path.of("memory.journal");
 
   /** A disk in memory that counts forces and can be slow. */
-  static final class MemorySink implements JournalWriter.Sink {
+  static final class MemorySink implements JournalSink {
     final ByteArrayOutputStream bytes = new ByteArrayOutputStream();
     long forces;
     private final SplittableRandom slow;

@@ -9,6 +9,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.CopyOnWriteArrayList;
 import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.api.io.TempDir;
@@ -21,6 +22,7 @@ import org.loadstone.device.SimSetup;
 import org.loadstone.device.SimTransport;
 
 /** A failure while the run is stored ends the run-control thread with a reason, journal kept. */
+@Tag("fault")
 class StoreFailureTest {
   @TempDir Path archive;
 

@@ -12,12 +12,14 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.loadstone.files.ChildProgram;
 
 /** Run ids stay unique when several programs store runs in one archive at the same moment. */
+@Tag("fault")
 class RunIdClaimTest {
   private static final int WRITERS = 6;
   @TempDir Path archive;

@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.time.Duration;
 import java.util.concurrent.atomic.AtomicInteger;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -66,6 +67,7 @@ class SerialEndToEndTest {
 
   @Test
   @Timeout(60)
+  @Tag("fault")
   void cablePulledEndsTheStreamWithAMessage() throws Exception {
     try (SocatPair pty = SocatPair.start()) {
       SerialTransport t = SerialTransport.open(pty.b().toString(), SerialSettings.DEFAULT);

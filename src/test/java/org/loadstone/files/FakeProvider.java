@@ -117,8 +117,52 @@ final class FakeProvider extends FileSystemProvider {
     return real.isHidden(r(path));
   }
 
+  /** The real store, reporting no more usable space than the fake disk has left. */
   @Override public FileStore getFileStore(Path path) throws IOException {
-    return real.getFileStore(r(path));
+    FileStore store = real.getFileStore(r(path));
+    return new FileStore() {
+      @Override public String name() {
+        return store.name();
+      }
+
+      @Override public String type() {
+        return store.type();
+      }
+
+      @Override public boolean isReadOnly() {
+        return store.isReadOnly();
+      }
+
+      @Override public long getTotalSpace() throws IOException {
+        return store.getTotalSpace();
+      }
+
+      @Override public long getUsableSpace() throws IOException {
+        return Math.min(store.getUsableSpace(), disk.bytesLeft.get());
+      }
+
+      @Override public long getUnallocatedSpace() throws IOException {
+        return Math.min(store.getUnallocatedSpace(), disk.bytesLeft.get());
+      }
+
+      @Override public boolean supportsFileAttributeView(
+          Class<? extends java.nio.file.attribute.FileAttributeView> type) {
+        return store.supportsFileAttributeView(type);
+      }
+
+      @Override public boolean supportsFileAttributeView(String name) {
+        return store.supportsFileAttributeView(name);
+      }
+
+      @Override public <V extends java.nio.file.attribute.FileStoreAttributeView> V
+          getFileStoreAttributeView(Class<V> type) {
+        return store.getFileStoreAttributeView(type);
+      }
+
+      @Override public Object getAttribute(String attribute) throws IOException {
+        return store.getAttribute(attribute);
+      }
+    };
   }
 
   @Override public void checkAccess(Path path, AccessMode... modes) throws IOException {
