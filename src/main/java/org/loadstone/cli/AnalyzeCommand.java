@@ -47,6 +47,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--position-table", paramLabel = "FILE", description = "Position from a position-time CSV (video tracking, dial gauge), aligned by the break unless --table-offset-s is given.")
   Path table;
 
+  @Option(names = "--video-table", paramLabel = "FILE", description = "Position from a video table written by 'loadstone track' (its sidecar gives the scale and the sync). Without this or another position source, a table stored beside the run is used.")
+  Path videoTable;
+
+  @Option(names = "--no-video", description = "Do not use a video table stored beside the run.")
+  boolean noVideo;
+
   @Option(names = "--table-map", defaultValue = "time=1,position=2", description = "Columns of the position table by header or 1-based number (default: ${DEFAULT-VALUE}).")
   String tableMap;
 
@@ -78,7 +84,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
-  private RunAdjust adjust(RunAdjust a) {
+  private RunAdjust adjust(RunAdjust a, ResolvedRun r) {
     if (cal != null) {
       ScaleChoice c = ScaleChoice.fromCalibration(cal, java.time.LocalDate.now());
       a = a.recalibrated(c.spec(), c.calibrationId(), c.calibrationSha256());
@@ -105,6 +111,19 @@ public final class AnalyzeCommand implements Callable<Integer> {
           LengthUnit.parse(tableLengthUnit), tableDecimalComma);
       a = a.withPositionTable(t, tableOffset);
     }
+    if (videoTable != null && (table != null || crossheadRate != null)) {
+      throw new org.loadstone.units.LoadstoneException("--video-table is a position source of "
+          + "its own: give it without --position-table or --crosshead-rate-mm-min");
+    }
+    Path video = videoTable;
+    if (video == null && !noVideo && table == null && crossheadRate == null
+        && !a.data().hasPosition()) {
+      video = storedVideoTable(r);
+    }
+    if (video != null) {
+      a = org.loadstone.study.VideoPosition.apply(a,
+          org.loadstone.video.VideoTableFiles.read(video));
+    }
     if (positionMeasures != null) {
       a = a.positionMeasures(org.loadstone.analysis.PositionSource.parse(positionMeasures));
     }
@@ -121,11 +140,21 @@ public final class AnalyzeCommand implements Callable<Integer> {
     return a;
   }
 
+  private static Path storedVideoTable(ResolvedRun r) {
+    try {
+      Path dir = Path.of(r.source()).toAbsolutePath().getParent();
+      return dir == null ? null
+          : org.loadstone.video.VideoTableFiles.storedFor(dir, r.metadata().runId());
+    } catch (java.nio.file.InvalidPathException e) {
+      return null;
+    }
+  }
+
   @Override
   public Integer call() throws Exception {
     AnalysisSettings settings = stiffness.apply(AnalysisSettings.DEFAULTS);
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
-    RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()));
+    RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()), r);
     RunMetrics m = RunMetrics.of(adj.metadata(), adj.data(), settings);
     Map<String, Object> j = m.toJsonMap();
     PrintWriter out = spec.commandLine().getOut();

@@ -30,6 +30,7 @@ import picocli.CommandLine.Command;
       ExportCommand.class,
       ReportCommand.class,
       FrameCommand.class,
+      TrackCommand.class,
       CommandLine.HelpCommand.class
     })
 public final class LoadstoneCommand implements Runnable {
