@@ -17,7 +17,7 @@ public final class VideoPosition {
   private VideoPosition() {}
 
   /** Metadata key of the run time (s) at which the sync light came on, when recorded. */
-  public static final String LIGHT_KEY = "sync_light_s";
+  public static final String LIGHT_KEY = RunMetadata.SYNC_LIGHT_KEY;
 
   /**
    * @return the run time at which the sync light came on: the recorded {@value #LIGHT_KEY}, else

@@ -55,6 +55,12 @@ class TrackCommandTest {
     byte[] csvBefore = Files.readAllBytes(csv);
     byte[] jsonBefore = Files.readAllBytes(archive.resolve(id + ".json"));
     Run run = RunReader.read(csv);
+    // the recorder lit the sync light at the start, after the trigger sample (PROTOCOL.md, LIGHT)
+    Object light = run.metadata().extra().get(org.loadstone.archive.RunMetadata.SYNC_LIGHT_KEY);
+    assertThat(light).isInstanceOf(Number.class);
+    // on the run's clock, after its first sample (the pre-trigger history) and before its end
+    assertThat(((Number) light).doubleValue()).isBetween(run.data().time_s()[0],
+        run.data().time_s()[run.data().size() - 1]);
     double[] t = run.data().time_s();
     double[] x = run.data().position_mm();
     double travel = Arrays.stream(x).max().orElseThrow() - x[0];
