@@ -31,7 +31,7 @@ import org.openjdk.jmh.annotations.Warmup;
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.SingleShotTime)
 @OutputTimeUnit(TimeUnit.MILLISECONDS)
-@Warmup(iterations = 2)
+@Warmup(iterations = 4)
 @Measurement(iterations = 8)
 @Fork(value = 1, jvmArgsAppend = "-Xmx160m")
 public class VideoTrackingBenchmark {

@@ -13,13 +13,17 @@ import org.loadstone.units.LoadstoneException;
  * half follows slow changes of blur, lighting and perspective.
  *
  * <p>The search is centred on the place predicted from the last two matches (constant
- * velocity). A weak match, or one at the window's edge, is searched for again three times as
- * far around the last good place; still weak, the frame is lost: no position is reported for
+ * velocity), first ±{@value #NEAR_PX} pixels, then the whole search window when the best place
+ * there lies on that small window's edge or is weak. A weak match, or one at the window's edge,
+ * is searched for again three times as far around the last good place; still weak, the frame is lost: no position is reported for
  * it, and the template does not learn from it.
  */
 final class PointTracker {
   /** One frame's result: the point's place in pixels (NaN when lost) and the match score. */
   record Step(double x, double y, double score, boolean lost) {}
+
+  /** Reach of the first, small search around the prediction, pixels. */
+  static final int NEAR_PX = 4;
 
   private final TrackSettings settings;
   private final PatchMatcher matcher;
@@ -91,8 +95,15 @@ final class PointTracker {
       px += lastX - prevX;
       py += lastY - prevY;
     }
-    PatchMatcher.Match m = matcher.find(frame, template, templateNorm,
-        (int) Math.round(px), (int) Math.round(py), reach);
+    int cx = (int) Math.round(px);
+    int cy = (int) Math.round(py);
+    // near the prediction first (a constant-velocity guess is rarely more than a few pixels
+    // off); a best place on the small window's edge or a weak one means look wider
+    PatchMatcher.Match m = matcher.find(frame, template, templateNorm, cx, cy,
+        Math.min(NEAR_PX, reach));
+    if (reach > NEAR_PX && (m == null || m.score() < settings.lostBelow() || m.atEdge())) {
+      m = matcher.find(frame, template, templateNorm, cx, cy, reach);
+    }
     if (m == null || m.score() < settings.lostBelow() || m.atEdge()) {
       PatchMatcher.Match wide = matcher.find(frame, template, templateNorm,
           (int) Math.round(lastX), (int) Math.round(lastY), 3 * reach);
