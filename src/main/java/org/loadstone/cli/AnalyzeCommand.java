@@ -84,6 +84,8 @@ public final class AnalyzeCommand implements Callable<Integer> {
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
+  private String usedVideo;
+
   private RunAdjust adjust(RunAdjust a, ResolvedRun r) {
     if (cal != null) {
       ScaleChoice c = ScaleChoice.fromCalibration(cal, java.time.LocalDate.now());
@@ -121,8 +123,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
       video = storedVideoTable(r);
     }
     if (video != null) {
-      a = org.loadstone.study.VideoPosition.apply(a,
-          org.loadstone.video.VideoTableFiles.read(video));
+      org.loadstone.video.VideoTable vt = org.loadstone.video.VideoTableFiles.read(video);
+      a = org.loadstone.study.VideoPosition.apply(a, vt);
+      usedVideo = String.format(Locale.ROOT, "position from the video table %s (%.6g mm/px "
+          + "± %.2f %%, %s)", video, vt.scale().mm_per_px(),
+          100 * vt.scale().relativeUncertainty(),
+          vt.sync() == null ? "synchronised by the break" : "sync by " + vt.sync().method());
     }
     if (positionMeasures != null) {
       a = a.positionMeasures(org.loadstone.analysis.PositionSource.parse(positionMeasures));
@@ -167,6 +173,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
     }
     m.analysis().stiffness().ifPresent(s -> out.printf(Locale.ROOT, "  %-28s %14s%n",
         "stiffness chosen by", s.method().words()));
+    if (usedVideo != null) {
+      out.println("derived: " + usedVideo);
+    }
     for (String note : adj.notes()) {
       out.println("derived: " + note);
     }

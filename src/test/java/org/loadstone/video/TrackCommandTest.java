@@ -96,6 +96,7 @@ class TrackCommandTest {
     Out video = cli("analyze", id, "--archive", archive.toString(), "--video-table",
         table.toString(), "--json");
     assertThat(video.exit()).as(video.err()).isZero();
+    assertThat(video.out()).contains("position from the video table").contains("sync by offset");
     double kOwn = own.json().get("stiffness_N_per_mm").asDouble();
     double kVideo = video.json().get("stiffness_N_per_mm").asDouble();
     System.out.printf(Locale.ROOT, "stiffness: crosshead %.3f N/mm, video %.3f N/mm%n", kOwn,
