@@ -179,6 +179,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
     for (String note : adj.notes()) {
       out.println("derived: " + note);
     }
+    if (r.metadata().amendments().any()) {
+      out.println(r.metadata().amendments().summary());
+    }
     for (String note : m.notes()) {
       out.println("note: " + note);
     }
@@ -186,6 +189,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
       Map<String, Object> withAdj = new java.util.LinkedHashMap<>(j);
       withAdj.put("derived", adj.notes());
       withAdj.put("calibration_id", adj.metadata().calibrationId());
+      withAdj.put("amended", r.metadata().amendments().changes().stream()
+          .map(org.loadstone.archive.RunAmendments.Change::line).toList());
+      withAdj.put("retired", r.metadata().amendments().retired());
       out.println(new ObjectMapper().writeValueAsString(withAdj));
     }
     out.flush();

@@ -59,7 +59,8 @@ public final class RunsCommand implements Callable<Integer> {
     List<ArchiveIndex.Entry> found = idx.search(q);
     ObjectMapper om = new ObjectMapper();
     if (!json) {
-      out.printf("%-40s %-14s %-10s %-12s %s%n", "run", "specimen", "group", "cause", "started (UTC)");
+      out.printf("%-40s %-14s %-10s %-12s %-20s %s%n", "run", "specimen", "group", "cause",
+          "started (UTC)", "amendments");
     }
     List<String> ids = new ArrayList<>();
     for (ArchiveIndex.Entry e : found) {
@@ -74,10 +75,13 @@ public final class RunsCommand implements Callable<Integer> {
         row.put("cause", m.cause().wireName());
         row.put("started_at", m.startedAt().toString());
         row.put("csv", e.csv().toString());
+        row.put("amendments", m.amendments().log().size());
+        row.put("retired", m.amendments().retired());
         out.println(om.writeValueAsString(row));
       } else {
-        out.printf(Locale.ROOT, "%-40s %-14s %-10s %-12s %s%n", m.runId(), m.specimen(),
-            m.group(), m.cause().wireName(), m.startedAt().toString().substring(0, 19));
+        out.printf(Locale.ROOT, "%-40s %-14s %-10s %-12s %-20s %s%n", m.runId(), m.specimen(),
+            m.group(), m.cause().wireName(), m.startedAt().toString().substring(0, 19),
+            m.amendments().summary());
       }
     }
     for (String p : idx.problems()) {

@@ -150,6 +150,15 @@ public final class PdfReport {
           Metric.PEAK.format(m.analysis().peakForce_N())})));
       p.table(new String[] {"group", "specimen", "run id", "peak force (N)"}, rows,
           new float[] {0.2f, 0.25f, 0.35f, 0.2f}, 8.5f);
+      List<String> amended = new ArrayList<>();
+      groups.values().forEach(list -> list.stream().map(RunMetrics::metadata)
+          .filter(md -> md.amendments().any())
+          .forEach(md -> amended.add("Run " + md.runId() + " (" + md.specimen() + "): "
+              + RunFacts.amendments(md))));
+      if (!amended.isEmpty()) {
+        p.heading("Amended runs (counted with their amended values)", 60);
+        p.bullets(amended, 8.5f);
+      }
       if (!sel.leftOut().isEmpty()) {
         p.heading("Runs left out", 60);
         p.bullets(sel.leftOut().stream().map(l -> "Run " + l.line()).toList(), 8.5f);
