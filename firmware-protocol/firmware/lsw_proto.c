@@ -675,6 +675,18 @@ lsw_parse_status lsw_parse_command(const char *line, size_t len, lsw_command *ou
         out->token[arg_len[0]] = '\0';
         return LSW_PARSE_OK;
     }
+    if (word_is(s, wl, "LIGHT")) {
+        out->kind = LSW_CMD_LIGHT;
+        if (nargs != 1) return LSW_PARSE_BAD_ARG;
+        if (word_is(args[0], arg_len[0], "ON")) {
+            out->light_on = 1;
+        } else if (word_is(args[0], arg_len[0], "OFF")) {
+            out->light_on = 0;
+        } else {
+            return LSW_PARSE_BAD_ARG;
+        }
+        return LSW_PARSE_OK;
+    }
     if (word_is(s, wl, "MODE")) {
         out->kind = LSW_CMD_MODE;
         if (nargs != 1) return LSW_PARSE_BAD_ARG;

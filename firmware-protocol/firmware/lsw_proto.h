@@ -114,7 +114,7 @@ int8_t lsw_quad_step(uint8_t prev_ab, uint8_t now_ab);
 
 typedef enum {
     LSW_CMD_WHO, LSW_CMD_START, LSW_CMD_STOP, LSW_CMD_RATE,
-    LSW_CMD_PING, LSW_CMD_HALT, LSW_CMD_MODE
+    LSW_CMD_PING, LSW_CMD_HALT, LSW_CMD_MODE, LSW_CMD_LIGHT
 } lsw_cmd_kind;
 
 typedef enum {
@@ -133,6 +133,7 @@ typedef struct {
     uint32_t rate_hz;                     /* RATE */
     char token[LSW_PING_TOKEN_MAX + 1];   /* PING */
     lsw_encoding mode;                    /* MODE */
+    uint8_t light_on;                     /* LIGHT: 1 = on, 0 = off */
 } lsw_command;
 
 /* Parses one command line (without LF; a trailing CR and trailing spaces are

@@ -20,8 +20,10 @@ static const uint8_t PIN_HX_SCK = 5;    /* HX711 PD_SCK (clock into the converte
 static const uint8_t PIN_HX_RATE = 6;   /* HX711 RATE: LOW = 10 samples/s, HIGH = 80 samples/s */
 static const uint8_t PIN_ENC_A = 2;     /* encoder channel A, interrupt-capable */
 static const uint8_t PIN_ENC_B = 3;     /* encoder channel B, interrupt-capable */
+static const uint8_t PIN_SYNC_LIGHT = 7; /* sync light: an LED (with its resistor) the camera sees */
 
 #define HAS_ENCODER 1                   /* 0: load only (ch=1, samples without position) */
+#define HAS_SYNC_LIGHT 1                /* 0: no LED fitted, LIGHT is refused (N LIGHT no-light) */
 #define CHECK_TX_ROOM 1                 /* 0 for cores whose Serial.availableForWrite() is always 0 */
 static const uint32_t ENCODER_COUNTS_PER_MM = 400; /* 4x counts per mm of crosshead travel */
 static const char DEVICE_NAME[] = "bench-press";
@@ -277,6 +279,17 @@ static void handle_line(const char *line, size_t len)
     case LSW_CMD_HALT:
         send_refusal("HALT", "no-motor"); /* this board drives no crosshead */
         break;
+    case LSW_CMD_LIGHT:
+#if HAS_SYNC_LIGHT
+        /* switched before the acknowledgement is queued, so the light is on by the time the
+           host reads A LIGHT on: the instant lies between the last sample before the
+           acknowledgement and the acknowledgement */
+        digitalWrite(PIN_SYNC_LIGHT, c.light_on ? HIGH : LOW);
+        send_ack("LIGHT", c.light_on ? "on" : "off");
+#else
+        send_refusal("LIGHT", "no-light");
+#endif
+        break;
     case LSW_CMD_MODE:
         /* acknowledged in the old encoding, everything after in the new one */
         send_ack("MODE", c.mode == LSW_BINARY ? "binary" : "text");
@@ -320,6 +333,10 @@ void setup()
     digitalWrite(PIN_HX_SCK, LOW); /* a high clock over 60 us powers the converter down */
     pinMode(PIN_HX_RATE, OUTPUT);
     set_rate(80);
+#if HAS_SYNC_LIGHT
+    pinMode(PIN_SYNC_LIGHT, OUTPUT);
+    digitalWrite(PIN_SYNC_LIGHT, LOW);
+#endif
 #if HAS_ENCODER
     pinMode(PIN_ENC_A, INPUT_PULLUP);
     pinMode(PIN_ENC_B, INPUT_PULLUP);

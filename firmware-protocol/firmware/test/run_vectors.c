@@ -188,6 +188,16 @@ static void unit_parser(void)
     expect_cmd("MODE hex", LSW_PARSE_BAD_ARG, LSW_CMD_MODE, "MODE");
     expect_cmd("WHO now", LSW_PARSE_BAD_ARG, LSW_CMD_WHO, "WHO");
 
+    check(lsw_parse_command("LIGHT on", 8, &c) == LSW_PARSE_OK && c.kind == LSW_CMD_LIGHT &&
+              c.light_on == 1 && strcmp(c.word, "LIGHT") == 0, "parser: LIGHT on");
+    check(lsw_parse_command("light OFF", 9, &c) == LSW_PARSE_OK && c.kind == LSW_CMD_LIGHT &&
+              c.light_on == 0, "parser: light OFF, any letter case");
+    with_crc(line, sizeof line, "LIGHT on", 0);
+    expect_cmd(line, LSW_PARSE_OK, LSW_CMD_LIGHT, "LIGHT");
+    expect_cmd("LIGHT", LSW_PARSE_BAD_ARG, LSW_CMD_LIGHT, "LIGHT");
+    expect_cmd("LIGHT dim", LSW_PARSE_BAD_ARG, LSW_CMD_LIGHT, "LIGHT");
+    expect_cmd("LIGHT on off", LSW_PARSE_BAD_ARG, LSW_CMD_LIGHT, "LIGHT");
+
     expect_cmd("FLY", LSW_PARSE_UNKNOWN, LSW_CMD_WHO, "FLY");
     expect_cmd("tare 5", LSW_PARSE_UNKNOWN, LSW_CMD_WHO, "TARE");
     expect_cmd("", LSW_PARSE_EMPTY, LSW_CMD_WHO, NULL);

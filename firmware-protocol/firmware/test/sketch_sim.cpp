@@ -30,6 +30,7 @@ static uint64_t hx_ready_at = 0;
 static int hx_pulses = -1;      /* -1: no conversion ready; 0..25 pulses seen */
 static uint32_t hx_word = 0;
 static uint8_t hx_dout = 1, hx_sck = 0, hx_rate_pin = 0;
+static uint8_t sync_light = 0; /* level of the sync-light pin */
 static uint64_t hx_sck_high_since = 0, hx_longest_high_us = 0;
 static uint32_t hx_conversions = 0, hx_bad_reads = 0;
 
@@ -65,7 +66,9 @@ int digitalRead(uint8_t pin)
 void digitalWrite(uint8_t pin, uint8_t level)
 {
     now_us += 4;
-    if (pin == PIN_HX_RATE) {
+    if (pin == PIN_SYNC_LIGHT) {
+        sync_light = level;
+    } else if (pin == PIN_HX_RATE) {
         if (level != hx_rate_pin) {
             /* output settling time after a rate change: 50 ms at 80/s, 400 ms at 10/s (HX711 datasheet) */
             hx_ready_at = now_us + (level ? 50000u : 400000u);
@@ -287,6 +290,16 @@ int main(void)
     check(has_message(mark, "N HALT no-motor"), "HALT refused: no motor");
     host_send("RATE  80\n");
     check(has_message(mark, "E bad-command"), "malformed line answered E bad-command");
+
+    /* sync light */
+    mark = nrecs;
+    check(sync_light == 0, "sync light off after power-up");
+    host_send("LIGHT on\n");
+    check(has_message(mark, "A LIGHT on") && sync_light == 1, "LIGHT on lights the sync LED and is acknowledged");
+    host_send("LIGHT off\n");
+    check(has_message(mark, "A LIGHT off") && sync_light == 0, "LIGHT off darkens it");
+    host_send("LIGHT dim\n");
+    check(has_message(mark, "N LIGHT bad-arg") && sync_light == 0, "LIGHT dim refused, the LED left alone");
 
     /* RATE 10 */
     mark = nrecs;

@@ -342,7 +342,14 @@ public final class Recorder implements AutoCloseable {
   private void onEvent(RunControl.Event e) {
     if (e instanceof RunControl.Started s) {
       started = s;
-      record = new RunRecordMeta(template, zero_counts, control.settings(), s, reader);
+      // the sync light (PROTOCOL.md, LIGHT): on now, so a camera sees the run's start; it came
+      // on after the newest sample read, within the link's latency (a board without it refuses)
+      Double lightAt_s = null;
+      if (reader.lostReason().isEmpty() && reader.send(HostCommand.light(true))) {
+        lightAt_s = reader.ring().timeUsAt(reader.ring().written() - 1) / 1e6;
+      }
+      record = new RunRecordMeta(template, zero_counts, control.settings(), s, reader,
+          lightAt_s);
       recording = store.begin(record.atStart(warnings()), reader.ring(), s.firstIndex());
       listener.onStarted(s);
     } else if (e instanceof RunControl.OverloadWarning w) {
@@ -364,6 +371,9 @@ public final class Recorder implements AutoCloseable {
     if (reader.identity().map(id -> id.motorised()).orElse(false)
         && reader.lostReason().isEmpty()) {
       reader.send(HostCommand.halt());
+    }
+    if (started != null && reader.lostReason().isEmpty()) {
+      reader.send(HostCommand.light(false));
     }
     if (recording == null) {
       return;

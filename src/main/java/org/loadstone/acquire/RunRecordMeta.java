@@ -30,6 +30,7 @@ final class RunRecordMeta {
   private final DecoderCounters atStart;
   private final double runStartTime_s;
   private final Instant startedAt;
+  private final Double lightAt_s;
 
   /**
    * @param template run metadata known before the start
@@ -37,9 +38,12 @@ final class RunRecordMeta {
    * @param settings the run's start and stop rules
    * @param started the start, as the run control declared it
    * @param reader the device reader, read now for its counters and the first sample's time
+   * @param lightAt_s device time (s, the ring's axis) at which the sync light was switched on,
+   *     or null when it was not
    */
   RunRecordMeta(RunMetadata template, double zero_counts, RunSettings settings,
-      RunControl.Started started, DeviceReader reader) {
+      RunControl.Started started, DeviceReader reader, Double lightAt_s) {
+    this.lightAt_s = lightAt_s;
     this.template = template;
     this.zero_counts = zero_counts;
     this.settings = settings;
@@ -108,15 +112,23 @@ final class RunRecordMeta {
         .extra(extra(t));
   }
 
-  /** The template's other fields, with a crush run's end rule in words under {@code crush_end}. */
+  /**
+   * The template's other fields, with a crush run's end rule in words under {@code crush_end}
+   * and the run time of the sync light when it was switched.
+   */
   private java.util.Map<String, Object> extra(RunMetadata t) {
-    if (settings.crushEnd() == null) {
+    if (settings.crushEnd() == null && lightAt_s == null) {
       return t.extra();
     }
     java.util.Map<String, Object> m = new java.util.LinkedHashMap<>(t.extra());
-    String words = settings.crushEnd().words();
-    m.put("crush_end", words.startsWith("by hand") ? words
-        : words + ", at the time limit or by hand");
+    if (settings.crushEnd() != null) {
+      String words = settings.crushEnd().words();
+      m.put("crush_end", words.startsWith("by hand") ? words
+          : words + ", at the time limit or by hand");
+    }
+    if (lightAt_s != null) {
+      m.put(RunMetadata.SYNC_LIGHT_KEY, lightAt_s - runStartTime_s);
+    }
     return m;
   }
 }

@@ -84,6 +84,12 @@ public record RunMetadata(
     Map<String, Object> extra,
     RunAmendments amendments) {
 
+  /**
+   * Key in {@link #extra()}: the run time (s) at which the sync light was switched on, written by
+   * the recorder when the device accepted {@code LIGHT on}.
+   */
+  public static final String SYNC_LIGHT_KEY = "sync_light_s";
+
   public RunMetadata {
     Precondition.notNull(runId, "runId");
     Precondition.notNull(startedAt, "startedAt");

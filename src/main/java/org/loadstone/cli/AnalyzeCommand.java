@@ -52,6 +52,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--position-table", paramLabel = "FILE", description = "Position from a position-time CSV (video tracking, dial gauge), aligned by the break unless --table-offset-s is given.")
   Path table;
 
+  @Option(names = "--video-table", paramLabel = "FILE", description = "Position from a video table written by 'loadstone track' (its sidecar gives the scale and the sync). Without this or another position source, a table stored beside the run is used.")
+  Path videoTable;
+
+  @Option(names = "--no-video", description = "Do not use a video table stored beside the run.")
+  boolean noVideo;
+
   @Option(names = "--table-map", defaultValue = "time=1,position=2", description = "Columns of the position table by header or 1-based number (default: ${DEFAULT-VALUE}).")
   String tableMap;
 
@@ -84,8 +90,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   private final java.util.List<String> warnings = new java.util.ArrayList<>();
+  private String usedVideo;
 
-  private RunAdjust adjust(RunAdjust a) {
+  private RunAdjust adjust(RunAdjust a, ResolvedRun r) {
     if (cal != null) {
       ScaleChoice c = ScaleChoice.fromCalibration(cal, java.time.LocalDate.now(), acceptChanged);
       warnings.addAll(c.warnings());
@@ -113,6 +120,23 @@ public final class AnalyzeCommand implements Callable<Integer> {
           LengthUnit.parse(tableLengthUnit), tableDecimalComma);
       a = a.withPositionTable(t, tableOffset);
     }
+    if (videoTable != null && (table != null || crossheadRate != null)) {
+      throw new org.loadstone.units.LoadstoneException("--video-table is a position source of "
+          + "its own: give it without --position-table or --crosshead-rate-mm-min");
+    }
+    Path video = videoTable;
+    if (video == null && !noVideo && table == null && crossheadRate == null
+        && !a.data().hasPosition()) {
+      video = storedVideoTable(r);
+    }
+    if (video != null) {
+      org.loadstone.video.VideoTable vt = org.loadstone.video.VideoTableFiles.read(video);
+      a = org.loadstone.study.VideoPosition.apply(a, vt);
+      usedVideo = String.format(Locale.ROOT, "position from the video table %s (%.6g mm/px "
+          + "± %.2f %%, %s)", video, vt.scale().mm_per_px(),
+          100 * vt.scale().relativeUncertainty(),
+          vt.sync() == null ? "synchronised by the break" : "sync by " + vt.sync().method());
+    }
     if (positionMeasures != null) {
       a = a.positionMeasures(org.loadstone.analysis.PositionSource.parse(positionMeasures));
     }
@@ -129,11 +153,21 @@ public final class AnalyzeCommand implements Callable<Integer> {
     return a;
   }
 
+  private static Path storedVideoTable(ResolvedRun r) {
+    try {
+      Path dir = Path.of(r.source()).toAbsolutePath().getParent();
+      return dir == null ? null
+          : org.loadstone.video.VideoTableFiles.storedFor(dir, r.metadata().runId());
+    } catch (java.nio.file.InvalidPathException e) {
+      return null;
+    }
+  }
+
   @Override
   public Integer call() throws Exception {
     AnalysisSettings settings = crush.apply(stiffness.apply(AnalysisSettings.DEFAULTS));
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
-    RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()));
+    RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()), r);
     RunMetrics m = RunMetrics.of(adj.metadata(), adj.data(), settings);
     Map<String, Object> j = m.toJsonMap();
     PrintWriter out = spec.commandLine().getOut();
@@ -148,6 +182,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
         "stiffness chosen by", s.method().words()));
     for (String w : warnings) {
       out.println("warning: " + w);
+    }
+    if (usedVideo != null) {
+      out.println("derived: " + usedVideo);
     }
     for (String note : adj.notes()) {
       out.println("derived: " + note);

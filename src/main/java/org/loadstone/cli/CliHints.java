@@ -47,6 +47,9 @@ final class CliHints {
       case IMPORT_DECIMAL_COMMA -> "--decimal-comma";
       case TABLE_DECIMAL_COMMA -> "--table-decimal-comma";
       case TABLE_OFFSET -> "--table-offset-s";
+      case VIDEO_FRAME_RATE -> "--fps";
+      case VIDEO_SYNC -> "--sync";
+      case TRACK_WINDOW -> "--search-px";
     };
   }
 

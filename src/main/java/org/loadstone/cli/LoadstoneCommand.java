@@ -32,6 +32,7 @@ import picocli.CommandLine.Command;
       ExportCommand.class,
       ReportCommand.class,
       FrameCommand.class,
+      TrackCommand.class,
       ConfigCommand.class,
       picocli.AutoComplete.GenerateCompletion.class,
       CommandLine.HelpCommand.class

@@ -258,6 +258,10 @@ public final class SimTransport implements Transport {
         }
       }
       case PING -> reply("A PING " + c.argument());
+      case LIGHT -> {
+        String a = c.argument().toLowerCase(java.util.Locale.ROOT);
+        reply(a.equals("on") || a.equals("off") ? "A LIGHT " + a : "N LIGHT bad-arg");
+      }
       case HALT -> {
         source.halt();
         reply("A HALT");

@@ -14,7 +14,8 @@ import org.loadstone.units.Precondition;
 public record HostCommand(Verb verb, String argument) {
   /** The command words. */
   public enum Verb {
-    WHO(false), START(false), STOP(false), RATE(true), PING(true), HALT(false), MODE(true);
+    WHO(false), START(false), STOP(false), RATE(true), PING(true), HALT(false), MODE(true),
+    LIGHT(true);
 
     private final boolean takesArgument;
 
@@ -58,6 +59,14 @@ public record HostCommand(Verb verb, String argument) {
   /** @return {@code HALT} */
   public static HostCommand halt() {
     return new HostCommand(Verb.HALT, "");
+  }
+
+  /**
+   * @param on true to light the sync light (the camera's shared instant), false to darken it
+   * @return {@code LIGHT on} or {@code LIGHT off}
+   */
+  public static HostCommand light(boolean on) {
+    return new HostCommand(Verb.LIGHT, on ? "on" : "off");
   }
 
   /** @param hz sample rate in Hz, greater than zero */

@@ -30,7 +30,8 @@ final class ConsoleHints {
       case SIM_SCENARIO -> "start the console with --scenario dead-weight";
       case SIM_SPEED -> "start the console with another --sim-speed";
       case IMPORT_TIME_UNIT, IMPORT_FORCE_UNIT, IMPORT_LENGTH_UNIT, IMPORT_DELIMITER,
-          IMPORT_DECIMAL_COMMA, TABLE_DECIMAL_COMMA, TABLE_OFFSET -> null;
+          IMPORT_DECIMAL_COMMA, TABLE_DECIMAL_COMMA, TABLE_OFFSET, VIDEO_FRAME_RATE, VIDEO_SYNC,
+          TRACK_WINDOW -> null;
     };
   }
 

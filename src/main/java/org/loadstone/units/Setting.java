@@ -65,7 +65,13 @@ public enum Setting {
   /** Whether a position table writes numbers with a decimal comma. */
   TABLE_DECIMAL_COMMA("decimal comma of the position table"),
   /** The time offset between a position table and the force record. */
-  TABLE_OFFSET("position table's time offset");
+  TABLE_OFFSET("position table's time offset"),
+  /** The capture rate of a clip (a folder of images, a slow-motion clip). */
+  VIDEO_FRAME_RATE("clip's capture frame rate"),
+  /** How a clip is brought onto the run's clock (break, sync light, offset). */
+  VIDEO_SYNC("clip's sync with the run"),
+  /** The size of the tracked template and of its search window. */
+  TRACK_WINDOW("tracker's template and search window");
 
   private final String label;
 

@@ -75,6 +75,23 @@ public final class BreakAlignment {
     return Double.NaN;
   }
 
+  /**
+   * The break instant of a force record alone: the midpoint of its steepest drop.
+   *
+   * @param t times, seconds, increasing, at least 3
+   * @param f forces, newtons, same length
+   * @throws LoadstoneException when the steepest drop does not stand out from the noise
+   */
+  public static double forceBreakTime_s(double[] t, double[] f) {
+    Precondition.notNull(t, "t");
+    Precondition.notNull(f, "f");
+    if (t.length != f.length || f.length < 3) {
+      throw new LoadstoneException("the force record has " + f.length + " samples; finding "
+          + "its break needs at least 3 with one force per time");
+    }
+    return forceBreak(t, f);
+  }
+
   static double forceBreak(double[] t, double[] f) {
     int n = f.length;
     double[] slope = new double[n - 1];
