@@ -51,6 +51,7 @@ public final class PdfReport {
    * @throws LoadstoneException when the file exists or cannot be written
    */
   public static void writeRun(RunMetrics m, Path file) {
+    org.loadstone.units.SlowWork.check("writing a report");
     Precondition.notNull(m, "metrics");
     Precondition.notNull(file, "file");
     RunMetadata md = m.metadata();
@@ -86,6 +87,7 @@ public final class PdfReport {
    *     be written
    */
   public static void writeGroups(String title, GroupStudy.Report study, Path file) {
+    org.loadstone.units.SlowWork.check("writing a report");
     Precondition.notNull(title, "title");
     Precondition.notNull(study, "study");
     Precondition.notNull(file, "file");

@@ -55,6 +55,7 @@ public final class ArchiveRuns {
    * @param before an earlier scan of the same folder, or null
    */
   public static ArchiveRuns rescan(Path dir, ArchiveRuns before) {
+    org.loadstone.units.SlowWork.check("reading the archive folder");
     ArchiveRuns now = scan(dir);
     if (before != null) {
       for (ArchiveIndex.Entry e : now.index.entries()) {
@@ -79,6 +80,7 @@ public final class ArchiveRuns {
 
   /** Analyses every run not analysed yet, so later selections need no file access. */
   public void analyseAll() {
+    org.loadstone.units.SlowWork.check("analysing the archive's runs");
     index.entries().forEach(this::analysis);
   }
 

@@ -39,12 +39,13 @@ class ConsoleWithoutScaleTest {
         null, archive, Map.of(), home));
     stage.setScene(new Scene(pane.root(), 1100, 700));
     stage.show();
-    pane.connect();
+    pane.connect().get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @AfterEach
   void stop() throws Exception {
-    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS);
+    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS)
+        .get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @Test

@@ -40,12 +40,13 @@ class LivePaneTest {
     pane.installKeys(scene);
     stage.setScene(scene);
     stage.show();
-    pane.connect();
+    pane.connect().get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @AfterEach
   void stop() throws Exception {
-    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS);
+    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS)
+        .get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @Test
