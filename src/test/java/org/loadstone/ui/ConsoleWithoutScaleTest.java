@@ -39,6 +39,8 @@ class ConsoleWithoutScaleTest {
         null, archive, Map.of(), home));
     stage.setScene(new Scene(pane.root(), 1100, 700));
     stage.show();
+    // a specimen id, as an operator types before arming (an empty one is refused)
+    ((javafx.scene.control.TextField) pane.root().lookup("#specimen-field")).setText("cal-00");
     pane.connect().get(HangGuard.S, TimeUnit.SECONDS);
   }
 
