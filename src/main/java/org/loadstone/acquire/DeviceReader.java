@@ -340,6 +340,7 @@ public final class DeviceReader implements AutoCloseable {
   /** Stops the device streaming, ends the thread and closes the link. */
   @Override
   public void close() {
+    org.loadstone.units.SlowWork.check("closing the device (waiting for its reader thread)");
     if (running && transport.isOpen()) {
       try {
         transport.write(HostCommand.stop().toWire());

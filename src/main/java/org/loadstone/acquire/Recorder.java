@@ -201,6 +201,7 @@ public final class Recorder implements AutoCloseable {
    * @return the result, or empty when the wait ended before a run (stopped while armed) or failed
    */
   public java.util.Optional<Result> await(long timeout, TimeUnit unit) throws InterruptedException {
+    org.loadstone.units.SlowWork.check("waiting for a run to be stored");
     done.await(timeout, unit);
     return java.util.Optional.ofNullable(result);
   }
@@ -426,6 +427,7 @@ public final class Recorder implements AutoCloseable {
   /** Stops the recorder's thread (the run, if any, is left to the journal's recovery). */
   @Override
   public void close() {
+    org.loadstone.units.SlowWork.check("waiting for the run's thread to end");
     closing = true;
     try {
       thread.join(5000);

@@ -45,6 +45,7 @@ public final class JournalRecovery {
    *     disk full); those journals stay where they are and the message names them
    */
   public static List<StoredRun> recoverAll(Path archiveDir, Consumer<String> notices) {
+    org.loadstone.units.SlowWork.check("recovering runs from journals");
     Precondition.notNull(archiveDir, "archiveDir");
     Precondition.notNull(notices, "notices");
     Path dir = JournalFormat.journalDir(archiveDir);

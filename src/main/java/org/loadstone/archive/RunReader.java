@@ -23,6 +23,7 @@ public final class RunReader {
    *     and for the CSV the line and column (missing cells, non-numbers, NaN, time out of order)
    */
   public static Run read(Path csvOrJsonOrStem) {
+    org.loadstone.units.SlowWork.check("reading a run");
     Precondition.notNull(csvOrJsonOrStem, "csvOrJsonOrStem");
     Path stem = stem(csvOrJsonOrStem);
     String name = stem.getFileName().toString();

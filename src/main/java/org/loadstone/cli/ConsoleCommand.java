@@ -21,7 +21,7 @@ public final class ConsoleCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
   @Mixin ArchiveOption archive;
 
-  @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file for a serial device.")
+  @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file of the cell (a serial device or the simulated frame).")
   java.nio.file.Path cal;
 
   @Option(names = "--capacity-N", description = "The load cell's rated capacity (default: from the calibration's cell profile).")
@@ -42,18 +42,26 @@ public final class ConsoleCommand implements Callable<Integer> {
     if (zeroDriftLimit != null) {
       new ZeroCheck(zeroDriftLimit); // refused here rather than at the first run
     }
-    ConsoleConfig config;
-    if (device.simulated()) {
-      config = DefaultDevice.simulated(device.simSetup(), archive.folder(),
-          SafetyNotice.defaultHome(), zeroDriftLimit);
-    } else {
-      // no calibration and no nominal sensitivity: the live view shows counts, runs are refused
-      ScaleChoice scale = ScalePolicy.choose(cal, countsPerN, null, LocalDate.now());
-      config = new ConsoleConfig(device.port, device::open, scale, capacity, zeroDriftLimit,
-          null, archive.folder(), Map.of(), SafetyNotice.defaultHome());
-    }
-    ConsoleApp.configure(config);
+    ConsoleApp.configure(config(LocalDate.now()));
     ConsoleLauncher.launch(new String[0]);
     return 0;
+  }
+
+  /**
+   * The console's set-up from the options: the scale by the one policy of {@link ScalePolicy}
+   * on a serial device and on the simulated frame alike (a calibration made on the simulator's
+   * dead weights applies to its specimens).
+   */
+  ConsoleConfig config(LocalDate today) {
+    var sim = device.simulated() ? device.simSetup() : null;
+    // no calibration and no nominal sensitivity on a serial device: the live view shows counts,
+    // runs are refused
+    ScaleChoice scale = ScalePolicy.choose(cal, countsPerN, sim, today);
+    if (sim != null) {
+      return DefaultDevice.simulated(sim, scale, capacity, archive.folder(),
+          SafetyNotice.defaultHome(), zeroDriftLimit);
+    }
+    return new ConsoleConfig(device.port, device::open, scale, capacity, zeroDriftLimit, null,
+        archive.folder(), Map.of(), SafetyNotice.defaultHome());
   }
 }

@@ -17,6 +17,7 @@ public final class DeviceOpener {
    * @throws LoadstoneException when the port cannot be opened, naming it and the likely fix
    */
   public static Transport open(String port, SerialSettings serial, Supplier<Transport> simulated) {
+    org.loadstone.units.SlowWork.check("opening the port");
     if (port == null || port.isBlank()) {
       throw new LoadstoneException("no port given: choose the built-in simulated frame or the "
           + "serial port the board is plugged into", org.loadstone.units.Setting.PORT);

@@ -74,6 +74,7 @@ public record SimSetup(String scenario, long seed, double rateHz, boolean hand, 
 
   /** @return a simulated device streaming this model */
   public SimTransport openTransport() {
+    org.loadstone.units.SlowWork.check("opening the port");
     return new SimTransport(new FrameSampleSource(buildFrame()), speed, 100);
   }
 

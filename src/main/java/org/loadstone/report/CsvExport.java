@@ -34,6 +34,7 @@ public final class CsvExport {
    * @throws LoadstoneException when the marks are refused, the file exists or writing fails
    */
   public static void write(RunData data, Path file, char delimiter, char decimalMark) {
+    org.loadstone.units.SlowWork.check("writing an export");
     Precondition.notNull(data, "data");
     Precondition.notNull(file, "file");
     if (delimiter != ',' && delimiter != ';' && delimiter != '\t') {

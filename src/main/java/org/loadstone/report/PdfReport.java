@@ -64,6 +64,7 @@ public final class PdfReport {
    * @throws LoadstoneException when the file exists or cannot be written
    */
   public static void writeRun(RunMetrics m, String source, Path file) {
+    org.loadstone.units.SlowWork.check("writing a report");
     Precondition.notNull(m, "metrics");
     Precondition.notNull(source, "source");
     Precondition.notNull(file, "file");
@@ -97,6 +98,7 @@ public final class PdfReport {
   /** {@link #writeGroups(String, GroupStudy.Report, Path)}, telling {@code charts} each chart. */
   static void writeGroups(String title, GroupStudy.Report study, Path file,
       java.util.function.Consumer<org.jfree.chart.JFreeChart> charts) {
+    org.loadstone.units.SlowWork.check("writing a report");
     Precondition.notNull(title, "title");
     Precondition.notNull(study, "study");
     Precondition.notNull(file, "file");

@@ -21,6 +21,7 @@ public final class PngExport {
    * @throws LoadstoneException when the file exists, the size is out of range or writing fails
    */
   public static void write(JFreeChart chart, Path file, int width_px, int height_px) {
+    org.loadstone.units.SlowWork.check("writing a chart image");
     Precondition.notNull(chart, "chart");
     Precondition.notNull(file, "file");
     if (width_px < 16 || height_px < 16 || width_px > 10_000 || height_px > 10_000) {

@@ -84,6 +84,7 @@ public final class ArchiveRuns {
    * @param before an earlier scan of the same folder, or null
    */
   public static ArchiveRuns rescan(Path dir, ArchiveRuns before) {
+    org.loadstone.units.SlowWork.check("reading the archive folder");
     ArchiveRuns now = scan(dir);
     if (before != null) {
       for (ArchiveIndex.Entry e : now.index.entries()) {
@@ -113,6 +114,7 @@ public final class ArchiveRuns {
    * {@link #select} alone.
    */
   public void analyseAll() {
+    org.loadstone.units.SlowWork.check("analysing the archive's runs");
     for (ArchiveIndex.Entry e : index.entries()) {
       Analysed a = analysis(e);
       if (a.metrics() != null) {

@@ -103,6 +103,7 @@ public record RunMetrics(
    *     RunAnalyzer#analyze}) or the sandwich thicknesses disagree
    */
   public static RunMetrics of(RunMetadata metadata, RunData data, AnalysisSettings settings) {
+    org.loadstone.units.SlowWork.check("analysing a run");
     Precondition.notNull(metadata, "metadata");
     Precondition.notNull(data, "data");
     Precondition.notNull(settings, "settings");

@@ -28,6 +28,9 @@ public final class ConsoleApp extends Application {
 
   @Override
   public void start(Stage stage) {
+    // slow work on the window's thread freezes the readout at the press: report any that slips in
+    org.loadstone.units.SlowWork.guard(Thread.currentThread(),
+        what -> System.err.println("console: " + what + " ran on the window's thread"));
     ConsoleConfig c = config();
     live = new LivePane(c);
     ArchivePane archive = new ArchivePane(c.archive());
@@ -62,11 +65,20 @@ public final class ConsoleApp extends Application {
 
   @Override
   public void stop() {
+    org.loadstone.units.SlowWork.unguard(); // the window is closing: waiting is fine now
     if (calibrate != null) {
       calibrate.close();
     }
     if (live != null) {
-      live.disconnect();
+      try {
+        // the device is told to stop streaming and a run in progress is stored before exit
+        live.disconnect().get(30, java.util.concurrent.TimeUnit.SECONDS);
+      } catch (InterruptedException e) {
+        Thread.currentThread().interrupt();
+      } catch (java.util.concurrent.ExecutionException
+          | java.util.concurrent.TimeoutException e) {
+        System.err.println("console: the device did not close cleanly: " + e.getMessage());
+      }
     }
   }
 }

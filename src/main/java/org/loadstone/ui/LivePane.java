@@ -1,6 +1,8 @@
 package org.loadstone.ui;
 
 import java.util.Locale;
+import java.util.concurrent.CompletableFuture;
+import javafx.application.Platform;
 import javafx.animation.AnimationTimer;
 import javafx.geometry.Insets;
 import javafx.geometry.Pos;
@@ -62,6 +64,15 @@ final class LivePane {
   private volatile RunSetup setup;
   private AnimationTimer timer;
   private long lastChartNanos;
+  /** Opening and closing the device, in order, off the JavaFX thread. */
+  private static final java.util.concurrent.Executor LINK = java.util.concurrent.Executors
+      .newSingleThreadExecutor(r -> {
+        Thread t = new Thread(r, "device link");
+        t.setDaemon(true);
+        return t;
+      });
+  /** The last open or close asked for: the next one runs after it. */
+  private volatile CompletableFuture<Void> linkWork = CompletableFuture.completedFuture(null);
 
   LivePane(ConsoleConfig config) {
     this.config = config;
@@ -265,51 +276,93 @@ final class LivePane {
     plotAxis.setText(againstTravel ? "Plot against time  [X]" : "Plot against crosshead  [X]");
   }
 
-  /** Opens the device and starts the display timer. */
-  void connect() {
-    disconnect();
+  /**
+   * Opens the device off the JavaFX thread (a serial board may take seconds to reset), then
+   * starts the display timer on it. A connect after a disconnect waits for that to finish.
+   *
+   * @return done when the device is open and streaming (or could not be opened)
+   */
+  CompletableFuture<Void> connect() {
+    stopTimer();
+    link = StationStatus.Link.CONNECTING;
+    linkWork = linkWork.thenRunAsync(() -> {
+      close();
+      open();
+    }, LINK);
+    return linkWork;
+  }
+
+  /** On the link thread: opens the transport and the reader, then shows it live. */
+  private void open() {
     Transport t;
     try {
       t = config.connect().get();
     } catch (LoadstoneException e) {
-      showLost(ConsoleHints.withHow(e));
+      String why = ConsoleHints.withHow(e);
+      Platform.runLater(() -> showLost(why));
       return;
     }
-    reader = new DeviceReader(t, new SampleRing(1 << 20));
-    reader.addListener(new DeviceReader.Listener() {
+    DeviceReader r = new DeviceReader(t, new SampleRing(1 << 20));
+    LiveFeed f = new LiveFeed(r, displayScale(), WINDOW_S);
+    r.addListener(new DeviceReader.Listener() {
       @Override
       public void onMessage(org.loadstone.protocol.DeviceMessage m) {
-        if (m instanceof org.loadstone.protocol.DeviceMessage.Identity id && feed != null) {
-          feed.setCountsPerMm(id.countsPerMm());
+        if (m instanceof org.loadstone.protocol.DeviceMessage.Identity id) {
+          f.setCountsPerMm(id.countsPerMm());
         }
       }
     });
-    feed = new LiveFeed(reader, displayScale(), WINDOW_S);
-    feed.tare(20); // zero on connect, as the specimen is not yet loaded
-    setup = new RunSetup(reader, config.archive(), config.simulated(), config.deviceFields(),
+    f.tare(20); // zero on connect, as the specimen is not yet loaded
+    RunSetup s = new RunSetup(r, config.archive(), config.simulated(), config.deviceFields(),
         java.time.Clock.systemUTC());
-    reader.start();
-    reconnect.setVisible(false);
-    reconnect.setManaged(false);
-    link = StationStatus.Link.LIVE;
-    lostReason = null;
-    timer = new AnimationTimer() {
-      @Override
-      public void handle(long now) {
-        refresh(now);
+    r.start();
+    feed = f;
+    setup = s;
+    reader = r;
+    Platform.runLater(() -> {
+      if (reader != r) {
+        return; // disconnected meanwhile
       }
-    };
-    timer.start();
+      reconnect.setVisible(false);
+      reconnect.setManaged(false);
+      link = StationStatus.Link.LIVE;
+      lostReason = null;
+      timer = new AnimationTimer() {
+        @Override
+        public void handle(long now) {
+          refresh(now);
+        }
+      };
+      timer.start();
+    });
   }
 
-  void disconnect() {
+  private void stopTimer() {
     if (timer != null) {
       timer.stop();
+      timer = null;
     }
+  }
+
+  /**
+   * Stops the display at once and closes the device off the JavaFX thread (a run in progress is
+   * stopped and stored first; the reader's thread may take seconds to end).
+   *
+   * @return done when the device is closed
+   */
+  CompletableFuture<Void> disconnect() {
+    stopTimer();
+    linkWork = linkWork.thenRunAsync(this::close, LINK);
+    return linkWork;
+  }
+
+  /** On the link thread: stores a run in progress and closes the device, if any. */
+  private void close() {
+    DeviceReader r = reader;
+    reader = null;
     run.close();
-    if (reader != null) {
-      reader.close();
-      reader = null;
+    if (r != null) {
+      r.close();
     }
   }
 
@@ -368,7 +421,7 @@ final class LivePane {
       }
     }
     if (s.deviceLost() != null) {
-      timer.stop();
+      stopTimer();
       showLost(s.deviceLost());
     }
   }

@@ -1,7 +1,9 @@
 package org.loadstone.ui;
 
 import java.util.List;
+import java.util.LinkedHashMap;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.TimeUnit;
 import javafx.application.Platform;
 import javafx.scene.Parent;
@@ -22,6 +24,7 @@ import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.RunTemplate;
 import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.acquire.StationStatus;
+import org.loadstone.archive.SpecimenIds;
 import org.loadstone.device.PressOperator;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.units.LoadstoneException;
@@ -49,13 +52,12 @@ final class RunPanel {
   private final ConsoleConfig config;
   private final Device device;
   private final Runnable onArmed;
-  private final TextField specimenField = field("specimen-field", "specimen id");
-  private final TextField groupField = field("group-field", "group (e.g. balsa)");
-  private final TextField massField = field("mass-field", "mass (g)");
   private final Label runResult = LivePane.label("run-result", "");
   /** The last run's figures, read back from the archive. */
   private final RunFigures figures = new RunFigures();
-  private final SpecimenFields specimenFields = new SpecimenFields();
+  private final RunForm form;
+  /** The specimen id of the run armed last. */
+  private volatile String armedSpecimen;
   private final VBox root;
   /** Arm, stop (and next specimen on the simulated press), for the state band. */
   private final HBox actions;
@@ -81,7 +83,6 @@ final class RunPanel {
   private boolean armQueued;
   /** Journals left by a run that never finished are being stored: no new run until then. */
   private volatile boolean recovering;
-  private int runCount;
 
   /**
    * @param config the console's device and archive
@@ -93,12 +94,10 @@ final class RunPanel {
     this.config = config;
     this.device = device;
     this.onArmed = onArmed;
+    this.form = new RunForm(config.home(), this::arm);
     Button arm = new Button("Arm run  [A]");
     arm.setId("arm-button");
     arm.setOnAction(e -> arm());
-    for (TextField f : new TextField[] {specimenField, groupField, massField}) {
-      f.setOnAction(e -> arm()); // Enter after typing the specimen arms the run
-    }
     Button stop = new Button("Stop run  [S]");
     stop.setId("stop-button");
     stop.setOnAction(e -> stop());
@@ -106,11 +105,8 @@ final class RunPanel {
     stop.setMaxWidth(Double.MAX_VALUE);
     HBox buttons = new HBox(8, arm, stop);
     buttons.getStyleClass().add("run-actions");
-    HBox idLine = new HBox(8, groupField, massField);
-    HBox.setHgrow(groupField, Priority.ALWAYS);
-    massField.setPrefWidth(110);
-    root = new VBox(6, LivePane.label("run-caption", "RUN"), specimenField, idLine,
-        specimenFields.node());
+    root = new VBox(6, LivePane.label("run-caption", "RUN"));
+    root.getChildren().addAll(form.nodes());
     if (config.deviceFields().containsKey("sim_scenario")) {
       // the simulated press: the program stands in for the hands that change the specimen
       Button next = new Button("Next specimen  [N]");
@@ -163,6 +159,12 @@ final class RunPanel {
         && r.status().state() != RunControl.State.FINISHED && r.failure().isEmpty())) {
       return;
     }
+    if (form.idMissing()) {
+      armQueued = false;
+      runResult.setText("type the specimen's id first (after each run the next id is filled in)");
+      form.focusId();
+      return;
+    }
     if (reader == null || feed == null || setup == null || feed.taring() || recovering) {
       armQueued = true; // never lost: armed as soon as the zero is done (S cancels)
       note = null;
@@ -174,18 +176,16 @@ final class RunPanel {
     RunSetup.Request request;
     JournalRunStore store;
     try {
-      Double mass_g = mass();
-      specimenFields.geometry(); // refused here, before arming, when a size is not a number
-      String specimen = specimenField.getText().isBlank() ? "specimen-" + (++runCount)
-          : specimenField.getText().trim();
-      request = new RunSetup.Request(new RunTemplate(specimen, groupField.getText().trim(),
-          List.of(), "", "", mass_g, specimenFields.geometry(), specimenFields.testType()),
+      RunTemplate template = form.template(); // a bad mass or size is refused before arming
+      request = new RunSetup.Request(template,
           device.scale(), config.ratedCapacity_N(), RunSettings.builder(),
           config.zeroDriftLimit_N(), null, false,
           String.valueOf(RunPanel.class.getPackage().getImplementationVersion()));
       RunSetup.check(request, config.deviceLabel());
       store = new JournalRunStore(config.archive());
       store.checkWritable();
+      form.remember();
+      armedSpecimen = template.specimen();
     } catch (LoadstoneException e) {
       runResult.setText(ConsoleHints.withHow(e));
       return;
@@ -217,17 +217,25 @@ final class RunPanel {
           text -> note = text);
       startThreshold_N = p.settings().startThreshold_N();
       feed.useZero(p.zero_counts());
+      List<String> before = SpecimenIds.runsOf(config.archive(),
+          request.template().specimen());
       Recorder rec = setup.recorder(p, store, new Events());
       recorder = rec;
       rec.arm(p.decideFrom());
       if (stopWhilePreparing) {
         rec.stop();
       }
+      List<String> notes = new java.util.ArrayList<>();
+      if (!before.isEmpty()) {
+        notes.add("specimen " + request.template().specimen() + " was tested before ("
+            + before.get(before.size() - 1) + (before.size() > 1 ? " and " + (before.size() - 1)
+            + " more" : "") + "): this run is stored beside it, not over it");
+      }
+      notes.addAll(p.warnings());
       Platform.runLater(() -> {
         preparing = false;
         onArmed.run();
-        runResult.setText(p.warnings().isEmpty() ? "" : "note: " + String.join(" · ",
-            p.warnings()));
+        runResult.setText(notes.isEmpty() ? "" : "note: " + String.join(" · ", notes));
       });
     } catch (LoadstoneException e) {
       Platform.runLater(() -> {
@@ -256,9 +264,9 @@ final class RunPanel {
     runResult.setText("a new specimen is in the press: arm to load it");
   }
 
-  /** The mass typed in, or null when the field is empty. */
-  private Double mass() {
-    return SpecimenFields.number(massField, "mass", "grams");
+  /** @return the run form */
+  RunForm form() {
+    return form;
   }
 
   void stop() {
@@ -384,7 +392,11 @@ final class RunPanel {
       String text = String.format(Locale.ROOT, "run %s: %s · %d samples", r.stored().runId(),
           r.cause().wireName(), r.samples()) + (r.returnToZero_N() == null ? ""
               : String.format(Locale.ROOT, " · return to zero %+.3g N", r.returnToZero_N()));
-      Platform.runLater(() -> runResult.setText(text));
+      String tested = armedSpecimen;
+      Platform.runLater(() -> {
+        runResult.setText(text);
+        form.advance(tested);
+      });
       figures.analyse(r.stored().csv(),
           why -> runResult.setText(runResult.getText() + " · not analysed: " + why));
     }

@@ -76,6 +76,47 @@ final class SpecimenFields {
     return pane;
   }
 
+  private java.util.Map<String, TextField> sizes() {
+    java.util.Map<String, TextField> m = new java.util.LinkedHashMap<>();
+    m.put("span_mm", span);
+    m.put("load_span_mm", loadSpan);
+    m.put("width_mm", width);
+    m.put("depth_mm", depth);
+    m.put("facing_mm", facing);
+    m.put("core_mm", core);
+    m.put("area_mm2", area);
+    return m;
+  }
+
+  /** @return the test type and the sizes as typed, for the form's memory */
+  java.util.Map<String, String> values() {
+    java.util.Map<String, String> m = new java.util.LinkedHashMap<>();
+    m.put("test_type", testType().wireName());
+    sizes().forEach((k, f) -> m.put(k, f.getText().trim()));
+    return m;
+  }
+
+  /** Fills the test type and sizes from the form's memory (unknown or bad entries skipped). */
+  void restore(java.util.Map<String, String> values) {
+    String t = values.get("test_type");
+    if (t != null) {
+      try {
+        test.setValue(TestType.parse(t));
+      } catch (LoadstoneException | IllegalArgumentException unknown) {
+        // a type this version does not know: keep the default
+      }
+    }
+    sizes().forEach((k, f) -> {
+      String v = values.get(k);
+      if (v != null) {
+        f.setText(v);
+      }
+    });
+    if (sizes().values().stream().anyMatch(f -> !f.getText().isBlank())) {
+      pane.setExpanded(true); // sizes carried over: show them, so they are seen before a run
+    }
+  }
+
   TestType testType() {
     return test.getValue() == null ? TestType.THREE_POINT_BEND : test.getValue();
   }

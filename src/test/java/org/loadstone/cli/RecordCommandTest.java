@@ -63,7 +63,8 @@ class RecordCommandTest {
       java.util.function.BooleanSupplier recording, java.util.function.Supplier<String> said)
       throws InterruptedException {
     Path dir = archive.resolve(".journal");
-    while (true) {
+    long deadline = System.nanoTime() + java.util.concurrent.TimeUnit.SECONDS.toNanos(HangGuard.S);
+    while (System.nanoTime() < deadline) {
       if (!recording.getAsBoolean()) {
         throw new AssertionError("the recorder ended before its journal held " + samples
             + " samples: " + said.get());
@@ -79,6 +80,8 @@ class RecordCommandTest {
       }
       Thread.sleep(20);
     }
+    throw new AssertionError("the journal in " + dir + " never held " + samples
+        + " samples (a hang guard, not a timing limit: the stream stopped or record never began)");
   }
 
   @Test
@@ -202,11 +205,15 @@ class RecordCommandTest {
     assertThat(r2.err()).contains("--capacity-N");
   }
 
-  /** A simulated ductile specimen (seed 4, 1 kS/s, 60 s) streamed into the pair's other end. */
+  /**
+   * A simulated ductile specimen (seed 4, 1 kS/s) streamed into the pair's other end for an hour,
+   * longer than any test waits, so a slow start of record on a busy machine never finds the
+   * stream already ended; the stream stops when the pair is killed.
+   */
   private static void streamDuctile(SocatPair pty) {
     Thread writer = new Thread(() -> LoadstoneCommand.run(new PrintWriter(new StringWriter()),
         new PrintWriter(new StringWriter()), "simulate", "--scenario", "ductile", "--rate",
-        "1000", "--seconds", "60", "--seed", "4", "--out", pty.a().toString()));
+        "1000", "--seconds", "3600", "--seed", "4", "--out", pty.a().toString()));
     writer.setDaemon(true);
     writer.start();
   }
@@ -284,7 +291,8 @@ class RecordCommandTest {
     ProcessBuilder pb = new ProcessBuilder(Path.of(System.getProperty("java.home"), "bin", "java")
         .toString(), "-cp", System.getProperty("java.class.path"), "org.loadstone.Main", "record",
         "--port", "sim", "--scenario", "panel-foam", "--seed", "9", "--rate", "1000",
-        "--specimen", "crash-01", "--manual-start", "--archive", tmp.toString());
+        "--specimen", "crash-01", "--manual-start", "--sim-start-delay-s", "60", "--archive",
+        tmp.toString());
     pb.redirectErrorStream(true);
     Process p = pb.start();
     BufferedReader lines = new BufferedReader(
@@ -307,12 +315,23 @@ class RecordCommandTest {
     // seen in the journal before the kill is recovered
     int n = run.data().size();
     assertThat(n).isGreaterThanOrEqualTo(2000);
-    // and what was recovered is bit-exact with the simulator's stream for the same seed
+    // and what was recovered is bit-exact with the simulator's stream for the same seed, from the
+    // sample the run began at (a busy machine arms later: the run begins further into the
+    // stream). The press starts 60 simulated seconds after arming, later than the kill, so the
+    // stream is the unloaded cell's whatever the moment of arming.
     SimulatedFrame truth = new SimSetup("panel-foam", 9, 1000, false, 1).buildFrame();
     int[] counts = run.data().rawCounts();
     int[] seq = run.data().seq();
-    int[] mismatch = {0};
-    for (int i = 0; i < n; i++) {
+    int[] first = {-1, 0}; // the simulated stream's sequence number and counts
+    for (int i = 0; i < 10_000_000 && first[0] != seq[0]; i++) {
+      truth.next((s, us, load, pos) -> {
+        first[0] = s;
+        first[1] = load;
+      });
+    }
+    assertThat(first[0]).as("the run's first sample is in the simulated stream").isEqualTo(seq[0]);
+    int[] mismatch = {first[1] == counts[0] ? 0 : 1};
+    for (int i = 1; i < n; i++) {
       int k = i;
       truth.next((s, us, load, pos) -> {
         if (s != seq[k] || load != counts[k]) {

@@ -57,6 +57,8 @@ class ConsoleAppTest extends FxRobot {
     assertThat(state.getText()).isEqualTo("NOT ARMED");
     WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
         () -> !lookup("#raw-value").queryAs(Label.class).getText().contains("zeroing"));
+    interact(() -> lookup("#specimen-field").queryAs(javafx.scene.control.TextField.class)
+        .setText("app-01"));
     clickOn("#force-value").type(KeyCode.A); // on the Live tab: arm
     WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> !state.getText().equals("NOT ARMED"));
     type(KeyCode.S);

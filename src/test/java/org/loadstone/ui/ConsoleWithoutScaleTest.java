@@ -39,12 +39,15 @@ class ConsoleWithoutScaleTest {
         null, archive, Map.of(), home));
     stage.setScene(new Scene(pane.root(), 1100, 700));
     stage.show();
-    pane.connect();
+    // a specimen id, as an operator types before arming (an empty one is refused)
+    ((javafx.scene.control.TextField) pane.root().lookup("#specimen-field")).setText("cal-00");
+    pane.connect().get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @AfterEach
   void stop() throws Exception {
-    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS);
+    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS)
+        .get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @Test

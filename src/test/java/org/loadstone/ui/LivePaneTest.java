@@ -40,12 +40,15 @@ class LivePaneTest {
     pane.installKeys(scene);
     stage.setScene(scene);
     stage.show();
-    pane.connect();
+    // a specimen id, as an operator types before arming (an empty one is refused)
+    ((javafx.scene.control.TextField) pane.root().lookup("#specimen-field")).setText("gui-00");
+    pane.connect().get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @AfterEach
   void stop() throws Exception {
-    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS);
+    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS)
+        .get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @Test
@@ -238,7 +241,7 @@ class LivePaneTest {
     robot.type(javafx.scene.input.KeyCode.A); // the keyboard, to whatever has the focus
     WaitForAsyncUtils.waitForFxEvents();
     var specimen = robot.lookup("#specimen-field").queryAs(javafx.scene.control.TextField.class);
-    assertThat(specimen.getText()).isEmpty(); // not typed into the specimen field
+    assertThat(specimen.getText()).isEqualTo("gui-00"); // not typed into the specimen field
     WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> armedOrLater(robot));
   }
 

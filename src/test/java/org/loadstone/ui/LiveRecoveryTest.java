@@ -51,7 +51,8 @@ class LiveRecoveryTest {
 
   @AfterEach
   void stop() throws Exception {
-    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS);
+    WaitForAsyncUtils.asyncFx(() -> pane.disconnect()).get(HangGuard.S, TimeUnit.SECONDS)
+        .get(HangGuard.S, TimeUnit.SECONDS);
   }
 
   @Test
