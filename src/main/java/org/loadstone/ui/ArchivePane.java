@@ -177,14 +177,21 @@ final class ArchivePane {
   }
 
   /** Scans the folder and analyses every run not analysed before, off the JavaFX thread. */
+  /** Readings of the folder asked for, on the JavaFX thread: only the last one is shown. */
+  private long reloads;
+
   void reload() {
     Path dir = Path.of(folder.getText().trim());
     ArchiveRuns before = archive;
+    long asked = ++reloads; // a slower, older reading must not replace this one when it ends
     status.setText("reading " + dir + " …");
     Thread t = new Thread(() -> {
       try {
         if (!java.nio.file.Files.isDirectory(dir)) {
           Platform.runLater(() -> {
+            if (asked != reloads) {
+              return;
+            }
             archive = null;
             select();
             status.setText("no runs yet: " + dir + " does not exist (runs stored from the Live "
@@ -195,11 +202,17 @@ final class ArchivePane {
         ArchiveRuns runs = ArchiveRuns.rescan(dir, before);
         runs.analyseAll(); // so that ticking a box needs no file access on this thread
         Platform.runLater(() -> {
-          archive = runs;
-          select();
+          if (asked == reloads) {
+            archive = runs;
+            select();
+          }
         });
       } catch (LoadstoneException e) {
-        Platform.runLater(() -> status.setText(ConsoleHints.withHow(e)));
+        Platform.runLater(() -> {
+          if (asked == reloads) {
+            status.setText(ConsoleHints.withHow(e));
+          }
+        });
       }
     }, "archive review");
     t.setDaemon(true);

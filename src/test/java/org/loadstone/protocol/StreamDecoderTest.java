@@ -123,6 +123,6 @@ class StreamDecoderTest {
         .isEqualTo(new HostCommand.Parsed.Rejected("FLY", "bad-command"));
     assertThat(HostCommand.parse("RATE fast"))
         .isEqualTo(new HostCommand.Parsed.Rejected("RATE", "bad-arg"));
-    assertThat(List.of(HostCommand.Verb.values())).hasSize(7);
+    assertThat(List.of(HostCommand.Verb.values())).hasSize(8); // LIGHT: the sync light for video
   }
 }
