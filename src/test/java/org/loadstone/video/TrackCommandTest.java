@@ -70,6 +70,9 @@ class TrackCommandTest {
     s.marker = tau -> new double[] {80,
         25 + (VideoSyncTest.interp(t, x, tau - offset) - x[0]) / mmPerPx};
     s.reference = new double[] {28, 100};
+    // the recorder's sync light, filmed: on from clip time sync_light_s + offset
+    s.lamp = new PixelRegion(140, 4, 12, 10);
+    s.lampOn_s = ((Number) light).doubleValue() + offset;
     Path clip = tmp.resolve("b5.avi");
     int frames = (int) ((t[t.length - 1] + offset) * 30);
     try (ClipWriter w = new ClipWriter(clip, ClipWriter.Kind.MJPEG_AVI, 160, 120, 30, 30, 0)) {
@@ -105,12 +108,15 @@ class TrackCommandTest {
     // stiffness search asks for by default (DEVELOPERS.md, "How the stiffness is chosen")
     assertThat(kVideo).isCloseTo(kOwn, Percentage.withPercentage(3));
 
-    // a second tracking of the same run is stored beside the first, never over it
+    // a second tracking of the same run, synchronised by the light this time, is stored beside
+    // the first, never over it; the light gives the offset within one frame (1/30 s)
     Out again = cli("track", clip.toString(), "--point", "80,25", "--scale", scale, "--sync",
-        "offset", Double.toString(offset), "--run", id, "--archive", archive.toString(),
-        "--json");
+        "light", "140,4,12,10", "--run", id, "--archive", archive.toString(), "--json");
     assertThat(again.exit()).as(again.err()).isZero();
     assertThat(again.json().get("table").asText()).endsWith(id + "-2.csv");
+    assertThat(again.json().get("sync_method").asText()).isEqualTo("light");
+    assertThat(again.json().get("offset_s").asDouble())
+        .isBetween(offset - 1e-9, offset + 1.0 / 30 + 1e-9);
   }
 
   @Test
