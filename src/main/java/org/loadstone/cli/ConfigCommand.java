@@ -19,8 +19,10 @@ import picocli.CommandLine.Option;
     description = {
       "Show the defaults in effect and where each comes from.",
       "",
-      "Archive, port, calibration and operator: an option typed wins, then the environment (LOADSTONE_ARCHIVE,",
-      "LOADSTONE_PORT, LOADSTONE_CALIBRATION, LOADSTONE_OPERATOR), then the config file",
+      "Archive, port, calibration, operator, and the force and length units of imported",
+      "files whose header states none: an option typed wins, then the environment",
+      "(LOADSTONE_ARCHIVE, _PORT, _CALIBRATION, _OPERATOR, _FORCE_UNIT, _LENGTH_UNIT),",
+      "then the config file",
       "($LOADSTONE_CONFIG, else $XDG_CONFIG_HOME/loadstone/config.properties, else",
       "~/.config/loadstone/config.properties: 'key = value' lines), then what is built in."
     })
@@ -32,8 +34,7 @@ public final class ConfigCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    UserConfig c = spec.commandLine().getDefaultValueProvider() instanceof ConfigDefaults d
-        ? d.config() : UserConfig.current();
+    UserConfig c = ConfigDefaults.of(spec);
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
     if (json) {

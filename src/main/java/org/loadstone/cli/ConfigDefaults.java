@@ -24,6 +24,12 @@ final class ConfigDefaults implements CommandLine.IDefaultValueProvider {
     this.config = config;
   }
 
+  /** @return the defaults a command runs with: its line's provider's, else the process's */
+  static UserConfig of(CommandLine.Model.CommandSpec spec) {
+    return spec.commandLine().getDefaultValueProvider() instanceof ConfigDefaults d ? d.config()
+        : UserConfig.current();
+  }
+
   /** @return the defaults these options take */
   UserConfig config() {
     return config;

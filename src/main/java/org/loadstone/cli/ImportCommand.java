@@ -42,10 +42,10 @@ public final class ImportCommand implements Callable<Integer> {
       description = "Columns by header name or 1-based number, e.g. time=Time [s],force=Load,position=3")
   String map;
 
-  @Option(names = "--force-unit", description = "N, kN, lbf or kgf (default: from the header, else N).")
+  @Option(names = "--force-unit", description = "N, kN, lbf or kgf (default: from the header, else the config's force-unit, else N).")
   String forceUnit;
 
-  @Option(names = "--length-unit", description = "mm, um, cm, m or in (default: from the header, else mm).")
+  @Option(names = "--length-unit", description = "mm, um, cm, m or in (default: from the header, else the config's length-unit, else mm).")
   String lengthUnit;
 
   @Option(names = "--time-unit", description = "s, ms or min (default: from the header, else s).")
@@ -75,6 +75,11 @@ public final class ImportCommand implements Callable<Integer> {
     ImportSettings s = ImportSettings.of(ColumnMap.parse(map))
         .withDecimalComma(decimalComma).withSkipLines(skipLines)
         .withDelimiter(delimiter == null ? null : ExportCommand.mark(delimiter, "--delimiter"));
+    org.loadstone.config.UserConfig config = ConfigDefaults.of(spec);
+    String usualForce = config.value(org.loadstone.config.UserConfig.Key.FORCE_UNIT);
+    String usualLength = config.value(org.loadstone.config.UserConfig.Key.LENGTH_UNIT);
+    s = s.withUsualUnits(usualForce == null ? null : ForceUnit.parse(usualForce),
+        usualLength == null ? null : LengthUnit.parse(usualLength));
     if (forceUnit != null) {
       s = s.withForceUnit(ForceUnit.parse(forceUnit));
     }

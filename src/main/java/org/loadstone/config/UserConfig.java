@@ -13,8 +13,8 @@ import org.loadstone.units.Precondition;
 import org.loadstone.units.TextFiles;
 
 /**
- * The user's own defaults, so that the archive, the port, the calibration and the operator need
- * not be typed for every run: each from its environment variable, else from the
+ * The user's own defaults, so that the archive, the port, the calibration, the operator and the
+ * units of imported files need not be typed for every run: each from its environment variable, else from the
  * config file, else built in. What is typed for one command always wins over these.
  *
  * <p>The config file is {@code $LOADSTONE_CONFIG} when set, else {@code
@@ -37,7 +37,11 @@ public record UserConfig(Path file, Map<Key, Setting> settings, List<String> pro
     /** the calibration file used to record */
     CALIBRATION("calibration", "LOADSTONE_CALIBRATION", true),
     /** who runs the tests */
-    OPERATOR("operator", "LOADSTONE_OPERATOR", false);
+    OPERATOR("operator", "LOADSTONE_OPERATOR", false),
+    /** the force unit of imported files whose header states none (N when not set) */
+    FORCE_UNIT("force-unit", "LOADSTONE_FORCE_UNIT", false),
+    /** the length unit of imported files whose header states none (mm when not set) */
+    LENGTH_UNIT("length-unit", "LOADSTONE_LENGTH_UNIT", false);
 
     private final String word;
     private final String variable;
@@ -101,10 +105,17 @@ public record UserConfig(Path file, Map<Key, Setting> settings, List<String> pro
     Map<Key, Setting> out = new EnumMap<>(Key.class);
     for (Key k : Key.values()) {
       String e = env.get(k.variable);
+      String fromEnv = null;
       if (e != null && !e.isBlank()) {
-        String v = k.path ? path(e.strip(), home, home).toString() : e.strip();
-        out.put(k, new Setting(k, v,
-            "environment " + k.variable));
+        try {
+          String v = k.path ? path(e.strip(), home, home).toString() : e.strip();
+          fromEnv = checked(k, v, "environment variable " + k.variable);
+        } catch (LoadstoneException bad) {
+          problems.add(bad.getMessage() + " (not used)");
+        }
+      }
+      if (fromEnv != null) {
+        out.put(k, new Setting(k, fromEnv, "environment " + k.variable));
       } else if (fromFile.containsKey(k)) {
         out.put(k, fromFile.get(k));
       } else if (k == Key.ARCHIVE) {
@@ -166,11 +177,25 @@ public record UserConfig(Path file, Map<Key, Setting> settings, List<String> pro
       }
       try {
         String value = key.path ? path(v, home, file.toAbsolutePath().getParent()).toString() : v;
-        out.put(key, new Setting(key, value, where));
+        out.put(key, new Setting(key, checked(key, value, where), where));
       } catch (LoadstoneException e) {
         problems.add(e.getMessage());
       }
     }
+  }
+
+  /** @return the value, once a unit is seen to be one */
+  private static String checked(Key k, String v, String where) {
+    try {
+      if (k == Key.FORCE_UNIT) {
+        org.loadstone.units.ForceUnit.parse(v);
+      } else if (k == Key.LENGTH_UNIT) {
+        org.loadstone.units.LengthUnit.parse(v);
+      }
+    } catch (LoadstoneException e) {
+      throw new LoadstoneException(where + ": " + e.getMessage(), e);
+    }
+    return v;
   }
 
   private static Path path(String v, Path home, Path relativeTo) {

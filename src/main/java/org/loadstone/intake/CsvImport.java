@@ -136,10 +136,12 @@ public final class CsvImport {
     DurationUnit tu = ImportColumns.unit(s.timeUnit(), header, ti, "time", DurationUnit.S,
         DurationUnit::parse, DurationUnit::symbol, name, headerLine, notes,
         Setting.IMPORT_TIME_UNIT);
-    ForceUnit fu = ImportColumns.unit(s.forceUnit(), header, fi, "force", ForceUnit.N,
+    ForceUnit fu = ImportColumns.unit(s.forceUnit(), header, fi, "force",
+        s.usualForceUnit() != null ? s.usualForceUnit() : ForceUnit.N,
         ForceUnit::parse, ForceUnit::symbol, name, headerLine, notes, Setting.IMPORT_FORCE_UNIT);
     LengthUnit lu = pi < 0 ? null : ImportColumns.unit(s.lengthUnit(), header, pi, "position",
-        LengthUnit.MM, LengthUnit::parse, LengthUnit::symbol, name, headerLine, notes,
+        s.usualLengthUnit() != null ? s.usualLengthUnit() : LengthUnit.MM, LengthUnit::parse,
+        LengthUnit::symbol, name, headerLine, notes,
         Setting.IMPORT_LENGTH_UNIT);
 
     int n = rows.size();

@@ -18,6 +18,9 @@ import org.loadstone.units.Precondition;
  * @param delimiter field delimiter, or {@code null} to detect comma, semicolon or tab
  * @param decimalComma whether numbers use a comma as decimal mark ({@code 1,5} = 1.5)
  * @param skipLines lines to skip before the header row (a preamble), 0 or more
+ * @param usualForceUnit the force unit taken when none is given and the header states none (the
+ *     user's own default), or {@code null} for newtons
+ * @param usualLengthUnit the same for the position column, or {@code null} for mm
  */
 public record ImportSettings(
     ColumnMap columns,
@@ -26,7 +29,9 @@ public record ImportSettings(
     DurationUnit timeUnit,
     Character delimiter,
     boolean decimalComma,
-    int skipLines) {
+    int skipLines,
+    ForceUnit usualForceUnit,
+    LengthUnit usualLengthUnit) {
 
   /** Checks the settings. */
   public ImportSettings {
@@ -47,36 +52,48 @@ public record ImportSettings(
 
   /** @return settings for a column map: units from the headers, delimiter detected, point decimal */
   public static ImportSettings of(ColumnMap columns) {
-    return new ImportSettings(columns, null, null, null, null, false, 0);
+    return new ImportSettings(columns, null, null, null, null, false, 0, null, null);
   }
 
   /** @return these settings with a force unit */
   public ImportSettings withForceUnit(ForceUnit u) {
-    return new ImportSettings(columns, u, lengthUnit, timeUnit, delimiter, decimalComma, skipLines);
+    return new ImportSettings(columns, u, lengthUnit, timeUnit, delimiter, decimalComma,
+        skipLines, usualForceUnit, usualLengthUnit);
   }
 
   /** @return these settings with a length unit */
   public ImportSettings withLengthUnit(LengthUnit u) {
-    return new ImportSettings(columns, forceUnit, u, timeUnit, delimiter, decimalComma, skipLines);
+    return new ImportSettings(columns, forceUnit, u, timeUnit, delimiter, decimalComma,
+        skipLines, usualForceUnit, usualLengthUnit);
   }
 
   /** @return these settings with a time unit */
   public ImportSettings withTimeUnit(DurationUnit u) {
-    return new ImportSettings(columns, forceUnit, lengthUnit, u, delimiter, decimalComma, skipLines);
+    return new ImportSettings(columns, forceUnit, lengthUnit, u, delimiter, decimalComma,
+        skipLines, usualForceUnit, usualLengthUnit);
   }
 
   /** @return these settings with a given delimiter ({@code null}: detect) */
   public ImportSettings withDelimiter(Character d) {
-    return new ImportSettings(columns, forceUnit, lengthUnit, timeUnit, d, decimalComma, skipLines);
+    return new ImportSettings(columns, forceUnit, lengthUnit, timeUnit, d, decimalComma,
+        skipLines, usualForceUnit, usualLengthUnit);
   }
 
   /** @return these settings with or without a decimal comma */
   public ImportSettings withDecimalComma(boolean on) {
-    return new ImportSettings(columns, forceUnit, lengthUnit, timeUnit, delimiter, on, skipLines);
+    return new ImportSettings(columns, forceUnit, lengthUnit, timeUnit, delimiter, on,
+        skipLines, usualForceUnit, usualLengthUnit);
+  }
+
+  /** @return these settings taking these units when neither given nor in the header */
+  public ImportSettings withUsualUnits(ForceUnit force, LengthUnit length) {
+    return new ImportSettings(columns, forceUnit, lengthUnit, timeUnit, delimiter, decimalComma,
+        skipLines, force, length);
   }
 
   /** @return these settings skipping a number of lines before the header */
   public ImportSettings withSkipLines(int n) {
-    return new ImportSettings(columns, forceUnit, lengthUnit, timeUnit, delimiter, decimalComma, n);
+    return new ImportSettings(columns, forceUnit, lengthUnit, timeUnit, delimiter,
+        decimalComma, n, usualForceUnit, usualLengthUnit);
   }
 }

@@ -88,4 +88,27 @@ class UserConfigTest {
         org.loadstone.study.MixedArchive.LEFT_OUT.keySet().iterator().next() + ".json"))))
         .contains("\"operator\":\"A. Lind\"");
   }
+
+  @Test
+  void importedFilesWithoutUnitsTakeTheUsualUnitsAndABadUnitIsNamed() throws Exception {
+    writeConfig(home.resolve(".config"), "force-unit = kN\nlength-unit = furlong\n");
+    UserConfig c = UserConfig.load(Map.of("LOADSTONE_FORCE_UNIT", "stone"), home);
+    assertThat(c.value(Key.FORCE_UNIT)).isEqualTo("kN"); // the bad variable is not used
+    assertThat(c.value(Key.LENGTH_UNIT)).isNull();
+    assertThat(c.problems()).anySatisfy(p -> assertThat(p).contains("line 2", "furlong"))
+        .anySatisfy(p -> assertThat(p).contains("LOADSTONE_FORCE_UNIT", "stone", "not used"));
+    // a file whose header states no unit: 0,2 kN read as kN = 200 N (hand-computed)
+    Path csv = Files.writeString(home.resolve("other.csv"), "t,F,x\n0,0,0\n1,0.1,0.5\n2,0.2,1\n");
+    Path plain = home.resolve("plain.csv");
+    StringWriter out = new StringWriter();
+    StringWriter err = new StringWriter();
+    int code = LoadstoneCommand.run(System.in, new PrintWriter(out), new PrintWriter(err), c,
+        "import", csv.toString(), "--map", "time=t,force=F,position=x", "--out",
+        plain.toString(), "--json");
+    assertThat(code).as(err.toString()).isZero();
+    String[] lines = out.toString().trim().split("\n");
+    com.fasterxml.jackson.databind.JsonNode j = new com.fasterxml.jackson.databind.ObjectMapper()
+        .readTree(lines[lines.length - 1]);
+    assertThat(j.get("force_N_range").get(1).asDouble()).isEqualTo(200.0);
+  }
 }
