@@ -84,7 +84,20 @@ public final class JournalRunStore implements RunStore {
 
   @Override
   public Recording begin(RunMetadata start, SampleRing ring, long firstIndex) {
-    JournalWriter journal = JournalWriter.start(archiveDir, start, ring.cursorAt(firstIndex));
+    JournalWriter journal;
+    try {
+      journal = JournalWriter.start(archiveDir, start, ring.cursorAt(firstIndex));
+    } catch (LoadstoneException e) {
+      if (second == null) {
+        throw e;
+      }
+      // the archive's disk filled before the run began: the whole run goes to the second location
+      String why = "the run's journal could not be made in the archive " + archiveDir + " ("
+          + (e.getCause() != null ? e.getCause().getMessage() : e.getMessage()) + "), so the"
+          + " run was recorded and stored in the second location " + second;
+      return elsewhere(new JournalRunStore(second, null, files, retry_ms)
+          .begin(start, ring, firstIndex), why);
+    }
     return new Recording() {
       @Override
       public long durableSamples() {
@@ -113,6 +126,38 @@ public final class JournalRunStore implements RunStore {
         return new Finish(journal, start.toBuilder().runId(journal.runId()).build(),
             meta.toBuilder().runId(journal.runId()).build(), firstIndex, lastIndex, waiting)
             .run();
+      }
+    };
+  }
+
+  /** A run recorded in the second location, with the reason added to its warnings. */
+  private static Recording elsewhere(Recording there, String why) {
+    return new Recording() {
+      @Override
+      public long durableSamples() {
+        return there.durableSamples();
+      }
+
+      @Override
+      public Optional<String> diskFault() {
+        return there.diskFault();
+      }
+
+      @Override
+      public String spaceWarning() {
+        return there.spaceWarning();
+      }
+
+      @Override
+      public Stored finish(long lastIndex, RunMetadata meta) {
+        return finish(lastIndex, meta, Waiting.NONE);
+      }
+
+      @Override
+      public Stored finish(long lastIndex, RunMetadata meta, Waiting waiting) {
+        List<String> w = new ArrayList<>(meta.warnings());
+        w.add(why);
+        return there.finish(lastIndex, meta.withWarnings(w), waiting);
       }
     };
   }

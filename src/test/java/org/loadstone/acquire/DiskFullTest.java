@@ -208,6 +208,39 @@ class DiskFullTest {
   }
 
   @Test
+  @Timeout(HangGuard.TEST_S)
+  void aDiskThatFilledBeforeTheTriggerSendsTheWholeRunToTheSecondLocation() throws Exception {
+    SimSetup setup = new SimSetup("ductile", 3, 1000, false, 4);
+    DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
+    reader.start();
+    double zero = Tare.counts(reader, 100, HangGuard.MS);
+    FakeDisk disk = FakeDisk.create().bytesLeft(0); // filled between the arming and the load
+    JournalRunStore store = new JournalRunStore(disk.path(real), secondDir, JournalStream::store,
+        RETRY_MS);
+    java.util.concurrent.atomic.AtomicLong first = new java.util.concurrent.atomic.AtomicLong();
+    Recorder rec = new Recorder(reader, ForceScale.linear(setup.nominalCountsPerN(), "nominal"),
+        zero, RunSettings.builder().ratedCapacity_N(500).maxSeconds(3).build(),
+        RecorderSimTest.template("early", 1000), store, new Recorder.Listener() {
+          @Override
+          public void onStarted(RunControl.Started s) {
+            first.set(s.firstIndex());
+          }
+        });
+    rec.startNow();
+    Recorder.Result res = rec.await(HangGuard.S, TimeUnit.SECONDS).orElseThrow(
+        () -> new AssertionError(rec.failure().orElse("no result")));
+    reader.close();
+    assertThat(res.stored().csv().getParent()).isEqualTo(secondDir);
+    Run run = RunReader.read(res.stored().csv());
+    assertThat(run.metadata().cause()).isEqualTo(FinishCause.TIME_LIMIT);
+    assertEveryRingSample(reader.ring(), first.get(), run);
+    assertThat(run.metadata().warnings()).anySatisfy(w -> assertThat(w)
+        .startsWith("the run's journal could not be made in the archive " + disk.path(real))
+        .contains("No space left on device")
+        .endsWith("so the run was recorded and stored in the second location " + secondDir));
+  }
+
+  @Test
   void theWatchWarnsOnlyWhenTheRoomLeftCannotStoreWhatIsRecorded() {
     // storing n samples needs their CSV lines (105 bytes at most), a quarter more, and 4 MiB
     long n = 100_000;
