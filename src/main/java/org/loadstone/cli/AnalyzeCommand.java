@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.Map;
@@ -73,7 +72,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--frame-stiffness-N-per-mm", paramLabel = "K", description = "Remove the load frame's deflection F/K.")
   Double frameK;
 
-  @Option(names = "--json", description = "End with the results as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write the results as one JSON document on standard output (schema loadstone-analyze); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -127,8 +126,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
     RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()));
     RunMetrics m = RunMetrics.of(adj.metadata(), adj.data(), settings);
-    Map<String, Object> j = m.toJsonMap();
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     out.printf(Locale.ROOT, "run %s, specimen %s, %d samples (%s)%n", m.metadata().runId(),
         m.metadata().specimen(), m.analysis().sampleCount(), r.source());
     for (Metric metric : Metric.values()) {
@@ -145,10 +143,12 @@ public final class AnalyzeCommand implements Callable<Integer> {
       out.println("note: " + note);
     }
     if (json) {
-      Map<String, Object> withAdj = new java.util.LinkedHashMap<>(j);
-      withAdj.put("derived", adj.notes());
-      withAdj.put("calibration_id", adj.metadata().calibrationId());
-      out.println(new ObjectMapper().writeValueAsString(withAdj));
+      Map<String, Object> j = new java.util.LinkedHashMap<>(m.toJsonMap());
+      j.put("derived", adj.notes());
+      j.put("calibration_id", adj.metadata().calibrationId());
+      j.put("calibration_sha256", adj.metadata().calibrationSha256());
+      j.put("source_file", r.source());
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.ANALYZE, j);
     }
     out.flush();
     return 0;

@@ -1,7 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintWriter;
@@ -43,7 +41,6 @@ import picocli.CommandLine.Option;
 public final class CalibrateCommand implements Callable<Integer>, CommandInput.Reader {
   /** Exit code when the operator quits before the calibration is complete. */
   public static final int EXIT_STOPPED = 1;
-  private static final ObjectMapper JSON = new ObjectMapper();
   /** Same rule as the calibration document's ids. */
   private static final String ID_PATTERN = "[A-Za-z0-9][A-Za-z0-9._-]{0,79}";
 
@@ -56,7 +53,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
       description = "Id of the load cell calibrated (letters, digits, '.', '_', '-').")
   String cellId;
 
-  @Option(names = "--json", description = "End with the summary as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write the calibration's figures as one JSON document on standard output (schema loadstone-calibrate); prompts and text go to standard error.")
   boolean json;
 
   @Mixin ForceModelOptions force;
@@ -141,7 +138,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
   }
 
   private int live(CalibrationSettings settings, String calId, LocalDate today) {
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     CalibrationPlan plan = new CalibrationPlan(LoadList.parse(loads, loadsFile), descending,
         series);
     if (saveDir != null && Files.exists(saveDir.resolve(calId + ".points.csv"))) {
@@ -152,7 +149,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
     LiveDevice.useDeadWeight(device, matched("--scenario"));
     LiveCalibration.Outcome o;
     String identity;
-    try (LiveDevice dev = LiveDevice.open(device, out)) {
+    try (LiveDevice dev = LiveDevice.open(device, spec.commandLine().getErr())) {
       identity = dev.identity();
       out.println("Calibrating cell " + cellId + " on " + identity + ": "
           + plan.steps().size() + " readings, " + series + " series"
@@ -187,7 +184,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
 
   private void finish(CalibrationReport report, String calId, LocalDate today, String desc,
       Path pointsFile) {
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     out.println();
     out.println("Calibration of cell " + cellId + (from != null ? " from " + from : ""));
     out.print(CalibrationService.fitTable(report));
@@ -212,17 +209,17 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
       }
     }
     if (json) {
-      Map<String, Object> m = new LinkedHashMap<>(CalibrationService.summary(report));
+      Map<String, Object> m = new LinkedHashMap<>();
       m.put("cell_id", cellId);
       m.put("calibration_id", doc == null ? null : doc.id());
-      m.put("content_sha256", doc == null ? null : doc.contentSha256());
-      m.put("saved_file", file == null ? null : file.toString());
-      m.put("points_file", pointsFile == null ? null : pointsFile.toString());
-      try {
-        out.println(JSON.writeValueAsString(m));
-      } catch (JsonProcessingException e) {
-        throw new IllegalStateException("summary cannot be written as JSON", e);
-      }
+      m.put("calibration_sha256", doc == null ? null : doc.contentSha256());
+      m.put("calibration_file", JsonViews.path(file));
+      m.put("points_file", JsonViews.path(pointsFile));
+      Map<String, Object> summary = new LinkedHashMap<>(CalibrationService.summary(report));
+      Object note = summary.remove("note");
+      m.putAll(summary);
+      m.put("notes", note == null ? List.of() : List.of(note));
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.CALIBRATE, m);
     }
     out.flush();
   }

@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -44,7 +43,7 @@ public final class CompareCommand implements Callable<Integer> {
   @Option(names = "--target-pct", defaultValue = "10", description = "Difference the sample-size advice aims to resolve, in per cent (default: ${DEFAULT-VALUE}).")
   double targetPct;
 
-  @Option(names = "--json", description = "End with the result as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write the result as one JSON document on standard output (schema loadstone-compare): groups, test, outliers by run, the sample-size advice, the runs counted and those left out with the reason; the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -56,7 +55,7 @@ public final class CompareCommand implements Callable<Integer> {
           + "group name (--by group)");
     }
     Metric m = Metric.parse(metric);
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     Selection sel = ArchiveRuns.scan(archive.folder()).select(select.selection());
     StudyResult r;
     try {
@@ -93,7 +92,10 @@ public final class CompareCommand implements Callable<Integer> {
           + SelectionOptions.includeHint(r.leftOut()));
     }
     if (json) {
-      out.println(new ObjectMapper().writeValueAsString(r.toJsonView()));
+      java.util.Map<String, Object> j = new java.util.LinkedHashMap<>(r.toJsonView());
+      j.put("archive", sel.folder().toString());
+      j.put("target_difference_pct", targetPct);
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.COMPARE, j);
     }
     out.flush();
     return 0;

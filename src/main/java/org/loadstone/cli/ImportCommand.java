@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Arrays;
@@ -69,7 +68,7 @@ public final class ImportCommand implements Callable<Integer> {
   @Option(names = "--out", paramLabel = "FILE.csv", description = "Write the run as a plain CSV here instead of storing it in the archive.")
   Path out;
 
-  @Option(names = "--json", description = "End with the summary as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write what was read and where it went as one JSON document on standard output (schema loadstone-import); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -90,7 +89,7 @@ public final class ImportCommand implements Callable<Integer> {
     }
     ImportedRun run = CsvImport.read(file, s);
     RunData d = run.data();
-    PrintWriter o = spec.commandLine().getOut();
+    PrintWriter o = JsonDocument.human(spec, json);
     o.printf(Locale.ROOT, "%s: %d rows, delimiter %s%n", file, d.size(),
         run.delimiter() == '\t' ? "tab" : "'" + run.delimiter() + "'");
     run.columns().forEach(c -> o.println("  " + c));
@@ -103,29 +102,31 @@ public final class ImportCommand implements Callable<Integer> {
       o.println("  position " + num(x[0]) + " to " + num(x[1]) + " mm");
     }
     run.notes().forEach(n -> o.println("note: " + n));
-    String stored;
+    Map<String, Object> where;
     if (out != null) {
       CsvExport.write(d, out, ',', '.');
-      stored = out.toString();
       o.println("written to " + out);
+      where = new LinkedHashMap<>();
+      where.put("run_id", null);
+      where.put("csv_file", out.toString());
+      where.put("sidecar_file", null);
     } else {
       StoredRun sr = CliWiring.store(run, archive.folder(), specimen, group);
-      stored = sr.csv().toString();
-      o.println("stored in the archive as " + sr.csv().getFileName().toString()
-          .replaceFirst("\\.csv$", ""));
+      String id = sr.csv().getFileName().toString().replaceFirst("\\.csv$", "");
+      o.println("stored in the archive as " + id);
+      where = JsonViews.stored(id, sr.csv(), sr.json());
     }
     if (json) {
-      Map<String, Object> m = new LinkedHashMap<>();
-      m.put("file", file.toString());
-      m.put("rows", d.size());
+      Map<String, Object> m = new LinkedHashMap<>(where);
+      m.put("source_file", file.toString());
+      m.put("sample_count", d.size());
       m.put("delimiter", String.valueOf(run.delimiter()));
       m.put("columns", run.columns());
-      m.put("time_s_range", List.of(t[0], t[1]));
-      m.put("force_N_range", List.of(f[0], f[1]));
-      m.put("position_mm_range", x == null ? null : List.of(x[0], x[1]));
+      m.put("time_range_s", List.of(t[0], t[1]));
+      m.put("force_range_N", List.of(f[0], f[1]));
+      m.put("position_range_mm", x == null ? null : List.of(x[0], x[1]));
       m.put("notes", run.notes());
-      m.put("stored", stored);
-      o.println(new ObjectMapper().writeValueAsString(m));
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.IMPORT, m);
     }
     o.flush();
     return 0;

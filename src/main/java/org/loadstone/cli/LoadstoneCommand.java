@@ -110,9 +110,8 @@ public final class LoadstoneCommand implements Runnable {
     }
   }
 
-  /** @return the software version from the jar manifest, or {@code dev} when run from classes */
+  /** @return the software version ({@link org.loadstone.units.SoftwareVersion}, its one home) */
   public static String softwareVersion() {
-    String v = LoadstoneCommand.class.getPackage().getImplementationVersion();
-    return v == null ? "dev" : v;
+    return org.loadstone.units.SoftwareVersion.get();
   }
 }

@@ -131,7 +131,7 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--zero-drift-N", description = "Warn before the run when the zero moved more than this since the last tare (default: 0.1 %% of rated capacity).")
   Double zeroDriftLimit;
 
-  @Option(names = "--json", description = "End with the result as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write the stored run and its figures as one JSON document on standard output (schema loadstone-record); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -195,7 +195,7 @@ public final class RecordCommand implements Callable<Integer> {
             startAt, dropPct));
         rec.arm(run.decideFrom());
       }
-      boolean tty = System.console() != null && !json;
+      boolean tty = Terminal.statusLines();
       java.util.Optional<Recorder.Result> result = java.util.Optional.empty();
       while (result.isEmpty() && rec.failure().isEmpty() && !rec.ended()) {
         result = rec.await(200, TimeUnit.MILLISECONDS);
@@ -229,7 +229,7 @@ public final class RecordCommand implements Callable<Integer> {
             + " before load came on)").orElse("stopped before any load: no run recorded"));
         return gone.isPresent() ? LoadstoneCommand.EXIT_DEVICE_LOST : 0;
       }
-      RecordSummary.print(result.get(), json, archive.archive, analysis, out);
+      RecordSummary.print(result.get(), json, archive.archive, analysis, out, err);
       FinishCause cause = result.get().cause();
       if (cause == FinishCause.DEVICE_LOST || cause == FinishCause.DEVICE_RESET) {
         say(err, (cause == FinishCause.DEVICE_LOST ? reader.lostReason() : reader.resetReason())

@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.time.Instant;
 import java.time.LocalDate;
@@ -44,50 +43,45 @@ public final class RunsCommand implements Callable<Integer> {
   @Option(names = "--cause", description = "Finished for this cause: break, overload, manual, time-limit, device-lost, device-reset, disk-full, recovered, imported.")
   String cause;
 
-  @Option(names = "--json", description = "One JSON object per run, then a summary object on the last line.")
+  @Option(names = "--json", description = "Write the list as one JSON document on standard output (schema loadstone-runs); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   @Override
   public Integer call() throws Exception {
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     PrintWriter err = spec.commandLine().getErr();
     ArchiveIndex idx = ArchiveIndex.scan(archive.folder());
     ArchiveIndex.Query q = new ArchiveIndex.Query(day(from, "--from", 0), day(to, "--to", 1),
         specimen, group, tag, cause == null ? null : FinishCause.parse(cause));
     List<ArchiveIndex.Entry> found = idx.search(q);
-    ObjectMapper om = new ObjectMapper();
-    if (!json) {
-      out.printf("%-40s %-14s %-10s %-12s %s%n", "run", "specimen", "group", "cause", "started (UTC)");
-    }
-    List<String> ids = new ArrayList<>();
+    out.printf("%-40s %-14s %-10s %-12s %s%n", "run", "specimen", "group", "cause",
+        "started (UTC)");
+    List<Map<String, Object>> rows = new ArrayList<>();
     for (ArchiveIndex.Entry e : found) {
       RunMetadata m = e.metadata();
-      ids.add(m.runId());
-      if (json) {
-        Map<String, Object> row = new LinkedHashMap<>();
-        row.put("run_id", m.runId());
-        row.put("specimen", m.specimen());
-        row.put("group", m.group());
-        row.put("tags", m.tags());
-        row.put("cause", m.cause().wireName());
-        row.put("started_at", m.startedAt().toString());
-        row.put("csv", e.csv().toString());
-        out.println(om.writeValueAsString(row));
-      } else {
-        out.printf(Locale.ROOT, "%-40s %-14s %-10s %-12s %s%n", m.runId(), m.specimen(),
-            m.group(), m.cause().wireName(), m.startedAt().toString().substring(0, 19));
-      }
+      rows.add(JsonViews.run(e));
+      out.printf(Locale.ROOT, "%-40s %-14s %-10s %-12s %s%n", m.runId(), m.specimen(),
+          m.group(), m.cause().wireName(), m.startedAt().toString().substring(0, 19));
     }
     for (String p : idx.problems()) {
       err.println("warning: " + p);
     }
+    out.println(found.size() + " of " + idx.entries().size() + " runs");
     if (json) {
-      out.println(om.writeValueAsString(Map.of("runs", found.size(), "unreadable",
-          idx.problems().size())));
-    } else {
-      out.println(found.size() + " of " + idx.entries().size() + " runs");
+      Map<String, Object> j = new LinkedHashMap<>();
+      j.put("archive", idx.folder().toString());
+      j.put("run_count", found.size());
+      j.put("archive_run_count", idx.entries().size());
+      j.put("runs", rows);
+      j.put("unreadable", idx.unreadable().stream().map(u -> {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("sidecar_file", u.json().toString());
+        m.put("problem", u.message());
+        return m;
+      }).toList());
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.RUNS, j);
     }
     out.flush();
     return 0;

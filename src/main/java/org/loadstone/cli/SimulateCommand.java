@@ -57,6 +57,9 @@ public final class SimulateCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE|-|DEVICE", description = "Where the bytes go: a new file, - for standard output, or a device path.")
   String out;
 
+  @Option(names = "--json", description = "Write what was written as one JSON document on standard output (schema loadstone-simulate); not with --out -.")
+  boolean json;
+
   @CommandLine.Mixin SimImperfectionOptions imperfections;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -67,6 +70,10 @@ public final class SimulateCommand implements Callable<Integer> {
       throw new LoadstoneException("--seconds must be greater than 0, was " + seconds);
     }
     Scenario.parse(scenario);
+    if (json && out.equals("-")) {
+      throw new LoadstoneException("--json and --out - both want standard output: write the "
+          + "bytes to a file or device, or drop --json");
+    }
     SimSetup setup = new SimSetup(scenario, seed, rateHz, hand, 1, Double.NaN,
         imperfections.imperfections());
     SampleSource source = new FrameSampleSource(setup.buildFrame());
@@ -93,6 +100,16 @@ public final class SimulateCommand implements Callable<Integer> {
     err.printf(Locale.ROOT, "simulate: %d samples of %s in %.2f s (%.0f samples/s)%n", total,
         scenario, elapsed, total / Math.max(elapsed, 1e-9));
     err.flush();
+    if (json) {
+      java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
+      m.put("scenario", scenario);
+      m.put("seed", seed);
+      m.put("sample_rate_hz", rateHz);
+      m.put("sample_count", total);
+      m.put("encoding", binary ? "binary" : "text");
+      m.put("out_file", out);
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.SIMULATE, m);
+    }
     return 0;
   }
 

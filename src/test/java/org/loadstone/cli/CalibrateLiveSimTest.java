@@ -80,11 +80,14 @@ class CalibrateLiveSimTest {
 
   @Test
   void promptsShowLiveLinesAndAskAgainAfterABadAnswer() {
-    String out = calibration.out();
+    // with --json the prompts go to standard error, and the live status line (rewritten with
+    // a carriage return) only to a terminal, which a captured standard error is not
+    String out = calibration.err();
     assertThat(out).contains("place 20 kg (sum of weights allowed, e.g. '1 kg + 500 g'), then"
         + " press Enter", "remove all weights (zero point)", "cannot read 'ten kilos'",
-        "29.5 kg now on the simulated cell", "[STABLE  ]", "\r  counts");
+        "29.5 kg now on the simulated cell", "captured 20 kg").doesNotContain("\r");
     assertThat(out.split("\\[2/11\\]", -1)).hasSize(3);
+    assertThat(calibration.out().strip()).doesNotContain("\n").startsWith("{");
   }
 
   @Test
@@ -98,7 +101,7 @@ class CalibrateLiveSimTest {
         StandardCharsets.UTF_8);
     assertThat(csv).anyMatch(l -> l.startsWith("29500.0,") && l.contains(",up,1,"));
     assertThat(csv).noneMatch(l -> l.startsWith("30000.0,") && l.contains(",up,"));
-    assertThat(calibration.lastJson().get("content_sha256").asText())
+    assertThat(calibration.lastJson().get("calibration_sha256").asText())
         .isEqualTo(st.document().contentSha256());
   }
 
@@ -116,7 +119,7 @@ class CalibrateLiveSimTest {
     assertThat(j.get("pass").asBoolean()).isTrue();
     assertThat(j.get("mass_g").asDouble()).isEqualTo(20000);
     assertThat(j.get("tolerance_pct").asDouble()).isEqualTo(1.0);
-    assertThat(r.out()).contains("tare", "place the check weight of 20 kg", "PASS");
+    assertThat(r.err()).contains("tare", "place the check weight of 20 kg", "PASS");
     List<CheckWeightResult> log = CheckWeights.readLog(calFile);
     assertThat(log.get(log.size() - 1).pass()).isTrue();
   }
@@ -131,7 +134,7 @@ class CalibrateLiveSimTest {
     assertThat(j.get("pass").asBoolean()).isFalse();
     // 20 kg read against a claimed 21 kg: (20/21 − 1) × 100 = −4.76 %
     assertThat(j.get("error_pct").asDouble()).isCloseTo((20.0 / 21 - 1) * 100, within(0.1));
-    assertThat(r.out()).contains("FAIL");
+    assertThat(r.err()).contains("FAIL");
     List<CheckWeightResult> log = CheckWeights.readLog(calFile);
     assertThat(log).hasSize(before + 1);
     assertThat(log.get(before).pass()).isFalse();
@@ -164,7 +167,7 @@ class CalibrateLiveSimTest {
         "200", "--timeout-s", "1.3", "--sim-speed", "40", "--save", save.toString(), "--id",
         "k", "--operator", "tester", "--json");
     assertThat(r.exit()).as(r.toString()).isZero();
-    assertThat(r.out()).contains("series 1, up: weights totalling 1.0 kg on the cell: reading"
+    assertThat(r.err()).contains("series 1, up: weights totalling 1.0 kg on the cell: reading"
         + " did not settle within 1.3 s", "r = wait again, s = skip this step, q = quit",
         "step skipped", "captured 5 kg");
     var doc = org.loadstone.calibration.CalibrationFiles.readCalibration(save.resolve("k.json"));

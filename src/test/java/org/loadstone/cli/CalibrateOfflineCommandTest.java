@@ -40,7 +40,7 @@ class CalibrateOfflineCommandTest {
   void exampleFitPrintsTheTableAndEndsWithTheServiceSummaryAsJson() throws Exception {
     CliRun r = CliRun.run("", args("--json"));
     assertThat(r.exit()).as(r.toString()).isZero();
-    assertThat(r.out()).contains("Residuals of quadratic", "ASTM E74 style", "ISO 7500-1 style",
+    assertThat(r.err()).contains("Residuals of quadratic", "ASTM E74 style", "ISO 7500-1 style",
         "Corrections at 50.0000 kg: gravity", "buoyancy",
         "not a substitute for an accredited calibration");
     JsonNode j = r.lastJson();
@@ -110,7 +110,7 @@ class CalibrateOfflineCommandTest {
         "--operator", "tester", "--json"));
     assertThat(first.exit()).as(first.toString()).isZero();
     Path saved = tmp.resolve("cal-a.json");
-    assertThat(first.lastJson().get("saved_file").asText()).isEqualTo(saved.toString());
+    assertThat(first.lastJson().get("calibration_file").asText()).isEqualTo(saved.toString());
     byte[] before = Files.readAllBytes(saved);
     assertThat(new String(before, StandardCharsets.UTF_8)).contains("\"operator\" : \"tester\"",
         "\"cell_id\" : \"shelf-rig-500N\"");

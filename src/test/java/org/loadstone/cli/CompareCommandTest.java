@@ -61,7 +61,7 @@ class CompareCommandTest {
     // Commons Math forms p as 1 − CDF(F), which keeps only absolute precision (~1e-16) for a p
     // this small (~1e-14), so the check is absolute
     assertThat(j.get("p_value").asDouble()).isCloseTo(p, org.assertj.core.data.Offset.offset(1e-15));
-    assertThat(o.out()).contains("one-way ANOVA").contains("larger than the scatter");
+    assertThat(o.err()).contains("one-way ANOVA").contains("larger than the scatter");
   }
 
   @Test
@@ -98,7 +98,8 @@ class CompareCommandTest {
     RecordCommandTest.Outcome o = RecordCommandTest.run("runs", "--archive", SAMPLES.toString(),
         "--group", "balsa", "--cause", "break", "--json");
     assertThat(o.exit()).isZero();
-    assertThat(o.json().get("runs").asInt()).isEqualTo(5);
+    assertThat(o.json().get("run_count").asInt()).isEqualTo(5);
+    assertThat(o.json().get("runs")).hasSize(5);
     RecordCommandTest.Outcome bad = RecordCommandTest.run("runs", "--archive",
         SAMPLES.toString(), "--from", "yesterday");
     assertThat(bad.err()).contains("YYYY-MM-DD");

@@ -88,7 +88,7 @@ class RecordCommandTest {
     JsonNode j = r.json();
     assertThat(j.get("cause").asText()).isEqualTo("break");
     assertThat(j.get("dropped").asLong()).isZero();
-    Run run = RunReader.read(Path.of(j.get("csv").asText()));
+    Run run = RunReader.read(Path.of(j.get("csv_file").asText()));
     assertThat(run.metadata().cause()).isEqualTo(FinishCause.BREAK);
     assertThat(run.metadata().group()).isEqualTo("balsa");
     assertThat(run.metadata().mass_g()).isEqualTo(61.5);
@@ -99,16 +99,17 @@ class RecordCommandTest {
     assertThat(r.err()).contains("zeroing on 500 samples").contains("warning: zero check: the "
         + "zero moved by -");
     assertThat(run.metadata().warnings()).anySatisfy(w -> assertThat(w).startsWith("zero check"));
-    assertThat(run.data().size()).isEqualTo(j.get("samples").asInt());
+    assertThat(run.data().size()).isEqualTo(j.get("sample_count").asInt());
     assertThat(Files.list(tmp.resolve(".journal")).count()).as("journal removed").isZero();
     assertThat(r.err()).contains("no calibration");
     // the post-run figures are the archive's analysis of the stored run
     var m = org.loadstone.study.RunMetrics.of(run.metadata(), run.data());
-    assertThat(j.get("stiffness_N_per_mm").asDouble())
+    JsonNode a = j.get("analysis");
+    assertThat(a.get("stiffness_N_per_mm").asDouble())
         .isEqualTo(m.analysis().stiffness_N_per_mm().getAsDouble());
-    assertThat(j.get("energy_to_break_J").asDouble())
+    assertThat(a.get("energy_to_break_J").asDouble())
         .isEqualTo(m.analysis().energyToBreak_J().getAsDouble());
-    assertThat(j.get("specific_peak_N_per_g").asDouble())
+    assertThat(a.get("specific_peak_N_per_g").asDouble())
         .isEqualTo(m.analysis().peakForce_N() / 61.5);
   }
 
@@ -129,7 +130,7 @@ class RecordCommandTest {
     assertThat(r.exit()).as(r.err()).isZero();
     // no check weight has been logged for this calibration yet: said before the run
     assertThat(r.err()).contains("no check-weight verification");
-    Run run = RunReader.read(Path.of(r.json().get("csv").asText()));
+    Run run = RunReader.read(Path.of(r.json().get("csv_file").asText()));
     assertThat(run.metadata().calibrationId()).isEqualTo(doc.id());
     assertThat(run.metadata().calibrationSha256()).isEqualTo(doc.contentSha256());
     assertThat(run.metadata().scaleSpec().kind()).isEqualTo("calibration");
@@ -218,9 +219,9 @@ class RecordCommandTest {
       Outcome r = new Outcome(exit.get(), o.toString(), e.toString());
       assertThat(r.err()).contains("the run is stored up to the last sample received");
       assertThat(r.json().get("cause").asText()).isEqualTo("device-lost");
-      assertThat(r.json().get("samples").asLong()).isGreaterThan(1000);
+      assertThat(r.json().get("sample_count").asLong()).isGreaterThan(1000);
       assertThat(r.err()).doesNotContain("Exception").doesNotContain("\tat ");
-      Run run = RunReader.read(Path.of(r.json().get("csv").asText()));
+      Run run = RunReader.read(Path.of(r.json().get("csv_file").asText()));
       assertThat(run.metadata().cause()).isEqualTo(FinishCause.DEVICE_LOST);
     }
   }

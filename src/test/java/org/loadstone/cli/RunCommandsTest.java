@@ -54,7 +54,7 @@ class RunCommandsTest {
   void analyzePrintsATableAndJson() throws IOException {
     Path csv = runCsv();
     assertThat(run("analyze", csv.toString(), "--json")).isEqualTo(0);
-    assertThat(out).contains("peak force").contains("stiffness");
+    assertThat(err).contains("peak force").contains("stiffness"); // the table, beside the JSON
     JsonNode j = lastJson();
     assertThat(j.get("peak_N").asDouble()).isEqualTo(460.0);
     // the synthetic curve rises at 60 N/mm by construction
@@ -87,9 +87,9 @@ class RunCommandsTest {
     assertThat(run("import", src.toString(), "--map", "time=Zeit [ms],force=2,position=Weg [mm]",
         "--decimal-comma", "--out", plain.toString(), "--json")).isEqualTo(0);
     JsonNode j = lastJson();
-    assertThat(j.get("rows").asInt()).isEqualTo(4);
-    assertThat(j.get("force_N_range").get(1).asDouble()).isEqualTo(200.0);
-    assertThat(j.get("time_s_range").get(1).asDouble()).isEqualTo(1.5);
+    assertThat(j.get("sample_count").asInt()).isEqualTo(4);
+    assertThat(j.get("force_range_N").get(1).asDouble()).isEqualTo(200.0);
+    assertThat(j.get("time_range_s").get(1).asDouble()).isEqualTo(1.5);
     assertThat(run("analyze", plain.toString(), "--json")).isEqualTo(0);
     assertThat(lastJson().get("peak_N").asDouble()).isEqualTo(200.0);
     assertThat(lastJson().get("peak_time_s").asDouble()).isEqualTo(1.0);

@@ -26,7 +26,7 @@ class StiffnessOptionsTest {
     assertThat(j.get("stiffness_window_from_N").asDouble()).isCloseTo(46, within(3.0));
     assertThat(j.get("analysis_settings").get("stiffness_band").asText())
         .isEqualTo("10 to 40 % of the peak");
-    assertThat(band.out()).contains("stiffness chosen by");
+    assertThat(band.err()).contains("stiffness chosen by");
 
     CliRun auto = CliRun.run("", "analyze", csv.toString(), "--json");
     assertThat(auto.exit()).as(auto.toString()).isEqualTo(0);
