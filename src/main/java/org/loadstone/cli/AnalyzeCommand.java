@@ -40,25 +40,25 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--cal", paramLabel = "FILE", description = "Derive force again from the raw counts with this calibration (the stored run is not changed).")
   Path cal;
 
-  @Option(names = "--crosshead-rate-mm-min", paramLabel = "R", description = "Position from a constant crosshead rate, for runs without a position channel.")
+  @Option(names = "--crosshead-rate-mm-per-min", paramLabel = "R", description = "Position from a constant crosshead rate, for runs without a position channel.")
   Double crossheadRate;
 
   @Option(names = "--position-table", paramLabel = "FILE", description = "Position from a position-time CSV (video tracking, dial gauge), aligned by the break unless --table-offset-s is given.")
   Path table;
 
-  @Option(names = "--table-map", defaultValue = "time=1,position=2", description = "Columns of the position table by header or 1-based number (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--table-map", paramLabel = "MAP", defaultValue = "time=1,position=2", description = "Columns of the position table by header or 1-based number (default: ${DEFAULT-VALUE}).")
   String tableMap;
 
-  @Option(names = "--table-time-unit", defaultValue = "s", description = "s, ms or min (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--table-time-unit", paramLabel = "UNIT", defaultValue = "s", description = "s, ms or min (default: ${DEFAULT-VALUE}).")
   String tableTimeUnit;
 
-  @Option(names = "--table-length-unit", defaultValue = "mm", description = "mm, um, cm, m or in (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--table-length-unit", paramLabel = "UNIT", defaultValue = "mm", description = "mm, um, cm, m or in (default: ${DEFAULT-VALUE}).")
   String tableLengthUnit;
 
-  @Option(names = "--table-decimal-comma", description = "The position table uses a decimal comma.")
-  boolean tableDecimalComma;
+  @Option(names = "--table-decimal", defaultValue = ".", paramLabel = "MARK", description = "Decimal mark of the position table: '.' or ',' (default: ${DEFAULT-VALUE}).")
+  String tableDecimal;
 
-  @Option(names = "--table-offset-s", description = "Table time minus run time, s (default: found from the break).")
+  @Option(names = "--table-offset-s", paramLabel = "S", description = "Table time minus run time, s (default: found from the break).")
   Double tableOffset;
 
   @Option(names = "--position-measures", paramLabel = "WHERE", description = "What the position "
@@ -69,7 +69,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--frame", paramLabel = "FILE", description = "Remove the load frame's deflection F/k with this frame profile (see 'loadstone frame').")
   Path frame;
 
-  @Option(names = "--frame-stiffness-N-per-mm", paramLabel = "K", description = "Remove the load frame's deflection F/K.")
+  @Option(names = "--frame-stiffness-n-per-mm", paramLabel = "K", description = "Remove the load frame's deflection F/K.")
   Double frameK;
 
   @Option(names = "--json", description = "Write the results as one JSON document on standard output (schema loadstone-analyze); the text goes to standard error.")
@@ -83,7 +83,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
       a = a.recalibrated(c.spec(), c.calibrationId(), c.calibrationSha256());
     }
     if (crossheadRate != null && table != null) {
-      throw new org.loadstone.units.LoadstoneException("--crosshead-rate-mm-min and "
+      throw new org.loadstone.units.LoadstoneException("--crosshead-rate-mm-per-min and "
           + "--position-table are two position sources: give one");
     }
     if (crossheadRate != null) {
@@ -101,7 +101,8 @@ public final class AnalyzeCommand implements Callable<Integer> {
       }
       PositionTable t = PositionTableCsv.read(table, cols.getOrDefault("time", "1"),
           cols.getOrDefault("position", "2"), DurationUnit.parse(tableTimeUnit),
-          LengthUnit.parse(tableLengthUnit), tableDecimalComma);
+          LengthUnit.parse(tableLengthUnit),
+          ImportCommand.decimalMark(tableDecimal, "--table-decimal") == ',');
       a = a.withPositionTable(t, tableOffset);
     }
     if (positionMeasures != null) {
@@ -109,7 +110,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
     }
     if (frame != null && frameK != null) {
       throw new org.loadstone.units.LoadstoneException("give --frame or "
-          + "--frame-stiffness-N-per-mm, not both");
+          + "--frame-stiffness-n-per-mm, not both");
     }
     if (frame != null) {
       FrameProfile p = FrameProfile.read(frame);

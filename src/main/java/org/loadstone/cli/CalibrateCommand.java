@@ -30,13 +30,19 @@ import picocli.CommandLine.Option;
     name = "calibrate",
     description = {
       "Calibrate a load cell with dead weights.",
-      "With --from, fit points captured earlier (a points CSV). Otherwise capture them live on "
+      "With --points, fit points captured earlier (a points CSV). Otherwise capture them live on "
           + "--port: for each step you are asked to place the weights and press Enter (or type "
           + "the mass actually placed); the reading is taken when it has settled. On --port sim "
           + "the program puts each mass on the simulated cell (scenario dead-weight unless "
-          + "--scenario is given).",
-      "Exit codes: 0 done, 1 stopped by the operator (nothing saved), 2 bad input, 3 device "
-          + "lost."
+          + "--scenario is given)."
+    },
+    exitCodeListHeading = "%nExit codes:%n",
+    exitCodeList = {
+      "0:done",
+      "1:stopped by the operator: nothing fitted or saved",
+      "2:bad usage or input: the message names the fault and the fix",
+      "3:the device was lost: nothing saved",
+      "70:internal error (a bug; please report it)"
     })
 public final class CalibrateCommand implements Callable<Integer>, CommandInput.Reader {
   /** Exit code when the operator quits before the calibration is complete. */
@@ -44,7 +50,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
   /** Same rule as the calibration document's ids. */
   private static final String ID_PATTERN = "[A-Za-z0-9][A-Za-z0-9._-]{0,79}";
 
-  @Option(names = "--from", paramLabel = "POINTS_CSV",
+  @Option(names = "--points", paramLabel = "POINTS_CSV",
       description = "Fit the points in this CSV file (mass_g or force_N, counts, direction, "
           + "series, counts_sd, samples) instead of capturing them live.")
   Path from;
@@ -68,7 +74,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
           + "(default: the recommended one).")
   String fit;
 
-  @Option(names = "--save", paramLabel = "DIR",
+  @Option(names = "--out", paramLabel = "DIR",
       description = "Save the calibration as DIR/ID.json (never overwrites); live points also "
           + "go to DIR/ID.points.csv.")
   Path saveDir;
@@ -84,7 +90,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
       description = "Days the calibration stays valid (default: ${DEFAULT-VALUE}).")
   int validDays;
 
-  @Option(names = "--note", paramLabel = "TEXT",
+  @Option(names = "--notes", paramLabel = "TEXT",
       description = "Remark stored with the calibration (site, weights used, ...).")
   String note;
 
@@ -259,9 +265,9 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
   private void refuseLiveOptions() {
     List<String> given = new ArrayList<>();
     List<String> live = new ArrayList<>(List.of("--port", "--baud", "--reset-wait-ms", "--loads",
-        "--loads-file", "--descending", "--series", "--scenario", "--seed", "--rate", "--hand",
+        "--loads-file", "--descending", "--series", "--scenario", "--seed", "--rate-hz", "--hand",
         "--sim-speed", "--sim-start-delay-s",
-        "--window-s", "--max-sd-counts", "--max-drift", "--timeout-s"));
+        "--window-s", "--max-sd-counts", "--max-drift-counts-per-s", "--timeout-s"));
     live.addAll(SimImperfectionOptions.NAMES);
     for (String o : live) {
       if (matched(o)) {
@@ -269,8 +275,8 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
       }
     }
     if (!given.isEmpty()) {
-      throw new LoadstoneException("--from fits points captured earlier, so " + given
-          + " cannot be used with it: drop --from to capture live, or drop those options");
+      throw new LoadstoneException("--points fits points captured earlier, so " + given
+          + " cannot be used with it: drop --points to capture live, or drop those options");
     }
   }
 

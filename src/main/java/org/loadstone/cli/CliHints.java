@@ -18,19 +18,19 @@ final class CliHints {
     return switch (s) {
       case CALIBRATION -> "--cal FILE";
       case NOMINAL_SENSITIVITY -> "--counts-per-n K";
-      case RATED_CAPACITY -> "--capacity-N";
-      case ZERO_DRIFT_LIMIT -> "--zero-drift-N";
+      case RATED_CAPACITY -> "--capacity-n";
+      case ZERO_DRIFT_LIMIT -> "--zero-drift-n";
       case ZERO_SAMPLES -> "--zero-samples";
-      case START_THRESHOLD -> "--start-at-N";
+      case START_THRESHOLD -> "--start-at-n";
       case PRETRIGGER -> "--pretrigger-s";
       case BREAK_DROP -> "--stop-drop-pct";
-      case ARMING_LEVEL -> "--arm-at-N";
+      case ARMING_LEVEL -> "--arm-at-n";
       case DEBOUNCE -> "--debounce-s";
-      case ABSOLUTE_STOP -> "--stop-below-N";
+      case ABSOLUTE_STOP -> "--stop-below-n";
       case TAIL -> "--tail-s";
       case OVERLOAD_WARNING -> "--warn-pct";
       case OVERLOAD_STOP -> "--overload-pct";
-      case TIME_LIMIT -> "--max-seconds";
+      case TIME_LIMIT -> "--max-duration-s";
       case ARCHIVE_FOLDER -> "--archive DIR";
       case PORT -> "--port PORT, e.g. --port sim or --port /dev/ttyACM0; 'loadstone ports' "
           + "lists the serial ports";
@@ -40,8 +40,8 @@ final class CliHints {
       case IMPORT_FORCE_UNIT -> "--force-unit";
       case IMPORT_LENGTH_UNIT -> "--length-unit";
       case IMPORT_DELIMITER -> "--delimiter";
-      case IMPORT_DECIMAL_COMMA -> "--decimal-comma";
-      case TABLE_DECIMAL_COMMA -> "--table-decimal-comma";
+      case IMPORT_DECIMAL_COMMA -> "--decimal ','";
+      case TABLE_DECIMAL_COMMA -> "--table-decimal ','";
       case TABLE_OFFSET -> "--table-offset-s";
     };
   }

@@ -31,16 +31,23 @@ public final class CompareCommand implements Callable<Integer> {
 
   @Mixin SelectionOptions select;
 
-  @Option(names = "--by", defaultValue = "group", description = "How runs are grouped (default: ${DEFAULT-VALUE}; only 'group' for now).")
+  @Option(names = "--by", paramLabel = "KEY", defaultValue = "group", description = "How runs are grouped (default: ${DEFAULT-VALUE}; only 'group' for now).")
   String by;
 
-  @Option(names = "--metric", defaultValue = "peak", description = {"peak, peak-time, break-time, break-force, stiffness, toe-offset,",
-      "displacement-at-peak, displacement-at-break, energy, energy-to-break, flexural-stress,",
-      "flexural-modulus, core-shear, facing-stress, compression-stress, specific-peak,",
-      "specific-energy, specific-energy-to-break, specific-stiffness (default: ${DEFAULT-VALUE})."})
+  @Option(names = "--metric", defaultValue = "peak", paramLabel = "FIGURE",
+      completionCandidates = MetricWords.class,
+      description = "The figure compared: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
   String metric;
 
-  @Option(names = "--target-pct", defaultValue = "10", description = "Difference the sample-size advice aims to resolve, in per cent (default: ${DEFAULT-VALUE}).")
+  /** The words of the comparable figures, from the metric catalogue. */
+  static final class MetricWords implements Iterable<String> {
+    @Override
+    public java.util.Iterator<String> iterator() {
+      return Metric.comparableOnes().stream().map(Metric::word).iterator();
+    }
+  }
+
+  @Option(names = "--target-pct", paramLabel = "PCT", defaultValue = "10", description = "Difference the sample-size advice aims to resolve, in per cent (default: ${DEFAULT-VALUE}).")
   double targetPct;
 
   @Option(names = "--json", description = "Write the result as one JSON document on standard output (schema loadstone-compare): groups, test, outliers by run, the sample-size advice, the runs counted and those left out with the reason; the text goes to standard error.")

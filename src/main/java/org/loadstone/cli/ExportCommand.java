@@ -27,10 +27,10 @@ public final class ExportCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "Target file (must not exist).")
   Path out;
 
-  @Option(names = "--delimiter", defaultValue = ",", description = "',', ';' or tab (default ',').")
+  @Option(names = "--delimiter", defaultValue = ",", paramLabel = "MARK", description = "Field delimiter: ',', ';' or tab (default: ${DEFAULT-VALUE}).")
   String delimiter;
 
-  @Option(names = "--decimal", defaultValue = ".", description = "'.' or ',' (default '.').")
+  @Option(names = "--decimal", defaultValue = ".", paramLabel = "MARK", description = "Decimal mark: '.' or ',' (default: ${DEFAULT-VALUE}).")
   String decimal;
 
   @Option(names = "--json", description = "Write what was written as one JSON document on standard output (schema loadstone-export); the text goes to standard error.")
@@ -41,7 +41,8 @@ public final class ExportCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
-    CsvExport.write(r.data(), out, mark(delimiter, "--delimiter"), mark(decimal, "--decimal"));
+    CsvExport.write(r.data(), out, mark(delimiter, "--delimiter"),
+        ImportCommand.decimalMark(decimal, "--decimal"));
     java.io.PrintWriter h = JsonDocument.human(spec, json);
     h.println("written " + r.data().size() + " samples to " + out);
     h.flush();

@@ -29,13 +29,13 @@ public final class FrameCommand implements Callable<Integer> {
   @Parameters(paramLabel = "RUN", description = "The rigid-block run: an id (or prefix) in the archive or a run CSV.")
   String run;
 
-  @Option(names = "--id", required = true, description = "Name of the frame, e.g. bench-press.")
+  @Option(names = "--id", paramLabel = "ID", required = true, description = "Name of the frame, e.g. bench-press.")
   String id;
 
-  @Option(names = "--description", defaultValue = "", description = "Free text about the frame.")
+  @Option(names = "--notes", paramLabel = "TEXT", defaultValue = "", description = "Free text about the frame.")
   String description;
 
-  @Option(names = "--save", defaultValue = "calibration/frames", paramLabel = "DIR", description = "Folder for the profile (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--out", defaultValue = "calibration/frames", paramLabel = "DIR", description = "Folder for the profile (default: ${DEFAULT-VALUE}).")
   Path dir;
 
   @Option(names = "--json", description = "Write the frame profile as one JSON document on standard output (schema loadstone-frame); the text goes to standard error.")

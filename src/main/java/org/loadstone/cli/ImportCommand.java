@@ -41,28 +41,28 @@ public final class ImportCommand implements Callable<Integer> {
       description = "Columns by header name or 1-based number, e.g. time=Time [s],force=Load,position=3")
   String map;
 
-  @Option(names = "--force-unit", description = "N, kN, lbf or kgf (default: from the header, else N).")
+  @Option(names = "--force-unit", paramLabel = "UNIT", description = "N, kN, lbf or kgf (default: from the header, else N).")
   String forceUnit;
 
-  @Option(names = "--length-unit", description = "mm, um, cm, m or in (default: from the header, else mm).")
+  @Option(names = "--length-unit", paramLabel = "UNIT", description = "mm, um, cm, m or in (default: from the header, else mm).")
   String lengthUnit;
 
-  @Option(names = "--time-unit", description = "s, ms or min (default: from the header, else s).")
+  @Option(names = "--time-unit", paramLabel = "UNIT", description = "s, ms or min (default: from the header, else s).")
   String timeUnit;
 
-  @Option(names = "--decimal-comma", description = "Numbers use a comma as decimal mark.")
-  boolean decimalComma;
+  @Option(names = "--decimal", defaultValue = ".", paramLabel = "MARK", description = "Decimal mark of the numbers: '.' or ',' (default: ${DEFAULT-VALUE}).")
+  String decimal;
 
-  @Option(names = "--delimiter", description = "Field delimiter: ',', ';' or tab (default: detect).")
+  @Option(names = "--delimiter", paramLabel = "MARK", description = "Field delimiter: ',', ';' or tab (default: detect).")
   String delimiter;
 
-  @Option(names = "--skip-lines", defaultValue = "0", description = "Lines before the header row.")
+  @Option(names = "--skip-lines", paramLabel = "N", defaultValue = "0", description = "Lines before the header row (default: ${DEFAULT-VALUE}).")
   int skipLines;
 
-  @Option(names = "--specimen", description = "Specimen id for the imported run (default: the file name).")
+  @Option(names = "--specimen", paramLabel = "ID", description = "Specimen id for the imported run (default: the file name).")
   String specimen;
 
-  @Option(names = "--group", description = "Group for the imported run.")
+  @Option(names = "--group", paramLabel = "NAME", description = "Group for the imported run.")
   String group;
 
   @Option(names = "--out", paramLabel = "FILE.csv", description = "Write the run as a plain CSV here instead of storing it in the archive.")
@@ -76,7 +76,7 @@ public final class ImportCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     ImportSettings s = ImportSettings.of(ColumnMap.parse(map))
-        .withDecimalComma(decimalComma).withSkipLines(skipLines)
+        .withDecimalComma(decimalMark(decimal, "--decimal") == ',').withSkipLines(skipLines)
         .withDelimiter(delimiter == null ? null : ExportCommand.mark(delimiter, "--delimiter"));
     if (forceUnit != null) {
       s = s.withForceUnit(ForceUnit.parse(forceUnit));
@@ -130,6 +130,16 @@ public final class ImportCommand implements Callable<Integer> {
     }
     o.flush();
     return 0;
+  }
+
+  /** @return the decimal mark given, '.' or ',' */
+  static char decimalMark(String text, String option) {
+    char c = ExportCommand.mark(text, option);
+    if (c != '.' && c != ',') {
+      throw new org.loadstone.units.LoadstoneException(option + " '" + text + "' is not a "
+          + "decimal mark: give '.' or ','");
+    }
+    return c;
   }
 
   private static String num(double v) {

@@ -27,7 +27,7 @@ import picocli.CommandLine.Option;
 public final class MonitorCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
 
-  @Option(names = "--seconds", description = "Stop after this many seconds (default: until Ctrl-C).")
+  @Option(names = "--duration-s", paramLabel = "S", description = "Stop after this many seconds (default: until Ctrl-C).")
   Double seconds;
 
   @Option(names = "--json", description = {"Write JSON Lines on standard output (schema loadstone-monitor): one document per sample (record \"sample\"), unless --quiet, then one with the totals (record \"totals\"); device messages go to standard error."})
@@ -44,7 +44,7 @@ public final class MonitorCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     if (seconds != null && !(seconds > 0)) {
       throw new CommandLine.ParameterException(spec.commandLine(),
-          "--seconds must be greater than 0, was " + seconds);
+          "--duration-s must be greater than 0, was " + seconds);
     }
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();

@@ -31,16 +31,16 @@ public final class RunsCommand implements Callable<Integer> {
   @Option(names = "--to", paramLabel = "DATE", description = "Started before the end of this date (UTC).")
   String to;
 
-  @Option(names = "--specimen", description = "Specimen id contains this text.")
+  @Option(names = "--specimen", paramLabel = "ID", description = "Specimen id contains this text.")
   String specimen;
 
-  @Option(names = "--group", description = "Exactly this group.")
+  @Option(names = "--group", paramLabel = "NAME", description = "Exactly this group.")
   String group;
 
-  @Option(names = "--tag", description = "Has this tag.")
+  @Option(names = "--tag", paramLabel = "TAG", description = "Has this tag.")
   String tag;
 
-  @Option(names = "--cause", description = "Finished for this cause: break, overload, manual, time-limit, device-lost, device-reset, disk-full, recovered, imported.")
+  @Option(names = "--cause", paramLabel = "CAUSE", description = "Finished for this cause: break, overload, manual, time-limit, device-lost, device-reset, disk-full, recovered, imported.")
   String cause;
 
   @Option(names = "--json", description = "Write the list as one JSON document on standard output (schema loadstone-runs); the text goes to standard error.")

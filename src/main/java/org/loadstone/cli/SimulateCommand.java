@@ -27,22 +27,22 @@ import picocli.CommandLine.Option;
       "Write the simulated frame's wire bytes to a file, stdout or a serial device.",
       "",
       "The bytes are exactly what the firmware sends. A device path can be one end of a",
-      "pseudo-terminal pair. Output is paced in real time at --rate.",
+      "pseudo-terminal pair. Output is paced in real time at --rate-hz.",
       "",
       "Scenarios: brittle, ductile, crush, over-range, rigid-block, panel-foam, panel-balsa,",
       "panel-board, dead-weight."
     })
 public final class SimulateCommand implements Callable<Integer> {
-  @Option(names = "--scenario", defaultValue = "brittle", description = "What is on the simulated frame (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--scenario", paramLabel = "NAME", defaultValue = "brittle", description = "What is on the simulated frame (default: ${DEFAULT-VALUE}).")
   String scenario;
 
-  @Option(names = "--rate", defaultValue = "80", description = "Samples per second (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--rate-hz", paramLabel = "HZ", defaultValue = "80", description = "Samples per second (default: ${DEFAULT-VALUE}).")
   double rateHz;
 
-  @Option(names = "--seconds", defaultValue = "10", description = "Simulated duration (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--duration-s", paramLabel = "S", defaultValue = "10", description = "Simulated duration (default: ${DEFAULT-VALUE}).")
   double seconds;
 
-  @Option(names = "--seed", defaultValue = "1", description = "Random seed; the same seed gives the same bytes (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "Random seed; the same seed gives the same bytes (default: ${DEFAULT-VALUE}).")
   long seed;
 
   @Option(names = "--binary", description = "Use the binary encoding instead of text.")
@@ -67,7 +67,7 @@ public final class SimulateCommand implements Callable<Integer> {
   @Override
   public Integer call() throws IOException {
     if (!(seconds > 0)) {
-      throw new LoadstoneException("--seconds must be greater than 0, was " + seconds);
+      throw new LoadstoneException("--duration-s must be greater than 0, was " + seconds);
     }
     Scenario.parse(scenario);
     if (json && out.equals("-")) {

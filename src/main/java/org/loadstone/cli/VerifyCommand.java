@@ -33,8 +33,15 @@ import picocli.CommandLine.Option;
           + "weight is placed, and the force the calibration indicates is compared with the "
           + "weight's force. The result is appended to ID.checks.jsonl beside the calibration "
           + "file. On --port sim the program puts the weight on the simulated cell (scenario "
-          + "dead-weight unless --scenario is given).",
-      "Exit codes: 0 pass, 1 fail or stopped, 2 bad input, 3 device lost."
+          + "dead-weight unless --scenario is given)."
+    },
+    exitCodeListHeading = "%nExit codes:%n",
+    exitCodeList = {
+      "0:the check passed",
+      "1:the check failed (logged), or stopped by the operator (nothing logged)",
+      "2:bad usage or input: the message names the fault and the fix",
+      "3:the device was lost: nothing logged",
+      "70:internal error (a bug; please report it)"
     })
 public final class VerifyCommand implements Callable<Integer>, CommandInput.Reader {
   /** Exit code when the check fails or the operator stops. */

@@ -27,7 +27,7 @@ class ArchiveCommandsTest {
     Path src = Files.writeString(tmp.resolve("other-program.csv"), csv.toString());
     Path arc = tmp.resolve("archive");
     RecordCommandTest.Outcome imp = RecordCommandTest.run("import", src.toString(), "--map",
-        "time=t,force=Kraft,position=Weg", "--decimal-comma", "--specimen", "legacy-7",
+        "time=t,force=Kraft,position=Weg", "--decimal", ",", "--specimen", "legacy-7",
         "--group", "old", "--archive", arc.toString(), "--json");
     assertThat(imp.exit()).as(imp.err()).isZero();
     assertThat(imp.json().get("sample_count").asInt()).isEqualTo(43);

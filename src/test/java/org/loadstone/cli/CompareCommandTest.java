@@ -67,7 +67,7 @@ class CompareCommandTest {
   @Test
   void twoGroupsUseWelchAsCommonsMathDoes() throws Exception {
     RecordCommandTest.Outcome o = RecordCommandTest.run("compare", "--archive",
-        SAMPLES.toString(), "--metric", "peak", "--groups", "foam,board", "--include",
+        SAMPLES.toString(), "--metric", "peak", "--group", "foam,board", "--include",
         "uncalibrated", "--json");
     JsonNode j = o.json();
     assertThat(j.get("test").asText()).isEqualTo("welch_t");
@@ -79,12 +79,12 @@ class CompareCommandTest {
   @Test
   void oneGroupIsComparedWithTheOthersAndAnUnknownOneIsRefused() throws Exception {
     RecordCommandTest.Outcome o = RecordCommandTest.run("compare", "--archive",
-        SAMPLES.toString(), "--groups", "board", "--include", "uncalibrated", "--json");
+        SAMPLES.toString(), "--group", "board", "--include", "uncalibrated", "--json");
     assertThat(o.exit()).as(o.err()).isZero();
     assertThat(o.json().get("groups").fieldNames()).toIterable()
         .containsExactly("board", "balsa", "foam");
     RecordCommandTest.Outcome oak = RecordCommandTest.run("compare", "--archive",
-        SAMPLES.toString(), "--groups", "foam,oak");
+        SAMPLES.toString(), "--group", "foam,oak");
     assertThat(oak.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(oak.err()).contains("no runs of group 'oak'")
         .contains("the groups there are balsa, board, foam");

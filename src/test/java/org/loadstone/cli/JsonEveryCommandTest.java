@@ -106,7 +106,7 @@ class JsonEveryCommandTest {
 
   @Test
   void monitorStreamsJsonLinesEndingWithTheTotals() throws Exception {
-    CliRun r = run("monitor", "", "--port", "sim", "--seconds", "0.5");
+    CliRun r = run("monitor", "", "--port", "sim", "--duration-s", "0.5");
     String[] lines = r.out().split("\n");
     assertThat(lines.length).isGreaterThan(1);
     long samples = 0;
@@ -127,7 +127,7 @@ class JsonEveryCommandTest {
   @Test
   void simulateRecordAndTheArchiveCommands() throws Exception {
     Path bytes = tmp.resolve("stream.txt");
-    JsonNode sim = document("simulate", "", "--out", bytes.toString(), "--seconds", "1",
+    JsonNode sim = document("simulate", "", "--out", bytes.toString(), "--duration-s", "1",
         "--unpaced");
     // 1 s at the default 80 samples/s, plus the identity line
     assertThat(Files.readAllLines(bytes)).hasSize((int) sim.get("sample_count").asLong() + 1);
@@ -173,16 +173,16 @@ class JsonEveryCommandTest {
 
     Path frames = tmp.resolve("frames");
     JsonNode fr = document("frame", "", foam1, "--archive", archive.toString(), "--id", "bench",
-        "--save", frames.toString());
+        "--out", frames.toString());
     assertThat(Path.of(fr.get("profile_file").asText())).exists();
   }
 
   @Test
   void calibrateThenVerifyOnTheSimulator() throws Exception {
     Path cals = tmp.resolve("cals");
-    JsonNode cal = document("calibrate", "", "--from",
+    JsonNode cal = document("calibrate", "", "--points",
         PROJECT.resolve("calibration/shelf-rig-1kN-2026-12-03.points.csv").toString(),
-        "--cell", "shelf-rig-1kN", "--save", cals.toString(), "--id", "json-cal");
+        "--cell", "shelf-rig-1kN", "--out", cals.toString(), "--id", "json-cal");
     assertThat(cal.get("calibration_file").asText())
         .isEqualTo(cals.resolve("json-cal.json").toString());
     CliRun r = CliRun.run("\n\n", "verify", "--port", "sim", "--cal",

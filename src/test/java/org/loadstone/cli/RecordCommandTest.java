@@ -80,7 +80,7 @@ class RecordCommandTest {
         .cause(FinishCause.MANUAL).build();
     org.loadstone.archive.RunWriter.write(tmp, earlier, new org.loadstone.archive.RunData(
         new double[] {0}, new double[] {0}, null, new int[] {0}, null, new int[] {0}));
-    Outcome r = run("record", "--port", "sim", "--scenario", "panel-balsa", "--rate", "1000",
+    Outcome r = run("record", "--port", "sim", "--scenario", "panel-balsa", "--rate-hz", "1000",
         "--sim-speed", "8", "--specimen", "balsa-01", "--group", "balsa", "--mass-g", "61.5",
         "--span-mm", "200", "--width-mm", "50", "--depth-mm", "12", "--archive",
         tmp.toString(), "--json");
@@ -124,7 +124,7 @@ class RecordCommandTest {
     Files.copy(project.resolve("cells/shelf-rig-500N.json"), calDir.resolve("cells/shelf-rig-500N.json"));
     Path cal = calDir.resolve("shelf-rig-500N-2026-12-02.json");
     var doc = org.loadstone.calibration.CalibrationFiles.readCalibration(cal);
-    Outcome r = run("record", "--port", "sim", "--scenario", "brittle", "--rate", "1000",
+    Outcome r = run("record", "--port", "sim", "--scenario", "brittle", "--rate-hz", "1000",
         "--sim-speed", "8", "--specimen", "c1", "--cal", cal.toString(), "--archive",
         tmp.resolve("runs").toString(), "--json");
     assertThat(r.exit()).as(r.err()).isZero();
@@ -145,25 +145,25 @@ class RecordCommandTest {
   @Test
   void badThresholdsAreRefusedBeforeTheDeviceOpens() {
     Outcome r = run("record", "--port", "/dev/ttyNOPE9", "--counts-per-n", "100",
-        "--capacity-N", "500", "--specimen", "x", "--stop-drop-pct", "100",
+        "--capacity-n", "500", "--specimen", "x", "--stop-drop-pct", "100",
         "--archive", tmp.toString());
     assertThat(r.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(r.err()).contains("--stop-drop-pct").doesNotContain("ttyNOPE9").doesNotContain("at org.");
-    Outcome r2 = run("record", "--port", "sim", "--specimen", "x", "--start-at-N", "-3",
+    Outcome r2 = run("record", "--port", "sim", "--specimen", "x", "--start-at-n", "-3",
         "--archive", tmp.toString());
-    assertThat(r2.err()).contains("--start-at-N");
+    assertThat(r2.err()).contains("--start-at-n");
   }
 
   @Test
   void aZeroDriftLimitOfZeroIsRefusedNamingTheOption() {
     Outcome r = run("record", "--port", "/dev/ttyNOPE9", "--counts-per-n", "100",
-        "--capacity-N", "500", "--specimen", "x", "--zero-drift-N", "0",
+        "--capacity-n", "500", "--specimen", "x", "--zero-drift-n", "0",
         "--archive", tmp.toString());
     assertThat(r.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(r.err()).contains("the zero-drift limit must be a force greater than 0 N")
-        .contains("(--zero-drift-N)").doesNotContain("ttyNOPE9");
+        .contains("(--zero-drift-n)").doesNotContain("ttyNOPE9");
     Outcome z = run("record", "--port", "/dev/ttyNOPE9", "--counts-per-n", "100",
-        "--capacity-N", "500", "--specimen", "x", "--zero-samples", "0",
+        "--capacity-n", "500", "--specimen", "x", "--zero-samples", "0",
         "--archive", tmp.toString());
     assertThat(z.err()).contains("the zero must average at least 1 sample")
         .contains("(--zero-samples)");
@@ -185,14 +185,14 @@ class RecordCommandTest {
     assertThat(r.err()).contains("--cal").contains("--counts-per-n");
     Outcome r2 = run("record", "--port", "/dev/ttyNOPE9", "--specimen", "x", "--counts-per-n",
         "100", "--archive", tmp.toString());
-    assertThat(r2.err()).contains("--capacity-N");
+    assertThat(r2.err()).contains("--capacity-n");
   }
 
   /** A simulated ductile specimen (seed 4, 1 kS/s, 60 s) streamed into the pair's other end. */
   private static void streamDuctile(SocatPair pty) {
     Thread writer = new Thread(() -> LoadstoneCommand.run(new PrintWriter(new StringWriter()),
-        new PrintWriter(new StringWriter()), "simulate", "--scenario", "ductile", "--rate",
-        "1000", "--seconds", "60", "--seed", "4", "--out", pty.a().toString()));
+        new PrintWriter(new StringWriter()), "simulate", "--scenario", "ductile", "--rate-hz",
+        "1000", "--duration-s", "60", "--seed", "4", "--out", pty.a().toString()));
     writer.setDaemon(true);
     writer.start();
   }
@@ -208,7 +208,7 @@ class RecordCommandTest {
       Thread rec = new Thread(() -> exit.set(LoadstoneCommand.run(new PrintWriter(o, true),
           new PrintWriter(e, true), "record", "--port", pty.b().toString(), "--counts-per-n",
           Double.toString(new SimSetup("ductile", 4, 1000, false, 1).nominalCountsPerN()),
-          "--capacity-N", "500", "--specimen", "cable", "--manual-start", "--archive",
+          "--capacity-n", "500", "--specimen", "cable", "--manual-start", "--archive",
           tmp.toString(), "--json")));
       rec.start();
       awaitJournalSamples(tmp, 1100); // counted in the journal, not timed
@@ -246,7 +246,7 @@ class RecordCommandTest {
       };
       Thread rec = new Thread(() -> exit.set(LoadstoneCommand.run(
           new PrintWriter(new StringWriter()), errors, "record", "--port", pty.b().toString(),
-          "--counts-per-n", "100", "--capacity-N", "1e6", "--start-at-N", "5e5", "--specimen",
+          "--counts-per-n", "100", "--capacity-n", "1e6", "--start-at-n", "5e5", "--specimen",
           "armed", "--archive", tmp.toString())));
       rec.start();
       assertThat(armed.await(HangGuard.S, TimeUnit.SECONDS)).as(e.toString()).isTrue();
@@ -265,7 +265,7 @@ class RecordCommandTest {
   void killedWithSigkillTheJournalIsRecoveredAtTheNextStart() throws Exception {
     ProcessBuilder pb = new ProcessBuilder(Path.of(System.getProperty("java.home"), "bin", "java")
         .toString(), "-cp", System.getProperty("java.class.path"), "org.loadstone.Main", "record",
-        "--port", "sim", "--scenario", "panel-foam", "--seed", "9", "--rate", "1000",
+        "--port", "sim", "--scenario", "panel-foam", "--seed", "9", "--rate-hz", "1000",
         "--specimen", "crash-01", "--manual-start", "--archive", tmp.toString());
     pb.redirectErrorStream(true);
     Process p = pb.start();
