@@ -6,12 +6,13 @@ import java.nio.file.Path;
 public final class ArchiveFolders {
   private ArchiveFolders() {}
 
-  /** @return {@code $LOADSTONE_ARCHIVE} when set, else {@code ~/loadstone-runs} */
+  /**
+   * @return the user's archive folder: {@code $LOADSTONE_ARCHIVE} when set, else the config
+   *     file's {@code archive}, else {@code ~/loadstone-runs} ({@link
+   *     org.loadstone.config.UserConfig})
+   */
   public static Path defaultFolder() {
-    String env = System.getenv("LOADSTONE_ARCHIVE");
-    if (env != null && !env.isBlank()) {
-      return Path.of(env);
-    }
-    return Path.of(System.getProperty("user.home"), "loadstone-runs");
+    return Path.of(org.loadstone.config.UserConfig.current().value(
+        org.loadstone.config.UserConfig.Key.ARCHIVE));
   }
 }

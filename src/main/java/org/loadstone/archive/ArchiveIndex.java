@@ -162,28 +162,47 @@ public final class ArchiveIndex {
   }
 
   /**
-   * Finds one run by id (or a unique prefix of it).
+   * Finds one run the way a person names it: its run id, the start of its id, or its specimen id
+   * (any case; the amended one when amended). An exact run id wins; otherwise the runs whose id
+   * starts with {@code reference} and those whose specimen id is {@code reference} are the
+   * candidates, and there must be exactly one.
    *
-   * @throws LoadstoneException when none or several match
+   * @param reference what the user typed, not null
+   * @throws LoadstoneException when none match, or when several do (the message lists them, up
+   *     to ten, with their specimen, start and mark, and asks for more of the id)
    */
-  public Entry find(String idOrPrefix) {
-    List<Entry> m = entries.stream().filter(e -> e.metadata().runId().startsWith(idOrPrefix))
-        .toList();
-    Optional<Entry> exact = m.stream().filter(e -> e.metadata().runId().equals(idOrPrefix))
+  public Entry find(String reference) {
+    Precondition.notNull(reference, "reference");
+    String ref = reference.strip();
+    Optional<Entry> exact = entries.stream().filter(e -> e.metadata().runId().equals(ref))
         .findFirst();
     if (exact.isPresent()) {
       return exact.get();
     }
+    List<Entry> m = ref.isEmpty() ? List.of() : entries.stream()
+        .filter(e -> e.metadata().runId().startsWith(ref)
+            || e.metadata().specimen().strip().equalsIgnoreCase(ref))
+        .toList();
     if (m.size() == 1) {
       return m.get(0);
     }
     if (m.isEmpty()) {
-      throw new LoadstoneException("no run '" + idOrPrefix + "' in " + dir
-          + ": give the id (or its start) of a run the archive lists, or choose the archive "
-          + "folder that holds it", org.loadstone.units.Setting.ARCHIVE_FOLDER);
+      throw new LoadstoneException("no run '" + ref + "' in " + dir
+          + ": give the id (or its start) or the specimen id of a run the archive lists, or "
+          + "choose the archive folder that holds it", org.loadstone.units.Setting.ARCHIVE_FOLDER);
     }
-    throw new LoadstoneException("'" + idOrPrefix + "' matches " + m.size() + " runs in " + dir
-        + ": give more of the id");
+    StringBuilder list = new StringBuilder();
+    m.stream().limit(10).forEach(e -> {
+      RunMetadata md = e.metadata();
+      list.append("\n  ").append(md.runId()).append("  specimen ").append(md.specimen())
+          .append(", started ").append(md.startedAt())
+          .append(md.amendments().mark().isEmpty() ? "" : ", " + md.amendments().mark());
+    });
+    if (m.size() > 10) {
+      list.append("\n  … and ").append(m.size() - 10).append(" more");
+    }
+    throw new LoadstoneException("'" + ref + "' matches " + m.size() + " runs in " + dir
+        + ": give more of the run id to choose one of" + list);
   }
 
   /**

@@ -18,29 +18,35 @@ import java.util.Map;
  * @param jsonSha256 SHA-256 of the sidecar's text
  * @param csvSha256 SHA-256 of the samples file, null when there was none or it was unreadable
  * @param sidecar the sidecar's text
+ * @param amend the amendment log's size and time, {@link RunIndex.Stat#NONE} when there was none
+ * @param amendSha256 SHA-256 of the amendment log, null when there was none
+ * @param amendments the amendment log's text, null when there was none
  */
 record IndexRow(String name, RunIndex.Stat json, RunIndex.Stat csv, String jsonSha256,
-    String csvSha256, String sidecar) {
+    String csvSha256, String sidecar, RunIndex.Stat amend, String amendSha256,
+    String amendments) {
 
   /** @return whether the run's files look as they did when the row was made */
-  boolean matches(RunIndex.Stat jsonNow, RunIndex.Stat csvNow) {
-    return json.equals(jsonNow) && csv.equals(csvNow == null ? RunIndex.Stat.NONE : csvNow);
+  boolean matches(RunIndex.Stat jsonNow, RunIndex.Stat csvNow, RunIndex.Stat amendNow) {
+    return json.equals(jsonNow) && csv.equals(csvNow == null ? RunIndex.Stat.NONE : csvNow)
+        && amend.equals(amendNow == null ? RunIndex.Stat.NONE : amendNow);
   }
 
-  /** @return the run's content hash: both files' hashes */
+  /** @return the run's content hash: both files' hashes and its amendment log's, if any */
   String contentSha256() {
-    return jsonSha256 + ":" + csvSha256;
+    return jsonSha256 + ":" + csvSha256 + (amendSha256 == null ? "" : ":" + amendSha256);
   }
 
   static Map<String, IndexRow> readAll(Connection c) throws SQLException {
     Map<String, IndexRow> rows = new HashMap<>();
     try (Statement s = c.createStatement(); ResultSet r = s.executeQuery("SELECT name, "
-        + "json_size, json_mtime_ns, csv_size, csv_mtime_ns, json_sha256, csv_sha256, sidecar "
-        + "FROM runs")) {
+        + "json_size, json_mtime_ns, csv_size, csv_mtime_ns, json_sha256, csv_sha256, sidecar, "
+        + "amend_size, amend_mtime_ns, amend_sha256, amendments FROM runs")) {
       while (r.next()) {
         IndexRow row = new IndexRow(r.getString(1), new RunIndex.Stat(r.getLong(2), r.getLong(3)),
             new RunIndex.Stat(r.getLong(4), r.getLong(5)), r.getString(6), r.getString(7),
-            r.getString(8));
+            r.getString(8), new RunIndex.Stat(r.getLong(9), r.getLong(10)), r.getString(11),
+            r.getString(12));
         rows.put(row.name(), row);
       }
     }
@@ -59,7 +65,8 @@ record IndexRow(String name, RunIndex.Stat json, RunIndex.Stat csv, String jsonS
     try (Statement s = c.createStatement();
         PreparedStatement put = c.prepareStatement("INSERT OR REPLACE INTO runs (name, "
             + "json_size, json_mtime_ns, csv_size, csv_mtime_ns, json_sha256, csv_sha256, "
-            + "sidecar) VALUES (?, ?, ?, ?, ?, ?, ?, ?)");
+            + "sidecar, amend_size, amend_mtime_ns, amend_sha256, amendments) "
+            + "VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)");
         PreparedStatement stale = c.prepareStatement(
             "DELETE FROM figures WHERE name = ? AND content_sha256 <> ?");
         PreparedStatement dropRun = c.prepareStatement("DELETE FROM runs WHERE name = ?");
@@ -75,6 +82,10 @@ record IndexRow(String name, RunIndex.Stat json, RunIndex.Stat csv, String jsonS
           put.setString(6, r.jsonSha256());
           put.setString(7, r.csvSha256());
           put.setString(8, r.sidecar());
+          put.setLong(9, r.amend().size());
+          put.setLong(10, r.amend().mtime_ns());
+          put.setString(11, r.amendSha256());
+          put.setString(12, r.amendments());
           put.executeUpdate();
           stale.setString(1, r.name());
           stale.setString(2, r.contentSha256());

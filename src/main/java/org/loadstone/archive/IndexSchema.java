@@ -16,13 +16,15 @@ import java.util.List;
  * <p>{@code runs}: one row per readable sidecar, by file name: the size and modification time
  * (ns) of the sidecar and of the samples file beside it when it was read ({@code csv_size} −1
  * when there was none), the SHA-256 of both files' bytes ({@code csv_sha256} null without a
- * readable samples file) and the sidecar's text. {@code figures}: what the study computed from
+ * readable samples file) and the sidecar's text; since version 2 also the run's amendment log
+ * ({@code amend_size} −1 and the rest null when it has none), its SHA-256 and text.
+ * {@code figures}: what the study computed from
  * a run, by file name and settings key, valid while the run's content hash is the one stored
  * with it.
  */
 final class IndexSchema {
   /** The version this program writes and reads. */
-  static final int VERSION = 1;
+  static final int VERSION = 2;
 
   /** Step {@code i} takes an index from version {@code i} to {@code i + 1}. */
   private static final List<List<String>> STEPS = List.of(
@@ -32,7 +34,12 @@ final class IndexSchema {
               + "sidecar TEXT NOT NULL)",
           "CREATE TABLE figures (name TEXT NOT NULL, settings_key TEXT NOT NULL, "
               + "content_sha256 TEXT NOT NULL, figures TEXT NOT NULL, "
-              + "PRIMARY KEY (name, settings_key))"));
+              + "PRIMARY KEY (name, settings_key))"),
+      // 2: the run's amendment log, part of its content
+      List.of("ALTER TABLE runs ADD COLUMN amend_size INTEGER NOT NULL DEFAULT -1",
+          "ALTER TABLE runs ADD COLUMN amend_mtime_ns INTEGER NOT NULL DEFAULT -1",
+          "ALTER TABLE runs ADD COLUMN amend_sha256 TEXT",
+          "ALTER TABLE runs ADD COLUMN amendments TEXT"));
 
   private IndexSchema() {}
 

@@ -28,6 +28,9 @@ import org.sqlite.SQLiteConfig;
  * what reading every sidecar would give, and the figures computed from each run, so that
  * listing and comparing a large archive reads only what changed.
  *
+ * <p>A run's amendment log ({@link Amendments}) is part of its content: it is looked at and
+ * hashed with the two files, so an amendment shows at once and invalidates the run's figures.
+ *
  * <p>The run files stay the truth; the index is a cache of them and never required:
  *
  * <ul>
@@ -118,12 +121,13 @@ public final class RunIndex {
         IndexRow row = rows.remove(name);
         Stat js = Stat.of(json);
         Stat cs = Stat.of(csvOf(json));
-        boolean fresh = row == null || !row.matches(js, cs);
+        Stat as = Stat.of(Amendments.file(json));
+        boolean fresh = row == null || !row.matches(js, cs, as);
         try {
           if (fresh) {
-            row = readRun(json, js, cs);
+            row = readRun(json, js, cs, as);
           }
-          entries.add(ArchiveIndex.entry(json, RunReader.metadataFromText(json, row.sidecar())));
+          entries.add(ArchiveIndex.entry(json, metadata(json, row)));
         } catch (LoadstoneException e) {
           problems.add(new ArchiveIndex.Unreadable(json, e.getMessage()));
           continue;
@@ -147,8 +151,10 @@ public final class RunIndex {
    *
    * @throws LoadstoneException when the sidecar cannot be read, as {@link RunReader} says it
    */
-  private static IndexRow readRun(Path json, Stat js, Stat cs) {
+  private static IndexRow readRun(Path json, Stat js, Stat cs, Stat as) {
     String text = org.loadstone.units.TextFiles.read(json, "run file");
+    String amendments = as == null ? null
+        : org.loadstone.units.TextFiles.read(Amendments.file(json), "amendment log");
     String csvSha = null;
     if (cs != null) {
       try {
@@ -158,7 +164,20 @@ public final class RunIndex {
       }
     }
     return new IndexRow(json.getFileName().toString(), js == null ? Stat.NONE : js,
-        cs == null ? Stat.NONE : cs, sha256(text.getBytes(StandardCharsets.UTF_8)), csvSha, text);
+        cs == null ? Stat.NONE : cs, sha256(text.getBytes(StandardCharsets.UTF_8)), csvSha, text,
+        as == null ? Stat.NONE : as,
+        amendments == null ? null : sha256(amendments.getBytes(StandardCharsets.UTF_8)),
+        amendments);
+  }
+
+  /** The run's metadata from the row: its sidecar with its amendment log applied. */
+  private static RunMetadata metadata(Path json, IndexRow row) {
+    RunMetadata stored = RunReader.metadataFromText(json, row.sidecar());
+    if (row.amendments() == null) {
+      return stored;
+    }
+    Path log = Amendments.file(json);
+    return Amendments.apply(stored, Amendments.parse(log, row.amendments()), log);
   }
 
   private static Path csvOf(Path json) {

@@ -46,6 +46,8 @@ import org.loadstone.units.Precondition;
  * @param warnings warnings given before or during the run (expired calibration, overload warning…)
  * @param softwareVersion Loadstone's version
  * @param extra other fields kept from the file (forward compatibility), may be empty
+ * @param amendments what the run's amendment log changed (never written to the sidecar; set
+ *     when the run is read, see {@link Amendments}); {@link RunAmendments#NONE} when none
  */
 public record RunMetadata(
     String runId,
@@ -79,7 +81,8 @@ public record RunMetadata(
     Map<String, Object> checkWeight,
     List<String> warnings,
     String softwareVersion,
-    Map<String, Object> extra) {
+    Map<String, Object> extra,
+    RunAmendments amendments) {
 
   public RunMetadata {
     Precondition.notNull(runId, "runId");
@@ -96,6 +99,7 @@ public record RunMetadata(
     Precondition.notNull(cause, "cause");
     warnings = warnings == null ? List.of() : List.copyOf(warnings);
     extra = extra == null ? Map.of() : Map.copyOf(extra);
+    amendments = amendments == null ? RunAmendments.NONE : amendments;
     if (returnToZero_N != null && !Double.isFinite(returnToZero_N)) {
       throw new IllegalArgumentException("return to zero must be a finite force, was "
           + returnToZero_N);
@@ -168,6 +172,7 @@ public record RunMetadata(
     b.warnings = warnings;
     b.softwareVersion = softwareVersion;
     b.extra = extra;
+    b.amendments = amendments;
     return b;
   }
 
@@ -208,6 +213,7 @@ public record RunMetadata(
     private List<String> warnings;
     private String softwareVersion;
     private Map<String, Object> extra;
+    private RunAmendments amendments;
 
     private Builder() {}
 
@@ -371,9 +377,14 @@ public record RunMetadata(
       return this;
     }
 
+    public Builder amendments(RunAmendments v) {
+      amendments = v;
+      return this;
+    }
+
     /** @return the record; throws as the record's constructor does when a required field is missing */
     public RunMetadata build() {
-      return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g, geometry, testType, device, sampleRate_Hz, sampleRateSource, calibrationId, calibrationSha256, scale, scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s, peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, returnToZero_N, checkWeight, warnings, softwareVersion, extra);
+      return new RunMetadata(runId, startedAt, specimen, group, tags, operator, notes, mass_g, geometry, testType, device, sampleRate_Hz, sampleRateSource, calibrationId, calibrationSha256, scale, scaleSpec, zeroOffset_counts, dropped, checksumErrors, cause, breakIndex, breakTime_s, peakBeforeBreak_N, dropAtBreak_pct, pretrigger_s, startThreshold_N, returnToZero_N, checkWeight, warnings, softwareVersion, extra, amendments);
     }
   }
 }

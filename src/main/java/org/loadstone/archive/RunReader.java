@@ -17,7 +17,8 @@ public final class RunReader {
 
   /**
    * @param csvOrJsonOrStem {@code <dir>/<id>.csv}, {@code <dir>/<id>.json} or {@code <dir>/<id>}
-   * @return the run; unknown CSV columns are ignored, unknown JSON fields kept in {@code extra}
+   * @return the run, its metadata amended by its amendment log when it has one ({@link
+   *     Amendments}); unknown CSV columns are ignored, unknown JSON fields kept in {@code extra}
    * @throws LoadstoneException when a file is missing or invalid: the message names the file,
    *     and for the CSV the line and column (missing cells, non-numbers, NaN, time out of order)
    */
@@ -63,9 +64,22 @@ public final class RunReader {
 
   /**
    * @param json a sidecar file
-   * @throws LoadstoneException naming the file and the field when missing or invalid
+   * @return its metadata, amended by the run's amendment log when it has one ({@link
+   *     Amendments})
+   * @throws LoadstoneException naming the file and the field (or the log and the line) when
+   *     missing or invalid
    */
   public static RunMetadata readMetadata(Path json) {
+    return Amendments.applyLog(json, readStoredMetadata(json));
+  }
+
+  /**
+   * The sidecar exactly as stored, without its amendments (see {@link Amendments}).
+   *
+   * @param json a sidecar file
+   * @throws LoadstoneException naming the file and the field when missing or invalid
+   */
+  public static RunMetadata readStoredMetadata(Path json) {
     if (!Files.exists(json)) {
       throw missing(json, json);
     }

@@ -140,6 +140,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
     for (String note : adj.notes()) {
       out.println("derived: " + note);
     }
+    if (r.metadata().amendments().any()) {
+      out.println(r.metadata().amendments().summary());
+    }
     for (String note : m.notes()) {
       out.println("note: " + note);
     }
@@ -149,6 +152,9 @@ public final class AnalyzeCommand implements Callable<Integer> {
       j.put("calibration_id", adj.metadata().calibrationId());
       j.put("calibration_sha256", adj.metadata().calibrationSha256());
       j.put("source_file", r.source());
+      j.put("amended", r.metadata().amendments().changes().stream()
+          .map(org.loadstone.archive.RunAmendments.Change::line).toList());
+      j.put("retired", r.metadata().amendments().retired());
       JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.ANALYZE, j);
     }
     out.flush();

@@ -48,6 +48,31 @@ final class CliWiring {
     return new ResolvedRun(r.metadata(), r.data(), r.csv().toString());
   }
 
+  /**
+   * The sidecar of a stored run: a run's CSV or JSON path, else a run id, id prefix or specimen
+   * id in the archive.
+   *
+   * @throws LoadstoneException when no stored run matches, or several do
+   */
+  static Path sidecar(String reference, Path archiveDir) {
+    Optional<Path> file = asFile(reference);
+    if (file.isPresent()) {
+      Path p = file.get();
+      Path json = p.resolveSibling(p.getFileName().toString().replaceFirst("\\.(csv|json)$", "")
+          + ".json");
+      if (Files.isRegularFile(json)) {
+        return json;
+      }
+      throw new LoadstoneException(p + " is not a stored run (no " + json.getFileName()
+          + " beside it): only runs in an archive keep a record to amend; import it first");
+    }
+    if (!Files.isDirectory(archiveDir)) {
+      throw new LoadstoneException("no run '" + reference + "': the archive " + archiveDir
+          + " does not exist; give --archive DIR");
+    }
+    return ArchiveIndex.scan(archiveDir).find(reference).json();
+  }
+
   private static Optional<Path> asFile(String reference) {
     try {
       Path p = Path.of(reference);

@@ -23,7 +23,7 @@ final class JsonDocument {
   /** The documents, one per command that has {@code --json}. */
   enum Kind {
     PORTS, MONITOR, SIMULATE, RECORD, CALIBRATE, VERIFY, RUNS, COMPARE, ANALYZE, IMPORT, EXPORT,
-    REPORT, FRAME;
+    REPORT, FRAME, AMEND, RETIRE, CONFIG;
 
     /** Version of every document's field list; raised when a field is renamed or removed. */
     static final int VERSION = 1;

@@ -27,6 +27,8 @@ final class JsonViews {
     row.put("cause", m.cause().wireName());
     row.put("started_at", m.startedAt().toString());
     row.put("calibration_id", m.calibrationId());
+    row.put("amendment_count", m.amendments().log().size());
+    row.put("retired", m.amendments().retired());
     row.put("csv_file", e.csv().toString());
     row.put("sidecar_file", e.json().toString());
     return row;

@@ -36,10 +36,14 @@ import picocli.CommandLine.Command;
       RunsCommand.class,
       CompareCommand.class,
       AnalyzeCommand.class,
+      AmendCommand.class,
+      RetireCommand.class,
       ImportCommand.class,
       ExportCommand.class,
       ReportCommand.class,
       FrameCommand.class,
+      ConfigCommand.class,
+      picocli.AutoComplete.GenerateCompletion.class,
       CommandLine.HelpCommand.class
     })
 public final class LoadstoneCommand implements Runnable {
@@ -82,7 +86,18 @@ public final class LoadstoneCommand implements Runnable {
    * @param stderr standard error, or null for the process's
    */
   public static int run(InputStream in, PrintWriter stdout, PrintWriter stderr, String... args) {
+    return run(in, stdout, stderr, org.loadstone.config.UserConfig.current(), args);
+  }
+
+  /**
+   * As {@link #run(InputStream, PrintWriter, PrintWriter, String...)} with the user's defaults
+   * given (tests give their own instead of the process's environment and home).
+   */
+  public static int run(InputStream in, PrintWriter stdout, PrintWriter stderr,
+      org.loadstone.config.UserConfig config, String... args) {
     CommandLine cl = new CommandLine(new LoadstoneCommand(), CommandInput.factory(in));
+    cl.setDefaultValueProvider(new ConfigDefaults(config));
+    cl.getSubcommands().get("generate-completion").getCommandSpec().usageMessage().hidden(true);
     for (CommandLine sub : cl.getSubcommands().values()) {
       if (!(sub.getCommand() instanceof CommandLine.HelpCommand)) {
         sub.getCommandSpec().mixinStandardHelpOptions(true);

@@ -56,14 +56,15 @@ public final class RunsCommand implements Callable<Integer> {
     ArchiveIndex.Query q = new ArchiveIndex.Query(day(from, "--from", 0), day(to, "--to", 1),
         specimen, group, tag, cause == null ? null : FinishCause.parse(cause));
     List<ArchiveIndex.Entry> found = idx.search(q);
-    out.printf("%-40s %-14s %-10s %-12s %s%n", "run", "specimen", "group", "cause",
-        "started (UTC)");
+    out.printf("%-40s %-14s %-10s %-12s %-20s %s%n", "run", "specimen", "group", "cause",
+        "started (UTC)", "amendments");
     List<Map<String, Object>> rows = new ArrayList<>();
     for (ArchiveIndex.Entry e : found) {
       RunMetadata m = e.metadata();
       rows.add(JsonViews.run(e));
-      out.printf(Locale.ROOT, "%-40s %-14s %-10s %-12s %s%n", m.runId(), m.specimen(),
-          m.group(), m.cause().wireName(), m.startedAt().toString().substring(0, 19));
+      out.printf(Locale.ROOT, "%-40s %-14s %-10s %-12s %-20s %s%n", m.runId(), m.specimen(),
+          m.group(), m.cause().wireName(), m.startedAt().toString().substring(0, 19),
+          m.amendments().summary());
     }
     for (String p : idx.problems()) {
       err.println("warning: " + p);

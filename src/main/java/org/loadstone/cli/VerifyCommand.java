@@ -50,7 +50,7 @@ public final class VerifyCommand implements Callable<Integer>, CommandInput.Read
 
   @Mixin DeviceOptions device;
 
-  @Option(names = "--cal", required = true, paramLabel = "FILE", description = "The calibration file to check.")
+  @Option(names = "--cal", paramLabel = "FILE", description = "The calibration file to check (default: the calibration of 'loadstone config').")
   Path calFile;
 
   @Option(names = "--mass-g", required = true, paramLabel = "G",
@@ -96,6 +96,10 @@ public final class VerifyCommand implements Callable<Integer>, CommandInput.Read
     if (simPlaced_g != null && (!device.simulated() || !(simPlaced_g > 0))) {
       throw new LoadstoneException("--sim-placed-g only works with --port sim and must be > 0:"
           + " drop it for a real device (there you place the weight yourself)");
+    }
+    if (calFile == null) {
+      throw new LoadstoneException("no calibration to check: give --cal FILE, or set "
+          + "'calibration' in the config file (see 'loadstone config')");
     }
     CalibrationStatus status = CalibrationStatus.check(calFile, null, LocalDate.now());
     if (status.document() == null) {

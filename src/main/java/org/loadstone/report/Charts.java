@@ -32,23 +32,27 @@ import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
 /**
- * JFreeChart charts of runs and groups, drawn for print: white background, light grid, a calm
- * palette of muted blues, greens and earth tones. No JavaFX.
+ * JFreeChart charts of runs and groups, drawn for print: white background, light grid, the
+ * colour-blind-safe group colours of {@link GroupColours}, the report font ({@link ReportFonts}).
+ * No JavaFX.
  */
 public final class Charts {
   private Charts() {}
 
-  /** Series colours, in order of use. */
-  static final Color[] PALETTE = {
-    new Color(0x35, 0x5C, 0x7D), new Color(0x6C, 0x9A, 0x8B), new Color(0xB8, 0x86, 0x4B),
-    new Color(0x8E, 0x5B, 0x6E), new Color(0x7D, 0x86, 0x4F), new Color(0x5F, 0x6B, 0xA8),
-    new Color(0x9C, 0x6B, 0x4E), new Color(0x4B, 0x85, 0x9E)
-  };
+  /**
+   * Most runs a group chart names one by one in its legend, each in its own colour; a group with
+   * more is drawn in the group's colour alone, without a per-run legend, so the curves stay
+   * visible.
+   */
+  public static final int PER_RUN_LEGEND_MAX = 8;
+
+  /** Series colours of a single run's chart, in order of use. */
+  static final Color[] PALETTE = GroupColours.PALETTE.toArray(new Color[0]);
   private static final Color INK = new Color(0x2E, 0x34, 0x3B);
   private static final Color GRID = new Color(0xDD, 0xE1, 0xE6);
   private static final Color ACCENT = new Color(0xB0, 0x4A, 0x3A);
-  private static final Font LABEL = new Font(Font.SANS_SERIF, Font.PLAIN, 10);
-  private static final Font TITLE = new Font(Font.SANS_SERIF, Font.BOLD, 12);
+  private static final Font LABEL = ReportFonts.awt(false, 10);
+  private static final Font TITLE = ReportFonts.awt(true, 12);
 
   /**
    * Force against displacement (from the first sample) for a run with position, otherwise force
@@ -76,7 +80,7 @@ public final class Charts {
       ds.add(String.format(Locale.ROOT, "stiffness %.4g N/mm", fit.slope_N_per_mm()),
           new double[] {fit.toeOffset_mm(), (top - fit.intercept_N()) / fit.slope_N_per_mm()},
           new double[] {0.0, top});
-      rend.setSeriesPaint(next, PALETTE[2]);
+      rend.setSeriesPaint(next, PALETTE[4]);
       rend.setSeriesStroke(next, new BasicStroke(1.4f, BasicStroke.CAP_ROUND,
           BasicStroke.JOIN_ROUND, 1f, new float[] {6f, 4f}, 0f));
       next++;
@@ -109,7 +113,8 @@ public final class Charts {
   }
 
   /**
-   * The curves of several runs on one chart, one colour per group (legend: one entry per group).
+   * The curves of several runs on one chart, one colour per group (legend: one entry per group,
+   * with its number of runs), the groups coloured in the order given.
    *
    * @param title chart title, not null
    * @param groups group name → runs, in order; at least one run in all
@@ -118,43 +123,49 @@ public final class Charts {
    */
   public static JFreeChart overlay(String title, Map<String, List<RunMetrics>> groups) {
     Precondition.notNull(groups, "groups");
-    boolean allPosition = true;
-    int count = 0;
-    for (List<RunMetrics> l : groups.values()) {
-      for (RunMetrics m : l) {
-        allPosition &= m.curve().hasPosition();
-        count++;
-      }
-    }
-    if (count == 0) {
-      throw new LoadstoneException("An overlay chart needs at least one run; select runs first.");
-    }
+    return overlay(title, groups, GroupColours.of(groups.keySet()));
+  }
+
+  /**
+   * {@link #overlay(String, Map)} with the report's colours, so a group has the same colour in
+   * every chart.
+   *
+   * @param colours the report's group colours, not null
+   */
+  public static JFreeChart overlay(String title, Map<String, List<RunMetrics>> groups,
+      GroupColours colours) {
+    Precondition.notNull(groups, "groups");
+    Precondition.notNull(colours, "colours");
+    boolean allPosition = allPosition(groups.values().stream().flatMap(List::stream).toList());
     TraceDataset ds = new TraceDataset();
     XYLineAndShapeRenderer rend = new XYLineAndShapeRenderer(true, false);
     rend.setDrawSeriesLineAsPath(true); // one path per curve, not a call per segment
-    int g = 0;
     int s = 0;
+    int count = groups.values().stream().mapToInt(List::size).sum();
+    float width = count > 4 * PER_RUN_LEGEND_MAX ? 0.7f : 1.1f;
     for (Map.Entry<String, List<RunMetrics>> e : groups.entrySet()) {
-      Color colour = PALETTE[g % PALETTE.length];
+      // many curves in one colour: partly see-through, so where they bunch shows
+      Color colour = thinned(colours.colour(e.getKey()), e.getValue().size());
       boolean first = true;
       for (RunMetrics m : e.getValue()) {
         Curve c = m.curve();
-        ds.add(first ? e.getKey() : e.getKey() + " #" + s, c.size(), xOf(c, allPosition),
-            c::force_N, TraceDataset.DEFAULT_COLUMNS);
+        ds.add(first ? legendName(e.getKey(), e.getValue().size()) : e.getKey() + " #" + s,
+            c.size(), xOf(c, allPosition), c::force_N, TraceDataset.DEFAULT_COLUMNS);
         rend.setSeriesPaint(s, colour);
-        rend.setSeriesStroke(s, new BasicStroke(1.1f));
+        rend.setSeriesStroke(s, colours.line(e.getKey(), width));
         rend.setSeriesVisibleInLegend(s, first);
         first = false;
         s++;
       }
-      g++;
     }
     String xLabel = allPosition ? "displacement (mm)" : "time (s)";
     return chart(title, plot(ds, rend, new NumberAxis(xLabel), "force (N)"), true);
   }
 
   /**
-   * The curves of one group, one colour per specimen, the legend naming the specimens.
+   * The curves of one group. Up to {@link #PER_RUN_LEGEND_MAX} runs: one colour per run, the
+   * legend naming the specimens. More: every curve in the group's colour and no per-run legend
+   * (the group report's tables name the runs), the run count in the subtitle.
    *
    * @param group group name, used as the title, not null
    * @param runs the group's runs, at least one
@@ -162,14 +173,52 @@ public final class Charts {
    * @throws LoadstoneException when there is no run
    */
   public static JFreeChart group(String group, List<RunMetrics> runs) {
+    return group(group, runs, GroupColours.of(List.of(group)));
+  }
+
+  /**
+   * {@link #group(String, List)} with the report's colours.
+   *
+   * @param colours the report's group colours, not null
+   */
+  public static JFreeChart group(String group, List<RunMetrics> runs, GroupColours colours) {
     Precondition.notNull(group, "group");
     Precondition.notNull(runs, "runs");
+    Precondition.notNull(colours, "colours");
+    if (runs.size() > PER_RUN_LEGEND_MAX) {
+      JFreeChart ch = overlay(group, Map.of(group, runs), colours);
+      ch.removeLegend();
+      TextTitle sub = new TextTitle(runs.size() + " runs, each line one run (named in the "
+          + "tables)", LABEL);
+      sub.setPaint(INK);
+      ch.addSubtitle(sub);
+      return ch;
+    }
     Map<String, List<RunMetrics>> each = new java.util.LinkedHashMap<>();
     for (int i = 0; i < runs.size(); i++) {
       String name = runs.get(i).metadata().specimen();
       each.put(each.containsKey(name) ? name + " (" + (i + 1) + ")" : name, List.of(runs.get(i)));
     }
-    return overlay(group, each);
+    return overlay(group, each, GroupColours.of(each.keySet()));
+  }
+
+  private static String legendName(String group, int runs) {
+    return runs == 1 ? group : group + " (" + runs + " runs)";
+  }
+
+  /** The colour made partly see-through when many curves share it. */
+  private static Color thinned(Color c, int curves) {
+    if (curves <= PER_RUN_LEGEND_MAX) {
+      return c;
+    }
+    return new Color(c.getRed(), c.getGreen(), c.getBlue(), 150);
+  }
+
+  private static boolean allPosition(List<RunMetrics> runs) {
+    if (runs.isEmpty()) {
+      throw new LoadstoneException("An overlay chart needs at least one run; select runs first.");
+    }
+    return runs.stream().allMatch(m -> m.curve().hasPosition());
   }
 
   /**
@@ -184,7 +233,20 @@ public final class Charts {
   public static JFreeChart strip(ComparisonResult result, Map<String, List<Double>> values,
       String axisLabel) {
     Precondition.notNull(result, "result");
+    return strip(result, values, axisLabel,
+        GroupColours.of(result.groups().stream().map(GroupSummary::name).toList()));
+  }
+
+  /**
+   * {@link #strip(ComparisonResult, Map, String)} with the report's colours.
+   *
+   * @param colours the report's group colours, not null
+   */
+  public static JFreeChart strip(ComparisonResult result, Map<String, List<Double>> values,
+      String axisLabel, GroupColours colours) {
+    Precondition.notNull(result, "result");
     Precondition.notNull(values, "values");
+    Precondition.notNull(colours, "colours");
     List<GroupSummary> groups = result.groups();
     String[] names = new String[groups.size()];
     XYSeriesCollection ds = new XYSeriesCollection();
@@ -202,7 +264,7 @@ public final class Charts {
         pts.add(gi - 0.1 + off, v.get(i));
       }
       ds.addSeries(pts);
-      rend.setSeriesPaint(gi, PALETTE[gi % PALETTE.length]);
+      rend.setSeriesPaint(gi, colours.colour(gs.name()));
       rend.setSeriesShape(gi, new Ellipse2D.Double(-3.5, -3.5, 7, 7));
       double xm = gi + 0.25;
       bars.add(new XYLineAnnotation(xm - 0.12, gs.mean(), xm + 0.12, gs.mean(), thick, INK));

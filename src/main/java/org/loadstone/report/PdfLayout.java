@@ -1,27 +1,29 @@
 package org.loadstone.report;
 
 import java.awt.Color;
-import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
+import java.util.Calendar;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import org.apache.pdfbox.pdmodel.PDDocument;
+import org.apache.pdfbox.pdmodel.PDDocumentInformation;
 import org.apache.pdfbox.pdmodel.PDPage;
 import org.apache.pdfbox.pdmodel.PDPageContentStream;
 import org.apache.pdfbox.pdmodel.common.PDRectangle;
-import org.apache.pdfbox.pdmodel.font.PDType1Font;
-import org.apache.pdfbox.pdmodel.font.Standard14Fonts;
-import org.apache.pdfbox.pdmodel.graphics.image.LosslessFactory;
-import org.apache.pdfbox.pdmodel.graphics.image.PDImageXObject;
+import org.apache.pdfbox.pdmodel.font.PDType0Font;
+import org.apache.pdfbox.pdmodel.interactive.viewerpreferences.PDViewerPreferences;
 import org.jfree.chart.JFreeChart;
 
 /**
- * A top-to-bottom page flow over PDFBox: headings, wrapped paragraphs, tables, chart images and
- * boxes, starting a new A4 page when the next block does not fit. Text is made safe for the
- * standard Helvetica font (WinAnsi) first, so no character can make drawing fail.
+ * A top-to-bottom page flow over PDFBox: headings, wrapped paragraphs, tables, charts (as
+ * vectors, {@link PdfChart}) and boxes, starting a new A4 page when the next block does not fit.
+ * Text is set in the embedded report font ({@link ReportFonts}); a character the font has no
+ * glyph for is printed as its Unicode number, {@code [U+8BD5]}, and {@link #replacedAny()} says
+ * that happened so the report can explain it. Every page gets a footer with "page n of N" when
+ * the document is saved.
  */
 final class PdfLayout implements AutoCloseable {
   static final float MARGIN = 48;
@@ -35,29 +37,72 @@ final class PdfLayout implements AutoCloseable {
   private static final Color CAUTION = new Color(0xFB, 0xF3, 0xE6);
   private static final Color CAUTION_EDGE = new Color(0xB8, 0x86, 0x4B);
 
-  /**
-   * The standard PDF fonts are referenced, not embedded; PDFBox warns once per font that it would
-   * render them with a substitute from this machine, which does not affect the file written.
-   */
-  private static final java.util.logging.Logger FONT_LOG =
-      java.util.logging.Logger.getLogger("org.apache.pdfbox.pdmodel.font");
-
-  static {
-    FONT_LOG.setLevel(java.util.logging.Level.SEVERE);
-  }
-
   final PDDocument doc = new PDDocument();
-  private final PDType1Font regular = new PDType1Font(Standard14Fonts.FontName.HELVETICA);
-  private final PDType1Font bold = new PDType1Font(Standard14Fonts.FontName.HELVETICA_BOLD);
-  private final Map<Character, Boolean> encodable = new HashMap<>();
+  private final PDType0Font regular;
+  private final PDType0Font bold;
+  private final Map<Integer, Boolean> encodable = new HashMap<>();
   private final String footer;
   private PDPageContentStream cs;
   private float y;
-  private int pages;
+  private boolean replaced;
+  private java.util.function.Consumer<JFreeChart> chartsDrawn = c -> { };
 
-  PdfLayout(String footer) {
+  /**
+   * A document whose pages carry {@code footer} and the page number.
+   *
+   * @param footer e.g. "Loadstone run report 20261202-101500-FO-17"
+   * @param info title, author, subject and keywords of the PDF ({@link #describe})
+   */
+  PdfLayout(String footer, PdfInfo info) {
     this.footer = footer;
+    PDType0Font[] fonts = ReportFonts.pdf(doc);
+    regular = fonts[0];
+    bold = fonts[1];
+    describe(info);
     newPage();
+  }
+
+  /**
+   * What a PDF says about itself (shown by viewers and file managers).
+   *
+   * @param title the document title, shown in the viewer's title bar
+   * @param author who tested, e.g. the operators of the runs; empty when unknown
+   * @param subject one line on what the report is about
+   * @param keywords comma-separated words (specimens, groups)
+   * @param producer the program and version, e.g. "Loadstone 0.1.0"
+   */
+  record PdfInfo(String title, String author, String subject, String keywords,
+      String producer) {}
+
+  private void describe(PdfInfo info) {
+    PDDocumentInformation d = doc.getDocumentInformation();
+    d.setTitle(info.title());
+    if (!info.author().isBlank()) {
+      d.setAuthor(info.author());
+    }
+    d.setSubject(info.subject());
+    d.setKeywords(info.keywords());
+    d.setProducer(info.producer());
+    d.setCreator(info.producer());
+    d.setCreationDate(Calendar.getInstance());
+    PDViewerPreferences prefs = new PDViewerPreferences(new org.apache.pdfbox.cos.COSDictionary());
+    prefs.setDisplayDocTitle(true);
+    doc.getDocumentCatalog().setViewerPreferences(prefs);
+    doc.getDocumentCatalog().setLanguage("en");
+  }
+
+  /** @return whether some character was printed as its Unicode number (no glyph in the font) */
+  boolean replacedAny() {
+    return replaced;
+  }
+
+  /** When some character had no glyph so far: a line saying how such characters are shown. */
+  void glyphNote() {
+    if (replaced) {
+      paragraph("Some characters have no glyph in the report font (" + ReportFonts.REGULAR_NAME
+          + ") and are shown as their Unicode number in brackets, e.g. [U+8BD5]; the run files "
+          + "keep the text unchanged.", 8);
+    }
   }
 
   void newPage() {
@@ -68,9 +113,7 @@ final class PdfLayout implements AutoCloseable {
       PDPage page = new PDPage(PDRectangle.A4);
       doc.addPage(page);
       cs = new PDPageContentStream(doc, page);
-      pages++;
       y = HEIGHT - MARGIN;
-      text(regular, 7.5f, MUTED, MARGIN, MARGIN - 20, footer + "  -  page " + pages);
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
@@ -147,7 +190,7 @@ final class PdfLayout implements AutoCloseable {
   }
 
   private void row(String[] cells, float[] w, float size, boolean head) {
-    PDType1Font font = head ? bold : regular;
+    PDType0Font font = head ? bold : regular;
     List<List<String>> wrapped = new ArrayList<>();
     int lines = 1;
     for (int i = 0; i < cells.length; i++) {
@@ -183,30 +226,17 @@ final class PdfLayout implements AutoCloseable {
     y -= h;
   }
 
-  /** A chart rendered at twice the resolution and drawn {@code width × height} points. */
+  /** Tells {@code seen} each chart drawn from now on (tests look at their legends). */
+  void onChart(java.util.function.Consumer<JFreeChart> seen) {
+    chartsDrawn = seen;
+  }
+
+  /** A chart drawn as vectors (lines, shapes and text in the report font), width × height pt. */
   void chart(JFreeChart chart, float width, float height) {
+    chartsDrawn.accept(chart);
     need(height + 6);
-    // drawn at a logical size a little larger than the page size, so chart text comes out
-    // near 9 pt, and at twice that in pixels (about 160 dpi on paper)
-    double logicalW = width / 0.9;
-    double logicalH = height / 0.9;
-    int scale = 2;
-    BufferedImage img = new BufferedImage((int) (logicalW * scale), (int) (logicalH * scale),
-        BufferedImage.TYPE_INT_RGB);
-    java.awt.Graphics2D g2 = img.createGraphics();
-    g2.setRenderingHint(java.awt.RenderingHints.KEY_ANTIALIASING,
-        java.awt.RenderingHints.VALUE_ANTIALIAS_ON);
-    g2.setRenderingHint(java.awt.RenderingHints.KEY_TEXT_ANTIALIASING,
-        java.awt.RenderingHints.VALUE_TEXT_ANTIALIAS_ON);
-    g2.scale(scale, scale);
-    chart.draw(g2, new java.awt.geom.Rectangle2D.Double(0, 0, logicalW, logicalH));
-    g2.dispose();
-    try {
-      PDImageXObject x = LosslessFactory.createFromImage(doc, img);
-      cs.drawImage(x, MARGIN + (TEXT_WIDTH - width) / 2, y - height, width, height);
-    } catch (IOException e) {
-      throw new UncheckedIOException(e);
-    }
+    PdfChart.draw(doc, cs, chart, regular, bold, MARGIN + (TEXT_WIDTH - width) / 2, y - height,
+        width, height);
     y -= height + 8;
   }
 
@@ -252,19 +282,23 @@ final class PdfLayout implements AutoCloseable {
   }
 
   private void rule() {
+    rule(y - 2);
+    y -= 10;
+  }
+
+  private void rule(float at) {
     try {
       cs.setStrokingColor(RULE);
       cs.setLineWidth(0.8f);
-      cs.moveTo(MARGIN, y - 2);
-      cs.lineTo(MARGIN + TEXT_WIDTH, y - 2);
+      cs.moveTo(MARGIN, at);
+      cs.lineTo(MARGIN + TEXT_WIDTH, at);
       cs.stroke();
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
-    y -= 10;
   }
 
-  private void text(PDType1Font font, float size, Color c, float x, float baseline, String s) {
+  private void text(PDType0Font font, float size, Color c, float x, float baseline, String s) {
     try {
       cs.beginText();
       cs.setFont(font, size);
@@ -277,7 +311,7 @@ final class PdfLayout implements AutoCloseable {
     }
   }
 
-  private List<String> wrap(String s, PDType1Font font, float size, float width) {
+  private List<String> wrap(String s, PDType0Font font, float size, float width) {
     List<String> out = new ArrayList<>();
     for (String para : safe(s).split("\n", -1)) {
       StringBuilder line = new StringBuilder();
@@ -302,7 +336,7 @@ final class PdfLayout implements AutoCloseable {
     return out;
   }
 
-  private float width(PDType1Font font, float size, String s) {
+  private float width(PDType0Font font, float size, String s) {
     try {
       return font.getStringWidth(s) / 1000 * size;
     } catch (IOException e) {
@@ -310,31 +344,35 @@ final class PdfLayout implements AutoCloseable {
     }
   }
 
-  /** Replaces characters Helvetica (WinAnsi) cannot show with ASCII words or signs. */
+  /**
+   * The text as the report font can print it: tabs and carriage returns as spaces, other control
+   * characters dropped, and each character without a glyph as its Unicode number, e.g. {@code
+   * [U+8BD5]}.
+   */
   String safe(String s) {
-    String t = s.replace("≥", ">=").replace("≤", "<=").replace("²", "2").replace("³", "3")
-        .replace("µ", "u").replace("σ", "sigma").replace("τ", "tau").replace("Δ", "delta")
-        .replace("ε", "eps").replace("−", "-").replace("≈", "~").replace("⁻¹", "^-1")
-        .replace("α", "alpha").replace('\t', ' ').replace('\r', ' ');
-    StringBuilder b = new StringBuilder(t.length());
-    for (int i = 0; i < t.length(); i++) {
-      char c = t.charAt(i);
+    StringBuilder b = new StringBuilder(s.length());
+    s.codePoints().forEach(c -> {
       if (c == '\n') {
-        b.append(c);
-        continue;
+        b.append('\n');
+      } else if (c == '\t' || c == '\r') {
+        b.append(' ');
+      } else if (Character.isISOControl(c)) {
+        replaced = true;
+      } else if (encodable.computeIfAbsent(c, this::canEncode)) {
+        b.appendCodePoint(c);
+      } else {
+        replaced = true;
+        b.append(String.format(java.util.Locale.ROOT, "[U+%04X]", c));
       }
-      b.append(encodable.computeIfAbsent(c, this::canEncode) ? c : '?');
-    }
+    });
     return b.toString();
   }
 
-  private boolean canEncode(char c) {
-    if (Character.isISOControl(c) || Character.isSurrogate(c)) {
-      return false;
-    }
+  private boolean canEncode(int c) {
+    String one = new String(Character.toChars(c));
     try {
-      regular.encode(String.valueOf(c));
-      bold.encode(String.valueOf(c));
+      regular.encode(one);
+      bold.encode(one);
       return true;
     } catch (IOException | IllegalArgumentException e) {
       return false;
@@ -354,10 +392,25 @@ final class PdfLayout implements AutoCloseable {
     }
   }
 
-  /** Closes the last page stream and saves the document to the stream. */
+  /** Closes the last page, puts "page n of N" on every page and saves the document. */
   void save(java.io.OutputStream out) throws IOException {
     cs.close();
     cs = null;
+    int n = doc.getNumberOfPages();
+    for (int i = 0; i < n; i++) {
+      PDPage page = doc.getPage(i);
+      try (PDPageContentStream foot = new PDPageContentStream(doc, page,
+          PDPageContentStream.AppendMode.APPEND, true, true)) {
+        cs = foot;
+        rule(MARGIN - 12);
+        text(regular, 7.5f, MUTED, MARGIN, MARGIN - 22, footer);
+        String num = "page " + (i + 1) + " of " + n;
+        text(regular, 7.5f, MUTED, MARGIN + TEXT_WIDTH - width(regular, 7.5f, num), MARGIN - 22,
+            num);
+      } finally {
+        cs = null;
+      }
+    }
     doc.save(out);
   }
 }

@@ -54,12 +54,15 @@ public final class PdfReport {
     Precondition.notNull(m, "metrics");
     Precondition.notNull(file, "file");
     RunMetadata md = m.metadata();
-    try (PdfLayout p = new PdfLayout("Loadstone run report " + md.runId())) {
+    try (PdfLayout p = new PdfLayout("Loadstone run report " + md.runId(), new PdfLayout.PdfInfo(
+        "Run report: " + md.specimen(), md.operator(),
+        "Three-point bend run " + md.runId() + " of specimen " + md.specimen(),
+        String.join(", ", md.specimen(), md.group(), md.runId()), producer()))) {
       p.title("Run report: " + md.specimen(), "run " + md.runId() + "  -  started "
           + when(md) + "  -  Loadstone " + md.softwareVersion());
       p.heading("Specimen and run");
       p.table(new String[] {"item", "value"}, RunFacts.rows(md), new float[] {0.3f, 0.7f}, 8.5f);
-      p.heading("Force curve", 260);
+      p.heading("Force curve", 270);
       p.chart(Charts.run(m), PdfLayout.TEXT_WIDTH, 260);
       p.heading("Results", 120);
       p.table(new String[] {"quantity (unit)", "value"}, results(m), new float[] {0.55f, 0.45f},
@@ -68,6 +71,7 @@ public final class PdfReport {
         p.heading("Notes");
         p.bullets(m.notes(), 8.5f);
       }
+      p.glyphNote();
       p.cautionBox("Cautions", CAUTIONS, 8.5f);
       save(p, file);
     }
@@ -86,6 +90,12 @@ public final class PdfReport {
    *     be written
    */
   public static void writeGroups(String title, GroupStudy.Report study, Path file) {
+    writeGroups(title, study, file, c -> { });
+  }
+
+  /** {@link #writeGroups(String, GroupStudy.Report, Path)}, telling {@code charts} each chart. */
+  static void writeGroups(String title, GroupStudy.Report study, Path file,
+      java.util.function.Consumer<org.jfree.chart.JFreeChart> charts) {
     Precondition.notNull(title, "title");
     Precondition.notNull(study, "study");
     Precondition.notNull(file, "file");
@@ -95,20 +105,26 @@ public final class PdfReport {
       throw new LoadstoneException("A group report needs at least 2 groups, was given "
           + groups.size() + ". Select runs from two or more groups.");
     }
-    try (PdfLayout p = new PdfLayout("Loadstone group report")) {
+    GroupColours colours = GroupColours.of(groups.keySet());
+    try (PdfLayout p = new PdfLayout("Loadstone group report: " + title, new PdfLayout.PdfInfo(
+        title, operators(sel), "Comparison of groups " + String.join(", ", groups.keySet())
+            + " over " + sel.counted() + " runs", String.join(", ", groups.keySet()),
+        producer()))) {
+      p.onChart(charts);
       p.title(title, groups.size() + " groups, " + sel.counted() + " runs counted"
           + (sel.leftOut().isEmpty() ? "" : ", " + sel.leftOut().size() + " left out") + ": "
           + String.join(", ", groups.keySet()));
       p.heading("Force curves by group");
-      p.chart(Charts.overlay("all runs", groups), PdfLayout.TEXT_WIDTH, 270);
+      p.chart(Charts.overlay("all runs", groups, colours), PdfLayout.TEXT_WIDTH, 270);
       for (Map.Entry<String, List<RunMetrics>> e : groups.entrySet()) {
         p.heading("Group " + e.getKey(), 200);
-        p.chart(Charts.group(e.getKey(), e.getValue()), PdfLayout.TEXT_WIDTH * 0.8f, 200);
+        p.chart(Charts.group(e.getKey(), e.getValue(), colours), PdfLayout.TEXT_WIDTH * 0.8f,
+            200);
       }
       for (StudyResult r : study.results()) {
         Metric metric = r.metric();
         p.heading(capital(metric.heading()), 340);
-        p.chart(Charts.strip(r.comparison(), r.plainValues(), metric.heading()),
+        p.chart(Charts.strip(r.comparison(), r.plainValues(), metric.heading(), colours),
             PdfLayout.TEXT_WIDTH * 0.8f, 190);
         p.table(statsHeads(metric.unit()), statisticsRows(r), new float[] {0.22f, 0.06f, 0.14f,
             0.14f, 0.1f, 0.17f, 0.17f}, 8.5f);
@@ -134,6 +150,15 @@ public final class PdfReport {
           Metric.PEAK.format(m.analysis().peakForce_N())})));
       p.table(new String[] {"group", "specimen", "run id", "peak force (N)"}, rows,
           new float[] {0.2f, 0.25f, 0.35f, 0.2f}, 8.5f);
+      List<String> amended = new ArrayList<>();
+      groups.values().forEach(list -> list.stream().map(RunMetrics::metadata)
+          .filter(md -> md.amendments().any())
+          .forEach(md -> amended.add("Run " + md.runId() + " (" + md.specimen() + "): "
+              + RunFacts.amendments(md))));
+      if (!amended.isEmpty()) {
+        p.heading("Amended runs (counted with their amended values)", 60);
+        p.bullets(amended, 8.5f);
+      }
       if (!sel.leftOut().isEmpty()) {
         p.heading("Runs left out", 60);
         p.bullets(sel.leftOut().stream().map(l -> "Run " + l.line()).toList(), 8.5f);
@@ -142,9 +167,21 @@ public final class PdfReport {
         p.heading("Not compared");
         p.bullets(study.notCompared(), 8.5f);
       }
+      p.glyphNote();
       p.cautionBox("Cautions", CAUTIONS, 8.5f);
       save(p, file);
     }
+  }
+
+  /** @return the program and version that made the report, e.g. "Loadstone 0.1.0" */
+  static String producer() {
+    String v = PdfReport.class.getPackage().getImplementationVersion();
+    return "Loadstone " + (v == null ? "dev" : v);
+  }
+
+  private static String operators(Selection sel) {
+    return String.join(", ", sel.runs().stream().map(m -> m.metadata().operator())
+        .filter(o -> !o.isBlank()).distinct().toList());
   }
 
   /**

@@ -15,6 +15,9 @@ final class RunFacts {
 
   static List<String[]> rows(RunMetadata md) {
     List<String[]> rows = new ArrayList<>();
+    if (md.amendments().any()) {
+      rows.add(new String[] {"amendments", amendments(md)});
+    }
     add(rows, "specimen", md.specimen());
     add(rows, "group", md.group());
     add(rows, "tags", String.join(", ", md.tags()));
@@ -59,6 +62,19 @@ final class RunFacts {
       add(rows, "other fields", flat(md.extra()));
     }
     return rows;
+  }
+
+  /** @return what was amended, when, by whom and why, in one cell */
+  static String amendments(RunMetadata md) {
+    List<String> parts = new ArrayList<>();
+    parts.add(md.amendments().summary());
+    DateTimeFormatter day = DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm 'UTC'", Locale.ROOT);
+    for (org.loadstone.archive.Amendment a : md.amendments().log()) {
+      parts.add(day.format(a.at().atOffset(ZoneOffset.UTC))
+          + (a.operator().isEmpty() ? "" : " by " + a.operator()) + ": " + a.reason());
+    }
+    return String.join("; ", parts) + " (values below as amended; the run's files are as "
+        + "recorded)";
   }
 
   private static String flat(Map<String, Object> m) {

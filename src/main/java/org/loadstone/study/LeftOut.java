@@ -60,10 +60,13 @@ public record LeftOut(String runId, String specimen, String group, List<Kind> ki
   }
 
   /**
-   * Why a run is left out. All but {@link #UNREADABLE} and {@link #NO_VALUE} can be let in by the
-   * {@link RunSelection}; those two cannot, since there is no figure to count.
+   * Why a run is left out. All but {@link #RETIRED}, {@link #UNREADABLE} and {@link #NO_VALUE}
+   * can be let in by the {@link RunSelection}: a retired run is reinstated by another amendment,
+   * and the other two have no figure to count.
    */
   public enum Kind {
+    /** an amendment retired the run (its reason follows) */
+    RETIRED("retired", "retired"),
     /** force came from a nominal (data-sheet) scale, not from a calibration */
     UNCALIBRATED("uncalibrated", "force from a nominal scale, not a calibration"),
     /** the run came from another program's file; its scale cannot be traced */
@@ -108,7 +111,7 @@ public record LeftOut(String runId, String specimen, String group, List<Kind> ki
 
     /** @return whether a {@link RunSelection} can let such runs in */
     public boolean admissible() {
-      return this != UNREADABLE && this != NO_VALUE;
+      return this != UNREADABLE && this != NO_VALUE && this != RETIRED;
     }
 
     /** @return the kinds a selection can let in, in declaration order */

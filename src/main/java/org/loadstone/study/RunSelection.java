@@ -19,7 +19,8 @@ import org.loadstone.units.Precondition;
  * nominal scale ({@link Kind#UNCALIBRATED}), another program's file ({@link Kind#IMPORTED}), a
  * manual stop, the time limit, an overload stop, a lost device or a recovered journal. Each of
  * those kinds can be let in by {@link #admitting}. An imported run carries no calibration of ours,
- * so letting imported runs in lets them in whatever their scale.
+ * so letting imported runs in lets them in whatever their scale. A run retired by an amendment
+ * ({@link Kind#RETIRED}) is always left out, whatever is let in.
  *
  * @param admitted kinds of run counted although the default rule leaves them out; only
  *     {@linkplain Kind#admissible() admissible} kinds, never null
@@ -74,8 +75,8 @@ public record RunSelection(Set<Kind> admitted, List<String> groups) {
   }
 
   /**
-   * The kinds of the default rule that a run falls under, whether admitted or not: its ending
-   * when not a break, and {@link Kind#UNCALIBRATED} when a run recorded by Loadstone names no
+   * The kinds of the default rule that a run falls under, whether admitted or not: {@link
+   * Kind#RETIRED} first when an amendment retired it, its ending when not a break, and {@link Kind#UNCALIBRATED} when a run recorded by Loadstone names no
    * calibration.
    *
    * @param m the run's metadata, not null
@@ -84,6 +85,9 @@ public record RunSelection(Set<Kind> admitted, List<String> groups) {
   public static List<Kind> kindsOf(RunMetadata m) {
     Precondition.notNull(m, "metadata");
     List<Kind> kinds = new ArrayList<>();
+    if (m.amendments().retired()) {
+      kinds.add(Kind.RETIRED);
+    }
     ending(m.cause()).ifPresent(kinds::add);
     boolean calibrated = m.calibrationId() != null && !m.calibrationId().isBlank();
     if (m.cause() != FinishCause.IMPORTED && !calibrated) {
@@ -110,7 +114,8 @@ public record RunSelection(Set<Kind> admitted, List<String> groups) {
     }
     List<String> why = new ArrayList<>();
     for (Kind k : against) {
-      why.add(k == Kind.UNCALIBRATED && !m.scale().isBlank()
+      why.add(k == Kind.RETIRED ? "retired: " + m.amendments().retiredReason()
+          : k == Kind.UNCALIBRATED && !m.scale().isBlank()
           ? "force from a nominal scale (" + m.scale() + "), not a calibration" : k.meaning());
     }
     return Optional.of(new LeftOut(m.runId(), m.specimen(), m.group(), against,

@@ -140,6 +140,13 @@ final class ArchivePane {
     started.setPrefWidth(150);
     table.getColumns().add(started);
     table.getColumns().add(column("peak N", m -> Metric.PEAK.format(Metric.PEAK.of(m))));
+    table.getColumns().add(column("mass g", m -> m.metadata().mass_g() == null ? "—"
+        : RunFigures.fmt(m.metadata().mass_g(), "").strip()));
+    TableColumn<RunMetrics, String> amended = column("record", m -> m.metadata().amendments()
+        .changes().stream().map(c -> c.field() + " " + c.now()).reduce((a, b) -> a + ", " + b)
+        .map(t -> "amended: " + t).orElse(""));
+    amended.setId("archive-amended");
+    table.getColumns().add(amended);
     table.setPlaceholder(new Label("no runs here"));
     table.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
 

@@ -92,6 +92,11 @@ final class RunFigures {
       tile("per gram", opt(m.specificPeak_N_per_g(), "N/g"),
           opt(m.specificEnergyToBreak_J_per_g(), "J/g") + " to break");
     }
+    if (m.metadata().amendments().any()) {
+      Label amended = LivePane.label("run-amended", m.metadata().amendments().summary());
+      amended.setWrapText(true);
+      figures.getChildren().add(amended);
+    }
     if (!m.notes().isEmpty()) {
       Label note = LivePane.label("run-note", "note: " + m.notes().get(0));
       note.setWrapText(true);

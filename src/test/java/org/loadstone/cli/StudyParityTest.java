@@ -35,6 +35,26 @@ class StudyParityTest {
   @Test
   void compareTheConsoleAndTheGroupReportAgree() throws Exception {
     Path arc = MixedArchive.write(java.nio.file.Files.createDirectories(dir.resolve("runs")));
+    agree(arc, MixedArchive.COUNTED, List.copyOf(MixedArchive.LEFT_OUT.keySet()));
+  }
+
+  /**
+   * The same with amended runs: a run moved into another group by an amendment counts there, and
+   * a retired run is left out with its reason, in all three faces alike.
+   */
+  @Test
+  void theyAgreeOnAmendedRunsToo() throws Exception {
+    Path arc = MixedArchive.writeAmended(java.nio.file.Files.createDirectories(
+        dir.resolve("runs")));
+    String text = agree(arc, MixedArchive.AMENDED_COUNTED, MixedArchive.AMENDED_LEFT_OUT);
+    assertThat(text).contains("Run " + MixedArchive.RETIRED + " (balsa-4): retired: "
+        + MixedArchive.RETIRED_REASON);
+    assertThat(text).contains("Run " + MixedArchive.REGROUPED + " (board-5): amended: group "
+        + "board (was bord)");
+  }
+
+  private String agree(Path arc, java.util.Map<String, double[]> counted, List<String> leftOut)
+      throws Exception {
     RecordCommandTest.Outcome cmp = RecordCommandTest.run("compare", "--archive", arc.toString(),
         "--metric", "peak", "--json");
     assertThat(cmp.exit()).as(cmp.err()).isZero();
@@ -62,7 +82,10 @@ class StudyParityTest {
     for (GroupSummary g : console.groups()) {
       JsonNode n = j.get("groups").get(g.name());
       assertThat(n.get("n").asInt()).as(g.name()).isEqualTo(g.n())
-          .isEqualTo(MixedArchive.COUNTED.get(g.name()).length);
+          .isEqualTo(counted.get(g.name()).length);
+      // the mean of the peaks that count, from Commons Math
+      assertThat(n.get("mean").asDouble()).isCloseTo(org.apache.commons.math3.stat.StatUtils
+          .mean(counted.get(g.name())), org.assertj.core.api.Assertions.within(1e-9));
       assertThat(n.get("mean").asDouble()).isEqualTo(g.mean());
       assertThat(n.get("sd").asDouble()).isEqualTo(g.sd().getAsDouble());
       assertThat(n.get("ci95_low").asDouble()).isEqualTo(g.ci95Low().getAsDouble());
@@ -94,10 +117,12 @@ class StudyParityTest {
         .map(l -> l.runId() + " | " + l.reason()).toList();
     assertThat(fromJson).containsExactlyElementsOf(fromConsole);
     assertThat(console.leftOut()).extracting(LeftOut::runId)
-        .containsExactlyElementsOf(MixedArchive.LEFT_OUT.keySet());
+        .containsExactlyElementsOf(leftOut);
     for (LeftOut l : console.leftOut()) {
       assertThat(text).as("report lists " + l.runId()).contains("Run " + l.line());
     }
-    assertThat(text).contains("13 runs counted, 6 left out");
+    int n = counted.values().stream().mapToInt(v -> v.length).sum();
+    assertThat(text).contains(n + " runs counted, " + leftOut.size() + " left out");
+    return text;
   }
 }

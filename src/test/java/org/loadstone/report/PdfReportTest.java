@@ -88,7 +88,7 @@ class PdfReportTest {
     // reference p-value of the one-way ANOVA on the peak forces from Commons Math 3.6.1
     double p = new OneWayAnova().anovaPValue(List.of(ReportFixtures.PEAKS));
     assertThat(t).contains("one-way ANOVA").contains(PdfReport.formatP(p))
-        .contains("core shear >= 0.2 MPa, sigma in N/mm2")
+        .contains("core shear ≥ 0.2 MPa, σ in N/mm² — [U+8BD5][U+9A8C]")
         .contains("Peak force (N)")
         .contains("95 % CI low (N)")
         .contains("Sample size:")
@@ -126,12 +126,14 @@ class PdfReportTest {
   }
 
   @Test
-  void charactersOutsideTheFontAreReplacedNotThrown() throws IOException {
+  void charactersOutsideTheFontArePrintedAsTheirNumberWithANote() throws IOException {
     RunMetrics m = RunMetrics.of(TestRuns.meta("σ-µ²-≥-试", "foam", TestRuns.panel(), null),
         TestRuns.bend(60, 460));
     Path pdf = dir.resolve("odd.pdf");
     PdfReport.writeRun(m, pdf);
-    assertThat(text(pdf)).contains("Run report: sigma-u2->=-?");
+    // U+8BD5 is the code point of 试 (Unicode Character Database, CJK Unified Ideographs)
+    assertThat(text(pdf)).contains("Run report: σ-µ²-≥-[U+8BD5]")
+        .contains("shown as their Unicode number");
   }
 
   @Test

@@ -76,6 +76,53 @@ public final class MixedArchive {
     return dir;
   }
 
+  /**
+   * Peak forces (N) of the runs that count once {@link #writeAmended} has amended the archive:
+   * balsa-4 retired, and a board run recorded under a misspelt group moved into board.
+   */
+  public static final Map<String, double[]> AMENDED_COUNTED = new LinkedHashMap<>();
+
+  /** The left-out runs' ids of the amended archive, oldest first. */
+  public static final List<String> AMENDED_LEFT_OUT = new ArrayList<>();
+
+  /** The retired run of the amended archive and the reason given. */
+  public static final String RETIRED = id(3, "balsa-4");
+
+  /** Why {@link #RETIRED} was retired. */
+  public static final String RETIRED_REASON = "glue line failed before loading";
+
+  /** The run recorded under group 'bord' and amended into 'board'. */
+  public static final String REGROUPED = id(26, "board-5");
+
+  static {
+    AMENDED_COUNTED.put("balsa", new double[] {610, 640, 625});
+    AMENDED_COUNTED.put("board", new double[] {380, 395, 372, 388, 385});
+    AMENDED_COUNTED.put("foam", COUNTED.get("foam"));
+    AMENDED_LEFT_OUT.add(RETIRED);
+    AMENDED_LEFT_OUT.addAll(LEFT_OUT.keySet());
+  }
+
+  /**
+   * Writes the archive of {@link #write}, then amends it through the amendment log as a user
+   * would: a run of board recorded under the misspelt group 'bord' moved into board, and
+   * balsa-4 retired.
+   *
+   * @param dir an empty folder
+   * @return the folder
+   */
+  public static Path writeAmended(Path dir) {
+    write(dir);
+    write(dir, 26, "board-5", "bord", FinishCause.BREAK, true, 385, 47.0);
+    java.time.Instant at = Instant.parse("2026-12-03T08:00:00Z");
+    org.loadstone.archive.Amendments.append(dir.resolve(REGROUPED + ".json"),
+        new org.loadstone.archive.Amendment(at, "J. Ruiz", "group misspelt at the press",
+            Map.of("group", "board"), null, "test"));
+    org.loadstone.archive.Amendments.append(dir.resolve(RETIRED + ".json"),
+        new org.loadstone.archive.Amendment(at, "J. Ruiz", RETIRED_REASON, Map.of(), true,
+            "test"));
+    return dir;
+  }
+
   /** @return every run id of the counted runs of a group, oldest first */
   public static List<String> countedIds(String group) {
     List<String> ids = new ArrayList<>();

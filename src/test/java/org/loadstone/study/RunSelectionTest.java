@@ -86,4 +86,22 @@ class RunSelectionTest {
     assertThat(s.asks("Foam")).isTrue();
     assertThat(s.asks("board")).isFalse();
   }
+
+  @Test
+  void aRetiredRunIsLeftOutWhateverIsLetIn() {
+    org.loadstone.archive.Amendment retire = new org.loadstone.archive.Amendment(
+        java.time.Instant.parse("2026-12-04T09:00:00Z"), "", "cracked before loading",
+        java.util.Map.of(), true, "test");
+    RunMetadata retired = run(FinishCause.MANUAL, true).toBuilder()
+        .amendments(new org.loadstone.archive.RunAmendments(List.of(retire), List.of(), retire))
+        .build();
+    RunSelection everything = RunSelection.DEFAULT.admitting(Kind.admissibleOnes());
+    LeftOut l = everything.judge(retired).orElseThrow();
+    assertThat(l.kinds()).containsExactly(Kind.RETIRED);
+    assertThat(l.reason()).isEqualTo("retired: cracked before loading");
+    assertThat(RunSelection.DEFAULT.judge(retired).orElseThrow().kinds())
+        .containsExactly(Kind.RETIRED, Kind.MANUAL);
+    assertThat(Kind.admissibleOnes()).doesNotContain(Kind.RETIRED);
+    assertThatThrownBy(() -> Kind.parse("retired")).isInstanceOf(LoadstoneException.class);
+  }
 }

@@ -138,6 +138,52 @@ class ArchivePaneTest {
     }
   }
 
+  /**
+   * An amended archive: the pane marks the amended run, its per-gram figure follows the corrected
+   * mass (peak ÷ mass, common practice), and the retired run is listed as left out with why.
+   */
+  @Test
+  void showsAmendedValuesAndLeavesRetiredRunsOut(FxRobot robot) throws Exception {
+    Path mixed = MixedArchive.writeAmended(java.nio.file.Files.createTempDirectory(
+        "loadstone-amended"));
+    String foam2 = MixedArchive.countedIds("foam").get(1); // peak 468 N, recorded as 49 g
+    org.loadstone.archive.Amendments.append(mixed.resolve(foam2 + ".json"),
+        new org.loadstone.archive.Amendment(java.time.Instant.now(), "", "weighed with the tray",
+            java.util.Map.of("mass_g", 41.2), null, "test"));
+    robot.interact(() -> {
+      robot.lookup("#archive-folder").queryAs(javafx.scene.control.TextField.class)
+          .setText(mixed.toString());
+      pane.metric().setValue(Metric.SPECIFIC_PEAK);
+      pane.reload();
+    });
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> robot.lookup("#archive-status")
+        .queryAs(Label.class).getText().contains("counted in " + mixed));
+    WaitForAsyncUtils.waitForFxEvents();
+    RunMetrics amended = pane.table().getItems().stream()
+        .filter(m -> m.metadata().runId().equals(foam2)).findFirst().orElseThrow();
+    assertThat(amended.specificPeak_N_per_g().getAsDouble())
+        .isCloseTo(468 / 41.2, org.assertj.core.api.Assertions.within(1e-9));
+    @SuppressWarnings("unchecked")
+    javafx.scene.control.TableColumn<RunMetrics, String> record =
+        (javafx.scene.control.TableColumn<RunMetrics, String>) pane.table().getColumns().stream()
+            .filter(c -> "archive-amended".equals(c.getId())).findFirst().orElseThrow();
+    assertThat(record.getCellObservableValue(amended).getValue())
+        .isEqualTo("amended: mass_g 41.2");
+    StudyResult expected = GroupStudy.compare(ArchiveRuns.scan(mixed).select(RunSelection.DEFAULT),
+        Metric.SPECIFIC_PEAK, 0.10);
+    @SuppressWarnings("unchecked")
+    TableView<GroupSummary> groups = robot.lookup("#archive-groups").queryAs(TableView.class);
+    assertThat(groups.getItems()).containsExactlyElementsOf(expected.groups());
+    double[] foamPerGram = {466 / 48.0, 468 / 41.2, 467 / 50.0, 469 / 51.0, 520 / 52.0};
+    assertThat(groups.getItems().stream().filter(g -> g.name().equals("foam")).findFirst()
+        .orElseThrow().mean()).isCloseTo(org.apache.commons.math3.stat.StatUtils.mean(
+            foamPerGram), org.assertj.core.api.Assertions.within(1e-9));
+    List<String> notes = robot.lookup(".archive-note").queryAllAs(Label.class).stream()
+        .map(Label::getText).toList();
+    assertThat(notes).contains("left out: " + MixedArchive.RETIRED + " (balsa-4): retired: "
+        + MixedArchive.RETIRED_REASON);
+  }
+
   @Test
   void showsTheFiguresOfTheSharedStudyAndListsTheRunsLeftOut(FxRobot robot) throws Exception {
     Path mixed = MixedArchive.write(java.nio.file.Files.createTempDirectory("loadstone-mixed"));
