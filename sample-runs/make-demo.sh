@@ -9,7 +9,7 @@ for core in foam balsa board; do
   for i in 1 2 3 4 5; do
     seed=$((7 * i + ${#core}))
     java -jar target/loadstone.jar record --port sim --scenario panel-$core --seed $seed \
-      --rate 80 --sim-speed 50 --cal $cal --specimen $core-0$i --group $core \
+      --rate-hz 80 --sim-speed 50 --cal $cal --specimen $core-0$i --group $core \
       --tag shelf-panel --operator workshop --archive "$out"
   done
 done

@@ -48,7 +48,7 @@ public final class AmendCommand implements Callable<Integer> {
   @Option(names = "--by", paramLabel = "NAME", defaultValue = "", description = "Who makes the correction.")
   String by;
 
-  @Option(names = "--json", description = "Write the amended run's record as one JSON object.")
+  @Option(names = "--json", description = "Write the amended run's record as one JSON document on standard output (schema loadstone-amend); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -79,20 +79,22 @@ public final class AmendCommand implements Callable<Integer> {
       Amendment a, boolean json) throws Exception {
     java.nio.file.Path sidecar = CliWiring.sidecar(reference, archive.folder());
     RunMetadata m = Amendments.append(sidecar, a);
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     RunAmendments am = m.amendments();
     if (json) {
       Map<String, Object> j = new LinkedHashMap<>();
       j.put("run_id", m.runId());
       j.put("specimen", m.specimen());
-      j.put("amendment_log", Amendments.file(sidecar).toString());
-      j.put("amendments", am.log().size());
+      j.put("amendment_log_file", Amendments.file(sidecar).toString());
+      j.put("amendment_count", am.log().size());
       j.put("retired", am.retired());
       j.put("retired_reason", am.retired() ? am.retiredReason() : null);
       j.put("changes", am.changes().stream().map(c -> Map.of("field", c.field(),
           "stored", c.stored(), "now", c.now())).toList());
-      out.println(new com.fasterxml.jackson.databind.ObjectMapper().writeValueAsString(j));
-    } else {
+      JsonDocument.write(spec.commandLine().getOut(), spec.name().equals("retire")
+          ? JsonDocument.Kind.RETIRE : JsonDocument.Kind.AMEND, j);
+    }
+    {
       out.println("run " + m.runId() + " (specimen " + m.specimen() + "): amendment "
           + am.log().size() + " kept in " + Amendments.file(sidecar));
       out.println(am.summary().isEmpty() ? "the run reads as recorded" : am.summary());

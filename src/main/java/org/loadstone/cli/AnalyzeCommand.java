@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.Map;
@@ -46,7 +45,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--accept-changed-calibration", description = "Use the --cal calibration even though its content changed since it was saved (refused otherwise).")
   boolean acceptChanged;
 
-  @Option(names = "--crosshead-rate-mm-min", paramLabel = "R", description = "Position from a constant crosshead rate, for runs without a position channel.")
+  @Option(names = "--crosshead-rate-mm-per-min", paramLabel = "R", description = "Position from a constant crosshead rate, for runs without a position channel.")
   Double crossheadRate;
 
   @Option(names = "--position-table", paramLabel = "FILE", description = "Position from a position-time CSV (video tracking, dial gauge), aligned by the break unless --table-offset-s is given.")
@@ -58,19 +57,19 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--no-video", description = "Do not use a video table stored beside the run.")
   boolean noVideo;
 
-  @Option(names = "--table-map", defaultValue = "time=1,position=2", description = "Columns of the position table by header or 1-based number (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--table-map", paramLabel = "MAP", defaultValue = "time=1,position=2", description = "Columns of the position table by header or 1-based number (default: ${DEFAULT-VALUE}).")
   String tableMap;
 
-  @Option(names = "--table-time-unit", defaultValue = "s", description = "s, ms or min (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--table-time-unit", paramLabel = "UNIT", defaultValue = "s", description = "s, ms or min (default: ${DEFAULT-VALUE}).")
   String tableTimeUnit;
 
-  @Option(names = "--table-length-unit", defaultValue = "mm", description = "mm, um, cm, m or in (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--table-length-unit", paramLabel = "UNIT", defaultValue = "mm", description = "mm, um, cm, m or in (default: ${DEFAULT-VALUE}).")
   String tableLengthUnit;
 
-  @Option(names = "--table-decimal-comma", description = "The position table uses a decimal comma.")
-  boolean tableDecimalComma;
+  @Option(names = "--table-decimal", defaultValue = ".", paramLabel = "MARK", description = "Decimal mark of the position table: '.' or ',' (default: ${DEFAULT-VALUE}).")
+  String tableDecimal;
 
-  @Option(names = "--table-offset-s", description = "Table time minus run time, s (default: found from the break).")
+  @Option(names = "--table-offset-s", paramLabel = "S", description = "Table time minus run time, s (default: found from the break).")
   Double tableOffset;
 
   @Option(names = "--position-measures", paramLabel = "WHERE", description = "What the position "
@@ -81,10 +80,10 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--frame", paramLabel = "FILE", description = "Remove the load frame's deflection F/k with this frame profile (see 'loadstone frame').")
   Path frame;
 
-  @Option(names = "--frame-stiffness-N-per-mm", paramLabel = "K", description = "Remove the load frame's deflection F/K.")
+  @Option(names = "--frame-stiffness-n-per-mm", paramLabel = "K", description = "Remove the load frame's deflection F/K.")
   Double frameK;
 
-  @Option(names = "--json", description = "End with the results as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write the results as one JSON document on standard output (schema loadstone-analyze); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -99,7 +98,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
       a = a.recalibrated(c.spec(), c.calibrationId(), c.calibrationSha256());
     }
     if (crossheadRate != null && table != null) {
-      throw new org.loadstone.units.LoadstoneException("--crosshead-rate-mm-min and "
+      throw new org.loadstone.units.LoadstoneException("--crosshead-rate-mm-per-min and "
           + "--position-table are two position sources: give one");
     }
     if (crossheadRate != null) {
@@ -117,12 +116,13 @@ public final class AnalyzeCommand implements Callable<Integer> {
       }
       PositionTable t = PositionTableCsv.read(table, cols.getOrDefault("time", "1"),
           cols.getOrDefault("position", "2"), DurationUnit.parse(tableTimeUnit),
-          LengthUnit.parse(tableLengthUnit), tableDecimalComma);
+          LengthUnit.parse(tableLengthUnit),
+          ImportCommand.decimalMark(tableDecimal, "--table-decimal") == ',');
       a = a.withPositionTable(t, tableOffset);
     }
     if (videoTable != null && (table != null || crossheadRate != null)) {
       throw new org.loadstone.units.LoadstoneException("--video-table is a position source of "
-          + "its own: give it without --position-table or --crosshead-rate-mm-min");
+          + "its own: give it without --position-table or --crosshead-rate-mm-per-min");
     }
     Path video = videoTable;
     if (video == null && !noVideo && table == null && crossheadRate == null
@@ -142,7 +142,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
     }
     if (frame != null && frameK != null) {
       throw new org.loadstone.units.LoadstoneException("give --frame or "
-          + "--frame-stiffness-N-per-mm, not both");
+          + "--frame-stiffness-n-per-mm, not both");
     }
     if (frame != null) {
       FrameProfile p = FrameProfile.read(frame);
@@ -169,8 +169,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
     RunAdjust adj = adjust(RunAdjust.of(r.metadata(), r.data()), r);
     RunMetrics m = RunMetrics.of(adj.metadata(), adj.data(), settings);
-    Map<String, Object> j = m.toJsonMap();
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     out.printf(Locale.ROOT, "run %s, specimen %s, %d samples (%s)%n", m.metadata().runId(),
         m.metadata().specimen(), m.analysis().sampleCount(), r.source());
     for (Metric metric : Metric.values()) {
@@ -196,14 +195,21 @@ public final class AnalyzeCommand implements Callable<Integer> {
       out.println("note: " + note);
     }
     if (json) {
-      Map<String, Object> withAdj = new java.util.LinkedHashMap<>(j);
-      withAdj.put("derived", adj.notes());
-      withAdj.put("calibration_id", adj.metadata().calibrationId());
-      withAdj.put("warnings", warnings);
-      withAdj.put("amended", r.metadata().amendments().changes().stream()
+      Map<String, Object> j = new java.util.LinkedHashMap<>(m.toJsonMap());
+      java.util.List<String> derived = new java.util.ArrayList<>();
+      if (usedVideo != null) {
+        derived.add(usedVideo);
+      }
+      derived.addAll(adj.notes());
+      j.put("derived", derived);
+      j.put("calibration_id", adj.metadata().calibrationId());
+      j.put("calibration_sha256", adj.metadata().calibrationSha256());
+      j.put("source_file", r.source());
+      j.put("warnings", warnings);
+      j.put("amended", r.metadata().amendments().changes().stream()
           .map(org.loadstone.archive.RunAmendments.Change::line).toList());
-      withAdj.put("retired", r.metadata().amendments().retired());
-      out.println(new ObjectMapper().writeValueAsString(withAdj));
+      j.put("retired", r.metadata().amendments().retired());
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.ANALYZE, j);
     }
     out.flush();
     return 0;

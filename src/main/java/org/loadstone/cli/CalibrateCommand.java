@@ -1,7 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintWriter;
@@ -32,22 +30,27 @@ import picocli.CommandLine.Option;
     name = "calibrate",
     description = {
       "Calibrate a load cell with dead weights.",
-      "With --from, fit points captured earlier (a points CSV). Otherwise capture them live on "
+      "With --points, fit points captured earlier (a points CSV). Otherwise capture them live on "
           + "--port: for each step you are asked to place the weights and press Enter (or type "
           + "the mass actually placed); the reading is taken when it has settled. On --port sim "
           + "the program puts each mass on the simulated cell (scenario dead-weight unless "
-          + "--scenario is given).",
-      "Exit codes: 0 done, 1 stopped by the operator (nothing saved), 2 bad input, 3 device "
-          + "lost."
+          + "--scenario is given)."
+    },
+    exitCodeListHeading = "%nExit codes:%n",
+    exitCodeList = {
+      "0:done",
+      "1:stopped by the operator: nothing fitted or saved",
+      "2:bad usage or input: the message names the fault and the fix",
+      "3:the device was lost: nothing saved",
+      "70:internal error (a bug; please report it)"
     })
 public final class CalibrateCommand implements Callable<Integer>, CommandInput.Reader {
   /** Exit code when the operator quits before the calibration is complete. */
   public static final int EXIT_STOPPED = 1;
-  private static final ObjectMapper JSON = new ObjectMapper();
   /** Same rule as the calibration document's ids. */
   private static final String ID_PATTERN = "[A-Za-z0-9][A-Za-z0-9._-]{0,79}";
 
-  @Option(names = "--from", paramLabel = "POINTS_CSV",
+  @Option(names = "--points", paramLabel = "POINTS_CSV",
       description = "Fit the points in this CSV file (mass_g or force_N, counts, direction, "
           + "series, counts_sd, samples) instead of capturing them live.")
   Path from;
@@ -56,7 +59,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
       description = "Id of the load cell calibrated (letters, digits, '.', '_', '-').")
   String cellId;
 
-  @Option(names = "--json", description = "End with the summary as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write the calibration's figures as one JSON document on standard output (schema loadstone-calibrate); prompts and text go to standard error.")
   boolean json;
 
   @Mixin ForceModelOptions force;
@@ -71,7 +74,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
           + "(default: the recommended one).")
   String fit;
 
-  @Option(names = "--save", paramLabel = "DIR",
+  @Option(names = "--out", paramLabel = "DIR",
       description = "Save the calibration as DIR/ID.json (never overwrites); live points also "
           + "go to DIR/ID.points.csv.")
   Path saveDir;
@@ -87,7 +90,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
       description = "Days the calibration stays valid (default: ${DEFAULT-VALUE}).")
   int validDays;
 
-  @Option(names = "--note", paramLabel = "TEXT",
+  @Option(names = "--notes", paramLabel = "TEXT",
       description = "Remark stored with the calibration (site, weights used, ...).")
   String note;
 
@@ -141,7 +144,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
   }
 
   private int live(CalibrationSettings settings, String calId, LocalDate today) {
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     CalibrationPlan plan = new CalibrationPlan(LoadList.parse(loads, loadsFile), descending,
         series);
     if (saveDir != null && Files.exists(saveDir.resolve(calId + ".points.csv"))) {
@@ -152,7 +155,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
     LiveDevice.useDeadWeight(device, matched("--scenario"));
     LiveCalibration.Outcome o;
     String identity;
-    try (LiveDevice dev = LiveDevice.open(device, out)) {
+    try (LiveDevice dev = LiveDevice.open(device, spec.commandLine().getErr())) {
       identity = dev.identity();
       out.println("Calibrating cell " + cellId + " on " + identity + ": "
           + plan.steps().size() + " readings, " + series + " series"
@@ -187,7 +190,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
 
   private void finish(CalibrationReport report, String calId, LocalDate today, String desc,
       Path pointsFile) {
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     out.println();
     out.println("Calibration of cell " + cellId + (from != null ? " from " + from : ""));
     out.print(CalibrationService.fitTable(report));
@@ -212,17 +215,17 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
       }
     }
     if (json) {
-      Map<String, Object> m = new LinkedHashMap<>(CalibrationService.summary(report));
+      Map<String, Object> m = new LinkedHashMap<>();
       m.put("cell_id", cellId);
       m.put("calibration_id", doc == null ? null : doc.id());
-      m.put("content_sha256", doc == null ? null : doc.contentSha256());
-      m.put("saved_file", file == null ? null : file.toString());
-      m.put("points_file", pointsFile == null ? null : pointsFile.toString());
-      try {
-        out.println(JSON.writeValueAsString(m));
-      } catch (JsonProcessingException e) {
-        throw new IllegalStateException("summary cannot be written as JSON", e);
-      }
+      m.put("calibration_sha256", doc == null ? null : doc.contentSha256());
+      m.put("calibration_file", JsonViews.path(file));
+      m.put("points_file", JsonViews.path(pointsFile));
+      Map<String, Object> summary = new LinkedHashMap<>(CalibrationService.summary(report));
+      Object note = summary.remove("note");
+      m.putAll(summary);
+      m.put("notes", note == null ? List.of() : List.of(note));
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.CALIBRATE, m);
     }
     out.flush();
   }
@@ -262,9 +265,9 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
   private void refuseLiveOptions() {
     List<String> given = new ArrayList<>();
     List<String> live = new ArrayList<>(List.of("--port", "--baud", "--reset-wait-ms", "--loads",
-        "--loads-file", "--descending", "--series", "--scenario", "--seed", "--rate", "--hand",
+        "--loads-file", "--descending", "--series", "--scenario", "--seed", "--rate-hz", "--hand",
         "--sim-speed", "--sim-start-delay-s",
-        "--window-s", "--max-sd-counts", "--max-drift", "--timeout-s"));
+        "--window-s", "--max-sd-counts", "--max-drift-counts-per-s", "--timeout-s"));
     live.addAll(SimImperfectionOptions.NAMES);
     for (String o : live) {
       if (matched(o)) {
@@ -272,8 +275,8 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
       }
     }
     if (!given.isEmpty()) {
-      throw new LoadstoneException("--from fits points captured earlier, so " + given
-          + " cannot be used with it: drop --from to capture live, or drop those options");
+      throw new LoadstoneException("--points fits points captured earlier, so " + given
+          + " cannot be used with it: drop --points to capture live, or drop those options");
     }
   }
 

@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -32,21 +31,26 @@ public final class CompareCommand implements Callable<Integer> {
 
   @Mixin SelectionOptions select;
 
-  @Option(names = "--by", defaultValue = "group", description = "How runs are grouped (default: ${DEFAULT-VALUE}; only 'group' for now).")
+  @Option(names = "--by", paramLabel = "KEY", defaultValue = "group", description = "How runs are grouped (default: ${DEFAULT-VALUE}; only 'group' for now).")
   String by;
 
-  @Option(names = "--metric", defaultValue = "peak", description = {"peak, peak-time, break-time, break-force, stiffness, toe-offset,",
-      "displacement-at-peak, displacement-at-break, energy, energy-to-break, flexural-stress,",
-      "flexural-stress-large-deflection, flexural-modulus, core-shear, facing-stress,",
-      "compression-stress, crush-mean, crush-efficiency, crush-energy, specific-peak,",
-      "specific-energy, specific-energy-to-break, specific-stiffness, specific-crush-energy",
-      "(default: ${DEFAULT-VALUE})."})
+  @Option(names = "--metric", defaultValue = "peak", paramLabel = "FIGURE",
+      completionCandidates = MetricWords.class,
+      description = "The figure compared: ${COMPLETION-CANDIDATES} (default: ${DEFAULT-VALUE}).")
   String metric;
 
-  @Option(names = "--target-pct", defaultValue = "10", description = "Difference the sample-size advice aims to resolve, in per cent (default: ${DEFAULT-VALUE}).")
+  /** The words of the comparable figures, from the metric catalogue. */
+  static final class MetricWords implements Iterable<String> {
+    @Override
+    public java.util.Iterator<String> iterator() {
+      return Metric.comparableOnes().stream().map(Metric::word).iterator();
+    }
+  }
+
+  @Option(names = "--target-pct", paramLabel = "PCT", defaultValue = "10", description = "Difference the sample-size advice aims to resolve, in per cent (default: ${DEFAULT-VALUE}).")
   double targetPct;
 
-  @Option(names = "--json", description = "End with the result as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write the result as one JSON document on standard output (schema loadstone-compare): groups, test, outliers by run, the sample-size advice, the runs counted and those left out with the reason; the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -58,7 +62,7 @@ public final class CompareCommand implements Callable<Integer> {
           + "group name (--by group)");
     }
     Metric m = Metric.parse(metric);
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     Selection sel = ArchiveRuns.scan(archive.folder()).select(select.selection(),
         ProgressLine.onStderr(spec.commandLine().getErr(), "analysing runs"));
     StudyResult r;
@@ -96,7 +100,10 @@ public final class CompareCommand implements Callable<Integer> {
           + SelectionOptions.includeHint(r.leftOut()));
     }
     if (json) {
-      out.println(new ObjectMapper().writeValueAsString(r.toJsonView()));
+      java.util.Map<String, Object> j = new java.util.LinkedHashMap<>(r.toJsonView());
+      j.put("archive", sel.folder().toString());
+      j.put("target_difference_pct", targetPct);
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.COMPARE, j);
     }
     out.flush();
     return 0;

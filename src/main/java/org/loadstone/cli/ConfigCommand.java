@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.util.LinkedHashMap;
@@ -27,7 +26,7 @@ import picocli.CommandLine.Option;
       "~/.config/loadstone/config.properties: 'key = value' lines), then what is built in."
     })
 public final class ConfigCommand implements Callable<Integer> {
-  @Option(names = "--json", description = "Write the settings as one JSON object.")
+  @Option(names = "--json", description = "Write the settings as one JSON document on standard output (schema loadstone-config); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -35,7 +34,7 @@ public final class ConfigCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     UserConfig c = ConfigDefaults.of(spec);
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     PrintWriter err = spec.commandLine().getErr();
     if (json) {
       Map<String, Object> j = new LinkedHashMap<>();
@@ -51,8 +50,9 @@ public final class ConfigCommand implements Callable<Integer> {
       }).toList();
       j.put("settings", rows);
       j.put("problems", c.problems());
-      out.println(new ObjectMapper().writeValueAsString(j));
-    } else {
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.CONFIG, j);
+    }
+    {
       out.println("config file: " + c.file() + (Files.isRegularFile(c.file()) ? ""
           : " (none; create it with lines such as 'port = /dev/ttyACM0')"));
       for (UserConfig.Setting s : c.list()) {

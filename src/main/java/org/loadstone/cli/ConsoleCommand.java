@@ -24,7 +24,7 @@ public final class ConsoleCommand implements Callable<Integer> {
   @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file of the cell (a serial device or the simulated frame).")
   java.nio.file.Path cal;
 
-  @Option(names = "--capacity-N", description = "The load cell's rated capacity (default: from the calibration's cell profile).")
+  @Option(names = "--capacity-n", paramLabel = "N", description = "The load cell's rated capacity (default: from the calibration's cell profile).")
   Double capacity;
 
   @Option(
@@ -34,7 +34,7 @@ public final class ConsoleCommand implements Callable<Integer> {
           + "shows counts and runs are refused).")
   Double countsPerN;
 
-  @Option(names = "--zero-drift-N", description = "Warn before a run when the zero moved more than this since the last tare (default: 0.1 %% of rated capacity).")
+  @Option(names = "--zero-drift-n", paramLabel = "N", description = "Warn before a run when the zero moved more than this since the last tare (default: 0.1 %% of rated capacity).")
   Double zeroDriftLimit;
 
   @Override

@@ -9,6 +9,9 @@ import picocli.CommandLine.Option;
 
 /** Options that choose and open a device, shared by the commands that talk to one. */
 public final class DeviceOptions {
+  /** What is on the simulated frame unless --scenario says otherwise (calibrate, verify: dead-weight). */
+  static final String DEFAULT_SCENARIO = "panel-foam";
+
   @Option(
       names = "--port",
       defaultValue = "sim",
@@ -17,27 +20,27 @@ public final class DeviceOptions {
           + "(default: ${DEFAULT-VALUE}). 'loadstone ports' lists them.")
   String port;
 
-  @Option(names = "--baud", defaultValue = "115200", description = "Serial speed (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--baud", paramLabel = "BPS", defaultValue = "115200", description = "Serial speed (default: ${DEFAULT-VALUE}).")
   int baud;
 
   @Option(
       names = "--reset-wait-ms",
       defaultValue = "0",
-      description = "Wait this long after opening, for boards that reset on open (try 2000).")
+      description = "Wait this long after opening, for boards that reset on open (try "
+          + "2000; default: ${DEFAULT-VALUE}).")
   int resetWaitMs;
 
   @Option(
       names = "--scenario",
-      defaultValue = "panel-foam",
-      description = "Simulator: what is on the simulated frame (default: ${DEFAULT-VALUE}); "
-          + "'loadstone simulate --help' lists the scenarios.")
+      description = "Simulator: what is on the simulated frame (default: " + DEFAULT_SCENARIO
+          + "; dead-weight for calibrate and verify); 'loadstone simulate --help' lists them.")
   String scenario;
 
-  @Option(names = "--seed", defaultValue = "1", description = "Simulator: random seed (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "Simulator: random seed (default: ${DEFAULT-VALUE}).")
   long seed;
 
   @Option(
-      names = "--rate",
+      names = "--rate-hz",
       defaultValue = "80",
       description = "Simulator: samples per second: 10 or 80 (bridge amplifier) or 100…50000 "
           + "(fast converter) (default: ${DEFAULT-VALUE}).")
@@ -61,6 +64,11 @@ public final class DeviceOptions {
 
   @Mixin SimImperfectionOptions imperfections;
 
+  /** @return the simulated scenario: the one given, else {@link #DEFAULT_SCENARIO} */
+  public String scenario() {
+    return scenario != null ? scenario : DEFAULT_SCENARIO;
+  }
+
   /** @return whether the chosen port is the simulated frame */
   public boolean simulated() {
     return DeviceOpener.SIM.equalsIgnoreCase(port.trim());
@@ -68,7 +76,7 @@ public final class DeviceOptions {
 
   /** @return the simulator settings these options describe */
   public SimSetup simSetup() {
-    return new SimSetup(scenario, seed, rateHz, hand, simSpeed, simStartDelay_s,
+    return new SimSetup(scenario(), seed, rateHz, hand, simSpeed, simStartDelay_s,
         imperfections.imperfections());
   }
 

@@ -27,20 +27,32 @@ public final class ExportCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "Target file (must not exist).")
   Path out;
 
-  @Option(names = "--delimiter", defaultValue = ",", description = "',', ';' or tab (default ',').")
+  @Option(names = "--delimiter", defaultValue = ",", paramLabel = "MARK", description = "Field delimiter: ',', ';' or tab (default: ${DEFAULT-VALUE}).")
   String delimiter;
 
-  @Option(names = "--decimal", defaultValue = ".", description = "'.' or ',' (default '.').")
+  @Option(names = "--decimal", defaultValue = ".", paramLabel = "MARK", description = "Decimal mark: '.' or ',' (default: ${DEFAULT-VALUE}).")
   String decimal;
+
+  @Option(names = "--json", description = "Write what was written as one JSON document on standard output (schema loadstone-export); the text goes to standard error.")
+  boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   @Override
   public Integer call() {
     ResolvedRun r = CliWiring.resolve(run, archive.folder());
-    CsvExport.write(r.data(), out, mark(delimiter, "--delimiter"), mark(decimal, "--decimal"));
-    spec.commandLine().getOut().println("written " + r.data().size() + " samples to " + out);
-    spec.commandLine().getOut().flush();
+    CsvExport.write(r.data(), out, mark(delimiter, "--delimiter"),
+        ImportCommand.decimalMark(decimal, "--decimal"));
+    java.io.PrintWriter h = JsonDocument.human(spec, json);
+    h.println("written " + r.data().size() + " samples to " + out);
+    h.flush();
+    if (json) {
+      java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
+      m.put("run_id", r.metadata().runId());
+      m.put("sample_count", r.data().size());
+      m.put("out_file", out.toString());
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.EXPORT, m);
+    }
     return 0;
   }
 

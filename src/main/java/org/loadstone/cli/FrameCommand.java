@@ -29,14 +29,17 @@ public final class FrameCommand implements Callable<Integer> {
   @Parameters(paramLabel = "RUN", description = "The rigid-block run: an id (or prefix) in the archive or a run CSV.")
   String run;
 
-  @Option(names = "--id", required = true, description = "Name of the frame, e.g. bench-press.")
+  @Option(names = "--id", paramLabel = "ID", required = true, description = "Name of the frame, e.g. bench-press.")
   String id;
 
-  @Option(names = "--description", defaultValue = "", description = "Free text about the frame.")
+  @Option(names = "--notes", paramLabel = "TEXT", defaultValue = "", description = "Free text about the frame.")
   String description;
 
-  @Option(names = "--save", defaultValue = "calibration/frames", paramLabel = "DIR", description = "Folder for the profile (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--out", defaultValue = "calibration/frames", paramLabel = "DIR", description = "Folder for the profile (default: ${DEFAULT-VALUE}).")
   Path dir;
+
+  @Option(names = "--json", description = "Write the frame profile as one JSON document on standard output (schema loadstone-frame); the text goes to standard error.")
+  boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
@@ -48,10 +51,18 @@ public final class FrameCommand implements Callable<Integer> {
     FrameProfile p = new FrameProfile(id, description, k, r.metadata().runId(),
         Instant.now().toString());
     Path file = p.save(dir);
-    spec.commandLine().getOut().printf(Locale.ROOT,
-        "frame %s: stiffness %.5g N/mm (from run %s), saved to %s%n", id, k,
+    java.io.PrintWriter h = JsonDocument.human(spec, json);
+    h.printf(Locale.ROOT, "frame %s: stiffness %.5g N/mm (from run %s), saved to %s%n", id, k,
         r.metadata().runId(), file);
-    spec.commandLine().getOut().flush();
+    h.flush();
+    if (json) {
+      java.util.Map<String, Object> j = new java.util.LinkedHashMap<>();
+      j.put("frame_id", id);
+      j.put("frame_stiffness_N_per_mm", k);
+      j.put("run_id", r.metadata().runId());
+      j.put("profile_file", file.toString());
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.FRAME, j);
+    }
     return 0;
   }
 }

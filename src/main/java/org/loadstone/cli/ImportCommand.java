@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Arrays;
@@ -42,22 +41,22 @@ public final class ImportCommand implements Callable<Integer> {
       description = "Columns by header name or 1-based number, e.g. time=Time [s],force=Load,position=3")
   String map;
 
-  @Option(names = "--force-unit", description = "N, kN, lbf or kgf (default: from the header, else the config's force-unit, else N).")
+  @Option(names = "--force-unit", paramLabel = "UNIT", description = "N, kN, lbf or kgf (default: from the header, else the config's force-unit, else N).")
   String forceUnit;
 
-  @Option(names = "--length-unit", description = "mm, um, cm, m or in (default: from the header, else the config's length-unit, else mm).")
+  @Option(names = "--length-unit", paramLabel = "UNIT", description = "mm, um, cm, m or in (default: from the header, else the config's length-unit, else mm).")
   String lengthUnit;
 
-  @Option(names = "--time-unit", description = "s, ms or min (default: from the header, else s).")
+  @Option(names = "--time-unit", paramLabel = "UNIT", description = "s, ms or min (default: from the header, else s).")
   String timeUnit;
 
-  @Option(names = "--decimal-comma", description = "Numbers use a comma as decimal mark.")
-  boolean decimalComma;
+  @Option(names = "--decimal", defaultValue = ".", paramLabel = "MARK", description = "Decimal mark of the numbers: '.' or ',' (default: ${DEFAULT-VALUE}).")
+  String decimal;
 
-  @Option(names = "--delimiter", description = "Field delimiter: ',', ';' or tab (default: detect).")
+  @Option(names = "--delimiter", paramLabel = "MARK", description = "Field delimiter: ',', ';' or tab (default: detect).")
   String delimiter;
 
-  @Option(names = "--skip-lines", defaultValue = "0", description = "Lines before the header row.")
+  @Option(names = "--skip-lines", paramLabel = "N", defaultValue = "0", description = "Lines before the header row (default: ${DEFAULT-VALUE}).")
   int skipLines;
 
   @picocli.CommandLine.Mixin SpecimenOptions specimen;
@@ -65,7 +64,7 @@ public final class ImportCommand implements Callable<Integer> {
   @Option(names = "--out", paramLabel = "FILE.csv", description = "Write the run as a plain CSV here instead of storing it in the archive.")
   Path out;
 
-  @Option(names = "--json", description = "End with the summary as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write what was read and where it went as one JSON document on standard output (schema loadstone-import); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -73,7 +72,7 @@ public final class ImportCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     ImportSettings s = ImportSettings.of(ColumnMap.parse(map))
-        .withDecimalComma(decimalComma).withSkipLines(skipLines)
+        .withDecimalComma(decimalMark(decimal, "--decimal") == ',').withSkipLines(skipLines)
         .withDelimiter(delimiter == null ? null : ExportCommand.mark(delimiter, "--delimiter"));
     org.loadstone.config.UserConfig config = ConfigDefaults.of(spec);
     String usualForce = config.value(org.loadstone.config.UserConfig.Key.FORCE_UNIT);
@@ -97,7 +96,7 @@ public final class ImportCommand implements Callable<Integer> {
     List<String> warnings = org.loadstone.intake.Plausibility.warnings(run.metadata(), d);
     warnings.forEach(w -> spec.commandLine().getErr().println("warning: " + w));
     spec.commandLine().getErr().flush();
-    PrintWriter o = spec.commandLine().getOut();
+    PrintWriter o = JsonDocument.human(spec, json);
     o.printf(Locale.ROOT, "%s: %d rows, delimiter %s%n", file, d.size(),
         run.delimiter() == '\t' ? "tab" : "'" + run.delimiter() + "'");
     run.columns().forEach(c -> o.println("  " + c));
@@ -110,33 +109,45 @@ public final class ImportCommand implements Callable<Integer> {
       o.println("  position " + num(x[0]) + " to " + num(x[1]) + " mm");
     }
     run.notes().forEach(n -> o.println("note: " + n));
-    String stored;
+    Map<String, Object> where;
     if (out != null) {
       CsvExport.write(d, out, ',', '.');
-      stored = out.toString();
       o.println("written to " + out);
+      where = new LinkedHashMap<>();
+      where.put("run_id", null);
+      where.put("csv_file", out.toString());
+      where.put("sidecar_file", null);
     } else {
       StoredRun sr = CliWiring.store(run, archive.folder());
-      stored = sr.csv().toString();
-      o.println("stored in the archive as " + sr.csv().getFileName().toString()
-          .replaceFirst("\\.csv$", ""));
+      String id = sr.csv().getFileName().toString().replaceFirst("\\.csv$", "");
+      o.println("stored in the archive as " + id);
+      where = JsonViews.stored(id, sr.csv(), sr.json());
     }
     if (json) {
-      Map<String, Object> m = new LinkedHashMap<>();
-      m.put("file", file.toString());
-      m.put("rows", d.size());
+      Map<String, Object> m = new LinkedHashMap<>(where);
+      m.put("source_file", file.toString());
+      m.put("sample_count", d.size());
       m.put("delimiter", String.valueOf(run.delimiter()));
       m.put("columns", run.columns());
-      m.put("time_s_range", List.of(t[0], t[1]));
-      m.put("force_N_range", List.of(f[0], f[1]));
-      m.put("position_mm_range", x == null ? null : List.of(x[0], x[1]));
+      m.put("time_range_s", List.of(t[0], t[1]));
+      m.put("force_range_N", List.of(f[0], f[1]));
+      m.put("position_range_mm", x == null ? null : List.of(x[0], x[1]));
       m.put("notes", run.notes());
       m.put("warnings", warnings);
-      m.put("stored", stored);
-      o.println(new ObjectMapper().writeValueAsString(m));
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.IMPORT, m);
     }
     o.flush();
     return 0;
+  }
+
+  /** @return the decimal mark given, '.' or ',' */
+  static char decimalMark(String text, String option) {
+    char c = ExportCommand.mark(text, option);
+    if (c != '.' && c != ',') {
+      throw new org.loadstone.units.LoadstoneException(option + " '" + text + "' is not a "
+          + "decimal mark: give '.' or ','");
+    }
+    return c;
   }
 
   private static String num(double v) {

@@ -36,14 +36,15 @@ final class LiveDevice implements AutoCloseable {
   private final WeightHandler weights;
   private final double rateHz;
   private final String identity;
-  private final PrintWriter out;
+  private final PrintWriter status;
+  private final boolean statusLines = Terminal.statusLines();
 
-  private LiveDevice(DeviceReader reader, double rateHz, String identity, PrintWriter out) {
+  private LiveDevice(DeviceReader reader, double rateHz, String identity, PrintWriter status) {
     this.reader = reader;
     this.weights = WeightHandler.forTransport(reader.transport());
     this.rateHz = rateHz;
     this.identity = identity;
-    this.out = out;
+    this.status = status;
   }
 
   /**
@@ -70,10 +71,11 @@ final class LiveDevice implements AutoCloseable {
    * Opens the device, starts streaming and learns its sample rate (the one rule of {@link
    * SampleRate}: from its identity, else from its clock).
    *
+   * @param status standard error, where the live status line goes when it is a terminal
    * @throws LoadstoneException when the device cannot be opened, speaks another protocol version,
    *     or sends too few samples to measure its rate
    */
-  static LiveDevice open(DeviceOptions options, PrintWriter out) {
+  static LiveDevice open(DeviceOptions options, PrintWriter status) {
     Transport t = options.open();
     DeviceReader r = new DeviceReader(t, new SampleRing(1 << 16));
     try {
@@ -90,7 +92,7 @@ final class LiveDevice implements AutoCloseable {
               id.get().adc(), rate.describe())
           : String.format(Locale.ROOT, "device on %s (sent no identity), %s", t.name(),
               rate.describe());
-      return new LiveDevice(r, rate.rate_Hz(), text, out);
+      return new LiveDevice(r, rate.rate_Hz(), text, status);
     } catch (RuntimeException e) {
       r.close();
       throw e;
@@ -114,7 +116,8 @@ final class LiveDevice implements AutoCloseable {
 
   /**
    * Feeds samples that arrive from now on to {@code detector} until it reports a stable window,
-   * showing the progress on one line (rewritten with a carriage return).
+   * showing the progress on one line of standard error (rewritten with a carriage return) when
+   * that is a terminal.
    *
    * @param detector a fresh (or reset) detector
    * @return the reading of the stable window
@@ -151,12 +154,14 @@ final class LiveDevice implements AutoCloseable {
         }
         long now = System.nanoTime();
         if (state[0] == StabilityDetector.State.STABLE) {
-          showLine(last[0], detector, state[0], seen);
-          out.println();
-          out.flush();
+          if (statusLines) {
+            showLine(last[0], detector, state[0], seen);
+            status.println();
+            status.flush();
+          }
           return detector.reading();
         }
-        if (now - lastLine > LINE_EVERY_MS * 1_000_000 && seen > 0) {
+        if (statusLines && now - lastLine > LINE_EVERY_MS * 1_000_000 && seen > 0) {
           showLine(last[0], detector, state[0], seen);
           lastLine = now;
         }
@@ -168,9 +173,9 @@ final class LiveDevice implements AutoCloseable {
         }
       }
     } catch (LoadstoneException e) {
-      if (seen > 0) {
-        out.println();
-        out.flush();
+      if (statusLines && seen > 0) {
+        status.println();
+        status.flush();
       }
       throw e;
     }
@@ -196,8 +201,8 @@ final class LiveDevice implements AutoCloseable {
         ? String.format(Locale.ROOT, "  counts %9d   [%-8s]", counts, judged)
         : String.format(Locale.ROOT, "  counts %9d   sd %8.1f   drift %+9.1f/s   [%-8s]",
             counts, d.lastSd_counts(), d.lastDrift_counts_per_s(), judged);
-    out.print("\r" + text + "   ");
-    out.flush();
+    status.print("\r" + text + "   ");
+    status.flush();
   }
 
   private static void sleep(long ms) {

@@ -28,7 +28,7 @@ final class LoadList {
     if ((text == null) == (file == null)) {
       throw new LoadstoneException(text == null
           ? "no weights given: list them with --loads \"0.5 kg, 1 kg, 2 kg, 5 kg\" or"
-              + " --loads-file FILE (or fit earlier points with --from FILE)"
+              + " --loads-file FILE (or fit earlier points with --points FILE)"
           : "--loads and --loads-file both given: use one of them");
     }
     if (text != null) {

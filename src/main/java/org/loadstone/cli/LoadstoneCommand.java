@@ -13,7 +13,17 @@ import picocli.CommandLine.Command;
     versionProvider = LoadstoneCommand.Version.class,
     description = {
       "Load-frame acquisition and live-test console.",
-      "With no command, the console window opens on the built-in simulated frame."
+      "With no command, the console window opens on the built-in simulated frame.",
+      "With --json a command writes one JSON document on standard output and its text on "
+          + "standard error."
+    },
+    exitCodeListHeading = "%nExit codes:%n",
+    exitCodeList = {
+      " 0:done",
+      " 1:verify: the check failed; calibrate, verify: stopped by the operator, nothing saved",
+      " 2:bad usage or input: the message names the fault and the fix",
+      " 3:the device was lost or restarted (record stores the run recorded until then)",
+      "70:internal error (a bug; please report it)"
     },
     subcommands = {
       PortsCommand.class,
@@ -104,6 +114,9 @@ public final class LoadstoneCommand implements Runnable {
         sub.getCommandSpec().mixinStandardHelpOptions(true);
       }
     }
+    // lower-case option names, matched without regard to case (--capacity-N still works)
+    cl.setOptionsCaseInsensitive(true);
+    cl.setUsageHelpAutoWidth(true);
     OptionRules.install(cl);
     if (stdout != null) {
       cl.setOut(stdout);
@@ -111,6 +124,8 @@ public final class LoadstoneCommand implements Runnable {
     if (stderr != null) {
       cl.setErr(stderr);
     }
+    cl.setParameterExceptionHandler(LoadstoneCommand::usageHint);
+    args = OptionAliases.rewrite(args, cl.getSubcommands().keySet(), cl.getErr());
     cl.setExecutionExceptionHandler(
         (ex, commandLine, parseResult) -> {
           PrintWriter w = commandLine.getErr();
@@ -141,6 +156,23 @@ public final class LoadstoneCommand implements Runnable {
     }
   }
 
+  /**
+   * A usage error: the fault, the command's synopsis and where the full help is, instead of the
+   * whole help text.
+   */
+  private static int usageHint(CommandLine.ParameterException ex, String[] args) {
+    CommandLine cmd = ex.getCommandLine();
+    PrintWriter err = cmd.getErr();
+    err.println("loadstone: " + ex.getMessage());
+    CommandLine.UnmatchedArgumentException.printSuggestions(ex, err);
+    cmd.getCommandSpec().usageMessage().abbreviateSynopsis(true);
+    String synopsis = cmd.getHelp().synopsis(0).strip();
+    err.println("usage: " + synopsis.replaceAll("\\s+", " "));
+    err.println("see '" + cmd.getCommandSpec().qualifiedName() + " --help'");
+    err.flush();
+    return EXIT_USER_ERROR;
+  }
+
   /** Reports the version from the jar manifest. */
   public static final class Version implements CommandLine.IVersionProvider {
     @Override
@@ -149,9 +181,8 @@ public final class LoadstoneCommand implements Runnable {
     }
   }
 
-  /** @return the software version from the jar manifest, or {@code dev} when run from classes */
+  /** @return the software version ({@link org.loadstone.units.SoftwareVersion}, its one home) */
   public static String softwareVersion() {
-    String v = LoadstoneCommand.class.getPackage().getImplementationVersion();
-    return v == null ? "dev" : v;
+    return org.loadstone.units.SoftwareVersion.get();
   }
 }

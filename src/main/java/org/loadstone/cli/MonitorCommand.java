@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.util.LinkedHashMap;
 import java.util.Locale;
@@ -36,10 +35,10 @@ import picocli.CommandLine.Option;
 public final class MonitorCommand implements Callable<Integer> {
   @Mixin DeviceOptions device;
 
-  @Option(names = "--seconds", description = "Stop after this many seconds (default: until Ctrl-C).")
+  @Option(names = "--duration-s", paramLabel = "S", description = "Stop after this many seconds (default: until Ctrl-C).")
   Double seconds;
 
-  @Option(names = "--json", description = "End with the totals as one JSON object on the last line.")
+  @Option(names = "--json", description = {"Write JSON Lines on standard output (schema loadstone-monitor): one document per sample (record \"sample\"), unless --quiet, then one with the totals (record \"totals\"); device messages go to standard error."})
   boolean json;
 
   @Option(names = "--quiet", description = "Do not print each sample, only the totals.")
@@ -82,7 +81,7 @@ public final class MonitorCommand implements Callable<Integer> {
           : System.nanoTime() + (long) (seconds * 1e9);
       SampleRing.Cursor cursor = ring.cursorAtOldest();
       StringBuilder lines = new StringBuilder();
-      if (!quiet) {
+      if (!quiet && !json) {
         out.println("seq\tdevice_us\tcounts\tposition");
       }
       while (!stop && System.nanoTime() < deadline && reader.lostReason().isEmpty()
@@ -137,7 +136,15 @@ public final class MonitorCommand implements Callable<Integer> {
       return;
     }
     lines.setLength(0);
+    String opening = json ? JsonDocument.opening(JsonDocument.Kind.MONITOR)
+        + "\"record\":\"sample\",\"seq\":" : null;
     cursor.drain((i, s, d, tu, c, hp, p) -> {
+      if (json) {
+        lines.append(opening).append(s).append(",\"device_us\":").append(d)
+            .append(",\"counts\":").append(c).append(",\"position_counts\":")
+            .append(hp ? Integer.toString(p) : "null").append("}\n");
+        return;
+      }
       lines.append(s).append('\t').append(d).append('\t').append(c).append('\t');
       if (hp) {
         lines.append(p);
@@ -153,15 +160,16 @@ public final class MonitorCommand implements Callable<Integer> {
     double rate = reader.measuredRateHz();
     if (json) {
       Map<String, Object> m = new LinkedHashMap<>();
+      m.put("record", "totals");
       m.put("port", reader.transport().name());
-      m.put("samples", reader.samplesAccepted());
+      m.put("sample_count", reader.samplesAccepted());
       m.put("dropped", c.dropped());
       m.put("checksum_errors", c.checksumErrors());
       m.put("resyncs", c.resyncs());
-      m.put("unknown", c.unknown());
-      m.put("rate_hz", Math.round(rate * 1000) / 1000.0);
+      m.put("unknown_records", c.unknown());
+      m.put("sample_rate_hz", Math.round(rate * 1000) / 1000.0);
       m.put("device_lost", reader.lostReason().isPresent());
-      out.println(new ObjectMapper().writeValueAsString(m));
+      JsonDocument.write(out, JsonDocument.Kind.MONITOR, m);
     } else {
       out.printf(Locale.ROOT, "samples %d, dropped %d, checksum errors %d, resyncs %d, "
               + "unknown records %d, measured rate %.2f Hz%n",

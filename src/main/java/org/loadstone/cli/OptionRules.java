@@ -56,7 +56,7 @@ final class OptionRules {
           "the board's serial speed in baud (115200 for the reference firmware)")),
       Map.entry("--reset-wait-ms", new Range(0, false, SerialSettings.MAX_RESET_WAIT_MS,
           "the wait after opening the port in ms (2000 suits most boards that reset)")),
-      Map.entry("--seconds", new Range(0, true, WEEK_S,
+      Map.entry("--duration-s", new Range(0, true, WEEK_S,
           "a duration in seconds, at most a week")));
 
   /** Makes every command of {@code cl} follow these rules. */

@@ -29,7 +29,7 @@ final class ProgressLine implements ArchiveRuns.Progress {
 
   /** @return progress for this process's standard error */
   static ProgressLine onStderr(PrintWriter err, String what) {
-    return new ProgressLine(err, System.console() != null, what);
+    return new ProgressLine(err, Terminal.statusLines(), what);
   }
 
   @Override

@@ -64,67 +64,67 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file to turn counts into force.")
   Path cal;
 
-  @Option(names = "--counts-per-n", description = "Without a calibration: a nominal sensitivity (counts per N); the run is marked uncalibrated.")
+  @Option(names = "--counts-per-n", paramLabel = "K", description = "Without a calibration: a nominal sensitivity (counts per N); the run is marked uncalibrated.")
   Double countsPerN;
 
-  @Option(names = "--specimen", required = true, description = "Specimen id.")
+  @Option(names = "--specimen", paramLabel = "ID", required = true, description = "Specimen id.")
   String specimen;
 
-  @Option(names = "--group", defaultValue = "", description = "Group for comparisons, e.g. balsa.")
+  @Option(names = "--group", paramLabel = "NAME", defaultValue = "", description = "Group for comparisons, e.g. balsa.")
   String group;
 
-  @Option(names = "--tag", description = "A tag (repeatable).")
+  @Option(names = "--tag", paramLabel = "TAG", description = "A tag (repeatable).")
   List<String> tags = new ArrayList<>();
 
-  @Option(names = "--operator", defaultValue = "", description = "Who ran the test.") String operator;
+  @Option(names = "--operator", paramLabel = "NAME", defaultValue = "", description = "Who ran the test.") String operator;
 
-  @Option(names = "--notes", defaultValue = "", description = "Free notes kept with the run.") String notes;
+  @Option(names = "--notes", paramLabel = "TEXT", defaultValue = "", description = "Free notes kept with the run.") String notes;
 
-  @Option(names = "--mass-g", description = "Specimen mass in g (for strength per weight).")
+  @Option(names = "--mass-g", paramLabel = "G", description = "Specimen mass in g (for strength per weight).")
   Double mass_g;
 
-  @Option(names = "--test", defaultValue = "three-point", description = "three-point, four-point, compression, tension or crush (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--test", paramLabel = "KIND", defaultValue = "three-point", description = "three-point, four-point, compression, tension or crush (default: ${DEFAULT-VALUE}).")
   String test;
 
-  @Option(names = "--span-mm", description = "Support span L (bend tests).") Double span;
-  @Option(names = "--load-span-mm", description = "Load span (four-point bend).") Double loadSpan;
-  @Option(names = "--width-mm", description = "Specimen width b.") Double width;
-  @Option(names = "--depth-mm", description = "Specimen depth (total thickness) d.") Double depth;
-  @Option(names = "--facing-mm", description = "Sandwich facing thickness t.") Double facing;
-  @Option(names = "--core-mm", description = "Sandwich core thickness c.") Double core;
-  @Option(names = "--area-mm2", description = "Loaded area (compression, tension), mm².") Double area;
+  @Option(names = "--span-mm", paramLabel = "MM", description = "Support span L (bend tests).") Double span;
+  @Option(names = "--load-span-mm", paramLabel = "MM", description = "Load span (four-point bend).") Double loadSpan;
+  @Option(names = "--width-mm", paramLabel = "MM", description = "Specimen width b.") Double width;
+  @Option(names = "--depth-mm", paramLabel = "MM", description = "Specimen depth (total thickness) d.") Double depth;
+  @Option(names = "--facing-mm", paramLabel = "MM", description = "Sandwich facing thickness t.") Double facing;
+  @Option(names = "--core-mm", paramLabel = "MM", description = "Sandwich core thickness c.") Double core;
+  @Option(names = "--area-mm2", paramLabel = "MM2", description = "Loaded area (compression, tension), mm².") Double area;
 
-  @Option(names = "--start-at-N", defaultValue = "5", description = "Start recording at this force (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--start-at-n", paramLabel = "N", defaultValue = "5", description = "Start recording at this force (default: ${DEFAULT-VALUE}).")
   double startAt;
 
-  @Option(names = "--stop-drop-pct", defaultValue = "40", description = "Break when force falls this many per cent below the peak (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--stop-drop-pct", paramLabel = "PCT", defaultValue = "40", description = "Break when force falls this many per cent below the peak (default: ${DEFAULT-VALUE}).")
   double dropPct;
 
-  @Option(names = "--arm-at-N", description = "The peak must pass this before a break counts (default: twice --start-at-N).")
+  @Option(names = "--arm-at-n", paramLabel = "N", description = "The peak must pass this before a break counts (default: twice --start-at-n).")
   Double armAt;
 
-  @Option(names = "--stop-below-N", defaultValue = "0", description = "Also break when force falls back below this (0 = off).")
+  @Option(names = "--stop-below-n", paramLabel = "N", defaultValue = "0", description = "Also break when force falls back below this (default: ${DEFAULT-VALUE}, off).")
   double stopBelow;
 
-  @Option(names = "--debounce-s", defaultValue = "0.01", description = "The drop must last this long (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--debounce-s", paramLabel = "S", defaultValue = "0.01", description = "The drop must last this long (default: ${DEFAULT-VALUE}).")
   double debounce;
 
-  @Option(names = "--tail-s", defaultValue = "0.5", description = "Keep recording this long after the break (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--tail-s", paramLabel = "S", defaultValue = "0.5", description = "Keep recording this long after the break (default: ${DEFAULT-VALUE}).")
   double tail;
 
-  @Option(names = "--pretrigger-s", defaultValue = "1", description = "History kept before the start (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--pretrigger-s", paramLabel = "S", defaultValue = "1", description = "History kept before the start (default: ${DEFAULT-VALUE}).")
   double pretrigger;
 
-  @Option(names = "--capacity-N", description = "The load cell's rated capacity (default: from the calibration's cell profile, or the simulated cell).")
+  @Option(names = "--capacity-n", paramLabel = "N", description = "The load cell's rated capacity (default: from the calibration's cell profile, or the simulated cell).")
   Double capacity;
 
-  @Option(names = "--warn-pct", defaultValue = "80", description = "Overload warning, per cent of rated capacity (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--warn-pct", paramLabel = "PCT", defaultValue = "80", description = "Overload warning, per cent of rated capacity (default: ${DEFAULT-VALUE}).")
   double warnPct;
 
-  @Option(names = "--overload-pct", defaultValue = "100", description = "Overload stop, per cent of rated capacity (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--overload-pct", paramLabel = "PCT", defaultValue = "100", description = "Overload stop, per cent of rated capacity (default: ${DEFAULT-VALUE}).")
   double overloadPct;
 
-  @Option(names = "--max-seconds", defaultValue = "0", description = "Longest run (0 = no limit).")
+  @Option(names = "--max-duration-s", paramLabel = "S", defaultValue = "0", description = "Longest run (default: ${DEFAULT-VALUE}, no limit).")
   double maxSeconds;
 
   @Option(names = "--travel-limit-mm", paramLabel = "MM", description = "Crush test: end the run at this crosshead travel from the start (default: no travel limit).")
@@ -139,16 +139,16 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--manual-start", description = "Start recording at once instead of waiting for load.")
   boolean manualStart;
 
-  @Option(names = "--zero-samples", description = "Samples averaged for the zero (default: half a second).")
+  @Option(names = "--zero-samples", paramLabel = "N", description = "Samples averaged for the zero (default: half a second).")
   Integer zeroSamples;
 
-  @Option(names = "--zero-drift-N", description = "Warn before the run when the zero moved more than this since the last tare (default: 0.1 %% of rated capacity).")
+  @Option(names = "--zero-drift-n", paramLabel = "N", description = "Warn before the run when the zero moved more than this since the last tare (default: 0.1 %% of rated capacity).")
   Double zeroDriftLimit;
 
   @Option(names = "--second-archive", paramLabel = "DIR", description = "Where the run goes when the archive's disk is full (best on another disk); without it a run waits in memory for space.")
   Path secondArchive;
 
-  @Option(names = "--json", description = "End with the result as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write the stored run and its figures as one JSON document on standard output (schema loadstone-record); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -229,7 +229,7 @@ public final class RecordCommand implements Callable<Integer> {
                     + "peak", dropPct)));
         rec.arm(run.decideFrom());
       }
-      boolean tty = System.console() != null && !json;
+      boolean tty = Terminal.statusLines();
       java.util.Optional<Recorder.Result> result = java.util.Optional.empty();
       while (result.isEmpty() && rec.failure().isEmpty() && !rec.ended()) {
         result = rec.await(200, TimeUnit.MILLISECONDS);
@@ -266,7 +266,7 @@ public final class RecordCommand implements Callable<Integer> {
             + " before load came on)").orElse("stopped before any load: no run recorded"));
         return gone.isPresent() ? LoadstoneCommand.EXIT_DEVICE_LOST : 0;
       }
-      RecordSummary.print(result.get(), json, archive.archive, analysis, out);
+      RecordSummary.print(result.get(), json, archive.archive, analysis, out, err);
       FinishCause cause = result.get().cause();
       if (cause == FinishCause.DEVICE_LOST || cause == FinishCause.DEVICE_RESET) {
         say(err, (cause == FinishCause.DEVICE_LOST ? reader.lostReason() : reader.resetReason())
@@ -299,7 +299,7 @@ public final class RecordCommand implements Callable<Integer> {
   private Map<String, String> simFields() {
     Map<String, String> m = new LinkedHashMap<>();
     if (device.simulated()) {
-      m.put("sim_scenario", device.scenario);
+      m.put("sim_scenario", device.scenario());
       m.put("sim_seed", Long.toString(device.seed));
     }
     return m;

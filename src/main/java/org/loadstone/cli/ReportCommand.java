@@ -5,6 +5,7 @@ import java.util.concurrent.Callable;
 import org.loadstone.analysis.stats.GroupComparison;
 import org.loadstone.study.ArchiveRuns;
 import org.loadstone.study.GroupStudy;
+import org.loadstone.study.LeftOut;
 import org.loadstone.study.Selection;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.cli.RunResolver.ResolvedRun;
@@ -43,6 +44,9 @@ public final class ReportCommand implements Callable<Integer> {
   @Option(names = "--png-size", defaultValue = "1200x800", paramLabel = "WxH", description = "PNG size in pixels (default: ${DEFAULT-VALUE}).")
   String pngSize;
 
+  @Option(names = "--json", description = "Write what was written as one JSON document on standard output (schema loadstone-report); the text goes to standard error.")
+  boolean json;
+
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   private static int[] size(String text) {
@@ -65,12 +69,17 @@ public final class ReportCommand implements Callable<Integer> {
       throw new LoadstoneException("give --out FILE.pdf, --png FILE.png, or both");
     }
     int[] size = size(pngSize);
+    java.io.PrintWriter h = JsonDocument.human(spec, json);
+    java.util.Map<String, Object> doc = new java.util.LinkedHashMap<>();
     if (run != null) {
       ResolvedRun r = CliWiring.resolve(run, archive.folder());
       RunMetrics m = RunMetrics.of(r.metadata(), r.data());
+      doc.put("run_id", r.metadata().runId());
+      doc.put("groups", java.util.List.of());
+      doc.put("left_out", java.util.List.of());
       if (png != null) {
         PngExport.write(Charts.run(m), png, size[0], size[1]);
-        spec.commandLine().getOut().println("chart written to " + png);
+        h.println("chart written to " + png);
       }
       if (out != null) {
         PdfReport.writeRun(m, r.source(), out);
@@ -90,26 +99,34 @@ public final class ReportCommand implements Callable<Integer> {
             e.settings().toArray(new org.loadstone.units.Setting[0]));
       }
       String title = "Comparison of " + String.join(", ", sel.groups().keySet());
+      doc.put("run_id", null);
+      doc.put("groups", java.util.List.copyOf(sel.groups().keySet()));
+      doc.put("left_out", sel.leftOut().stream().map(LeftOut::toJsonView).toList());
       if (png != null) {
         PngExport.write(Charts.overlay(title, sel.groups()), png, size[0], size[1]);
-        spec.commandLine().getOut().println("chart written to " + png);
+        h.println("chart written to " + png);
       }
       if (out != null) {
         PdfReport.writeGroups(title, study, out);
       }
       for (org.loadstone.study.LeftOut l : sel.leftOut()) {
-        spec.commandLine().getOut().println("left out: " + l.line());
+        h.println("left out: " + l.line());
       }
       if (!sel.leftOut().isEmpty()) {
-        spec.commandLine().getOut().println(GroupStudy.leftOutSummary(sel.leftOut())
+        h.println(GroupStudy.leftOutSummary(sel.leftOut())
             + (out != null ? ", listed in the report" : "")
             + SelectionOptions.includeHint(sel.leftOut()));
       }
     }
     if (out != null) {
-      spec.commandLine().getOut().println("report written to " + out);
+      h.println("report written to " + out);
     }
-    spec.commandLine().getOut().flush();
+    h.flush();
+    if (json) {
+      doc.put("pdf_file", JsonViews.path(out));
+      doc.put("png_file", JsonViews.path(png));
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.REPORT, doc);
+    }
     return 0;
   }
 }

@@ -34,7 +34,7 @@ public final class RetireCommand implements Callable<Integer> {
   @Option(names = "--by", paramLabel = "NAME", defaultValue = "", description = "Who retires it.")
   String by;
 
-  @Option(names = "--json", description = "Write the run's record as one JSON object.")
+  @Option(names = "--json", description = "Write the run's record as one JSON document on standard output (schema loadstone-retire); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;

@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.time.Instant;
 import java.time.LocalDate;
@@ -32,58 +31,41 @@ public final class RunsCommand implements Callable<Integer> {
   @Option(names = "--to", paramLabel = "DATE", description = "Started before the end of this date (UTC).")
   String to;
 
-  @Option(names = "--specimen", description = "Specimen id contains this text.")
+  @Option(names = "--specimen", paramLabel = "ID", description = "Specimen id contains this text.")
   String specimen;
 
-  @Option(names = "--group", description = "Exactly this group.")
+  @Option(names = "--group", paramLabel = "NAME", description = "Exactly this group.")
   String group;
 
-  @Option(names = "--tag", description = "Has this tag.")
+  @Option(names = "--tag", paramLabel = "TAG", description = "Has this tag.")
   String tag;
 
-  @Option(names = "--cause", description = "Finished for this cause: break, overload, manual, time-limit, travel-limit, low-force, device-lost, device-reset, disk-full, recovered, imported.")
+  @Option(names = "--cause", paramLabel = "CAUSE", description = "Finished for this cause: break, overload, manual, time-limit, travel-limit, low-force, device-lost, device-reset, disk-full, recovered, imported.")
   String cause;
 
-  @Option(names = "--json", description = "One JSON object per run, then a summary object on the last line.")
+  @Option(names = "--json", description = "Write the list as one JSON document on standard output (schema loadstone-runs); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   @Override
   public Integer call() throws Exception {
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     PrintWriter err = spec.commandLine().getErr();
     ArchiveIndex idx = ArchiveIndex.load(archive.folder());
     idx.notes().forEach(n -> err.println("note: " + n)); // the index rebuilt, busy or unusable
     ArchiveIndex.Query q = new ArchiveIndex.Query(day(from, "--from", 0), day(to, "--to", 1),
         specimen, group, tag, cause == null ? null : FinishCause.parse(cause));
     List<ArchiveIndex.Entry> found = idx.search(q);
-    ObjectMapper om = new ObjectMapper();
-    if (!json) {
-      out.printf("%-40s %-14s %-10s %-12s %-20s %s%n", "run", "specimen", "group", "cause",
-          "started (UTC)", "amendments");
-    }
-    List<String> ids = new ArrayList<>();
+    out.printf("%-40s %-14s %-10s %-12s %-20s %s%n", "run", "specimen", "group", "cause",
+        "started (UTC)", "amendments");
+    List<Map<String, Object>> rows = new ArrayList<>();
     for (ArchiveIndex.Entry e : found) {
       RunMetadata m = e.metadata();
-      ids.add(m.runId());
-      if (json) {
-        Map<String, Object> row = new LinkedHashMap<>();
-        row.put("run_id", m.runId());
-        row.put("specimen", m.specimen());
-        row.put("group", m.group());
-        row.put("tags", m.tags());
-        row.put("cause", m.cause().wireName());
-        row.put("started_at", m.startedAt().toString());
-        row.put("csv", e.csv().toString());
-        row.put("amendments", m.amendments().log().size());
-        row.put("retired", m.amendments().retired());
-        out.println(om.writeValueAsString(row));
-      } else {
-        out.printf(Locale.ROOT, "%-40s %-14s %-10s %-12s %-20s %s%n", m.runId(), m.specimen(),
-            m.group(), m.cause().wireName(), m.startedAt().toString().substring(0, 19),
-            m.amendments().summary());
-      }
+      rows.add(JsonViews.run(e));
+      out.printf(Locale.ROOT, "%-40s %-14s %-10s %-12s %-20s %s%n", m.runId(), m.specimen(),
+          m.group(), m.cause().wireName(), m.startedAt().toString().substring(0, 19),
+          m.amendments().summary());
     }
     List<String> problems = new ArrayList<>(idx.problems());
     for (ArchiveIndex.Entry e : found) {
@@ -96,14 +78,35 @@ public final class RunsCommand implements Callable<Integer> {
     for (String p : problems) {
       err.println("warning: " + p);
     }
+    out.println(found.size() + " of " + idx.entries().size() + " runs");
     if (json) {
-      out.println(om.writeValueAsString(Map.of("runs", found.size(), "unreadable",
-          problems.size())));
-    } else {
-      out.println(found.size() + " of " + idx.entries().size() + " runs");
+      Map<String, Object> j = new LinkedHashMap<>();
+      j.put("archive", idx.folder().toString());
+      j.put("run_count", found.size());
+      j.put("archive_run_count", idx.entries().size());
+      j.put("runs", rows);
+      List<Map<String, Object>> unreadable = new ArrayList<>();
+      for (ArchiveIndex.Unreadable u : idx.unreadable()) {
+        unreadable.add(unreadable(u.json(), u.message()));
+      }
+      for (ArchiveIndex.Entry e : found) {
+        if (!java.nio.file.Files.isRegularFile(e.csv())) {
+          unreadable.add(unreadable(e.json(), "its samples file " + e.csv().getFileName()
+              + " is missing"));
+        }
+      }
+      j.put("unreadable", unreadable);
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.RUNS, j);
     }
     out.flush();
     return 0;
+  }
+
+  private static Map<String, Object> unreadable(java.nio.file.Path sidecar, String problem) {
+    Map<String, Object> m = new LinkedHashMap<>();
+    m.put("sidecar_file", sidecar.toString());
+    m.put("problem", problem);
+    return m;
   }
 
   static Instant day(String text, String option, int plusDays) {

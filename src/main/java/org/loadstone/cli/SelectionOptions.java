@@ -10,15 +10,16 @@ import picocli.CommandLine.Option;
 
 /** Which runs a group study counts: {@code --group} and {@code --include}, shared by commands. */
 public final class SelectionOptions {
-  @Option(names = {"--group", "--groups"}, split = ",", paramLabel = "G",
-      description = {"Groups to compare (comma separated or repeated); one group is compared",
-          "with each of the others. Default: every group."})
+  @Option(names = "--group", split = ",", paramLabel = "G",
+      description = "Groups to compare (comma separated or repeated); one group is compared "
+          + "with each of the others. Default: every group.")
   List<String> groups;
 
   @Option(names = "--include", split = ",", paramLabel = "KIND",
-      description = {"Also count runs the default leaves out: uncalibrated, imported, manual,",
-          "time-limit, crush-limit, overload, device-lost, device-reset, disk-full, recovered, or all.",
-          "By default only runs that ended in a break with force from a calibration count."})
+      description = "Also count runs the default leaves out: uncalibrated, imported, manual, "
+          + "time-limit, crush-limit, overload, device-lost, device-reset, disk-full, recovered, "
+          + "or all. By default only runs that ended in a break with force from a calibration "
+          + "count.")
   List<String> include;
 
   /** @return the selection settings these options give */

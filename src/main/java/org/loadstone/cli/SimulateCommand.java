@@ -27,22 +27,22 @@ import picocli.CommandLine.Option;
       "Write the simulated frame's wire bytes to a file, stdout or a serial device.",
       "",
       "The bytes are exactly what the firmware sends. A device path can be one end of a",
-      "pseudo-terminal pair. Output is paced in real time at --rate.",
+      "pseudo-terminal pair. Output is paced in real time at --rate-hz.",
       "",
       "Scenarios: brittle, four-point, ductile, crush, over-range, rigid-block, panel-foam, panel-balsa,",
       "panel-board, dead-weight."
     })
 public final class SimulateCommand implements Callable<Integer> {
-  @Option(names = "--scenario", defaultValue = "brittle", description = "What is on the simulated frame (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--scenario", paramLabel = "NAME", defaultValue = "brittle", description = "What is on the simulated frame (default: ${DEFAULT-VALUE}).")
   String scenario;
 
-  @Option(names = "--rate", defaultValue = "80", description = "Samples per second (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--rate-hz", paramLabel = "HZ", defaultValue = "80", description = "Samples per second (default: ${DEFAULT-VALUE}).")
   double rateHz;
 
-  @Option(names = "--seconds", defaultValue = "10", description = "Simulated duration (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--duration-s", paramLabel = "S", defaultValue = "10", description = "Simulated duration (default: ${DEFAULT-VALUE}).")
   double seconds;
 
-  @Option(names = "--seed", defaultValue = "1", description = "Random seed; the same seed gives the same bytes (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "Random seed; the same seed gives the same bytes (default: ${DEFAULT-VALUE}).")
   long seed;
 
   @Option(names = "--binary", description = "Use the binary encoding instead of text.")
@@ -57,6 +57,9 @@ public final class SimulateCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE|-|DEVICE", description = "Where the bytes go: a new file, - for standard output, or a device path.")
   String out;
 
+  @Option(names = "--json", description = "Write what was written as one JSON document on standard output (schema loadstone-simulate); not with --out -.")
+  boolean json;
+
   @CommandLine.Mixin SimImperfectionOptions imperfections;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
@@ -64,6 +67,10 @@ public final class SimulateCommand implements Callable<Integer> {
   @Override
   public Integer call() throws IOException {
     Scenario.parse(scenario);
+    if (json && out.equals("-")) {
+      throw new LoadstoneException("--json and --out - both want standard output: write the "
+          + "bytes to a file or device, or drop --json");
+    }
     SimSetup setup = new SimSetup(scenario, seed, rateHz, hand, 1, Double.NaN,
         imperfections.imperfections());
     SampleSource source = new FrameSampleSource(setup.buildFrame());
@@ -90,6 +97,16 @@ public final class SimulateCommand implements Callable<Integer> {
     err.printf(Locale.ROOT, "simulate: %d samples of %s in %.2f s (%.0f samples/s)%n", total,
         scenario, elapsed, total / Math.max(elapsed, 1e-9));
     err.flush();
+    if (json) {
+      java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
+      m.put("scenario", scenario);
+      m.put("seed", seed);
+      m.put("sample_rate_hz", rateHz);
+      m.put("sample_count", total);
+      m.put("encoding", binary ? "binary" : "text");
+      m.put("out_file", out);
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.SIMULATE, m);
+    }
     return 0;
   }
 

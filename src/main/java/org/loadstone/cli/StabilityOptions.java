@@ -15,7 +15,7 @@ final class StabilityOptions {
           + "(default: ${DEFAULT-VALUE}).")
   double maxSd_counts;
 
-  @Option(names = "--max-drift", paramLabel = "COUNTS_PER_S", defaultValue = "50",
+  @Option(names = "--max-drift-counts-per-s", paramLabel = "COUNTS_PER_S", defaultValue = "50",
       description = "Largest drift in counts per second accepted as settled "
           + "(default: ${DEFAULT-VALUE}).")
   double maxDrift_counts_per_s;
@@ -36,7 +36,7 @@ final class StabilityOptions {
           timeout_s, rateHz);
     } catch (LoadstoneException e) {
       throw new LoadstoneException("stability options out of range: --window-s must be > 0,"
-          + " --timeout-s at least --window-s, --max-sd-counts and --max-drift 0 or more");
+          + " --timeout-s at least --window-s, --max-sd-counts and --max-drift-counts-per-s 0 or more");
     }
   }
 }

@@ -7,12 +7,12 @@ import picocli.CommandLine.Option;
 
 /** How the stiffness is taken, shared by {@code analyze} and {@code record}. */
 final class StiffnessOptions {
-  @Option(names = "--stiffness-from-N", paramLabel = "A",
-      description = "Fit the stiffness over every sample between this force and --stiffness-to-N "
+  @Option(names = "--stiffness-from-n", paramLabel = "A",
+      description = "Fit the stiffness over every sample between this force and --stiffness-to-n "
           + "instead of searching.")
   Double fromN;
 
-  @Option(names = "--stiffness-to-N", paramLabel = "B", description = "Upper force of the band.")
+  @Option(names = "--stiffness-to-n", paramLabel = "B", description = "Upper force of the band.")
   Double toN;
 
   @Option(names = "--stiffness-band-pct", paramLabel = "LO,HI", split = ",",
@@ -39,7 +39,7 @@ final class StiffnessOptions {
    */
   AnalysisSettings apply(AnalysisSettings settings) {
     if ((fromN == null) != (toN == null)) {
-      throw new LoadstoneException("--stiffness-from-N and --stiffness-to-N go together; give "
+      throw new LoadstoneException("--stiffness-from-n and --stiffness-to-n go together; give "
           + "both or neither.");
     }
     if ((fromMm == null) != (toMm == null)) {
@@ -52,7 +52,7 @@ final class StiffnessOptions {
     }
     int bands = (fromN != null ? 1 : 0) + (fromMm != null ? 1 : 0) + (bandPct != null ? 1 : 0);
     if (bands > 1) {
-      throw new LoadstoneException("Give one stiffness band: forces (--stiffness-from-N/-to-N), "
+      throw new LoadstoneException("Give one stiffness band: forces (--stiffness-from-n/-to-N), "
           + "percentages of the peak (--stiffness-band-pct) or displacements "
           + "(--stiffness-from-mm/-to-mm).");
     }

@@ -1,6 +1,5 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
@@ -32,7 +31,7 @@ import picocli.CommandLine.Parameters;
     name = "track",
     description = {
       "Track a marked point through a clip and store its displacement as a video table.",
-      "Reads MP4/MOV (H.264, H.265), AVI (MJPEG) or a folder of numbered images (with --fps). "
+      "Reads MP4/MOV (H.264, H.265), AVI (MJPEG) or a folder of numbered images (with --frame-rate-hz). "
           + "Progress goes to stderr. The run's own files are never changed."
     })
 public final class TrackCommand implements Callable<Integer> {
@@ -62,8 +61,8 @@ public final class TrackCommand implements Callable<Integer> {
   @Option(names = "--out", paramLabel = "FILE", description = "Write the table here (NAME.csv, with NAME.json beside it) instead of beside the run.")
   Path out;
 
-  @Option(names = "--fps", paramLabel = "RATE", description = "Capture rate, frames/s: required for an image folder; for a slow-motion clip that does not state it.")
-  Double fps;
+  @Option(names = "--frame-rate-hz", paramLabel = "RATE", description = "Capture rate, frames/s: required for an image folder; for a slow-motion clip that does not state it.")
+  Double frameRate;
 
   @Option(names = "--template-px", defaultValue = "25", description = "Side of the tracked template, pixels (default: ${DEFAULT-VALUE}).")
   int templatePx;
@@ -71,14 +70,14 @@ public final class TrackCommand implements Callable<Integer> {
   @Option(names = "--search-px", defaultValue = "16", description = "Search reach around the predicted place, pixels (default: ${DEFAULT-VALUE}).")
   int searchPx;
 
-  @Option(names = "--json", description = "End with a summary as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write the stored table and its summary as one JSON document on standard output (schema loadstone-track); the text goes to standard error.")
   boolean json;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   @Override
   public Integer call() throws Exception {
-    PrintWriter outText = spec.commandLine().getOut();
+    PrintWriter outText = JsonDocument.human(spec, json);
     PrintWriter err = spec.commandLine().getErr();
     ImageScale sc = ImageScale.parse(scale);
     LoadingDirection dir = LoadingDirection.parse(direction);
@@ -101,7 +100,7 @@ public final class TrackCommand implements Callable<Integer> {
     ResolvedRun rr = run == null ? null : CliWiring.resolve(run, archive.folder());
     TrackSettings settings = TrackSettings.DEFAULTS.withWindow(templatePx, searchPx);
     Track track;
-    try (ClipSource clip = Clips.open(video, fps)) {
+    try (ClipSource clip = Clips.open(video, frameRate)) {
       err.printf(Locale.ROOT, "clip %s: %s in %s, %dx%d, %.3g frames/s (%s)%n", video,
           clip.info().codec(), clip.info().container(), clip.info().width(),
           clip.info().height(), clip.info().nominalRate_fps(), clip.info().timeSource());
@@ -148,16 +147,16 @@ public final class TrackCommand implements Callable<Integer> {
     outText.println("table: " + target);
     if (json) {
       Map<String, Object> j = new LinkedHashMap<>();
-      j.put("table", target.toString());
-      j.put("frames", table.rows());
-      j.put("lost_frames", table.lostCount());
+      j.put("run_id", rr == null ? null : rr.metadata().runId());
+      j.put("table_file", target.toString());
+      j.put("sidecar_file", VideoTableFiles.sidecarOf(target).toString());
+      j.put("frame_count", table.rows());
+      j.put("lost_frame_count", table.lostCount());
       j.put("scale_mm_per_px", sc.mm_per_px());
       j.put("scale_relative_uncertainty", sc.relativeUncertainty());
-      if (table.sync() != null) {
-        j.put("sync_method", table.sync().method());
-        j.put("offset_s", table.sync().offset_s());
-      }
-      outText.println(new ObjectMapper().writeValueAsString(j));
+      j.put("sync_method", table.sync() == null ? null : table.sync().method());
+      j.put("sync_offset_s", table.sync() == null ? null : table.sync().offset_s());
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.TRACK, j);
     }
     outText.flush();
     return 0;

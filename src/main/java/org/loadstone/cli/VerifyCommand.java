@@ -1,6 +1,6 @@
 package org.loadstone.cli;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.type.TypeReference;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.InputStream;
 import java.io.PrintWriter;
@@ -33,8 +33,15 @@ import picocli.CommandLine.Option;
           + "weight is placed, and the force the calibration indicates is compared with the "
           + "weight's force. The result is appended to ID.checks.jsonl beside the calibration "
           + "file. On --port sim the program puts the weight on the simulated cell (scenario "
-          + "dead-weight unless --scenario is given).",
-      "Exit codes: 0 pass, 1 fail or stopped, 2 bad input, 3 device lost."
+          + "dead-weight unless --scenario is given)."
+    },
+    exitCodeListHeading = "%nExit codes:%n",
+    exitCodeList = {
+      "0:the check passed",
+      "1:the check failed (logged), or stopped by the operator (nothing logged)",
+      "2:bad usage or input: the message names the fault and the fix",
+      "3:the device was lost: nothing logged",
+      "70:internal error (a bug; please report it)"
     })
 public final class VerifyCommand implements Callable<Integer>, CommandInput.Reader {
   /** Exit code when the check fails or the operator stops. */
@@ -55,7 +62,7 @@ public final class VerifyCommand implements Callable<Integer>, CommandInput.Read
       defaultValue = "" + CheckWeights.DEFAULT_TOLERANCE_PCT)
   double tolerance_pct;
 
-  @Option(names = "--json", description = "End with the result as one JSON object on the last line.")
+  @Option(names = "--json", description = "Write the check's result as one JSON document on standard output (schema loadstone-verify); prompts and text go to standard error.")
   boolean json;
 
   @Option(names = "--sim-placed-g", paramLabel = "G",
@@ -76,7 +83,7 @@ public final class VerifyCommand implements Callable<Integer>, CommandInput.Read
 
   @Override
   public Integer call() {
-    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter out = JsonDocument.human(spec, json);
     PrintWriter err = spec.commandLine().getErr();
     if (!(mass_g > 0) || !Double.isFinite(mass_g)) {
       throw new LoadstoneException("--mass-g " + mass_g + " is invalid: give the check weight's"
@@ -109,7 +116,7 @@ public final class VerifyCommand implements Callable<Integer>, CommandInput.Read
     Answers answers = new Answers(input, out);
     CapturedReading zero;
     CapturedReading loaded;
-    try (LiveDevice dev = LiveDevice.open(device, out)) {
+    try (LiveDevice dev = LiveDevice.open(device, err)) {
       out.println("Verifying calibration " + cal.id() + " of cell " + cal.cellId() + " on "
           + dev.identity());
       StabilityDetector.Settings settings = stability.settings(dev.rateHz());
@@ -144,20 +151,9 @@ public final class VerifyCommand implements Callable<Integer>, CommandInput.Read
     if (json) {
       Map<String, Object> m = new LinkedHashMap<>();
       m.put("mass_g", mass_g);
-      m.put("expected_N", r.expected_N());
-      m.put("indicated_N", r.indicated_N());
-      m.put("error_pct", r.error_pct());
-      m.put("tolerance_pct", r.tolerance_pct());
-      m.put("pass", r.pass());
-      m.put("rehearsal", r.rehearsal());
-      m.put("calibration_id", r.calibrationId());
-      m.put("calibration_sha256", r.calibrationSha256());
+      m.putAll(JSON.convertValue(r, new TypeReference<Map<String, Object>>() { }));
       m.put("log_file", CheckWeights.logFile(calFile).toString());
-      try {
-        out.println(JSON.writeValueAsString(m));
-      } catch (JsonProcessingException e) {
-        throw new IllegalStateException("result cannot be written as JSON", e);
-      }
+      JsonDocument.write(spec.commandLine().getOut(), JsonDocument.Kind.VERIFY, m);
     }
     out.flush();
     return r.pass() ? 0 : EXIT_FAILED;

@@ -229,7 +229,7 @@ public final class CsvImport {
     }
     double span = d.time_s()[d.size() - 1] - d.time_s()[0];
     double rate = (d.size() - 1) / span;
-    String version = CsvImport.class.getPackage().getImplementationVersion();
+    String version = org.loadstone.units.SoftwareVersion.get();
     return RunMetadata.builder()
         .runId("import-" + stem.replaceAll("[^A-Za-z0-9._-]", "_"))
         .startedAt(started)

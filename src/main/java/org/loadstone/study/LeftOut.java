@@ -40,6 +40,20 @@ public record LeftOut(String runId, String specimen, String group, List<Kind> ki
     return kinds.get(0);
   }
 
+  /**
+   * @return a JSON-friendly view: {@code run_id}, {@code specimen}, {@code group}, {@code kinds}
+   *     (the words, main one first) and {@code reason}
+   */
+  public java.util.Map<String, Object> toJsonView() {
+    java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
+    m.put("run_id", runId);
+    m.put("specimen", specimen);
+    m.put("group", group);
+    m.put("kinds", kinds.stream().map(Kind::word).toList());
+    m.put("reason", reason);
+    return m;
+  }
+
   /** @return the run id, specimen and reason in one line for lists */
   public String line() {
     return runId + (specimen.isEmpty() ? "" : " (" + specimen + ")") + ": " + reason;

@@ -100,8 +100,8 @@ public record StudyResult(Metric metric, Map<String, List<Value>> values,
    * groups} (name → {@code n, mean, sd, cv_pct, ci95_low, ci95_high}), {@code outliers} ({@code
    * run_id, specimen, group, value, grubbs_g, critical_g}), {@code advice} ({@code cv_pct,
    * target_difference_pct, specimens_per_group, current_n, resolvable_difference_pct, sentence},
-   * or null) and {@code left_out} ({@code run_id, specimen, group, kinds, reason}). Absent values
-   * are null.
+   * or null), {@code counted} (the runs counted: {@code run_id, specimen, group, value}) and {@code
+   * left_out} ({@link LeftOut#toJsonView}). Absent values are null.
    */
   public Map<String, Object> toJsonView() {
     Map<String, Object> j = new LinkedHashMap<>(comparison.toJsonView());
@@ -131,17 +131,17 @@ public record StudyResult(Metric metric, Map<String, List<Value>> values,
       m.put("sentence", a.sentence());
       return m;
     }).orElse(null));
-    List<Map<String, Object>> left = new ArrayList<>();
-    for (LeftOut l : leftOut) {
+    List<Map<String, Object>> counted = new ArrayList<>();
+    values.forEach((g, list) -> list.forEach(v -> {
       Map<String, Object> m = new LinkedHashMap<>();
-      m.put("run_id", l.runId());
-      m.put("specimen", l.specimen());
-      m.put("group", l.group());
-      m.put("kinds", l.kinds().stream().map(LeftOut.Kind::word).toList());
-      m.put("reason", l.reason());
-      left.add(m);
-    }
-    j.put("left_out", left);
+      m.put("run_id", v.runId());
+      m.put("specimen", v.specimen());
+      m.put("group", g);
+      m.put("value", v.value());
+      counted.add(m);
+    }));
+    j.put("counted", counted);
+    j.put("left_out", leftOut.stream().map(LeftOut::toJsonView).toList());
     return j;
   }
 }

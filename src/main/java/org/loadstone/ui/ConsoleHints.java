@@ -18,8 +18,8 @@ final class ConsoleHints {
       case CALIBRATION -> "Calibrate tab: make or use a calibration";
       case CHANGED_CALIBRATION -> null;
       case NOMINAL_SENSITIVITY -> "start the console with a nominal sensitivity (--counts-per-n)";
-      case RATED_CAPACITY -> "start the console with the cell's capacity (--capacity-N)";
-      case ZERO_DRIFT_LIMIT -> "start the console with another limit (--zero-drift-N)";
+      case RATED_CAPACITY -> "start the console with the cell's capacity (--capacity-n)";
+      case ZERO_DRIFT_LIMIT -> "start the console with another limit (--zero-drift-n)";
       case ZERO_SAMPLES -> "the console averages half a second of samples";
       case START_THRESHOLD, PRETRIGGER, BREAK_DROP, ARMING_LEVEL, DEBOUNCE, ABSOLUTE_STOP, TAIL,
           OVERLOAD_WARNING, OVERLOAD_STOP, TIME_LIMIT, TRAVEL_LIMIT, LOW_FORCE_LEVEL,

@@ -180,7 +180,7 @@ final class RunPanel {
       request = new RunSetup.Request(template,
           device.scale(), config.ratedCapacity_N(), RunSettings.builder(),
           config.zeroDriftLimit_N(), null, false,
-          String.valueOf(RunPanel.class.getPackage().getImplementationVersion()));
+          org.loadstone.units.SoftwareVersion.get());
       RunSetup.check(request, config.deviceLabel());
       store = new JournalRunStore(config.archive());
       store.checkWritable();

@@ -97,7 +97,7 @@ public final class VideoTableFiles {
     return found;
   }
 
-  static Path sidecarOf(Path csv) {
+  public static Path sidecarOf(Path csv) {
     String n = csv.getFileName().toString();
     if (!n.endsWith(".csv")) {
       throw new LoadstoneException("video table " + csv + " must be named NAME.csv (its "

@@ -92,7 +92,8 @@ class AmendCommandTest {
     assertThat(an.json().get("specific_peak_N_per_g").asDouble())
         .isCloseTo(PEAK_N / 41.2, within(1e-9));
     assertThat(an.json().get("peak_N").asDouble()).isEqualTo(PEAK_N);
-    assertThat(an.out()).contains("amended: mass_g 41.2 (was 49)");
+    assertThat(an.json().get("amended").get(0).asText()).isEqualTo("mass_g 41.2 (was 49)");
+    assertThat(an.err()).contains("amended: mass_g 41.2 (was 49)"); // the text, beside the JSON
 
     // compare: the foam group's mean per gram uses the corrected mass
     double[] corrected = FOAM_MASSES_G.clone();

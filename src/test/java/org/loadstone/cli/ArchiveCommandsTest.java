@@ -27,14 +27,13 @@ class ArchiveCommandsTest {
     Path src = Files.writeString(tmp.resolve("other-program.csv"), csv.toString());
     Path arc = tmp.resolve("archive");
     RecordCommandTest.Outcome imp = RecordCommandTest.run("import", src.toString(), "--map",
-        "time=t,force=Kraft,position=Weg", "--decimal-comma", "--specimen", "legacy-7",
+        "time=t,force=Kraft,position=Weg", "--decimal", ",", "--specimen", "legacy-7",
         "--group", "old", "--archive", arc.toString(), "--json");
     assertThat(imp.exit()).as(imp.err()).isZero();
-    assertThat(imp.json().get("rows").asInt()).isEqualTo(43);
+    assertThat(imp.json().get("sample_count").asInt()).isEqualTo(43);
     RecordCommandTest.Outcome list = RecordCommandTest.run("runs", "--archive", arc.toString(),
         "--cause", "imported", "--json");
-    String id = list.out().lines().findFirst().map(l -> l.replaceAll(".*\"run_id\":\"([^\"]+)\".*", "$1"))
-        .orElseThrow();
+    String id = list.json().get("runs").get(0).get("run_id").asText();
     assertThat(id).contains("legacy-7");
     RecordCommandTest.Outcome an = RecordCommandTest.run("analyze", id.substring(0, 20),
         "--archive", arc.toString(), "--json");

@@ -77,13 +77,13 @@ class BadCommandLinesTest {
         c("import cell 1e400", d -> a("import", d.resolve("import-1e400.csv"), "--map",
             "time=time,force=force", "--specimen", "x", "--archive", d.resolve("a1")),
             "'1e400'", "line 3"),
-        c("points counts 1e308", d -> a("calibrate", "--from", d.resolve("points-1e308.csv"),
-            "--cell", "c1", "--save", d.resolve("cal1")), "'1e308'", "line 4", "counts"),
+        c("points counts 1e308", d -> a("calibrate", "--points", d.resolve("points-1e308.csv"),
+            "--cell", "c1", "--out", d.resolve("cal1")), "'1e308'", "line 4", "counts"),
         c("position table with an unterminated quote", d -> a("analyze", "--archive", arc, RUN,
             "--position-table", d.resolve("table-quote.csv")), "table-quote.csv", "quote"),
-        c("--baud 0", d -> a("monitor", "--port", "sim", "--baud", "0", "--seconds", "1"),
+        c("--baud 0", d -> a("monitor", "--port", "sim", "--baud", "0", "--duration-s", "1"),
             "--baud", "300"),
-        c("--baud negative", d -> a("monitor", "--port", "sim", "--baud", "-5", "--seconds",
+        c("--baud negative", d -> a("monitor", "--port", "sim", "--baud", "-5", "--duration-s",
             "1"), "--baud", "-5"),
         c("group name with a line break", d -> a("report", "--archive", arc, "--group",
             "fo\nam", "--out", d.resolve("g.pdf")), "'fo\\nam'", "the groups there are"),
@@ -103,16 +103,16 @@ class BadCommandLinesTest {
             "--archive", d.resolve("a4"), "--specimen", "s"), "--zero-samples"),
         c("--zero-samples -5", d -> a("record", "--port", "sim", "--zero-samples", "-5",
             "--archive", d.resolve("a4"), "--specimen", "s"), "--zero-samples"),
-        c("simulate --seconds Infinity", d -> a("simulate", "--seconds", "Infinity",
-            "--unpaced", "--out", d.resolve("s1.txt")), "--seconds", "finite"),
-        c("simulate --seconds 1e400", d -> a("simulate", "--seconds", "1e400", "--unpaced",
-            "--out", d.resolve("s2.txt")), "--seconds", "finite"),
-        c("simulate --seconds 0", d -> a("simulate", "--seconds", "0", "--unpaced", "--out",
-            d.resolve("s3.txt")), "--seconds", "above 0"),
+        c("simulate --duration-s Infinity", d -> a("simulate", "--duration-s", "Infinity",
+            "--unpaced", "--out", d.resolve("s1.txt")), "--duration-s", "finite"),
+        c("simulate --duration-s 1e400", d -> a("simulate", "--duration-s", "1e400", "--unpaced",
+            "--out", d.resolve("s2.txt")), "--duration-s", "finite"),
+        c("simulate --duration-s 0", d -> a("simulate", "--duration-s", "0", "--unpaced", "--out",
+            d.resolve("s3.txt")), "--duration-s", "above 0"),
         c("an ordinary file as --port", d -> a("monitor", "--port",
-            d.resolve("a-regular-file").toAbsolutePath(), "--seconds", "1"),
+            d.resolve("a-regular-file").toAbsolutePath(), "--duration-s", "1"),
             "not a serial port", "--port"),
-        c("a folder as --port", d -> a("monitor", "--port", d.toAbsolutePath(), "--seconds",
+        c("a folder as --port", d -> a("monitor", "--port", d.toAbsolutePath(), "--duration-s",
             "1"), "not a serial port"),
         c("a decimal comma in an option", d -> a("compare", "--archive", arc, "--target-pct",
             "12,5"), "--target-pct", "not a number", "a point, not a comma"),
@@ -223,7 +223,7 @@ class BadCommandLinesTest {
         "time=time,force=force", "--specimen", "pan\nel", "--group", "fo\nam", "--archive",
         a.toString(), "--json");
     assertThat(imp.exit()).as(imp.toString()).isZero();
-    String id = Path.of(imp.lastJson().get("stored").asText()).getFileName().toString()
+    String id = Path.of(imp.lastJson().get("csv_file").asText()).getFileName().toString()
         .replaceFirst("\\.csv$", "");
     Path pdf = dir.resolve("names.pdf");
     CliRun r = CliRun.run("", "report", "--archive", a.toString(), id, "--out", pdf.toString());
@@ -254,7 +254,7 @@ class BadCommandLinesTest {
     List<String[]> lines = List.of(
         a("analyze", "--archive", bomArc, RUN, "--frame", frame),
         a("analyze", runCsv),
-        a("calibrate", "--from", points, "--cell", "c1", "--save", dir.resolve("bom-cal-out")),
+        a("calibrate", "--points", points, "--cell", "c1", "--out", dir.resolve("bom-cal-out")),
         a("analyze", "--archive", arc, RUN, "--cal", cal),
         a("analyze", "--archive", arc, RUN, "--position-table", table, "--table-offset-s",
             "0"),

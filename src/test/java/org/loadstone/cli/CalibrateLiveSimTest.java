@@ -38,9 +38,9 @@ class CalibrateLiveSimTest {
     String answers = "\n" + "ten kilos\n\n" + "\n" + "25 kg + 4.5 kg\n" + "\n\n" + "\n\n\n\n\n";
     calibration = CliRun.run(answers, "calibrate", "--port", "sim", "--cell", "sim-cell",
         "--loads", "10 kg, 20 kg, 30 kg, 40 kg, 50 kg", "--descending", "--sim-speed", "40",
-        "--g", Double.toString(TRUTH.gravity_m_per_s2()), "--air-density", "0",
+        "--gravity-m-per-s2", Double.toString(TRUTH.gravity_m_per_s2()), "--air-density-kg-per-m3", "0",
         "--full-scale-n", Double.toString(TRUTH.loadCell().capacity_N()),
-        "--save", dir.toString(), "--id", "sim-cal", "--operator", "tester", "--json");
+        "--out", dir.toString(), "--id", "sim-cal", "--operator", "tester", "--json");
     calFile = dir.resolve("sim-cal.json");
   }
 
@@ -80,11 +80,14 @@ class CalibrateLiveSimTest {
 
   @Test
   void promptsShowLiveLinesAndAskAgainAfterABadAnswer() {
-    String out = calibration.out();
+    // with --json the prompts go to standard error, and the live status line (rewritten with
+    // a carriage return) only to a terminal, which a captured standard error is not
+    String out = calibration.err();
     assertThat(out).contains("place 20 kg (sum of weights allowed, e.g. '1 kg + 500 g'), then"
         + " press Enter", "remove all weights (zero point)", "cannot read 'ten kilos'",
-        "29.5 kg now on the simulated cell", "[STABLE  ]", "\r  counts");
+        "29.5 kg now on the simulated cell", "captured 20 kg").doesNotContain("\r");
     assertThat(out.split("\\[2/11\\]", -1)).hasSize(3);
+    assertThat(calibration.out().strip()).doesNotContain("\n").startsWith("{");
   }
 
   @Test
@@ -98,7 +101,7 @@ class CalibrateLiveSimTest {
         StandardCharsets.UTF_8);
     assertThat(csv).anyMatch(l -> l.startsWith("29500.0,") && l.contains(",up,1,"));
     assertThat(csv).noneMatch(l -> l.startsWith("30000.0,") && l.contains(",up,"));
-    assertThat(calibration.lastJson().get("content_sha256").asText())
+    assertThat(calibration.lastJson().get("calibration_sha256").asText())
         .isEqualTo(st.document().contentSha256());
   }
 
@@ -116,7 +119,7 @@ class CalibrateLiveSimTest {
     assertThat(j.get("pass").asBoolean()).isTrue();
     assertThat(j.get("mass_g").asDouble()).isEqualTo(20000);
     assertThat(j.get("tolerance_pct").asDouble()).isEqualTo(1.0);
-    assertThat(r.out()).contains("tare", "place the check weight of 20 kg", "PASS");
+    assertThat(r.err()).contains("tare", "place the check weight of 20 kg", "PASS");
     List<CheckWeightResult> log = CheckWeights.readLog(calFile);
     assertThat(log.get(log.size() - 1).pass()).isTrue();
   }
@@ -131,7 +134,7 @@ class CalibrateLiveSimTest {
     assertThat(j.get("pass").asBoolean()).isFalse();
     // 20 kg read against a claimed 21 kg: (20/21 − 1) × 100 = −4.76 %
     assertThat(j.get("error_pct").asDouble()).isCloseTo((20.0 / 21 - 1) * 100, within(0.1));
-    assertThat(r.out()).contains("FAIL");
+    assertThat(r.err()).contains("FAIL");
     List<CheckWeightResult> log = CheckWeights.readLog(calFile);
     assertThat(log).hasSize(before + 1);
     assertThat(log.get(before).pass()).isFalse();
@@ -154,7 +157,7 @@ class CalibrateLiveSimTest {
     // SD limit, so every step times out; the operator waits once more, then quits
     CliRun r = CliRun.run("\nr\nq\n", "calibrate", "--port", "sim", "--cell", "c1", "--loads",
         "1 kg, 2 kg", "--max-sd-counts", "1", "--timeout-s", "2", "--sim-speed", "40",
-        "--save", dir.resolve("never").toString());
+        "--out", dir.resolve("never").toString());
     assertThat(r.exit()).as(r.toString()).isEqualTo(CalibrateCommand.EXIT_STOPPED);
     String msg = "series 1, up: remove all weights (zero point): reading did not settle within"
         + " 2.0 s: sd=";
@@ -170,11 +173,11 @@ class CalibrateLiveSimTest {
     // after 1.3 s (time-out) but settled in the second wait; the zero step settles at once
     Path save = dir.resolve("skip");
     CliRun r = CliRun.run("\n" + "\nr\n" + "\ns\n" + "\nr\n", "calibrate", "--port", "sim",
-        "--cell", "c1", "--loads", "1 kg, 2 kg, 5 kg", "--window-s", "0.5", "--max-drift",
-        "200", "--timeout-s", "1.3", "--sim-speed", "40", "--save", save.toString(), "--id",
+        "--cell", "c1", "--loads", "1 kg, 2 kg, 5 kg", "--window-s", "0.5", "--max-drift-counts-per-s",
+        "200", "--timeout-s", "1.3", "--sim-speed", "40", "--out", save.toString(), "--id",
         "k", "--operator", "tester", "--json");
     assertThat(r.exit()).as(r.toString()).isZero();
-    assertThat(r.out()).contains("series 1, up: weights totalling 1.0 kg on the cell: reading"
+    assertThat(r.err()).contains("series 1, up: weights totalling 1.0 kg on the cell: reading"
         + " did not settle within 1.3 s", "r = wait again, s = skip this step, q = quit",
         "step skipped", "captured 5 kg");
     var doc = org.loadstone.calibration.CalibrationFiles.readCalibration(save.resolve("k.json"));
@@ -187,7 +190,7 @@ class CalibrateLiveSimTest {
     // the walk's rules are CalibrationSession's: 2 kg typed at the 1 kg step, then the planned
     // 2 kg is refused as a repeat with the session's own words, before any weight is placed
     CliRun r = CliRun.run("\n" + "2 kg\n" + "\n" + "q\n", "calibrate", "--port", "sim",
-        "--cell", "c1", "--loads", "1 kg, 2 kg, 5 kg", "--window-s", "0.5", "--max-drift", "200",
+        "--cell", "c1", "--loads", "1 kg, 2 kg, 5 kg", "--window-s", "0.5", "--max-drift-counts-per-s", "200",
         "--sim-speed", "40");
     assertThat(r.exit()).as(r.toString()).isEqualTo(CalibrateCommand.EXIT_STOPPED);
     assertThat(r.out()).contains("captured 2 kg", "series 1, up: weights totalling 2.0 kg on the"
@@ -205,7 +208,7 @@ class CalibrateLiveSimTest {
     assertThat(scen.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(scen.err()).contains("--scenario panel-foam has no weights to place");
     CliRun exists = CliRun.run("\n", "calibrate", "--port", "sim", "--cell", "c1", "--loads",
-        "1 kg, 2 kg", "--save", dir.toString(), "--id", "sim-cal");
+        "1 kg, 2 kg", "--out", dir.toString(), "--id", "sim-cal");
     assertThat(exists.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(exists.err()).contains("sim-cal.json exists and is never overwritten",
         "'sim-cal-2'");

@@ -61,13 +61,13 @@ class CompareCommandTest {
     // Commons Math forms p as 1 − CDF(F), which keeps only absolute precision (~1e-16) for a p
     // this small (~1e-14), so the check is absolute
     assertThat(j.get("p_value").asDouble()).isCloseTo(p, org.assertj.core.data.Offset.offset(1e-15));
-    assertThat(o.out()).contains("one-way ANOVA").contains("larger than the scatter");
+    assertThat(o.err()).contains("one-way ANOVA").contains("larger than the scatter");
   }
 
   @Test
   void twoGroupsUseWelchAsCommonsMathDoes() throws Exception {
     RecordCommandTest.Outcome o = RecordCommandTest.run("compare", "--archive",
-        SAMPLES.toString(), "--metric", "peak", "--groups", "foam,board", "--include",
+        SAMPLES.toString(), "--metric", "peak", "--group", "foam,board", "--include",
         "uncalibrated", "--json");
     JsonNode j = o.json();
     assertThat(j.get("test").asText()).isEqualTo("welch_t");
@@ -79,12 +79,12 @@ class CompareCommandTest {
   @Test
   void oneGroupIsComparedWithTheOthersAndAnUnknownOneIsRefused() throws Exception {
     RecordCommandTest.Outcome o = RecordCommandTest.run("compare", "--archive",
-        SAMPLES.toString(), "--groups", "board", "--include", "uncalibrated", "--json");
+        SAMPLES.toString(), "--group", "board", "--include", "uncalibrated", "--json");
     assertThat(o.exit()).as(o.err()).isZero();
     assertThat(o.json().get("groups").fieldNames()).toIterable()
         .containsExactly("board", "balsa", "foam");
     RecordCommandTest.Outcome oak = RecordCommandTest.run("compare", "--archive",
-        SAMPLES.toString(), "--groups", "foam,oak");
+        SAMPLES.toString(), "--group", "foam,oak");
     assertThat(oak.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(oak.err()).contains("no runs of group 'oak'")
         .contains("the groups there are balsa, board, foam");
@@ -98,7 +98,8 @@ class CompareCommandTest {
     RecordCommandTest.Outcome o = RecordCommandTest.run("runs", "--archive", SAMPLES.toString(),
         "--group", "balsa", "--cause", "break", "--json");
     assertThat(o.exit()).isZero();
-    assertThat(o.json().get("runs").asInt()).isEqualTo(5);
+    assertThat(o.json().get("run_count").asInt()).isEqualTo(5);
+    assertThat(o.json().get("runs")).hasSize(5);
     RecordCommandTest.Outcome bad = RecordCommandTest.run("runs", "--archive",
         SAMPLES.toString(), "--from", "yesterday");
     assertThat(bad.err()).contains("YYYY-MM-DD");

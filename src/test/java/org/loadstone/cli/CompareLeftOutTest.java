@@ -93,7 +93,7 @@ class CompareLeftOutTest {
     assertThat(reasons.get(0)).startsWith("manual: stopped by the operator");
     assertThat(reasons.get(1)).startsWith("uncalibrated: force from a nominal scale");
     assertThat(reasons.get(2)).startsWith("imported: imported from another program's file");
-    assertThat(o.out()).contains("left out: " + ids.get(0))
+    assertThat(o.err()).contains("left out: " + ids.get(0))
         .contains("3 runs left out (1 uncalibrated, 1 imported, 1 manual)")
         .contains("--include uncalibrated,imported,manual");
 

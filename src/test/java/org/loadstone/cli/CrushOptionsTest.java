@@ -44,7 +44,7 @@ class CrushOptionsTest {
         .isCloseTo(area / 4 / 460, within(1e-6));
     assertThat(j.get("analysis_settings").get("crush_stroke").asText())
         .isEqualTo("1.000 to 5.000 mm");
-    assertThat(r.out()).contains("mean crush force").contains("crush-force efficiency");
+    assertThat(r.err()).contains("mean crush force").contains("crush-force efficiency");
   }
 
   @Test

@@ -27,7 +27,7 @@ class CrushRecordTest {
   @Timeout(HangGuard.TEST_S)
   void theSimulatedCrushIsStoredToItsTravelLimitAndReadByItsMeanCrushForce() throws Exception {
     Outcome r = RecordCommandTest.run("record", "--port", "sim", "--scenario", "crush",
-        "--seed", "3", "--rate", "1000", "--sim-speed", "8", "--specimen", "tube-01",
+        "--seed", "3", "--rate-hz", "1000", "--sim-speed", "8", "--specimen", "tube-01",
         "--group", "tubes", "--test", "crush", "--travel-limit-mm", "4", "--archive",
         tmp.toString(), "--json");
     assertThat(r.exit()).as(r.err()).isZero();
@@ -35,7 +35,7 @@ class CrushRecordTest {
         + "travel");
     JsonNode j = r.json();
     assertThat(j.get("cause").asText()).isEqualTo("travel-limit");
-    Run run = RunReader.read(Path.of(j.get("csv").asText()));
+    Run run = RunReader.read(Path.of(j.get("csv_file").asText()));
     assertThat(run.metadata().testType()).isEqualTo(TestType.CRUSH);
     assertThat(run.metadata().cause()).isEqualTo(FinishCause.TRAVEL_LIMIT);
     assertThat(run.metadata().extra().get("crush_end")).isEqualTo("at 4 mm of travel, or when "
@@ -85,16 +85,17 @@ class CrushRecordTest {
       maxX = Math.max(maxX, x[i] - x[0]);
     }
     double mean = area / maxX;
-    assertThat(j.get("crush_from_mm").asDouble()).isZero();
-    assertThat(j.get("crush_to_mm").asDouble()).isCloseTo(maxX, within(1e-9));
-    assertThat(j.get("mean_crush_force_N").asDouble()).isCloseTo(mean, within(1e-9 * mean));
-    assertThat(j.get("crush_force_efficiency").asDouble())
+    JsonNode an = j.get("analysis"); // the stored run's figures, as analyze gives them
+    assertThat(an.get("crush_from_mm").asDouble()).isZero();
+    assertThat(an.get("crush_to_mm").asDouble()).isCloseTo(maxX, within(1e-9));
+    assertThat(an.get("mean_crush_force_N").asDouble()).isCloseTo(mean, within(1e-9 * mean));
+    assertThat(an.get("crush_force_efficiency").asDouble())
         .isCloseTo(mean / f[peak], within(1e-9));
-    assertThat(j.get("crush_energy_J").asDouble()).isCloseTo(area / 1000, within(1e-12 + 1e-9
-        * area));
+    assertThat(an.get("crush_energy_J").asDouble())
+        .isCloseTo(area / 1000, within(1e-12 + 1e-9 * area));
     // the simulated specimen's mass is filled in: energy per gram
     double mass = run.metadata().mass_g();
-    assertThat(j.get("specific_crush_energy_J_per_g").asDouble())
+    assertThat(an.get("specific_crush_energy_J_per_g").asDouble())
         .isCloseTo(area / 1000 / mass, within(1e-9));
     // a saw-tooth around 85 % of the first collapse (the scenario's teeth, sim.Presets): the mean
     // lies well below the peak, and well above the floor of the teeth

@@ -29,12 +29,12 @@ class FourPointSimTest {
   @Timeout(HangGuard.TEST_S)
   void theFourPointModulusFromTheCrossheadIsTheBarsModulus() throws Exception {
     Outcome r = RecordCommandTest.run("record", "--port", "sim", "--scenario", "four-point",
-        "--seed", "5", "--rate", "1000", "--sim-speed", "8", "--specimen", "bar-4p",
+        "--seed", "5", "--rate-hz", "1000", "--sim-speed", "8", "--specimen", "bar-4p",
         "--test", "four-point", "--archive", tmp.toString(), "--json");
     assertThat(r.exit()).as(r.err()).isZero();
     JsonNode j = r.json();
     assertThat(j.get("cause").asText()).isEqualTo("break");
-    Run run = RunReader.read(Path.of(j.get("csv").asText()));
+    Run run = RunReader.read(Path.of(j.get("csv_file").asText()));
     assertThat(run.metadata().testType()).isEqualTo(TestType.FOUR_POINT_BEND);
     SolidBeam bar = new SimSetup("four-point", 5, 1000, false, 8).buildFrame().truth()
         .specimen().beam();

@@ -35,7 +35,7 @@ class PositionSourcesCommandTest {
   static void record() throws Exception {
     archive = tmp.resolve("runs");
     RecordCommandTest.Outcome r = RecordCommandTest.run("record", "--port", "sim", "--scenario",
-        "panel-balsa", "--seed", "5", "--rate", "1000", "--sim-speed", "10", "--specimen", "b5",
+        "panel-balsa", "--seed", "5", "--rate-hz", "1000", "--sim-speed", "10", "--specimen", "b5",
         "--group", "balsa", "--archive", archive.toString(), "--json");
     assertThat(r.exit()).as(r.err()).isZero();
     panelRun = r.json().get("run_id").asText();
@@ -56,12 +56,12 @@ class PositionSourcesCommandTest {
   @Test
   void frameComplianceMeasuredOnARigidBlockAndRemoved() throws Exception {
     RecordCommandTest.Outcome block = RecordCommandTest.run("record", "--port", "sim",
-        "--scenario", "rigid-block", "--rate", "1000", "--sim-speed", "10", "--specimen",
+        "--scenario", "rigid-block", "--rate-hz", "1000", "--sim-speed", "10", "--specimen",
         "block", "--archive", archive.toString(), "--json");
     String blockId = block.json().get("run_id").asText();
     Path frames = tmp.resolve("frames");
     RecordCommandTest.Outcome f = RecordCommandTest.run("frame", blockId, "--archive",
-        archive.toString(), "--id", "sim-frame", "--save", frames.toString());
+        archive.toString(), "--id", "sim-frame", "--out", frames.toString());
     assertThat(f.exit()).as(f.err()).isZero();
     FrameProfile p = FrameProfile.read(frames.resolve("sim-frame.json"));
     SimTruth blockTruth = new SimSetup("rigid-block", 1, 1000, false, 1).buildFrame().truth();
@@ -79,7 +79,7 @@ class PositionSourcesCommandTest {
     assertThat(corrected).isCloseTo(panel.specimen().stiffness_N_per_mm(),
         Percentage.withPercentage(0.5));
     RecordCommandTest.Outcome again = RecordCommandTest.run("frame", blockId, "--archive",
-        archive.toString(), "--id", "sim-frame", "--save", frames.toString());
+        archive.toString(), "--id", "sim-frame", "--out", frames.toString());
     assertThat(again.err()).contains("already exists");
   }
 
@@ -122,7 +122,7 @@ class PositionSourcesCommandTest {
     }
     Path table = Files.writeString(tmp.resolve("track.csv"), t.toString());
     JsonNode fromTable = analyze("--position-table", table.toString(), "--table-map",
-        "time=t [s],position=y [cm]", "--table-length-unit", "cm", "--table-decimal-comma");
+        "time=t [s],position=y [cm]", "--table-length-unit", "cm", "--table-decimal", ",");
     String derived = fromTable.get("derived").get(0).asText();
     assertThat(derived).contains("aligned by the break");
     // the offset is recovered within one and a half periods of the coarser record, the 50
@@ -139,7 +139,7 @@ class PositionSourcesCommandTest {
   void constantCrossheadRateGivesPositionFromTime() throws Exception {
     SimTruth panel = new SimSetup("panel-balsa", 5, 1000, false, 1).buildFrame().truth();
     double rate = panel.crossheadRate_mm_per_s() * 60;
-    JsonNode j = analyze("--crosshead-rate-mm-min", Double.toString(rate));
+    JsonNode j = analyze("--crosshead-rate-mm-per-min", Double.toString(rate));
     // position = rate × time since the first sample
     assertThat(j.get("displacement_at_peak_mm").asDouble()).isCloseTo(
         panel.crossheadRate_mm_per_s() * j.get("peak_time_s").asDouble(), Offset.offset(1e-6));

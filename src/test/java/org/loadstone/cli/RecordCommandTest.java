@@ -98,7 +98,7 @@ class RecordCommandTest {
         .cause(FinishCause.MANUAL).build();
     org.loadstone.archive.RunWriter.write(tmp, earlier, new org.loadstone.archive.RunData(
         new double[] {0}, new double[] {0}, null, new int[] {0}, null, new int[] {0}));
-    Outcome r = run("record", "--port", "sim", "--scenario", "panel-balsa", "--rate", "1000",
+    Outcome r = run("record", "--port", "sim", "--scenario", "panel-balsa", "--rate-hz", "1000",
         "--sim-speed", "8", "--specimen", "balsa-01", "--group", "balsa", "--mass-g", "61.5",
         "--span-mm", "200", "--width-mm", "50", "--depth-mm", "12", "--archive",
         tmp.toString(), "--json");
@@ -106,7 +106,7 @@ class RecordCommandTest {
     JsonNode j = r.json();
     assertThat(j.get("cause").asText()).isEqualTo("break");
     assertThat(j.get("dropped").asLong()).isZero();
-    Run run = RunReader.read(Path.of(j.get("csv").asText()));
+    Run run = RunReader.read(Path.of(j.get("csv_file").asText()));
     assertThat(run.metadata().cause()).isEqualTo(FinishCause.BREAK);
     assertThat(run.metadata().group()).isEqualTo("balsa");
     assertThat(run.metadata().mass_g()).isEqualTo(61.5);
@@ -117,16 +117,17 @@ class RecordCommandTest {
     assertThat(r.err()).contains("zeroing on 500 samples").contains("warning: zero check: the "
         + "zero moved by -");
     assertThat(run.metadata().warnings()).anySatisfy(w -> assertThat(w).startsWith("zero check"));
-    assertThat(run.data().size()).isEqualTo(j.get("samples").asInt());
+    assertThat(run.data().size()).isEqualTo(j.get("sample_count").asInt());
     assertThat(Files.list(tmp.resolve(".journal")).count()).as("journal removed").isZero();
     assertThat(r.err()).contains("no calibration");
     // the post-run figures are the archive's analysis of the stored run
     var m = org.loadstone.study.RunMetrics.of(run.metadata(), run.data());
-    assertThat(j.get("stiffness_N_per_mm").asDouble())
+    JsonNode a = j.get("analysis");
+    assertThat(a.get("stiffness_N_per_mm").asDouble())
         .isEqualTo(m.analysis().stiffness_N_per_mm().getAsDouble());
-    assertThat(j.get("energy_to_break_J").asDouble())
+    assertThat(a.get("energy_to_break_J").asDouble())
         .isEqualTo(m.analysis().energyToBreak_J().getAsDouble());
-    assertThat(j.get("specific_peak_N_per_g").asDouble())
+    assertThat(a.get("specific_peak_N_per_g").asDouble())
         .isEqualTo(m.analysis().peakForce_N() / 61.5);
   }
 
@@ -141,13 +142,13 @@ class RecordCommandTest {
     Files.copy(project.resolve("cells/shelf-rig-500N.json"), calDir.resolve("cells/shelf-rig-500N.json"));
     Path cal = calDir.resolve("shelf-rig-500N-2026-12-02.json");
     var doc = org.loadstone.calibration.CalibrationFiles.readCalibration(cal);
-    Outcome r = run("record", "--port", "sim", "--scenario", "brittle", "--rate", "1000",
+    Outcome r = run("record", "--port", "sim", "--scenario", "brittle", "--rate-hz", "1000",
         "--sim-speed", "8", "--specimen", "c1", "--cal", cal.toString(), "--archive",
         tmp.resolve("runs").toString(), "--json");
     assertThat(r.exit()).as(r.err()).isZero();
     // no check weight has been logged for this calibration yet: said before the run
     assertThat(r.err()).contains("no check-weight verification");
-    Run run = RunReader.read(Path.of(r.json().get("csv").asText()));
+    Run run = RunReader.read(Path.of(r.json().get("csv_file").asText()));
     assertThat(run.metadata().calibrationId()).isEqualTo(doc.id());
     assertThat(run.metadata().calibrationSha256()).isEqualTo(doc.contentSha256());
     assertThat(run.metadata().scaleSpec().kind()).isEqualTo("calibration");
@@ -162,25 +163,25 @@ class RecordCommandTest {
   @Test
   void badThresholdsAreRefusedBeforeTheDeviceOpens() {
     Outcome r = run("record", "--port", "/dev/ttyNOPE9", "--counts-per-n", "100",
-        "--capacity-N", "500", "--specimen", "x", "--stop-drop-pct", "100",
+        "--capacity-n", "500", "--specimen", "x", "--stop-drop-pct", "100",
         "--archive", tmp.toString());
     assertThat(r.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(r.err()).contains("--stop-drop-pct").doesNotContain("ttyNOPE9").doesNotContain("at org.");
-    Outcome r2 = run("record", "--port", "sim", "--specimen", "x", "--start-at-N", "-3",
+    Outcome r2 = run("record", "--port", "sim", "--specimen", "x", "--start-at-n", "-3",
         "--archive", tmp.toString());
-    assertThat(r2.err()).contains("--start-at-N");
+    assertThat(r2.err()).contains("--start-at-n");
   }
 
   @Test
   void aZeroDriftLimitOfZeroIsRefusedNamingTheOption() {
     Outcome r = run("record", "--port", "/dev/ttyNOPE9", "--counts-per-n", "100",
-        "--capacity-N", "500", "--specimen", "x", "--zero-drift-N", "0",
+        "--capacity-n", "500", "--specimen", "x", "--zero-drift-n", "0",
         "--archive", tmp.toString());
     assertThat(r.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(r.err()).contains("the zero-drift limit must be a force greater than 0 N")
-        .contains("(--zero-drift-N)").doesNotContain("ttyNOPE9");
+        .contains("(--zero-drift-n)").doesNotContain("ttyNOPE9");
     Outcome z = run("record", "--port", "/dev/ttyNOPE9", "--counts-per-n", "100",
-        "--capacity-N", "500", "--specimen", "x", "--zero-samples", "0",
+        "--capacity-n", "500", "--specimen", "x", "--zero-samples", "0",
         "--archive", tmp.toString());
     assertThat(z.err()).contains("the zero must average at least 1 sample")
         .contains("(--zero-samples)");
@@ -202,7 +203,7 @@ class RecordCommandTest {
     assertThat(r.err()).contains("--cal").contains("--counts-per-n");
     Outcome r2 = run("record", "--port", "/dev/ttyNOPE9", "--specimen", "x", "--counts-per-n",
         "100", "--archive", tmp.toString());
-    assertThat(r2.err()).contains("--capacity-N");
+    assertThat(r2.err()).contains("--capacity-n");
   }
 
   /**
@@ -212,8 +213,8 @@ class RecordCommandTest {
    */
   private static void streamDuctile(SocatPair pty) {
     Thread writer = new Thread(() -> LoadstoneCommand.run(new PrintWriter(new StringWriter()),
-        new PrintWriter(new StringWriter()), "simulate", "--scenario", "ductile", "--rate",
-        "1000", "--seconds", "3600", "--seed", "4", "--out", pty.a().toString()));
+        new PrintWriter(new StringWriter()), "simulate", "--scenario", "ductile", "--rate-hz",
+        "1000", "--duration-s", "3600", "--seed", "4", "--out", pty.a().toString()));
     writer.setDaemon(true);
     writer.start();
   }
@@ -230,9 +231,9 @@ class RecordCommandTest {
       Thread rec = new Thread(() -> exit.set(LoadstoneCommand.run(new PrintWriter(o, true),
           new PrintWriter(e, true), "record", "--port", pty.b().toString(), "--counts-per-n",
           Double.toString(new SimSetup("ductile", 4, 1000, false, 1).nominalCountsPerN()),
-          "--capacity-N", "500", "--specimen", "cable", "--manual-start", "--archive",
+          "--capacity-n", "500", "--specimen", "cable", "--manual-start", "--archive",
           // the stream's press starts by itself, maybe during the zero: any zero will do here
-          tmp.toString(), "--zero-drift-N", "1000", "--json")));
+          tmp.toString(), "--zero-drift-n", "1000", "--json")));
       rec.start();
       awaitJournalSamples(tmp, 1100, rec::isAlive, e::toString); // counted, not timed
       pty.kill();
@@ -242,9 +243,9 @@ class RecordCommandTest {
       Outcome r = new Outcome(exit.get(), o.toString(), e.toString());
       assertThat(r.err()).contains("the run is stored up to the last sample received");
       assertThat(r.json().get("cause").asText()).isEqualTo("device-lost");
-      assertThat(r.json().get("samples").asLong()).isGreaterThan(1000);
+      assertThat(r.json().get("sample_count").asLong()).isGreaterThan(1000);
       assertThat(r.err()).doesNotContain("Exception").doesNotContain("\tat ");
-      Run run = RunReader.read(Path.of(r.json().get("csv").asText()));
+      Run run = RunReader.read(Path.of(r.json().get("csv_file").asText()));
       assertThat(run.metadata().cause()).isEqualTo(FinishCause.DEVICE_LOST);
     }
   }
@@ -270,7 +271,7 @@ class RecordCommandTest {
       };
       Thread rec = new Thread(() -> exit.set(LoadstoneCommand.run(
           new PrintWriter(new StringWriter()), errors, "record", "--port", pty.b().toString(),
-          "--counts-per-n", "100", "--capacity-N", "1e6", "--start-at-N", "5e5", "--specimen",
+          "--counts-per-n", "100", "--capacity-n", "1e6", "--start-at-n", "5e5", "--specimen",
           "armed", "--archive", tmp.toString())));
       rec.start();
       assertThat(armed.await(HangGuard.S, TimeUnit.SECONDS)).as(e.toString()).isTrue();
@@ -290,7 +291,7 @@ class RecordCommandTest {
   void killedWithSigkillTheJournalIsRecoveredAtTheNextStart() throws Exception {
     ProcessBuilder pb = new ProcessBuilder(Path.of(System.getProperty("java.home"), "bin", "java")
         .toString(), "-cp", System.getProperty("java.class.path"), "org.loadstone.Main", "record",
-        "--port", "sim", "--scenario", "panel-foam", "--seed", "9", "--rate", "1000",
+        "--port", "sim", "--scenario", "panel-foam", "--seed", "9", "--rate-hz", "1000",
         "--specimen", "crash-01", "--manual-start", "--sim-start-delay-s", "60", "--archive",
         tmp.toString());
     pb.redirectErrorStream(true);

@@ -28,7 +28,7 @@ class RecordInterruptTest {
     Path arc = dir.resolve("runs");
     String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
     Process p = new ProcessBuilder(java, "-cp", System.getProperty("java.class.path"),
-        "org.loadstone.Main", "record", "--port", "sim", "--scenario", "panel-foam", "--rate",
+        "org.loadstone.Main", "record", "--port", "sim", "--scenario", "panel-foam", "--rate-hz",
         "1000", "--manual-start", "--specimen", "cut-short", "--archive", arc.toString())
         .redirectOutput(dir.resolve("out.txt").toFile())
         .redirectError(dir.resolve("err.txt").toFile())

@@ -61,10 +61,10 @@ class RecordOnAFullDiskTest {
   void aDiskTooSmallForTheRunIsRefusedBeforeTheZero() throws Exception {
     Path disk = mountTmpfs("2m");
     RecordCommandTest.Outcome r = RecordCommandTest.run("record", "--port", "sim", "--scenario",
-        "panel-foam", "--rate", "1000", "--specimen", "small", "--archive", disk.toString());
+        "panel-foam", "--rate-hz", "1000", "--specimen", "small", "--archive", disk.toString());
     assertThat(r.exit()).as(r.err()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(r.err()).contains("the disk holding the archive " + disk).contains("needs")
-        .contains("--archive").contains("--max-seconds").doesNotContain("zeroing")
+        .contains("--archive").contains("--max-duration-s").doesNotContain("zeroing")
         .doesNotContain("\tat ");
   }
 
@@ -86,8 +86,8 @@ class RecordOnAFullDiskTest {
     StringWriter o = new StringWriter();
     AtomicInteger exit = new AtomicInteger(-1);
     Thread rec = new Thread(() -> exit.set(LoadstoneCommand.run(new PrintWriter(o, true), err,
-        "record", "--port", "sim", "--scenario", "panel-foam", "--seed", "3", "--rate", "1000",
-        "--specimen", "filling", "--manual-start", "--max-seconds", "30", "--archive",
+        "record", "--port", "sim", "--scenario", "panel-foam", "--seed", "3", "--rate-hz", "1000",
+        "--specimen", "filling", "--manual-start", "--max-duration-s", "30", "--archive",
         disk.toString(), "--json")));
     rec.start();
     RecordCommandTest.awaitJournalSamples(disk, 1000, rec::isAlive, e::toString); // counted
@@ -107,7 +107,7 @@ class RecordOnAFullDiskTest {
     RecordCommandTest.Outcome r = new RecordCommandTest.Outcome(exit.get(), o.toString(),
         e.toString());
     assertThat(r.json().get("cause").asText()).isEqualTo("disk-full");
-    Run run = RunReader.read(Path.of(r.json().get("csv").asText()));
+    Run run = RunReader.read(Path.of(r.json().get("csv_file").asText()));
     assertThat(run.metadata().cause()).isEqualTo(FinishCause.DISK_FULL);
     int n = run.data().size();
     assertThat(r.err()).contains("all " + n + " samples were kept").doesNotContain("\tat ");

@@ -33,8 +33,8 @@ class RecordSmallHeapTest {
     String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
     List<String> cmd = new ArrayList<>(List.of(java, "-Xmx32m", "-cp",
         System.getProperty("java.class.path"), "org.loadstone.Main", "record", "--port", "sim",
-        "--rate", "50000", "--sim-speed", "20", "--specimen", "small-heap", "--manual-start",
-        "--max-seconds", "30", "--archive", archive.toString()));
+        "--rate-hz", "50000", "--sim-speed", "20", "--specimen", "small-heap", "--manual-start",
+        "--max-duration-s", "30", "--archive", archive.toString()));
     Path out = archive.resolveSibling(archive.getFileName() + ".out");
     Path err = archive.resolveSibling(archive.getFileName() + ".err");
     Process p = new ProcessBuilder(cmd).redirectOutput(out.toFile()).redirectError(err.toFile())

@@ -54,7 +54,7 @@ class RunCommandsTest {
   void analyzePrintsATableAndJson() throws IOException {
     Path csv = runCsv();
     assertThat(run("analyze", csv.toString(), "--json")).isEqualTo(0);
-    assertThat(out).contains("peak force").contains("stiffness");
+    assertThat(err).contains("peak force").contains("stiffness"); // the table, beside the JSON
     JsonNode j = lastJson();
     assertThat(j.get("peak_N").asDouble()).isEqualTo(460.0);
     // the synthetic curve rises at 60 N/mm by construction
@@ -62,14 +62,14 @@ class RunCommandsTest {
     assertThat(j.get("break_index").isNull()).isFalse();
     assertThat(j.get("flexural_modulus_MPa").isNull()).isTrue(); // a bare CSV has no geometry
 
-    assertThat(run("analyze", csv.toString(), "--stiffness-from-N", "50",
-        "--stiffness-to-N", "200", "--json")).isEqualTo(0);
+    assertThat(run("analyze", csv.toString(), "--stiffness-from-n", "50",
+        "--stiffness-to-n", "200", "--json")).isEqualTo(0);
     assertThat(lastJson().get("stiffness_N_per_mm").asDouble()).isCloseTo(60.0, within(1e-6));
   }
 
   @Test
   void analyzeRefusesHalfABoundAndAMissingRun() {
-    assertThat(run("analyze", runCsv().toString(), "--stiffness-from-N", "50"))
+    assertThat(run("analyze", runCsv().toString(), "--stiffness-from-n", "50"))
         .isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(err).contains("give both or neither");
     assertThat(run("analyze", dir.resolve("nope.csv").toString()))
@@ -85,11 +85,11 @@ class RunCommandsTest {
         + "1000;0,2;1,0\n1500;0,05;1,5\n");
     Path plain = dir.resolve("plain.csv");
     assertThat(run("import", src.toString(), "--map", "time=Zeit [ms],force=2,position=Weg [mm]",
-        "--decimal-comma", "--out", plain.toString(), "--json")).isEqualTo(0);
+        "--decimal", ",", "--out", plain.toString(), "--json")).isEqualTo(0);
     JsonNode j = lastJson();
-    assertThat(j.get("rows").asInt()).isEqualTo(4);
-    assertThat(j.get("force_N_range").get(1).asDouble()).isEqualTo(200.0);
-    assertThat(j.get("time_s_range").get(1).asDouble()).isEqualTo(1.5);
+    assertThat(j.get("sample_count").asInt()).isEqualTo(4);
+    assertThat(j.get("force_range_N").get(1).asDouble()).isEqualTo(200.0);
+    assertThat(j.get("time_range_s").get(1).asDouble()).isEqualTo(1.5);
     assertThat(run("analyze", plain.toString(), "--json")).isEqualTo(0);
     assertThat(lastJson().get("peak_N").asDouble()).isEqualTo(200.0);
     assertThat(lastJson().get("peak_time_s").asDouble()).isEqualTo(1.0);
@@ -102,7 +102,7 @@ class RunCommandsTest {
     assertThat(run("import", src.toString(), "--map", "time=Zeit [ms],force=2,position=Weg [mm]",
         "--out", out2.toString())).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(err).contains("'0,0' is not a number")
-        .contains("read it with a decimal comma. (--decimal-comma)");
+        .contains("read it with a decimal comma. (--decimal ',')");
   }
 
   @Test

@@ -26,7 +26,7 @@ class StiffnessOptionsTest {
     assertThat(j.get("stiffness_window_from_N").asDouble()).isCloseTo(46, within(3.0));
     assertThat(j.get("analysis_settings").get("stiffness_band").asText())
         .isEqualTo("10 to 40 % of the peak");
-    assertThat(band.out()).contains("stiffness chosen by");
+    assertThat(band.err()).contains("stiffness chosen by");
 
     CliRun auto = CliRun.run("", "analyze", csv.toString(), "--json");
     assertThat(auto.exit()).as(auto.toString()).isEqualTo(0);
@@ -46,8 +46,8 @@ class StiffnessOptionsTest {
         "--stiffness-from-mm", "0.1", "--stiffness-to-mm", "0.5");
     assertThat(two.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(two.err()).contains("Give one stiffness band");
-    CliRun outside = CliRun.run("", "analyze", csv.toString(), "--stiffness-from-N", "400",
-        "--stiffness-to-N", "900");
+    CliRun outside = CliRun.run("", "analyze", csv.toString(), "--stiffness-from-n", "400",
+        "--stiffness-to-n", "900");
     assertThat(outside.exit()).isEqualTo(LoadstoneCommand.EXIT_USER_ERROR);
     assertThat(outside.err()).contains("outside the curve").contains("peak force 460");
   }

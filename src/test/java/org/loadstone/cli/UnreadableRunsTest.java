@@ -87,7 +87,7 @@ class UnreadableRunsTest {
     for (int i = 0; i < BAD_CSVS.size(); i++) {
       String id = "damaged-" + i;
       assertThat(left).anySatisfy(l -> assertThat(l).contains(id));
-      assertThat(r.out()).contains("left out: ").contains(id);
+      assertThat(r.err()).contains("left out: ").contains(id); // the text, beside the JSON
     }
   }
 
@@ -98,7 +98,7 @@ class UnreadableRunsTest {
     assertThat(runs.exit()).as(runs.toString()).isZero();
     assertThat(runs.err()).contains("garbled.json").contains("no-samples")
         .contains("is missing");
-    assertThat(runs.lastJson().get("unreadable").asInt()).isEqualTo(2);
+    assertThat(runs.lastJson().get("unreadable")).hasSize(2);
 
     CliRun group = CliRun.run("", "report", "--archive", arc.toString(), "--group",
         "foam,balsa", "--out", dir.resolve("g.pdf").toString());
@@ -139,14 +139,14 @@ class UnreadableRunsTest {
     CliRun accepted = CliRun.run("", "analyze", "--archive", arc.toString(), run, "--cal",
         cal.toString(), "--accept-changed-calibration", "--json");
     assertThat(accepted.exit()).as(accepted.toString()).isZero();
-    assertThat(accepted.out()).contains("warning: Calibration").contains("changed since");
+    assertThat(accepted.err()).contains("warning: Calibration").contains("changed since");
     assertThat(accepted.lastJson().get("warnings").get(0).asText())
         .contains("changed since it was saved");
 
     CliRun intact = CliRun.run("", "analyze", "--archive", arc.toString(), run, "--cal",
         "calibration/shelf-rig-1kN-2026-12-03.json", "--json");
     assertThat(intact.exit()).as(intact.toString()).isZero();
-    assertThat(intact.out()).doesNotContain("changed since");
+    assertThat(intact.out() + intact.err()).doesNotContain("changed since");
   }
 
   /** n and mean of a group against Commons Math's DescriptiveStatistics on the true peaks. */

@@ -35,8 +35,8 @@ class SerialEndToEndTest {
       double seconds = (double) count / rateHz;
       AtomicInteger exit = new AtomicInteger(-1);
       Thread writer = new Thread(() -> exit.set(LoadstoneCommand.run("simulate",
-          "--scenario", "brittle", "--seed", "7", "--rate", Integer.toString(rateHz),
-          "--seconds", Double.toString(seconds), "--out", pty.a().toString(),
+          "--scenario", "brittle", "--seed", "7", "--rate-hz", Integer.toString(rateHz),
+          "--duration-s", Double.toString(seconds), "--out", pty.a().toString(),
           encoding.equals("binary") ? "--binary" : "--unpaced=false")));
       writer.start();
       writer.join(Duration.ofSeconds(90).toMillis());
@@ -74,7 +74,7 @@ class SerialEndToEndTest {
       DeviceReader reader = new DeviceReader(t, new SampleRing(1 << 16));
       reader.start();
       Thread writer = new Thread(() -> LoadstoneCommand.run("simulate", "--scenario", "ductile",
-          "--rate", "1000", "--seconds", "30", "--out", pty.a().toString()));
+          "--rate-hz", "1000", "--duration-s", "30", "--out", pty.a().toString()));
       writer.setDaemon(true);
       writer.start();
       long until = System.nanoTime() + 10_000_000_000L;

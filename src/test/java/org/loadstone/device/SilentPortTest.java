@@ -14,7 +14,7 @@ import org.loadstone.cli.LoadstoneCommand;
  */
 class SilentPortTest {
   private static String[] monitor(SocatPair pair) {
-    return new String[] {"monitor", "--port", pair.b().toString(), "--seconds", "1.5",
+    return new String[] {"monitor", "--port", pair.b().toString(), "--duration-s", "1.5",
         "--quiet"};
   }
 

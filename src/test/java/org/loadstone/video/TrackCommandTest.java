@@ -47,7 +47,7 @@ class TrackCommandTest {
   void trackedClipGivesTheCrossheadsStiffness() throws Exception {
     Path archive = tmp.resolve("runs");
     Out rec = cli("record", "--port", "sim", "--scenario", "panel-balsa", "--seed", "5",
-        "--rate", "200", "--sim-speed", "10", "--specimen", "b5", "--group", "balsa",
+        "--rate-hz", "200", "--sim-speed", "10", "--specimen", "b5", "--group", "balsa",
         "--archive", archive.toString(), "--json");
     assertThat(rec.exit()).as(rec.err()).isZero();
     String id = rec.json().get("run_id").asText();
@@ -87,8 +87,8 @@ class TrackCommandTest {
     assertThat(tr.exit()).as(tr.err()).isZero();
     assertThat(tr.err()).contains("frame 0").contains("mjpeg");
     Path table = archive.resolve("video").resolve(id + ".csv");
-    assertThat(Path.of(tr.json().get("table").asText())).isEqualTo(table);
-    assertThat(tr.json().get("lost_frames").asInt()).isZero();
+    assertThat(Path.of(tr.json().get("table_file").asText())).isEqualTo(table);
+    assertThat(tr.json().get("lost_frame_count").asInt()).isZero();
     assertThat(archive.resolve("video").resolve(id + ".json")).exists();
     // the run's own files are never changed
     assertThat(Files.readAllBytes(csv)).isEqualTo(csvBefore);
@@ -113,9 +113,9 @@ class TrackCommandTest {
     Out again = cli("track", clip.toString(), "--point", "80,25", "--scale", scale, "--sync",
         "light", "140,4,12,10", "--run", id, "--archive", archive.toString(), "--json");
     assertThat(again.exit()).as(again.err()).isZero();
-    assertThat(again.json().get("table").asText()).endsWith(id + "-2.csv");
+    assertThat(again.json().get("table_file").asText()).endsWith(id + "-2.csv");
     assertThat(again.json().get("sync_method").asText()).isEqualTo("light");
-    assertThat(again.json().get("offset_s").asDouble())
+    assertThat(again.json().get("sync_offset_s").asDouble())
         .isBetween(offset - 1e-9, offset + 1.0 / 30 + 1e-9);
   }
 
