@@ -109,6 +109,6 @@ class UserConfigTest {
     String[] lines = out.toString().trim().split("\n");
     com.fasterxml.jackson.databind.JsonNode j = new com.fasterxml.jackson.databind.ObjectMapper()
         .readTree(lines[lines.length - 1]);
-    assertThat(j.get("force_N_range").get(1).asDouble()).isEqualTo(200.0);
+    assertThat(j.get("force_range_N").get(1).asDouble()).isEqualTo(200.0);
   }
 }
