@@ -216,7 +216,8 @@ final class RunCsvFast {
 
   /**
    * A decimal cell, grammar {@code [-+]?([0-9]+\.?[0-9]*|\.[0-9]+)([eE][-+]?[0-9]+)?}, finite.
-   * Up to 19 significant digits are gathered into a long; when that long and the power of ten
+   * Up to 18 significant digits are gathered into a long (19 could pass 2^63 and turn the sign:
+   * the long fuzz run found 9223372036854775808 read as its negative); when that long and the power of ten
    * are both exact doubles one division or multiplication is correctly rounded (Clinger's fast
    * path), otherwise Jackson's port of the Eisel–Lemire method converts the text.
    */
@@ -235,7 +236,7 @@ final class RunCsvFast {
     boolean exact = true;
     int c;
     while (i < limit && (c = buf[i] - '0') >= 0 && c <= 9) {
-      if (sig < 19) {
+      if (sig < 18) {
         if (m != 0 || c != 0) {
           m = m * 10 + c;
           sig++;
@@ -250,7 +251,7 @@ final class RunCsvFast {
     if (i < limit && buf[i] == '.') {
       i++;
       while (i < limit && (c = buf[i] - '0') >= 0 && c <= 9) {
-        if (sig < 19) {
+        if (sig < 18) {
           if (m != 0 || c != 0) {
             m = m * 10 + c;
             sig++;

@@ -9,6 +9,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import net.jqwik.api.Example;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.constraints.Size;
@@ -86,6 +87,20 @@ class ArchiveReadersFuzzTest {
       RunData either = Fuzz.readOrRefuse(() -> RunReader.readSamples(f));
       assertThat(either == null).isEqualTo(strict == null);
     });
+  }
+
+  /** Found by the long run: nineteen digits past 2^63 were read by the fast reader as negative. */
+  @Example
+  void nineteenDigitsPastTheLongRangeKeepTheirSign() throws Exception {
+    Path f = Fuzz.write(dir.resolve("big.csv"), ("time_s,force_N,position_mm,raw_counts,"
+        + "raw_position,seq\n0.0,9223372036854775808,0.0,1,0,0\n"
+        + "0.1,9999999999999999999.5,0.1,2,1,1\n").getBytes(StandardCharsets.UTF_8));
+    RunData fast = RunCsvFast.read(f);
+    assertThat(fast).isNotNull();
+    RunRoundTripTest.assertSameData(RunReader.readStrict(f), fast);
+    // Double.parseDouble is the reference for the decimal conversion
+    assertThat(fast.force_N()).containsExactly(Double.parseDouble("9223372036854775808"),
+        Double.parseDouble("9999999999999999999.5"));
   }
 
   @Property(tries = 200, seed = "140602")
