@@ -99,6 +99,15 @@ public final class RunReader {
     return RunJson.fromTree(root, "run file " + json, null);
   }
 
+  /**
+   * @param csvOrJson a stored run's CSV or sidecar
+   * @return the run's JSON sidecar beside it (whether or not it exists)
+   */
+  public static Path sidecarOf(Path csvOrJson) {
+    Path stem = stem(csvOrJson);
+    return stem.resolveSibling(stem.getFileName() + ".json");
+  }
+
   private static Path stem(Path p) {
     String n = p.getFileName() == null ? "" : p.getFileName().toString();
     if (n.endsWith(".csv")) {

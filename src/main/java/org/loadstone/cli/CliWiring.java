@@ -30,10 +30,8 @@ final class CliWiring {
     Optional<Path> file = asFile(reference);
     if (file.isPresent()) {
       Path p = file.get();
-      Path sidecar = p.resolveSibling(p.getFileName().toString().replaceFirst("\\.csv$", "")
-          + ".json");
       if (p.toString().endsWith(".json") || (p.toString().endsWith(".csv")
-          && Files.isRegularFile(sidecar))) {
+          && Files.isRegularFile(RunReader.sidecarOf(p)))) {
         Run r = RunReader.read(p);
         return new ResolvedRun(r.metadata(), r.data(), r.csv().toString());
       }
@@ -58,8 +56,7 @@ final class CliWiring {
     Optional<Path> file = asFile(reference);
     if (file.isPresent()) {
       Path p = file.get();
-      Path json = p.resolveSibling(p.getFileName().toString().replaceFirst("\\.(csv|json)$", "")
-          + ".json");
+      Path json = RunReader.sidecarOf(p);
       if (Files.isRegularFile(json)) {
         return json;
       }
