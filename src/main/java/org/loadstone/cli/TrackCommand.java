@@ -52,7 +52,7 @@ public final class TrackCommand implements Callable<Integer> {
   @Option(names = "--direction", defaultValue = "down", description = "Way the loading part moves in the image: down, up, left or right (default: ${DEFAULT-VALUE}).")
   String direction;
 
-  @Option(names = "--sync", arity = "1..2", paramLabel = "HOW", description = "With --run: break, light X,Y,W,H (the light's region) or offset S (clip time minus run time). Default: break.")
+  @Option(names = "--sync", arity = "1..2", paramLabel = "HOW", description = "With --run: break, change [X,Y,W,H] (the image's sudden change at the break, over the whole frame or a region), light X,Y,W,H (the light's region) or offset S (clip time minus run time). Default: break.")
   String[] sync;
 
   @Option(names = "--run", paramLabel = "RUN", description = "The run the clip belongs to (id, id prefix or run file); the table is stored beside it.")
@@ -85,13 +85,17 @@ public final class TrackCommand implements Callable<Integer> {
     PixelPoint r = reference == null ? null : PixelPoint.parse(reference, "reference point");
     String how = sync == null ? "break" : sync[0];
     PixelRegion lamp = null;
+    PixelRegion changeRegion = null;
     if (how.equals("light")) {
       if (sync.length < 2) {
         throw new LoadstoneException("--sync light needs the light's region X,Y,W,H");
       }
       lamp = PixelRegion.parse(sync[1]);
+    } else if (how.equals("change")) {
+      changeRegion = sync.length < 2 ? null : PixelRegion.parse(sync[1]);
     } else if (!how.equals("break") && !how.equals("offset")) {
-      throw new LoadstoneException("--sync '" + how + "': use break, light X,Y,W,H or offset S");
+      throw new LoadstoneException("--sync '" + how + "': use break, change [X,Y,W,H], "
+          + "light X,Y,W,H or offset S");
     }
     if (out == null && run == null) {
       throw new LoadstoneException("say where the table goes: --run RUN (stored beside the run) "
@@ -106,7 +110,7 @@ public final class TrackCommand implements Callable<Integer> {
           clip.info().height(), clip.info().nominalRate_fps(), clip.info().timeSource());
       err.flush();
       int[] shown = {0};
-      track = VideoTracker.track(clip, new VideoTracker.Request(p, r, lamp, settings),
+      track = VideoTracker.track(clip, new VideoTracker.Request(p, r, lamp, settings, changeRegion),
           (f, info) -> {
             if (f.index() % 50 == 0) {
               err.printf(Locale.ROOT, "frame %d, %.3f s%s%n", f.index(), f.time_s(),
@@ -119,12 +123,10 @@ public final class TrackCommand implements Callable<Integer> {
     }
     VideoTable table = VideoTable.of(track, sc, dir);
     if (rr != null) {
-      VideoSync s = switch (how) {
-        case "light" -> VideoPosition.byLight(track, rr.metadata());
-        case "offset" -> VideoSync.offset(offsetValue());
-        default -> VideoSync.byBreak(rr.data().time_s(), rr.data().force_N(), table);
-      };
-      table = table.withSync(s);
+      VideoSync.Way way = VideoSync.Way.valueOf(how.toUpperCase(Locale.ROOT));
+      table = table.withSync(VideoPosition.sync(way,
+          way == VideoSync.Way.OFFSET ? offsetValue() : 0, track, table, rr.metadata(),
+          rr.data().time_s(), rr.data().force_N()));
     } else if (how.equals("offset")) {
       table = table.withSync(VideoSync.offset(offsetValue()));
     } else if (sync != null) {

@@ -42,6 +42,29 @@ public final class VideoPosition {
   }
 
   /**
+   * Puts a tracked clip on a run's clock the way asked.
+   *
+   * @param way how
+   * @param offset_s for {@link VideoSync.Way#OFFSET}, clip time minus run time, seconds (else
+   *     not read)
+   * @param track the tracked clip
+   * @param table its table
+   * @param run the run's metadata (where the light came on)
+   * @param time_s the run's times, seconds
+   * @param force_N the run's forces, newtons
+   * @throws LoadstoneException as the way's own method in {@link VideoSync}
+   */
+  public static VideoSync sync(VideoSync.Way way, double offset_s, Track track,
+      VideoTable table, RunMetadata run, double[] time_s, double[] force_N) {
+    return switch (way) {
+      case BREAK -> VideoSync.byBreak(time_s, force_N, table);
+      case CHANGE -> VideoSync.byImageChange(time_s, force_N, track);
+      case LIGHT -> byLight(track, run);
+      case OFFSET -> VideoSync.offset(offset_s);
+    };
+  }
+
+  /**
    * The run with its position taken from the video table, on the run's clock by the table's sync
    * (or by the break when the table has none). The run's samples outside the frames before the
    * first lost one are trimmed; the rise to the peak force must lie wholly inside them.

@@ -4,6 +4,7 @@ import static org.bytedeco.ffmpeg.global.avcodec.av_packet_alloc;
 import static org.bytedeco.ffmpeg.global.avcodec.av_packet_free;
 import static org.bytedeco.ffmpeg.global.avcodec.av_packet_unref;
 import static org.bytedeco.ffmpeg.global.avcodec.avcodec_alloc_context3;
+import static org.bytedeco.ffmpeg.global.avcodec.avcodec_flush_buffers;
 import static org.bytedeco.ffmpeg.global.avcodec.avcodec_find_decoder;
 import static org.bytedeco.ffmpeg.global.avcodec.avcodec_free_context;
 import static org.bytedeco.ffmpeg.global.avcodec.avcodec_get_name;
@@ -12,7 +13,9 @@ import static org.bytedeco.ffmpeg.global.avcodec.avcodec_parameters_to_context;
 import static org.bytedeco.ffmpeg.global.avcodec.avcodec_receive_frame;
 import static org.bytedeco.ffmpeg.global.avcodec.avcodec_send_packet;
 import static org.bytedeco.ffmpeg.global.avformat.av_find_best_stream;
+import static org.bytedeco.ffmpeg.global.avformat.AVSEEK_FLAG_BACKWARD;
 import static org.bytedeco.ffmpeg.global.avformat.av_read_frame;
+import static org.bytedeco.ffmpeg.global.avformat.av_seek_frame;
 import static org.bytedeco.ffmpeg.global.avformat.avformat_close_input;
 import static org.bytedeco.ffmpeg.global.avformat.avformat_find_stream_info;
 import static org.bytedeco.ffmpeg.global.avformat.avformat_open_input;
@@ -270,6 +273,30 @@ final class FfmpegClip implements ClipSource {
     }
     double t = (pts - firstPts) * tickSeconds;
     return new GreyFrame(index++, t, w, h, luma);
+  }
+
+  /**
+   * Moves back (or on) so that the next frames start at the last key frame at or before a capture
+   * time. The frames that follow carry their true capture times, but their numbers count on from
+   * where the decoder was, not from the key frame: {@link ClipFrames} numbers them by their time.
+   *
+   * @param time_s capture time from the first frame, seconds
+   * @throws LoadstoneException when the container cannot seek there (the clip is damaged)
+   */
+  void seekBefore(double time_s) {
+    if (firstPts == Long.MIN_VALUE) {
+      return; // nothing decoded yet: already at the start
+    }
+    long target = firstPts + (long) Math.floor(time_s / tickSeconds);
+    int r = av_seek_frame(format, stream, target, AVSEEK_FLAG_BACKWARD);
+    if (r < 0) {
+      throw new LoadstoneException(String.format(Locale.ROOT, "clip %s cannot be wound to %.3f "
+          + "s (%s): the file's index may be damaged; remux the clip to MP4", file, time_s,
+          text(r)));
+    }
+    avcodec_flush_buffers(decoder);
+    draining = false;
+    ended = false;
   }
 
   private LoadstoneException damaged(int err) {

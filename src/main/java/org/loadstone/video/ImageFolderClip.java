@@ -135,6 +135,19 @@ final class ImageFolderClip implements ClipSource {
     return new GreyFrame(index++, t, w, h, luma);
   }
 
+  /**
+   * Moves to the last image at or before a capture time (the first image for an earlier time).
+   *
+   * @param time_s capture time from the first image, seconds
+   */
+  void seekBefore(double time_s) {
+    int i = 0;
+    while (i + 1 < numbers.length && (numbers[i + 1] - numbers[0]) / rate_fps <= time_s) {
+      i++;
+    }
+    index = i;
+  }
+
   @Override
   public void close() {
     // nothing held between frames

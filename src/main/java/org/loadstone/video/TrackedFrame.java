@@ -14,6 +14,9 @@ package org.loadstone.video;
  * @param lost whether no position is known for this frame: the point or the reference was not
  *     found
  * @param light mean grey value of the sync-light region, 0–255 (NaN without a region)
+ * @param change how much the image changed since the previous frame tracked: the mean squared
+ *     difference of grey values in the change region ({@link ImageChange}), grey levels²; NaN
+ *     in the first frame
  */
 public record TrackedFrame(int index, double time_s, double x, double y, double refX,
-    double refY, double confidence, boolean lost, double light) {}
+    double refY, double confidence, boolean lost, double light, double change) {}

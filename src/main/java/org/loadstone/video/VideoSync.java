@@ -10,11 +10,28 @@ import org.loadstone.units.Setting;
  * How the clip's clock maps onto the run's: clip time = run time + {@code offset_s} (the
  * convention of {@link org.loadstone.analysis.position.PositionTable#resampleOnto}).
  *
- * @param method "break", "light" or "offset"
+ * @param method "break", "change", "light" or "offset"
  * @param offset_s clip time minus run time for the same instant, seconds
  * @param detail how it was found, in words
  */
 public record VideoSync(String method, double offset_s, String detail) {
+
+  /** The ways a clip is put on a run's clock. */
+  public enum Way {
+    /** The tracked point's jump against the force's drop. */
+    BREAK,
+    /** The image's sudden change against the force's drop. */
+    CHANGE,
+    /** The sync light's first bright frame against the run time it came on. */
+    LIGHT,
+    /** An offset given by hand. */
+    OFFSET;
+
+    /** @return the lower-case word */
+    public String word() {
+      return name().toLowerCase(Locale.ROOT);
+    }
+  }
 
   /** A light region must change by at least this many grey levels to count as a light. */
   public static final double LIGHT_CONTRAST = 40;
@@ -41,13 +58,7 @@ public record VideoSync(String method, double offset_s, String detail) {
    * @throws LoadstoneException when either record shows no clear break
    */
   public static VideoSync byBreak(double[] runTime_s, double[] force_N, VideoTable table) {
-    double forceBreak;
-    try {
-      forceBreak = BreakAlignment.forceBreakTime_s(runTime_s, force_N);
-    } catch (LoadstoneException e) {
-      throw new LoadstoneException("the clip cannot be synchronised by the break: "
-          + e.getMessage() + " Use the sync light or give the offset.", e, Setting.VIDEO_SYNC);
-    }
+    double forceBreak = forceBreak(runTime_s, force_N);
     PositionTable p = table.positionTable();
     double clipBreak = jump(p.time_s(), p.position_mm());
     return new VideoSync("break", clipBreak - forceBreak, String.format(Locale.ROOT,
@@ -63,35 +74,106 @@ public record VideoSync(String method, double offset_s, String detail) {
       throw new LoadstoneException("the clip has " + t.length + " frames with a position before "
           + "the point was lost; finding the break needs at least 6", Setting.VIDEO_SYNC);
     }
-    double[] resid = new double[m];
+    double[] steps = new double[m];
     for (int i = 0; i < m; i++) {
-      double[] around = new double[Math.min(m, i + 6) - Math.max(0, i - 5) - 1];
-      int k = 0;
-      for (int j = Math.max(0, i - 5); j < Math.min(m, i + 6); j++) {
-        if (j != i) {
-          around[k++] = x[j + 1] - x[j];
-        }
-      }
-      resid[i] = x[i + 1] - x[i] - median(around);
+      steps[i] = x[i + 1] - x[i];
     }
-    int best = 0;
-    for (int i = 1; i < m; i++) {
-      if (Math.abs(resid[i]) > Math.abs(resid[best])) {
-        best = i;
-      }
-    }
-    double[] abs = new double[m];
-    for (int i = 0; i < m; i++) {
-      abs[i] = Math.abs(resid[i]);
-    }
-    double sd = 1.4826 * median(abs);
-    if (!(Math.abs(resid[best]) > JUMP_STANDS_OUT * sd)) {
+    Spike s = Spike.in(steps);
+    if (!s.standsOut()) {
       throw new LoadstoneException(String.format(Locale.ROOT, "the tracked point shows no clear "
           + "jump at the break (its largest step, %.4f mm, is within %.0f times the step noise "
           + "%.4f mm), so the clip cannot be synchronised by the break: use the sync light or "
-          + "give the offset", Math.abs(resid[best]), JUMP_STANDS_OUT, sd), Setting.VIDEO_SYNC);
+          + "give the offset", s.size(), JUMP_STANDS_OUT, s.noise()), Setting.VIDEO_SYNC);
     }
-    return 0.5 * (t[best] + t[best + 1]);
+    return 0.5 * (t[s.index()] + t[s.index() + 1]);
+  }
+
+  /**
+   * The value of a series that differs most from the local level (the median of the ten values
+   * around it), with the series' robust noise (1.4826 × the median absolute difference).
+   */
+  record Spike(int index, double size, double noise) {
+    static Spike in(double[] v) {
+      int m = v.length;
+      double[] resid = new double[m];
+      for (int i = 0; i < m; i++) {
+        double[] around = new double[Math.min(m, i + 6) - Math.max(0, i - 5) - 1];
+        int k = 0;
+        for (int j = Math.max(0, i - 5); j < Math.min(m, i + 6); j++) {
+          if (j != i) {
+            around[k++] = v[j];
+          }
+        }
+        resid[i] = Math.abs(v[i] - median(around));
+      }
+      int best = 0;
+      for (int i = 1; i < m; i++) {
+        if (resid[i] > resid[best]) {
+          best = i;
+        }
+      }
+      return new Spike(best, resid[best], 1.4826 * median(resid));
+    }
+
+    boolean standsOut() {
+      return size > JUMP_STANDS_OUT * noise;
+    }
+  }
+
+  /**
+   * Sync by the image change at the break: the force record's steepest drop against the frame in
+   * which the image changed most suddenly ({@link TrackedFrame#change()}, the difference from the
+   * frame before standing out of the local level by {@link #JUMP_STANDS_OUT} robust SDs). The
+   * break happened between that frame and the one before, so its instant is taken as their
+   * midpoint: good to half a frame period. Needs no tracked point: lost frames count too.
+   *
+   * @param runTime_s the run's times, seconds
+   * @param force_N the run's forces, newtons
+   * @param track the tracked clip (its change series, in the region asked for)
+   * @throws LoadstoneException when the force shows no clear break, the clip has fewer than 7
+   *     frames, or no change stands out
+   */
+  public static VideoSync byImageChange(double[] runTime_s, double[] force_N, Track track) {
+    double forceBreak = forceBreak(runTime_s, force_N);
+    java.util.List<TrackedFrame> f = track.frames();
+    if (f.size() < 7) {
+      throw new LoadstoneException("the clip has " + f.size() + " frames; finding the image "
+          + "change at the break needs at least 7", Setting.VIDEO_SYNC);
+    }
+    double[] change = new double[f.size() - 1];
+    for (int i = 1; i < f.size(); i++) {
+      change[i - 1] = f.get(i).change();
+    }
+    Spike s = Spike.in(change);
+    if (!s.standsOut()) {
+      throw new LoadstoneException(String.format(Locale.ROOT, "the image shows no sudden change "
+          + "at the break (its largest change, %.3g grey levels², is within %.0f times the "
+          + "frame-to-frame noise %.3g), so the clip cannot be synchronised by the image change: "
+          + "mark a region over the specimen, use the sync light or give the offset", s.size(),
+          JUMP_STANDS_OUT, s.noise()), Setting.VIDEO_SYNC);
+    }
+    // fragments may keep the image changing for a few frames, the most in a later one: the
+    // break is where the burst began, the first of the frames in a row above half its height
+    double level = median(change);
+    int first = s.index();
+    while (first > 0 && change[first - 1] - level > 0.5 * (change[s.index()] - level)) {
+      first--;
+    }
+    TrackedFrame a = f.get(first);
+    TrackedFrame b = f.get(first + 1);
+    double clipBreak = 0.5 * (a.time_s() + b.time_s());
+    return new VideoSync("change", clipBreak - forceBreak, String.format(Locale.ROOT,
+        "break at run time %.4f s; image change between frames %d and %d, clip time %.4f s",
+        forceBreak, a.index(), b.index(), clipBreak));
+  }
+
+  private static double forceBreak(double[] runTime_s, double[] force_N) {
+    try {
+      return BreakAlignment.forceBreakTime_s(runTime_s, force_N);
+    } catch (LoadstoneException e) {
+      throw new LoadstoneException("the clip cannot be synchronised by the break: "
+          + e.getMessage() + " Use the sync light or give the offset.", e, Setting.VIDEO_SYNC);
+    }
   }
 
   private static double median(double[] v) {

@@ -23,13 +23,28 @@ public final class VideoTracker {
     void tracked(TrackedFrame frame, ClipInfo clip);
   }
 
-  /** What to track. */
+  /**
+   * What to track.
+   *
+   * @param point the point on the moving part, first frame
+   * @param reference a fixed point whose motion (camera shake) is taken off, or null
+   * @param lightRegion the sync light's region, or null
+   * @param settings how the points are tracked
+   * @param changeRegion where the image change is measured ({@link ImageChange}), or null for the
+   *     whole frame less the light's region
+   */
   public record Request(PixelPoint point, PixelPoint reference, PixelRegion lightRegion,
-      TrackSettings settings) {
+      TrackSettings settings, PixelRegion changeRegion) {
     /** Checks the required fields. */
     public Request {
       Precondition.notNull(point, "point");
       Precondition.notNull(settings, "settings");
+    }
+
+    /** A request measuring the image change over the whole frame (less the light). */
+    public Request(PixelPoint point, PixelPoint reference, PixelRegion lightRegion,
+        TrackSettings settings) {
+      this(point, reference, lightRegion, settings, null);
     }
   }
 
@@ -39,7 +54,7 @@ public final class VideoTracker {
    * @param progress told after each frame, or null
    * @param cancelled asked before each frame; true stops tracking with the frames so far
    * @return the track, {@link Track#complete()} false when cancelled
-   * @throws LoadstoneException when the clip has no frame, a point or the region lies outside the
+   * @throws LoadstoneException when the clip has no frame, a point or a region lies outside the
    *     frame, or the clip is damaged
    */
   public static Track track(ClipSource clip, Request request, Progress progress,
@@ -61,12 +76,14 @@ public final class VideoTracker {
           + "x" + first.height() + " frame: mark the light within the frame",
           org.loadstone.units.Setting.VIDEO_SYNC);
     }
+    ImageChange change = new ImageChange(first.width(), first.height(), request.changeRegion(),
+        region);
     List<TrackedFrame> frames = new ArrayList<>();
     PixelPoint p = request.point();
     PixelPoint r = request.reference();
     TrackedFrame f0 = new TrackedFrame(first.index(), first.time_s(), p.x(), p.y(),
         r == null ? Double.NaN : r.x(), r == null ? Double.NaN : r.y(), 1, false,
-        region == null ? Double.NaN : first.mean(region));
+        region == null ? Double.NaN : first.mean(region), change.next(first, true));
     frames.add(f0);
     if (progress != null) {
       progress.tracked(f0, info);
@@ -94,7 +111,7 @@ public final class VideoTracker {
       double conf = rs == null ? s.score() : Math.min(s.score(), rs.score());
       TrackedFrame f = new TrackedFrame(g.index(), g.time_s(), s.x(), s.y(),
           rs == null ? Double.NaN : rs.x(), rs == null ? Double.NaN : rs.y(), conf, lost,
-          region == null ? Double.NaN : g.mean(region));
+          region == null ? Double.NaN : g.mean(region), change.next(g, false));
       frames.add(f);
       if (progress != null) {
         progress.tracked(f, info);

@@ -33,6 +33,9 @@ final class SyntheticScene {
   /** Sync light: the region, and the time it comes on (NaN: never). */
   PixelRegion lamp = null;
   double lampOn_s = Double.NaN;
+  /** A crack that opens across the specimen: the region turns dark from the time given. */
+  PixelRegion crack = null;
+  double crackAt_s = Double.NaN;
 
   private final double[][] spots;
   private final double[][] refSpots;
@@ -84,6 +87,13 @@ final class SyntheticScene {
     for (int i = 0; i < img.length; i++) {
       double v = gl[1] + gl[0] * img[i] + noiseSd * noise.nextGaussian();
       out[i] = (byte) Math.max(0, Math.min(255, Math.round(v)));
+    }
+    if (crack != null && t >= crackAt_s) {
+      for (int y = crack.y(); y < crack.y() + crack.height(); y++) {
+        for (int x = crack.x(); x < crack.x() + crack.width(); x++) {
+          out[y * w + x] = (byte) 25;
+        }
+      }
     }
     if (lamp != null) {
       boolean on = t >= lampOn_s;

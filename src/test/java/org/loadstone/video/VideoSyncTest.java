@@ -26,6 +26,18 @@ class VideoSyncTest {
   record Clip(Track track, double[] time_s, double[] force_N, double trigger_s) {}
 
   Clip simulatedClip(long seed, double offset_s, double trigger_s) {
+    return simulatedClip(seed, offset_s, trigger_s, false, null);
+  }
+
+  /** The specimen's crack in the image: a strip below the loading nose's marker. */
+  static final PixelRegion CRACK = new PixelRegion(60, 100, 40, 6);
+
+  /**
+   * @param crack whether a crack opens across the specimen at the true break
+   * @param changeRegion where the tracker measures the image change, or null (whole frame)
+   */
+  Clip simulatedClip(long seed, double offset_s, double trigger_s, boolean crack,
+      PixelRegion changeRegion) {
     // a light bench press: its frame gives 150 N/mm, so it springs forward by F/150 at the break
     SimulatedFrame f = SimulatedFrame.builder().scenario(Scenario.BRITTLE).rateHz(500).seed(seed)
         .frameStiffness_N_per_mm(150).crossheadRate_mm_per_s(1.0).build();
@@ -49,6 +61,10 @@ class VideoSyncTest {
     s.reference = new double[] {28, 92};
     s.lamp = new PixelRegion(140, 4, 12, 10);
     s.lampOn_s = trigger_s + offset_s;
+    if (crack) {
+      s.crack = CRACK;
+      s.crackAt_s = truth.breakTime_s() + offset_s;
+    }
     Path clip = dir.resolve("run" + seed + ".avi");
     int frames = (int) ((t[t.length - 1] + offset_s) * FPS) - 1;
     try (ClipWriter w = new ClipWriter(clip, ClipWriter.Kind.MJPEG_AVI, 160, 120, FPS, FPS, 0)) {
@@ -60,7 +76,7 @@ class VideoSyncTest {
     try (ClipSource c = Clips.open(clip, null)) {
       double[] m = s.marker.apply(0);
       track = VideoTracker.track(c, new VideoTracker.Request(new PixelPoint(m[0], m[1]),
-          new PixelPoint(28, 92), s.lamp, TrackSettings.DEFAULTS), null, null);
+          new PixelPoint(28, 92), s.lamp, TrackSettings.DEFAULTS, changeRegion), null, null);
     }
     return new Clip(track, t, force, trigger_s);
   }
@@ -100,6 +116,46 @@ class VideoSyncTest {
       // the first bright frame is at or after the light came on, never before
       assertThat(byLight.offset_s()).isGreaterThanOrEqualTo(offset - 1e-9);
     }
+  }
+
+  @Test
+  void theImageChangeRecoversTheOffsetWithinOneFrame() {
+    double frame = 1.0 / FPS;
+    for (long seed = 4; seed <= 5; seed++) {
+      double offset = 0.3 + 0.41 * seed;
+      // the whole frame less the light (which comes on at the trigger): the nose springs forward
+      Clip whole = simulatedClip(seed, offset, 0.5);
+      VideoSync byWhole = VideoSync.byImageChange(whole.time_s(), whole.force_N(), whole.track());
+      // a region over the specimen alone, where a crack opens at the break
+      Clip cracked = simulatedClip(seed, offset, 0.5, true,
+          new PixelRegion(CRACK.x() - 4, CRACK.y() - 4, CRACK.width() + 8, CRACK.height() + 8));
+      VideoSync byRegion = VideoSync.byImageChange(cracked.time_s(), cracked.force_N(),
+          cracked.track());
+      System.out.printf("seed %d: true %.4f, change (frame) %.4f, change (region) %.4f%n", seed,
+          offset, byWhole.offset_s(), byRegion.offset_s());
+      // the issue: within one frame period of the known offset
+      assertThat(byWhole.method()).isEqualTo("change");
+      assertThat(byWhole.offset_s()).isCloseTo(offset, org.assertj.core.data.Offset.offset(frame));
+      assertThat(byRegion.offset_s()).isCloseTo(offset,
+          org.assertj.core.data.Offset.offset(frame));
+    }
+  }
+
+  @Test
+  void aRegionWhereNothingHappensIsRefused() {
+    // background only: no marker, reference, light or crack passes through it
+    Clip c = simulatedClip(6, 0.5, 0.5, false, new PixelRegion(104, 96, 40, 20));
+    assertThatThrownBy(() -> VideoSync.byImageChange(c.time_s(), c.force_N(), c.track()))
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("no sudden change at the break")
+        .hasMessageContaining("mark a region over the specimen");
+  }
+
+  @Test
+  void aChangeRegionOutsideTheFrameIsRefused() {
+    assertThatThrownBy(() -> simulatedClip(7, 0.5, 0.5, false, new PixelRegion(150, 100, 20, 30)))
+        .isInstanceOf(LoadstoneException.class)
+        .hasMessageContaining("image-change region 150,100,20,30 reaches outside the 160x120");
   }
 
   @Test
