@@ -80,16 +80,17 @@ public record ScaleChoice(ForceScale scale, ScaleSpec spec, String description,
   }
 
   /**
-   * Loads a calibration for a run: a calibration changed since it was saved is used with its
-   * warning shown and stored with the run.
+   * Loads a calibration for a run, refusing one changed since it was saved (the one rule of
+   * {@link CalibrationStatus#refuseChanged}, for {@code record}, {@code analyze} and the
+   * console alike).
    *
    * @param file the calibration JSON
    * @param today for the expiry check
-   * @throws LoadstoneException when the file is missing, unreadable or damaged (naming the file and
-   *     field)
+   * @throws LoadstoneException when the file is missing, unreadable, damaged or changed since it
+   *     was saved (naming the file and the fix)
    */
   public static ScaleChoice fromCalibration(Path file, LocalDate today) {
-    return fromCalibration(file, today, true);
+    return fromCalibration(file, today, false);
   }
 
   /**

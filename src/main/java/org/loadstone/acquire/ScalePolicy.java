@@ -11,7 +11,10 @@ import org.loadstone.units.Setting;
  * line and the console.
  *
  * <ul>
- *   <li>A calibration, when one is chosen, always wins.
+ *   <li>A calibration, when one is chosen, always wins; one changed since it was saved is
+ *       refused unless accepted knowingly ({@link
+ *       org.loadstone.calibration.CalibrationStatus#refuseChanged}), and then its warning is
+ *       shown and stored with each run.
  *   <li>Otherwise a nominal sensitivity is used only when the user gave one, or on the simulated
  *       frame, whose cell's data sheet is known; a nominal scale always carries a warning that is
  *       shown before the run and stored with it.
@@ -36,8 +39,20 @@ public final class ScalePolicy {
    */
   public static ScaleChoice choose(Path calibration, Double nominalCountsPerN, SimSetup simulated,
       LocalDate today) {
+    return choose(calibration, nominalCountsPerN, simulated, today, false);
+  }
+
+  /**
+   * As {@link #choose(Path, Double, SimSetup, LocalDate)}, with the user's answer to a
+   * calibration changed since it was saved.
+   *
+   * @param acceptChanged whether such a calibration may be used (with its warning) rather than
+   *     refused
+   */
+  public static ScaleChoice choose(Path calibration, Double nominalCountsPerN, SimSetup simulated,
+      LocalDate today, boolean acceptChanged) {
     if (calibration != null) {
-      return ScaleChoice.fromCalibration(calibration, today);
+      return ScaleChoice.fromCalibration(calibration, today, acceptChanged);
     }
     if (nominalCountsPerN != null) {
       if (!(Double.isFinite(nominalCountsPerN) && nominalCountsPerN != 0)) {

@@ -15,8 +15,10 @@ import org.loadstone.units.Precondition;
 
 /**
  * The runs in an archive folder, found by their JSON sidecars, with search by date, specimen,
- * group, tag and finish cause. Reads metadata only; samples are read on demand. A damaged sidecar
- * does not hide the others: it is listed in {@link #problems()}.
+ * group, tag and finish cause. A damaged sidecar does not hide the others: it is listed in
+ * {@link #problems()}. A run whose samples cannot be read is listed and marked ({@link
+ * Entry#damaged}); the archive index checks each run's samples once and keeps the answer while
+ * its files stay as they were.
  */
 public final class ArchiveIndex {
   /**
@@ -25,8 +27,29 @@ public final class ArchiveIndex {
    * @param metadata its sidecar
    * @param json the sidecar file
    * @param csv the samples file beside it
+   * @param samplesProblem null when its samples read; else what is wrong with them and the fix
+   *     ({@link RunReader#samplesProblem}): the run is listed, but is damaged
    */
-  public record Entry(RunMetadata metadata, Path json, Path csv) {}
+  public record Entry(RunMetadata metadata, Path json, Path csv, String samplesProblem) {
+    /** A run whose samples read. */
+    public Entry(RunMetadata metadata, Path json, Path csv) {
+      this(metadata, json, csv, null);
+    }
+
+    /** @return whether its samples cannot be read ({@link #samplesProblem} says why) */
+    public boolean damaged() {
+      return samplesProblem != null;
+    }
+
+    /**
+     * @return the damage in the words every listing uses: the run, why it cannot be read and
+     *     the fix; null when it is not damaged
+     */
+    public String damage() {
+      return samplesProblem == null ? null
+          : "run " + metadata.runId() + " cannot be read: " + samplesProblem;
+    }
+  }
 
   /**
    * A sidecar that could not be read.
@@ -117,15 +140,16 @@ public final class ArchiveIndex {
   /** @return the run of one sidecar as an {@link Entry}, or why not as an {@link Unreadable} */
   static Object read(Path json) {
     try {
-      return entry(json, RunReader.readMetadata(json));
+      RunMetadata m = RunReader.readMetadata(json);
+      return entry(json, m, RunReader.samplesProblem(m, json));
     } catch (LoadstoneException e) {
       return new Unreadable(json, e.getMessage());
     }
   }
 
-  static Entry entry(Path json, RunMetadata m) {
+  static Entry entry(Path json, RunMetadata m, String samplesProblem) {
     String stem = json.getFileName().toString().replaceFirst("\\.json$", "");
-    return new Entry(m, json, json.resolveSibling(stem + ".csv"));
+    return new Entry(m, json, json.resolveSibling(stem + ".csv"), samplesProblem);
   }
 
   /**

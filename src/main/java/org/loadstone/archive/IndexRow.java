@@ -21,10 +21,17 @@ import java.util.Map;
  * @param amend the amendment log's size and time, {@link RunIndex.Stat#NONE} when there was none
  * @param amendSha256 SHA-256 of the amendment log, null when there was none
  * @param amendments the amendment log's text, null when there was none
+ * @param samplesProblem null when the samples read; else why not and the fix
  */
 record IndexRow(String name, RunIndex.Stat json, RunIndex.Stat csv, String jsonSha256,
     String csvSha256, String sidecar, RunIndex.Stat amend, String amendSha256,
-    String amendments) {
+    String amendments, String samplesProblem) {
+
+  /** @return this row with the answer of its samples' check */
+  IndexRow withSamplesProblem(String problem) {
+    return new IndexRow(name, json, csv, jsonSha256, csvSha256, sidecar, amend, amendSha256,
+        amendments, problem);
+  }
 
   /** @return whether the run's files look as they did when the row was made */
   boolean matches(RunIndex.Stat jsonNow, RunIndex.Stat csvNow, RunIndex.Stat amendNow) {
@@ -41,12 +48,12 @@ record IndexRow(String name, RunIndex.Stat json, RunIndex.Stat csv, String jsonS
     Map<String, IndexRow> rows = new HashMap<>();
     try (Statement s = c.createStatement(); ResultSet r = s.executeQuery("SELECT name, "
         + "json_size, json_mtime_ns, csv_size, csv_mtime_ns, json_sha256, csv_sha256, sidecar, "
-        + "amend_size, amend_mtime_ns, amend_sha256, amendments FROM runs")) {
+        + "amend_size, amend_mtime_ns, amend_sha256, amendments, samples_problem FROM runs")) {
       while (r.next()) {
         IndexRow row = new IndexRow(r.getString(1), new RunIndex.Stat(r.getLong(2), r.getLong(3)),
             new RunIndex.Stat(r.getLong(4), r.getLong(5)), r.getString(6), r.getString(7),
             r.getString(8), new RunIndex.Stat(r.getLong(9), r.getLong(10)), r.getString(11),
-            r.getString(12));
+            r.getString(12), r.getString(13));
         rows.put(row.name(), row);
       }
     }
@@ -65,8 +72,8 @@ record IndexRow(String name, RunIndex.Stat json, RunIndex.Stat csv, String jsonS
     try (Statement s = c.createStatement();
         PreparedStatement put = c.prepareStatement("INSERT OR REPLACE INTO runs (name, "
             + "json_size, json_mtime_ns, csv_size, csv_mtime_ns, json_sha256, csv_sha256, "
-            + "sidecar, amend_size, amend_mtime_ns, amend_sha256, amendments) "
-            + "VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)");
+            + "sidecar, amend_size, amend_mtime_ns, amend_sha256, amendments, samples_problem) "
+            + "VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)");
         PreparedStatement stale = c.prepareStatement(
             "DELETE FROM figures WHERE name = ? AND content_sha256 <> ?");
         PreparedStatement dropRun = c.prepareStatement("DELETE FROM runs WHERE name = ?");
@@ -86,6 +93,7 @@ record IndexRow(String name, RunIndex.Stat json, RunIndex.Stat csv, String jsonS
           put.setLong(10, r.amend().mtime_ns());
           put.setString(11, r.amendSha256());
           put.setString(12, r.amendments());
+          put.setString(13, r.samplesProblem());
           put.executeUpdate();
           stale.setString(1, r.name());
           stale.setString(2, r.contentSha256());

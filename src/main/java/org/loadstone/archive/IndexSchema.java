@@ -17,14 +17,15 @@ import java.util.List;
  * (ns) of the sidecar and of the samples file beside it when it was read ({@code csv_size} −1
  * when there was none), the SHA-256 of both files' bytes ({@code csv_sha256} null without a
  * readable samples file) and the sidecar's text; since version 2 also the run's amendment log
- * ({@code amend_size} −1 and the rest null when it has none), its SHA-256 and text.
+ * ({@code amend_size} −1 and the rest null when it has none), its SHA-256 and text; since
+ * version 3 {@code samples_problem}: null when the samples read, else why not and the fix.
  * {@code figures}: what the study computed from
  * a run, by file name and settings key, valid while the run's content hash is the one stored
  * with it.
  */
 final class IndexSchema {
   /** The version this program writes and reads. */
-  static final int VERSION = 2;
+  static final int VERSION = 3;
 
   /** Step {@code i} takes an index from version {@code i} to {@code i + 1}. */
   private static final List<List<String>> STEPS = List.of(
@@ -39,7 +40,10 @@ final class IndexSchema {
       List.of("ALTER TABLE runs ADD COLUMN amend_size INTEGER NOT NULL DEFAULT -1",
           "ALTER TABLE runs ADD COLUMN amend_mtime_ns INTEGER NOT NULL DEFAULT -1",
           "ALTER TABLE runs ADD COLUMN amend_sha256 TEXT",
-          "ALTER TABLE runs ADD COLUMN amendments TEXT"));
+          "ALTER TABLE runs ADD COLUMN amendments TEXT"),
+      // 3: whether the run's samples read (null) or why not; older rows never checked them, so
+      // they are dropped and read again from the files (figures stay: they follow the content)
+      List.of("ALTER TABLE runs ADD COLUMN samples_problem TEXT", "DELETE FROM runs"));
 
   private IndexSchema() {}
 

@@ -145,7 +145,7 @@ final class RunCsv {
         if (!cols.containsKey(need)) {
           throw new LoadstoneException("run file " + file + ", line 1: column '" + need
               + "' is missing (header is " + InputException.shown(String.join(",", parser.getHeaderNames())) + "): the file must start"
-              + " with " + HEADER_TEXT);
+              + " with " + HEADER_TEXT + "; restore it from a backup if it was damaged");
         }
       }
       boolean posCols = cols.containsKey("position_mm") && cols.containsKey("raw_position");
@@ -162,7 +162,8 @@ final class RunCsv {
           throw new LoadstoneException("run file " + file + ", line " + line + ": " + r.size()
               + " cells where the header has " + cols.size() + " (column " + (r.size() + 1)
               + " missing or extra cells): every line needs a cell for every column, empty"
-              + " position cells included");
+              + " position cells included; a line cut short means the file was damaged or"
+              + " copied in part: restore it from a backup");
         }
         Cell at = new Cell(file, line, cols, r);
         double t = at.decimal("time_s");

@@ -37,7 +37,8 @@ import org.sqlite.SQLiteConfig;
  *   <li>Each time it is used it is brought up to date: the folder is listed, each run's two
  *       files are looked at (size and modification time), and only a run that is new or whose
  *       files changed is read again (its sidecar, and the SHA-256 of both files); rows of runs
- *       that are gone are removed. Unreadable sidecars are not kept: they are read every time,
+ *       that are gone are removed. A new or changed run's samples are read once to check them
+ *       ({@link RunReader#samplesProblem}); the answer is kept with the row. Unreadable sidecars are not kept: they are read every time,
  *       so they are listed with their reason exactly as by {@link ArchiveIndex#scan}.
  *   <li>A damaged file (not a database, corrupt pages, tables not ours) is deleted and rebuilt
  *       from the run files, with a note saying so. An index written by a newer Loadstone is
@@ -132,10 +133,15 @@ public final class RunIndex {
         Stat as = Stat.of(Amendments.file(json));
         boolean fresh = row == null || !row.matches(js, cs, as);
         try {
+          RunMetadata m;
           if (fresh) {
             row = readRun(json, js, cs, as);
+            m = metadata(json, row);
+            row = row.withSamplesProblem(RunReader.samplesProblem(m, json));
+          } else {
+            m = metadata(json, row);
           }
-          entries.add(ArchiveIndex.entry(json, metadata(json, row)));
+          entries.add(ArchiveIndex.entry(json, m, row.samplesProblem()));
         } catch (LoadstoneException e) {
           problems.add(new ArchiveIndex.Unreadable(json, e.getMessage()));
           continue;
@@ -175,7 +181,7 @@ public final class RunIndex {
         cs == null ? Stat.NONE : cs, sha256(text.getBytes(StandardCharsets.UTF_8)), csvSha, text,
         as == null ? Stat.NONE : as,
         amendments == null ? null : sha256(amendments.getBytes(StandardCharsets.UTF_8)),
-        amendments);
+        amendments, null);
   }
 
   /** The run's metadata from the row: its sidecar with its amendment log applied. */

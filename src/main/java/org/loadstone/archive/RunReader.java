@@ -30,10 +30,15 @@ public final class RunReader {
     Path csv = stem.resolveSibling(name + ".csv");
     Path json = stem.resolveSibling(name + ".json");
     RunMetadata meta = readMetadata(json);
-    RunData data;
     if (!Files.exists(csv)) {
       throw missing(csv, json);
     }
+    return new Run(meta, samplesOf(meta, csv, json), csv, json);
+  }
+
+  /** The samples of a run whose metadata is read, checked against it (its break index). */
+  private static RunData samplesOf(RunMetadata meta, Path csv, Path json) {
+    RunData data;
     try {
       data = readSamples(csv);
     } catch (IOException e) {
@@ -44,7 +49,31 @@ public final class RunReader {
           + meta.breakIndex() + " but " + csv.getFileName() + " has only " + data.size()
           + " samples: the two files do not belong together; restore them from a backup");
     }
-    return new Run(meta, data, csv, json);
+    return data;
+  }
+
+  /**
+   * Whether a run's samples can be read as {@link #read} reads them (every cell checked, the
+   * break index within the samples); the archive index keeps the answer while the files stay
+   * as they were, so a listing finds a damaged run without reading it again.
+   *
+   * @param meta the run's metadata, already read from {@code json}
+   * @param json the run's sidecar
+   * @return null when the samples read; else what is wrong with them (naming the file, and the
+   *     line and column where there is one) and the fix
+   */
+  public static String samplesProblem(RunMetadata meta, Path json) {
+    Path csv = stem(json).resolveSibling(stem(json).getFileName() + ".csv");
+    if (!Files.exists(csv)) {
+      return "its samples file " + csv.getFileName() + " is missing beside "
+          + json.getFileName() + ": restore it from a backup";
+    }
+    try {
+      samplesOf(meta, csv, json);
+      return null;
+    } catch (LoadstoneException e) {
+      return e.getMessage();
+    }
   }
 
   /**

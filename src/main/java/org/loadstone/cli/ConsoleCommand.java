@@ -24,6 +24,9 @@ public final class ConsoleCommand implements Callable<Integer> {
   @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file of the cell (a serial device or the simulated frame).")
   java.nio.file.Path cal;
 
+  @Option(names = "--accept-changed-calibration", description = "Use the --cal calibration even though its content changed since it was saved (refused otherwise; each run stores the warning).")
+  boolean acceptChanged;
+
   @Option(names = "--capacity-n", paramLabel = "N", description = "The load cell's rated capacity (default: from the calibration's cell profile).")
   Double capacity;
 
@@ -56,7 +59,7 @@ public final class ConsoleCommand implements Callable<Integer> {
     var sim = device.simulated() ? device.simSetup() : null;
     // no calibration and no nominal sensitivity on a serial device: the live view shows counts,
     // runs are refused
-    ScaleChoice scale = ScalePolicy.choose(cal, countsPerN, sim, today);
+    ScaleChoice scale = ScalePolicy.choose(cal, countsPerN, sim, today, acceptChanged);
     if (sim != null) {
       return DefaultDevice.simulated(sim, scale, capacity, archive.folder(),
           SafetyNotice.defaultHome(), zeroDriftLimit);

@@ -31,6 +31,7 @@ final class JsonViews {
     row.put("retired", m.amendments().retired());
     row.put("csv_file", e.csv().toString());
     row.put("sidecar_file", e.json().toString());
+    row.put("samples_problem", e.samplesProblem());
     return row;
   }
 

@@ -64,6 +64,9 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--cal", paramLabel = "FILE", description = "Calibration file to turn counts into force.")
   Path cal;
 
+  @Option(names = "--accept-changed-calibration", description = "Use the --cal calibration even though its content changed since it was saved (refused otherwise; the run stores the warning).")
+  boolean acceptChanged;
+
   @Option(names = "--counts-per-n", paramLabel = "K", description = "Without a calibration: a nominal sensitivity (counts per N); the run is marked uncalibrated.")
   Double countsPerN;
 
@@ -168,7 +171,7 @@ public final class RecordCommand implements Callable<Integer> {
     }
 
     ScaleChoice scale = ScalePolicy.choose(cal, countsPerN,
-        device.simulated() ? device.simSetup() : null, LocalDate.now());
+        device.simulated() ? device.simSetup() : null, LocalDate.now(), acceptChanged);
     RunSettings.Builder b = RunSettings.builder().startThreshold_N(startAt).breakDropPct(dropPct)
         .absoluteStop_N(stopBelow).debounce_s(debounce).postBreak_s(tail).pretrigger_s(pretrigger)
         .overloadWarnPct(warnPct).overloadStopPct(overloadPct).maxSeconds(maxSeconds);

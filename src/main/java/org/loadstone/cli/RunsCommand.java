@@ -23,6 +23,9 @@ import picocli.CommandLine.Option;
 /** {@code loadstone runs}: lists and searches the archive. */
 @Command(name = "runs", description = "List the runs in the archive, optionally filtered.")
 public final class RunsCommand implements Callable<Integer> {
+  /** The mark of a run whose samples cannot be read; a warning below the list says why. */
+  static final String DAMAGED = "DAMAGED (see below)";
+
   @Mixin ArchiveOption archive;
 
   @Option(names = "--from", paramLabel = "DATE", description = "Started on or after this date (YYYY-MM-DD, UTC).")
@@ -60,19 +63,16 @@ public final class RunsCommand implements Callable<Integer> {
     out.printf("%-40s %-14s %-10s %-12s %-20s %s%n", "run", "specimen", "group", "cause",
         "started (UTC)", "amendments");
     List<Map<String, Object>> rows = new ArrayList<>();
+    List<String> problems = new ArrayList<>(idx.problems());
     for (ArchiveIndex.Entry e : found) {
       RunMetadata m = e.metadata();
       rows.add(JsonViews.run(e));
+      String amended = m.amendments().summary();
       out.printf(Locale.ROOT, "%-40s %-14s %-10s %-12s %-20s %s%n", m.runId(), m.specimen(),
           m.group(), m.cause().wireName(), m.startedAt().toString().substring(0, 19),
-          m.amendments().summary());
-    }
-    List<String> problems = new ArrayList<>(idx.problems());
-    for (ArchiveIndex.Entry e : found) {
-      if (!java.nio.file.Files.isRegularFile(e.csv())) {
-        problems.add("run " + e.metadata().runId() + " cannot be read: its samples file "
-            + e.csv().getFileName() + " is missing beside " + e.json().getFileName()
-            + ": restore it from a backup");
+          e.damaged() ? (DAMAGED + " " + amended).strip() : amended);
+      if (e.damaged()) {
+        problems.add(e.damage());
       }
     }
     for (String p : problems) {
@@ -90,9 +90,8 @@ public final class RunsCommand implements Callable<Integer> {
         unreadable.add(unreadable(u.json(), u.message()));
       }
       for (ArchiveIndex.Entry e : found) {
-        if (!java.nio.file.Files.isRegularFile(e.csv())) {
-          unreadable.add(unreadable(e.json(), "its samples file " + e.csv().getFileName()
-              + " is missing"));
+        if (e.damaged()) {
+          unreadable.add(unreadable(e.json(), e.damage()));
         }
       }
       j.put("unreadable", unreadable);

@@ -232,6 +232,9 @@ public final class ArchiveRuns {
 
   private Analysed analysis(ArchiveIndex.Entry e) {
     return analysed.computeIfAbsent(e.json(), k -> {
+      if (e.damaged()) {
+        return new Analysed(e.metadata(), null, e.samplesProblem()); // the listing read them
+      }
       String text = keptFigures().get(e.json());
       Analysed a = text == null ? null : KeptFigures.read(text, e.metadata(), samples(e));
       if (a != null) {

@@ -16,7 +16,7 @@ final class ConsoleHints {
   static String where(Setting s) {
     return switch (s) {
       case CALIBRATION -> "Calibrate tab: make or use a calibration";
-      case CHANGED_CALIBRATION -> null;
+      case CHANGED_CALIBRATION -> "start the console with --accept-changed-calibration";
       case NOMINAL_SENSITIVITY -> "start the console with a nominal sensitivity (--counts-per-n)";
       case RATED_CAPACITY -> "start the console with the cell's capacity (--capacity-n)";
       case ZERO_DRIFT_LIMIT -> "start the console with another limit (--zero-drift-n)";

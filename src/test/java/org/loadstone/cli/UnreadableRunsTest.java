@@ -98,7 +98,16 @@ class UnreadableRunsTest {
     assertThat(runs.exit()).as(runs.toString()).isZero();
     assertThat(runs.err()).contains("garbled.json").contains("no-samples")
         .contains("is missing");
-    assertThat(runs.lastJson().get("unreadable")).hasSize(2);
+    // the sidecar, the missing samples file, and the three samples files the reader refuses:
+    // not a run file (0), a NaN force (3), time not increasing (4); the others read but cannot
+    // be analysed (header only, one sample, no force), which compare says
+    assertThat(runs.lastJson().get("unreadable")).hasSize(5);
+    for (int i : new int[] {0, 3, 4}) {
+      assertThat(runs.err()).contains("damaged-" + i + " cannot be read: run file");
+    }
+    for (int i : new int[] {1, 2, 5}) {
+      assertThat(runs.err()).doesNotContain("damaged-" + i + " cannot be read");
+    }
 
     CliRun group = CliRun.run("", "report", "--archive", arc.toString(), "--group",
         "foam,balsa", "--out", dir.resolve("g.pdf").toString());
