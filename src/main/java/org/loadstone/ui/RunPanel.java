@@ -178,7 +178,7 @@ final class RunPanel {
     try {
       RunTemplate template = form.template(); // a bad mass or size is refused before arming
       request = new RunSetup.Request(template,
-          device.scale(), config.ratedCapacity_N(), RunSettings.builder(),
+          device.scale(), config.ratedCapacity_N(), form.settings(),
           config.zeroDriftLimit_N(), null, false,
           org.loadstone.units.SoftwareVersion.get());
       RunSetup.check(request, config.deviceLabel());
@@ -187,6 +187,7 @@ final class RunPanel {
       form.remember();
       armedSpecimen = template.specimen();
     } catch (LoadstoneException e) {
+      form.runSettings().show(e); // under the field it concerns, too
       runResult.setText(ConsoleHints.withHow(e));
       return;
     }
@@ -262,6 +263,12 @@ final class RunPanel {
     }
     PressOperator.forTransport(reader.transport()).nextSpecimen();
     runResult.setText("a new specimen is in the press: arm to load it");
+  }
+
+  /** Shows forces in {@code u}: the figures and the start force's field. */
+  void setUnit(org.loadstone.units.ForceUnit u) {
+    form.setUnit(u);
+    figures.setUnit(u);
   }
 
   /** @return the run form */
