@@ -123,7 +123,10 @@ final class LivePane {
     VBox header = new VBox(top);
     SafetyNotice notice = new SafetyNotice(config.home());
     if (notice.needed()) {
-      header.getChildren().add(safetyBanner(notice, header));
+      header.getChildren().add(SafetyBanner.of(notice, banner -> {
+        header.getChildren().remove(banner);
+        root.requestFocus(); // back to the window, so the one-key commands act (not a field)
+      }));
     }
     band = new StateBand(run.actions());
     header.getChildren().add(band.node());
@@ -204,25 +207,6 @@ final class LivePane {
     return r;
   }
 
-  private Parent safetyBanner(SafetyNotice notice, VBox header) {
-    Label text = label("safety-text", "Safety.  " + SafetyNotice.TEXT);
-    text.setWrapText(true);
-    HBox.setHgrow(text, Priority.ALWAYS);
-    Button ok = new Button("I understand");
-    ok.setId("safety-ack");
-    ok.setMinWidth(javafx.scene.layout.Region.USE_PREF_SIZE);
-    HBox banner = new HBox(14, text, ok);
-    banner.setId("safety-banner");
-    banner.getStyleClass().add("safety-banner");
-    banner.setAlignment(Pos.CENTER_LEFT);
-    ok.setOnAction(e -> {
-      notice.acknowledge();
-      header.getChildren().remove(banner);
-      root.requestFocus(); // back to the window, so the one-key commands act (not a field)
-    });
-    return banner;
-  }
-
   void installKeys(Scene scene) {
     installKeys(scene, () -> true);
   }
@@ -232,28 +216,9 @@ final class LivePane {
    * the one shown) and not while typing in a field.
    */
   void installKeys(Scene scene, java.util.function.BooleanSupplier active) {
-    scene.addEventHandler(javafx.scene.input.KeyEvent.KEY_PRESSED, e -> {
-      if (e.getCode() == KeyCode.ESCAPE) {
-        run.stop(); // stop is one key from anywhere, even while typing in a field
-        return;
-      }
-      if (!active.getAsBoolean() || e.getTarget() instanceof javafx.scene.control.TextInputControl) {
-        return; // typing a specimen id, or looking at the archive: not a shortcut
-      }
-      if (e.getCode() == KeyCode.Z) {
-        tare();
-      } else if (e.getCode() == KeyCode.P) {
-        clearPeak();
-      } else if (e.getCode() == KeyCode.A) {
-        run.arm();
-      } else if (e.getCode() == KeyCode.S) {
-        run.stop();
-      } else if (e.getCode() == KeyCode.X) {
-        togglePlot();
-      } else if (e.getCode() == KeyCode.N) {
-        run.nextSpecimen();
-      }
-    });
+    LiveKeys.install(scene, active, java.util.Map.of(KeyCode.Z, this::tare,
+        KeyCode.P, this::clearPeak, KeyCode.A, run::arm, KeyCode.S, run::stop,
+        KeyCode.X, this::togglePlot, KeyCode.N, run::nextSpecimen), run::stop);
   }
 
   private void tare() {

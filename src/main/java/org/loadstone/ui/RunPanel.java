@@ -329,29 +329,12 @@ final class RunPanel {
    */
   void recoverJournals() {
     recovering = true;
-    Thread t = new Thread(() -> {
-      String notice;
-      try {
-        List<String> names = new java.util.ArrayList<>();
-        for (org.loadstone.archive.StoredRun r
-            : org.loadstone.archive.JournalRecovery.recoverAll(config.archive())) {
-          names.add(r.csv().getFileName().toString());
-        }
-        notice = names.isEmpty() ? null : "recovered an unfinished run from its journal: "
-            + String.join(", ", names);
-      } catch (LoadstoneException e) {
-        notice = ConsoleHints.withHow(e);
+    LeftJournals.recover(config.archive(), notice -> {
+      recovering = false;
+      if (notice != null) {
+        runResult.setText(notice);
       }
-      String shown = notice;
-      Platform.runLater(() -> {
-        recovering = false;
-        if (shown != null) {
-          runResult.setText(shown);
-        }
-      });
-    }, "journal recovery");
-    t.setDaemon(true);
-    t.start();
+    });
   }
 
   /** Whether recovery of left journals is still running. */
