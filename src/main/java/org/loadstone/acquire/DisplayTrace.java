@@ -8,6 +8,7 @@ package org.loadstone.acquire;
  */
 public final class DisplayTrace {
   private final double window_s;
+  private final int buckets;
   private final double bucket_s;
   private final int capacity;
   private final double[] t;
@@ -29,6 +30,7 @@ public final class DisplayTrace {
       throw new IllegalArgumentException("window must be > 0 s and buckets ≥ 10");
     }
     this.window_s = window_s;
+    this.buckets = buckets;
     this.bucket_s = window_s / buckets;
     this.capacity = 2 * buckets + 4;
     this.t = new double[capacity];
@@ -88,6 +90,29 @@ public final class DisplayTrace {
     t[i] = time;
     v[i] = value;
     size++;
+  }
+
+  /** @return the seconds of history kept */
+  public double window_s() {
+    return window_s;
+  }
+
+  /**
+   * A trace over another window with the same number of buckets, holding this one's points (the
+   * open bucket included) as far back as the new window reaches.
+   *
+   * @param window_s seconds of history, greater than 0
+   */
+  public DisplayTrace resized(double window_s) {
+    DisplayTrace d = new DisplayTrace(window_s, buckets);
+    int n = size();
+    double[] times = new double[n];
+    double[] values = new double[n];
+    int m = copyTo(times, values);
+    for (int i = 0; i < m; i++) {
+      d.add(times[i], values[i]);
+    }
+    return d;
   }
 
   /** Forgets everything. */

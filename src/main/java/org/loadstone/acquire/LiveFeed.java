@@ -13,7 +13,10 @@ import org.loadstone.units.Precondition;
 public final class LiveFeed {
   private final DeviceReader reader;
   private final SampleRing.Cursor cursor;
-  private final DisplayTrace trace;
+  private DisplayTrace trace;
+  /** A trace window asked for, applied at the next poll; NaN for none. */
+  private volatile double windowToUse = Double.NaN;
+  private double peakTime_s = Double.NaN;
   private final CurveTrace curve = new CurveTrace(2400);
   /** Crosshead position where the curve began, NaN until its first point. */
   private double curveStart_mm = Double.NaN;
@@ -44,6 +47,17 @@ public final class LiveFeed {
     this.scale = Precondition.notNull(scale, "scale");
     this.cursor = reader.ring().cursorAtOldest();
     this.trace = new DisplayTrace(window_s, 1200);
+  }
+
+  /**
+   * Keeps {@code window_s} seconds of trace from the next poll on (the points kept so far are
+   * carried over, as far back as the new window reaches). Any thread.
+   *
+   * @param window_s greater than 0
+   */
+  public void setTraceWindow(double window_s) {
+    Precondition.positive(window_s, "window_s");
+    windowToUse = window_s;
   }
 
   /** @param s the new counts → force scale (e.g. after a calibration is chosen) */
@@ -93,6 +107,7 @@ public final class LiveFeed {
   /** Forgets the peak. */
   public void resetPeak() {
     peak_N = Double.NEGATIVE_INFINITY;
+    peakTime_s = Double.NaN;
   }
 
   /**
@@ -114,6 +129,11 @@ public final class LiveFeed {
     ForceScale sc = scale;
     double cpm = countsPerMm;
     double given = zeroToUse;
+    double window = windowToUse;
+    if (!Double.isNaN(window)) {
+      windowToUse = Double.NaN;
+      trace = trace.resized(window);
+    }
     if (!Double.isNaN(given)) {
       zeroToUse = Double.NaN;
       zeroCounts = given;
@@ -129,6 +149,7 @@ public final class LiveFeed {
         if (--tareRemaining == 0) {
           zeroCounts = tareSum / tareTotal;
           peak_N = Double.NEGATIVE_INFINITY;
+          peakTime_s = Double.NaN;
           taresDone++;
         }
         if (!zeroKnown) {
@@ -140,6 +161,7 @@ public final class LiveFeed {
       force_N = sc.force_N(counts - zeroCounts);
       if (force_N > peak_N) {
         peak_N = force_N;
+        peakTime_s = time_s;
       }
       position_mm = hasPos && cpm > 0 ? pos / cpm : Double.NaN;
       trace.add(time_s, force_N);
@@ -161,7 +183,7 @@ public final class LiveFeed {
     return new Snapshot(force_N, peak_N == Double.NEGATIVE_INFINITY ? Double.NaN : peak_N,
         position_mm, time_s, lastCounts, t, f, m, cx, cy, cm, reader.measuredRateHz(),
         reader.samplesAccepted(), reader.counters(), cursor.lost(),
-        reader.lostReason().orElse(null), taring());
+        reader.lostReason().orElse(null), taring(), peakTime_s);
   }
 
   /**
@@ -186,10 +208,11 @@ public final class LiveFeed {
    *     recording)
    * @param deviceLost why the device was lost, or null
    * @param taring whether a tare is in progress
+   * @param peakTime_s time of the peak since the stream began, NaN before the first sample
    */
   public record Snapshot(double force_N, double peak_N, double position_mm, double time_s,
       long counts, double[] traceTime_s, double[] traceForce_N, int traceLength,
       double[] curveTravel_mm, double[] curveForce_N, int curveLength, double rateHz,
       long samples, DecoderCounters counters, long displayLost, String deviceLost,
-      boolean taring) {}
+      boolean taring, double peakTime_s) {}
 }

@@ -21,10 +21,10 @@ final class ConsoleHints {
       case RATED_CAPACITY -> "start the console with the cell's capacity (--capacity-n)";
       case ZERO_DRIFT_LIMIT -> "start the console with another limit (--zero-drift-n)";
       case ZERO_SAMPLES -> "the console averages half a second of samples";
-      case START_THRESHOLD, PRETRIGGER, BREAK_DROP, ARMING_LEVEL, DEBOUNCE, ABSOLUTE_STOP, TAIL,
-          OVERLOAD_WARNING, OVERLOAD_STOP, TIME_LIMIT, TRAVEL_LIMIT, LOW_FORCE_LEVEL,
-          LOW_FORCE_TIME ->
-          "the console uses the default run settings; set them with 'loadstone record'";
+      case START_THRESHOLD, BREAK_DROP, TAIL, TIME_LIMIT, TRAVEL_LIMIT, LOW_FORCE_LEVEL,
+          LOW_FORCE_TIME -> "Live tab, Run settings: the field marked";
+      case PRETRIGGER, ARMING_LEVEL, DEBOUNCE, ABSOLUTE_STOP, OVERLOAD_WARNING, OVERLOAD_STOP ->
+          "the console uses the default for this one; set it with 'loadstone record'";
       case ARCHIVE_FOLDER -> "start the console with another folder (--archive)";
       case PORT -> "start the console on another port (--port)";
       case SIM_SCENARIO -> "start the console with --scenario dead-weight";

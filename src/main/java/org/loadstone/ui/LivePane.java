@@ -38,13 +38,9 @@ final class LivePane {
 
   private final ConsoleConfig config;
   private final BorderPane root = new BorderPane();
-  private final Label force = label("force-value", "—");
-  private final Label peak = label("peak-value", "peak —");
-  private final Label position = label("position-value", "crosshead —");
-  private final Label raw = label("raw-value", "raw —");
+  private final Readout readout = new Readout();
   private final Label device = label("device-line", "");
   private final Label health = label("health-line", "");
-  private final CapacityBar capacity = new CapacityBar();
   private StateBand band;
   private StationStatus.Link link = StationStatus.Link.CONNECTING;
   private String lostReason;
@@ -127,13 +123,15 @@ final class LivePane {
     VBox header = new VBox(top);
     SafetyNotice notice = new SafetyNotice(config.home());
     if (notice.needed()) {
-      header.getChildren().add(safetyBanner(notice, header));
+      header.getChildren().add(SafetyBanner.of(notice, banner -> {
+        header.getChildren().remove(banner);
+        root.requestFocus(); // back to the window, so the one-key commands act (not a field)
+      }));
     }
     band = new StateBand(run.actions());
     header.getChildren().add(band.node());
     root.setTop(header);
 
-    Label forceCaption = label("force-caption", "FORCE  ·  N");
     Button tare = new Button("Zero [Z]");
     tare.setId("tare-button");
     tare.setOnAction(e -> tare());
@@ -165,10 +163,21 @@ final class LivePane {
     scroll.setHbarPolicy(javafx.scene.control.ScrollPane.ScrollBarPolicy.NEVER);
     scroll.getStyleClass().add("controls-scroll");
     VBox.setVgrow(scroll, Priority.ALWAYS);
-    VBox readout = new VBox(6, forceCaption, force, capacity.node(), peak, position, raw, scroll);
-    readout.getStyleClass().add("readout");
-    readout.setPrefWidth(380);
-    root.setLeft(readout);
+    VBox left = new VBox(6);
+    left.getChildren().addAll(readout.nodes());
+    left.getChildren().add(scroll);
+    left.getStyleClass().add("readout");
+    left.setPrefWidth(380);
+    root.setLeft(left);
+    readout.onUnit(this::useUnit);
+    chart.onWindow(s -> {
+      LiveFeed f = feed;
+      if (f != null) {
+        f.setTraceWindow(s); // keeps what the chart shows, not more
+      }
+      lastChartNanos = 0; // redraw at the next frame
+    });
+    useUnit(run.form().rememberedUnit());
 
     BorderPane chartBox = new BorderPane(chart.node());
     chartBox.setBottom(run.figures());
@@ -181,29 +190,21 @@ final class LivePane {
     root.setBottom(bottom);
   }
 
+  /** Shows forces in {@code u}: readout, charts, figures and the start force's field. */
+  private void useUnit(org.loadstone.units.ForceUnit u) {
+    if (readout.unit() != u) {
+      readout.setUnit(u); // comes back here through the choice's listener
+      return;
+    }
+    chart.setUnit(u);
+    run.setUnit(u);
+    lastChartNanos = 0; // redraw at the next frame
+  }
+
   private static Region spacer() {
     Region r = new Region();
     VBox.setVgrow(r, Priority.ALWAYS);
     return r;
-  }
-
-  private Parent safetyBanner(SafetyNotice notice, VBox header) {
-    Label text = label("safety-text", "Safety.  " + SafetyNotice.TEXT);
-    text.setWrapText(true);
-    HBox.setHgrow(text, Priority.ALWAYS);
-    Button ok = new Button("I understand");
-    ok.setId("safety-ack");
-    ok.setMinWidth(javafx.scene.layout.Region.USE_PREF_SIZE);
-    HBox banner = new HBox(14, text, ok);
-    banner.setId("safety-banner");
-    banner.getStyleClass().add("safety-banner");
-    banner.setAlignment(Pos.CENTER_LEFT);
-    ok.setOnAction(e -> {
-      notice.acknowledge();
-      header.getChildren().remove(banner);
-      root.requestFocus(); // back to the window, so the one-key commands act (not a field)
-    });
-    return banner;
   }
 
   void installKeys(Scene scene) {
@@ -215,28 +216,9 @@ final class LivePane {
    * the one shown) and not while typing in a field.
    */
   void installKeys(Scene scene, java.util.function.BooleanSupplier active) {
-    scene.addEventHandler(javafx.scene.input.KeyEvent.KEY_PRESSED, e -> {
-      if (e.getCode() == KeyCode.ESCAPE) {
-        run.stop(); // stop is one key from anywhere, even while typing in a field
-        return;
-      }
-      if (!active.getAsBoolean() || e.getTarget() instanceof javafx.scene.control.TextInputControl) {
-        return; // typing a specimen id, or looking at the archive: not a shortcut
-      }
-      if (e.getCode() == KeyCode.Z) {
-        tare();
-      } else if (e.getCode() == KeyCode.P) {
-        clearPeak();
-      } else if (e.getCode() == KeyCode.A) {
-        run.arm();
-      } else if (e.getCode() == KeyCode.S) {
-        run.stop();
-      } else if (e.getCode() == KeyCode.X) {
-        togglePlot();
-      } else if (e.getCode() == KeyCode.N) {
-        run.nextSpecimen();
-      }
-    });
+    LiveKeys.install(scene, active, java.util.Map.of(KeyCode.Z, this::tare,
+        KeyCode.P, this::clearPeak, KeyCode.A, run::arm, KeyCode.S, run::stop,
+        KeyCode.X, this::togglePlot, KeyCode.N, run::nextSpecimen), run::stop);
   }
 
   private void tare() {
@@ -304,6 +286,7 @@ final class LivePane {
     }
     DeviceReader r = new DeviceReader(t, new SampleRing(1 << 20));
     LiveFeed f = new LiveFeed(r, displayScale(), WINDOW_S);
+    f.setTraceWindow(chart.window_s());
     r.addListener(new DeviceReader.Listener() {
       @Override
       public void onMessage(org.loadstone.protocol.DeviceMessage m) {
@@ -388,22 +371,8 @@ final class LivePane {
     }
     CapacityGauge gauge = CapacityGauge.of(sc == null ? Double.NaN : s.force_N(), s.counts(),
         capacity_N, org.loadstone.acquire.RunSettings.DEFAULTS);
-    capacity.show(gauge);
     band.flag(gauge);
-    for (Label l : new Label[] {force, peak, position, raw}) {
-      if (view.noData() != l.getStyleClass().contains("stale")) {
-        if (view.noData()) {
-          l.getStyleClass().add("stale");
-        } else {
-          l.getStyleClass().remove("stale");
-        }
-      }
-    }
-    force.setText(Double.isNaN(s.force_N()) ? "—" : fmt(s.force_N()));
-    peak.setText("peak " + (Double.isNaN(s.peak_N()) ? "—" : fmt(s.peak_N()) + " N"));
-    position.setText("crosshead " + (Double.isNaN(s.position_mm()) ? "—"
-        : String.format(Locale.ROOT, "%.3f mm", s.position_mm())));
-    raw.setText("raw " + s.counts() + " counts" + (s.taring() ? "  · zeroing…" : ""));
+    readout.show(s, gauge, view.noData());
     DecoderCounters c = s.counters();
     health.setText(String.format(Locale.ROOT,
         "%.1f samples/s   ·   %d samples   ·   dropped %d   ·   checksum errors %d   ·   "
@@ -419,6 +388,7 @@ final class LivePane {
       } else {
         chart.showAgainstTime(s.traceTime_s(), s.traceForce_N(), s.traceLength());
       }
+      chart.showPeak(sc == null ? Double.NaN : s.peak_N(), s.peakTime_s());
     }
     if (s.deviceLost() != null) {
       stopTimer();
@@ -443,12 +413,11 @@ final class LivePane {
   }
 
   CapacityBar capacity() {
-    return capacity;
+    return readout.capacity();
   }
 
-  private static String fmt(double v_N) {
-    double a = Math.abs(v_N);
-    return String.format(Locale.ROOT, a >= 1000 ? "%.0f" : a >= 100 ? "%.1f" : "%.2f", v_N);
+  Readout readout() {
+    return readout;
   }
 
   ForceChart chart() {

@@ -7,12 +7,14 @@ import java.util.function.Consumer;
 import java.util.function.Supplier;
 import javafx.application.Platform;
 import javafx.scene.control.Label;
+import javafx.scene.control.ProgressBar;
 import javafx.scene.layout.FlowPane;
 import javafx.scene.layout.VBox;
 import org.loadstone.analysis.AnalysisSettings;
 import org.loadstone.archive.Run;
 import org.loadstone.archive.RunReader;
 import org.loadstone.study.RunMetrics;
+import org.loadstone.units.ForceUnit;
 import org.loadstone.units.LoadstoneException;
 
 /**
@@ -23,15 +25,60 @@ import org.loadstone.units.LoadstoneException;
 final class RunFigures {
   /** The last run's figures, as tiles. */
   private final FlowPane figures = new FlowPane(28, 8);
-  /** The stiffness window on the run's curve, with a band of one's own. */
+  /** The run's curve with its marks and stiffness window, with a band of one's own. */
   private final StiffnessView stiffness = new StiffnessView(this::refit);
   /** The run shown, read back once; null until one is. */
   private volatile Run run;
+  /** Forces in this unit. */
+  private volatile ForceUnit unit = ForceUnit.N;
+  /** The figures shown, null while none are. */
+  private RunMetrics shown;
+  /** Reading and analysing a stored run: a bar through its steps and what it is doing. */
+  private final ProgressBar progress = new ProgressBar(0);
+  private final Label doing = LivePane.label("analysing-line", "");
+  private final VBox analysing = new VBox(4, doing, progress);
 
   RunFigures() {
     figures.setId("run-figures");
     figures.getStyleClass().add("run-figures");
+    analysing.setId("analysing");
+    progress.setId("analysing-progress");
+    progress.setPrefWidth(320);
     showFigures(false);
+  }
+
+  /** Shows forces in {@code u} (the figures shown are drawn again in it). */
+  void setUnit(ForceUnit u) {
+    unit = u;
+    RunMetrics m = shown;
+    if (m != null) {
+      later(() -> {
+        StiffnessView.Drawing d = StiffnessView.prepare(m, u);
+        return () -> show(d);
+      });
+    }
+  }
+
+  /** @return the post-run chart */
+  StiffnessView stiffnessView() {
+    return stiffness;
+  }
+
+  /** @return the unit the figures are shown in */
+  ForceUnit unit() {
+    return unit;
+  }
+
+  /** The reading and analysing of a run in steps: shown at once, updated from the worker. */
+  private void step(double done, String what) {
+    Platform.runLater(() -> {
+      if (!figures.getChildren().contains(analysing)) {
+        figures.getChildren().setAll(analysing);
+        showFigures(true);
+      }
+      progress.setProgress(done);
+      doing.setText(what);
+    });
   }
 
   /** The tiles, for a place of their own (empty until a run is stored). */
@@ -46,14 +93,23 @@ final class RunFigures {
    * @param failed told on the JavaFX thread why the run could not be analysed
    */
   void analyse(Path csv, Consumer<String> failed) {
+    shown = null;
+    step(ProgressBar.INDETERMINATE_PROGRESS, "analysing… reading the stored run");
     later(() -> {
       try {
         Run r = RunReader.read(csv);
+        step(1 / 3.0, String.format(Locale.ROOT, "analysing… %,d samples: peak, break, "
+            + "stiffness, energy", r.data().size()));
         RunMetrics m = RunMetrics.of(r.metadata(), r.data());
         run = r;
-        return () -> show(m);
+        step(2 / 3.0, "analysing… drawing the curve");
+        StiffnessView.Drawing d = StiffnessView.prepare(m, unit);
+        return () -> show(d);
       } catch (LoadstoneException e) {
-        return () -> failed.accept(e.getMessage());
+        return () -> {
+          clear();
+          failed.accept(e.getMessage());
+        };
       }
     });
   }
@@ -83,7 +139,8 @@ final class RunFigures {
       try {
         RunMetrics m = RunMetrics.of(r.metadata(), r.data(),
             AnalysisSettings.DEFAULTS.withStiffnessBounds(band));
-        return () -> show(m);
+        StiffnessView.Drawing d = StiffnessView.prepare(m, unit);
+        return () -> show(d);
       } catch (LoadstoneException e) {
         return () -> stiffness.refuse(e.getMessage());
       }
@@ -99,6 +156,7 @@ final class RunFigures {
 
   /** Empties the tiles and hides them until the next run is shown. */
   void clear() {
+    shown = null;
     figures.getChildren().clear();
     showFigures(false);
   }
@@ -108,14 +166,18 @@ final class RunFigures {
     figures.setManaged(on);
   }
 
-  private void show(RunMetrics m) {
+  private void show(StiffnessView.Drawing d) {
+    RunMetrics m = d.metrics();
+    ForceUnit u = d.unit();
+    shown = m;
     figures.getChildren().clear();
     showFigures(true);
     var r = m.analysis();
-    tile("peak", fmt(r.peakForce_N(), "N"), at(r.displacementAtPeak_mm()));
-    r.breakPoint().ifPresent(b -> tile("break", fmt(b.force_N(), "N"),
+    tile("peak", fmt(r.peakForce_N(), u), at(r.displacementAtPeak_mm()));
+    r.breakPoint().ifPresent(b -> tile("break", fmt(b.force_N(), u),
         at(r.displacementAtBreak_mm())));
-    tile("stiffness", r.stiffness().map(s -> fmt(s.slope_N_per_mm(), "N/mm")).orElse("—"),
+    tile("stiffness", r.stiffness().map(s -> fmt(u.fromNewtons(s.slope_N_per_mm()),
+        u.symbol() + "/mm")).orElse("—"),
         r.stiffness().map(s -> String.format(Locale.ROOT, "R² %.4f", s.rSquared())).orElse(""));
     tile("energy", opt(r.energyToBreak_J(), "J"), "to break · " + opt(r.energyToPeak_J(), "J")
         + " to peak");
@@ -130,17 +192,18 @@ final class RunFigures {
     if (m.compressionStressAtPeak_MPa().isPresent()) {
       tile("compression", opt(m.compressionStressAtPeak_MPa(), "MPa"), "stress at peak");
     }
-    r.crush().ifPresent(c -> tile("mean crush", fmt(c.meanForce_N(), "N"),
+    r.crush().ifPresent(c -> tile("mean crush", fmt(c.meanForce_N(), u),
         String.format(Locale.ROOT, "efficiency %.2f · %s over %.1f–%.1f mm", c.efficiency(),
             fmt(c.energy_J(), "J"), c.from_mm(), c.to_mm())
             + (m.specificCrushEnergy_J_per_g().isPresent()
                 ? " · " + opt(m.specificCrushEnergy_J_per_g(), "J/g") : "")));
     if (m.specificPeak_N_per_g().isPresent()) {
-      tile("per gram", opt(m.specificPeak_N_per_g(), "N/g"),
+      tile("per gram", fmt(u.fromNewtons(m.specificPeak_N_per_g().getAsDouble()),
+          u.symbol() + "/g"),
           opt(m.specificEnergyToBreak_J_per_g(), "J/g") + " to break");
     }
     figures.getChildren().add(stiffness.node());
-    stiffness.show(m);
+    stiffness.show(d);
     if (m.metadata().amendments().any()) {
       Label amended = LivePane.label("run-amended", m.metadata().amendments().summary());
       amended.setWrapText(true);
@@ -171,6 +234,11 @@ final class RunFigures {
 
   private static String opt(OptionalDouble v, String unit) {
     return v.isPresent() ? fmt(v.getAsDouble(), unit) : "—";
+  }
+
+  /** A force in N shown in {@code u}, e.g. {@code 0.412 kN}. */
+  static String fmt(double v_N, ForceUnit u) {
+    return fmt(u.fromNewtons(v_N), u.symbol());
   }
 
   static String fmt(double v, String unit) {

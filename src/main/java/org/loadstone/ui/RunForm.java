@@ -21,7 +21,12 @@ final class RunForm {
   private final TextField group = RunPanel.field("group-field", "group (e.g. balsa)");
   private final TextField mass = RunPanel.field("mass-field", "mass (g)");
   private final SpecimenFields sizes = new SpecimenFields();
+  private final RunSettingsFields settings = new RunSettingsFields(sizes::testType);
   private final FormMemory memory;
+  /** The unit forces are shown in, remembered with the form. */
+  private org.loadstone.units.ForceUnit unit = org.loadstone.units.ForceUnit.N;
+  /** The unit remembered from the last session. */
+  private org.loadstone.units.ForceUnit remembered = org.loadstone.units.ForceUnit.N;
   private static final java.util.concurrent.Executor WRITER =
       java.util.concurrent.Executors.newSingleThreadExecutor(r -> {
         Thread t = new Thread(r, "form memory");
@@ -31,18 +36,19 @@ final class RunForm {
 
   RunForm(java.nio.file.Path home, Runnable onEnter) {
     memory = new FormMemory(home);
+    sizes.onTestChange(settings::testChanged); // a new test type: its preset
     for (TextField f : new TextField[] {specimen, group, mass}) {
       f.setOnAction(e -> onEnter.run()); // Enter after typing the specimen arms the run
     }
     restore();
   }
 
-  /** @return the form's rows: id, group and mass, the folded sizes */
+  /** @return the form's rows: id, group and mass, the folded sizes and run settings */
   List<Node> nodes() {
     HBox idLine = new HBox(8, group, mass);
     HBox.setHgrow(group, Priority.ALWAYS);
     mass.setPrefWidth(110);
-    return List.of(specimen, idLine, sizes.node());
+    return List.of(specimen, idLine, sizes.node(), settings.node());
   }
 
   /** Whether no specimen id is typed: then no run can be armed. */
@@ -67,6 +73,36 @@ final class RunForm {
         mass_g, sizes.geometry(), sizes.testType());
   }
 
+  /**
+   * The run settings from their fields, for the test type chosen.
+   *
+   * @throws LoadstoneException naming the field and the fix (also shown under the field)
+   */
+  org.loadstone.acquire.RunSettings.Builder settings() {
+    return settings.builder();
+  }
+
+  /** Forces are shown in {@code u} from now on (the start force's field too). */
+  void setUnit(org.loadstone.units.ForceUnit u) {
+    boolean chosen = u != unit && u != remembered; // not the start-up's own
+    unit = u;
+    remembered = u;
+    settings.setUnit(u);
+    if (chosen) {
+      remember();
+    }
+  }
+
+  /** @return the unit forces were shown in when the form was last remembered (N at first) */
+  org.loadstone.units.ForceUnit rememberedUnit() {
+    return remembered;
+  }
+
+  /** The run settings' section, e.g. to show a refusal under its field. */
+  RunSettingsFields runSettings() {
+    return settings;
+  }
+
   /** @return the form as typed, field name to text (as remembered) */
   Map<String, String> values() {
     Map<String, String> m = new LinkedHashMap<>();
@@ -74,6 +110,8 @@ final class RunForm {
     m.put("group", group.getText().trim());
     m.put("mass_g", mass.getText().trim());
     m.putAll(sizes.values());
+    m.putAll(settings.values());
+    m.put("force_unit", unit.symbol());
     return m;
   }
 
@@ -105,6 +143,12 @@ final class RunForm {
     specimen.setText(last.getOrDefault("specimen", ""));
     group.setText(last.getOrDefault("group", ""));
     mass.setText(last.getOrDefault("mass_g", ""));
-    sizes.restore(last);
+    try {
+      remembered = org.loadstone.units.ForceUnit.parse(last.getOrDefault("force_unit", "N"));
+    } catch (LoadstoneException unknown) {
+      remembered = org.loadstone.units.ForceUnit.N;
+    }
+    sizes.restore(last); // a remembered test type applies its preset first…
+    settings.restore(last); // …then the settings as they were last used
   }
 }

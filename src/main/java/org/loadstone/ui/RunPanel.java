@@ -178,7 +178,7 @@ final class RunPanel {
     try {
       RunTemplate template = form.template(); // a bad mass or size is refused before arming
       request = new RunSetup.Request(template,
-          device.scale(), config.ratedCapacity_N(), RunSettings.builder(),
+          device.scale(), config.ratedCapacity_N(), form.settings(),
           config.zeroDriftLimit_N(), null, false,
           org.loadstone.units.SoftwareVersion.get());
       RunSetup.check(request, config.deviceLabel());
@@ -187,6 +187,7 @@ final class RunPanel {
       form.remember();
       armedSpecimen = template.specimen();
     } catch (LoadstoneException e) {
+      form.runSettings().show(e); // under the field it concerns, too
       runResult.setText(ConsoleHints.withHow(e));
       return;
     }
@@ -264,6 +265,12 @@ final class RunPanel {
     runResult.setText("a new specimen is in the press: arm to load it");
   }
 
+  /** Shows forces in {@code u}: the figures and the start force's field. */
+  void setUnit(org.loadstone.units.ForceUnit u) {
+    form.setUnit(u);
+    figures.setUnit(u);
+  }
+
   /** @return the run form */
   RunForm form() {
     return form;
@@ -322,29 +329,12 @@ final class RunPanel {
    */
   void recoverJournals() {
     recovering = true;
-    Thread t = new Thread(() -> {
-      String notice;
-      try {
-        List<String> names = new java.util.ArrayList<>();
-        for (org.loadstone.archive.StoredRun r
-            : org.loadstone.archive.JournalRecovery.recoverAll(config.archive())) {
-          names.add(r.csv().getFileName().toString());
-        }
-        notice = names.isEmpty() ? null : "recovered an unfinished run from its journal: "
-            + String.join(", ", names);
-      } catch (LoadstoneException e) {
-        notice = ConsoleHints.withHow(e);
+    LeftJournals.recover(config.archive(), notice -> {
+      recovering = false;
+      if (notice != null) {
+        runResult.setText(notice);
       }
-      String shown = notice;
-      Platform.runLater(() -> {
-        recovering = false;
-        if (shown != null) {
-          runResult.setText(shown);
-        }
-      });
-    }, "journal recovery");
-    t.setDaemon(true);
-    t.start();
+    });
   }
 
   /** Whether recovery of left journals is still running. */

@@ -32,17 +32,7 @@ final class SpecimenFields {
   SpecimenFields() {
     test.setId("test-type");
     test.setValue(TestType.THREE_POINT_BEND);
-    test.setConverter(new javafx.util.StringConverter<>() {
-      @Override
-      public String toString(TestType t) {
-        return t == null ? "" : t.wireName();
-      }
-
-      @Override
-      public TestType fromString(String s) {
-        return TestType.parse(s);
-      }
-    });
+    test.setConverter(Choices.named(TestType::wireName, TestType::parse));
     GridPane g = new GridPane();
     g.setHgap(8);
     g.setVgap(6);
@@ -115,6 +105,15 @@ final class SpecimenFields {
     if (sizes().values().stream().anyMatch(f -> !f.getText().isBlank())) {
       pane.setExpanded(true); // sizes carried over: show them, so they are seen before a run
     }
+  }
+
+  /** @param listener told each new test type chosen, on the JavaFX thread */
+  void onTestChange(java.util.function.Consumer<TestType> listener) {
+    test.valueProperty().addListener((o, was, now) -> {
+      if (now != null) {
+        listener.accept(now);
+      }
+    });
   }
 
   TestType testType() {

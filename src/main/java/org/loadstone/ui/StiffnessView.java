@@ -2,7 +2,9 @@ package org.loadstone.ui;
 
 import java.awt.BasicStroke;
 import java.awt.Color;
+import java.util.LinkedHashMap;
 import java.util.Locale;
+import java.util.Map;
 import java.util.function.Consumer;
 import javafx.scene.control.Button;
 import javafx.scene.control.Label;
@@ -20,26 +22,34 @@ import org.loadstone.analysis.AnalysisSettings.StiffnessBounds;
 import org.loadstone.analysis.StiffnessFit;
 import org.loadstone.report.TraceDataset;
 import org.loadstone.study.RunMetrics;
+import org.loadstone.units.ForceUnit;
 
 /**
- * The post-run stiffness window: the stored run's force against displacement with the fitted
- * line drawn over its window and the window's force bounds marked, and two fields for a force band
- * of one's own (or back to the automatic search). Thin: the fit is {@link RunMetrics}' with the
- * band as an analysis setting; this view only draws it and passes the typed band on.
+ * The post-run chart: the stored run's force against displacement with its peak and break
+ * marked, the fitted stiffness line drawn over its window and the window's force bounds marked,
+ * and two fields for a force band of one's own (or back to the automatic search). Forces in the
+ * display unit. Thin: the figures are {@link RunMetrics}' with the band as an analysis setting;
+ * this view only draws them ({@link #prepare} off the JavaFX thread, as a long run's curve takes
+ * a pass over every sample) and passes the typed band on in N.
  */
 final class StiffnessView {
   private static final Color WINDOW = new Color(0x56, 0xb4, 0xe9); // Okabe–Ito sky blue
+  private static final Color BREAK = new Color(0xd5, 0x5e, 0x00); // Okabe–Ito vermillion
 
   private final VBox root = new VBox(4);
   private final ChartViewer viewer;
   private final JFreeChart chart;
   private final TextField from = new TextField();
   private final TextField to = new TextField();
+  private final Label bandUnit = new Label("N");
   private final Label note = new Label();
+  private ForceUnit unit = ForceUnit.N;
+  /** The marks drawn: name → (displacement mm, force in the display unit). */
+  private Map<String, double[]> marks = Map.of();
 
   /**
-   * @param onBand told the force band typed, or null for the automatic search, on the JavaFX
-   *     thread
+   * @param onBand told the force band typed (in N), or null for the automatic search, on the
+   *     JavaFX thread
    */
   StiffnessView(Consumer<StiffnessBounds> onBand) {
     chart = ChartFactory.createXYLineChart(null, "displacement (mm)", "force (N)",
@@ -69,7 +79,8 @@ final class StiffnessView {
     band.setId("stiffness-band-button");
     band.setOnAction(e -> {
       try {
-        onBand.accept(StiffnessBounds.force_N(number(from, "from"), number(to, "to")));
+        onBand.accept(StiffnessBounds.force_N(unit.toNewtons(number(from, "from")),
+            unit.toNewtons(number(to, "to"))));
       } catch (IllegalArgumentException bad) {
         note.setText(bad.getMessage());
       }
@@ -80,10 +91,10 @@ final class StiffnessView {
     note.setId("stiffness-note");
     note.setWrapText(true);
     note.setMaxWidth(380);
-    Label name = new Label("STIFFNESS WINDOW");
+    Label name = new Label("CURVE AND STIFFNESS WINDOW");
     name.getStyleClass().add("figure-name");
     root.getChildren().addAll(name, viewer, new HBox(6, new Label("band"), from,
-        new Label("to"), to, new Label("N"), band, auto), note);
+        new Label("to"), to, bandUnit, band, auto), note);
     root.setId("stiffness-view");
   }
 
@@ -91,47 +102,114 @@ final class StiffnessView {
     return root;
   }
 
-  /** Draws the run and its stiffness window (or says why there is none). */
-  void show(RunMetrics m) {
+  /** What to draw for one analysis, made off the JavaFX thread. */
+  record Drawing(RunMetrics metrics, ForceUnit unit, TraceDataset data,
+      Map<String, double[]> marks) {}
+
+  /**
+   * Builds the curve (decimated to the chart's width), the stiffness line and the marks, in
+   * {@code u}. Off the JavaFX thread: it reads every sample once.
+   */
+  static Drawing prepare(RunMetrics m, ForceUnit u) {
+    org.loadstone.units.SlowWork.check("building a chart from a run");
     TraceDataset data = new TraceDataset();
+    Map<String, double[]> marks = new LinkedHashMap<>();
     var c = m.curve();
-    XYPlot plot = chart.getXYPlot();
-    plot.clearRangeMarkers();
     if (!c.hasPosition()) {
-      note.setText("no position channel: no stiffness window to draw");
-      plot.setDataset(data);
-      return;
+      return new Drawing(m, u, data, marks);
     }
     double x0 = c.position_mm(0);
-    data.add("force", c.size(), i -> c.position_mm(i) - x0, c::force_N,
+    data.add("force", c.size(), i -> c.position_mm(i) - x0, i -> u.fromNewtons(c.force_N(i)),
         TraceDataset.DEFAULT_COLUMNS);
+    var r = m.analysis();
+    m.analysis().stiffness().ifPresent(s -> {
+      double[] lx = {s.fromDisplacement_mm(), s.toDisplacement_mm()};
+      double[] ly = {u.fromNewtons(s.slope_N_per_mm() * lx[0] + s.intercept_N()),
+          u.fromNewtons(s.slope_N_per_mm() * lx[1] + s.intercept_N())};
+      data.add("window", lx, ly);
+    });
+    r.displacementAtPeak_mm().ifPresent(x -> marks.put("peak",
+        new double[] {x, u.fromNewtons(r.peakForce_N())}));
+    r.breakPoint().ifPresent(b -> r.displacementAtBreak_mm().ifPresent(x -> marks.put("break",
+        new double[] {x, u.fromNewtons(b.force_N())})));
+    return new Drawing(m, u, data, marks);
+  }
+
+  /** Draws the run, its marks and its stiffness window (or says why there is none). */
+  void show(Drawing d) {
+    RunMetrics m = d.metrics();
+    unit = d.unit();
+    bandUnit.setText(unit.symbol());
+    XYPlot plot = chart.getXYPlot();
+    plot.getRangeAxis().setLabel("force (" + unit.symbol() + ")");
+    plot.clearRangeMarkers();
+    plot.getRenderer().removeAnnotations();
+    marks = Map.copyOf(d.marks());
+    if (!m.curve().hasPosition()) {
+      note.setText("no position channel: no curve or stiffness window to draw");
+      plot.setDataset(d.data());
+      return;
+    }
+    d.marks().forEach((what, at) -> plot.getRenderer().addAnnotation(mark(what, at)));
     var fit = m.analysis().stiffness();
     if (fit.isPresent()) {
       StiffnessFit s = fit.get();
-      double[] lx = {s.fromDisplacement_mm(), s.toDisplacement_mm()};
-      double[] ly = {s.slope_N_per_mm() * lx[0] + s.intercept_N(),
-          s.slope_N_per_mm() * lx[1] + s.intercept_N()};
-      data.add("window", lx, ly);
       for (double level : new double[] {s.fromForce_N(), s.toForce_N()}) {
-        ValueMarker mark = new ValueMarker(level, WINDOW, new BasicStroke(1.0f));
-        plot.addRangeMarker(mark);
+        plot.addRangeMarker(new ValueMarker(unit.fromNewtons(level), WINDOW,
+            new BasicStroke(1.0f)));
       }
-      from.setText(String.format(Locale.ROOT, "%.4g", s.fromForce_N()));
-      to.setText(String.format(Locale.ROOT, "%.4g", s.toForce_N()));
-      note.setText(String.format(Locale.ROOT, "%s, %.4g to %.4g N (samples %d to %d), R² %.4f,"
-          + " 95 %% %.4g to %.4g N/mm", s.method().words(), s.fromForce_N(), s.toForce_N(),
-          s.fromIndex(), s.toIndex(), s.rSquared(), s.ci95Low_N_per_mm(),
-          s.ci95High_N_per_mm()));
+      from.setText(num(unit.fromNewtons(s.fromForce_N())));
+      to.setText(num(unit.fromNewtons(s.toForce_N())));
+      note.setText(String.format(Locale.ROOT, "%s, %s to %s %s (samples %d to %d), R² %.4f,"
+          + " 95 %% %.4g to %.4g %s/mm", s.method().words(), num(unit.fromNewtons(
+              s.fromForce_N())), num(unit.fromNewtons(s.toForce_N())), unit.symbol(),
+          s.fromIndex(), s.toIndex(), s.rSquared(), unit.fromNewtons(s.ci95Low_N_per_mm()),
+          unit.fromNewtons(s.ci95High_N_per_mm()), unit.symbol()));
     } else {
       note.setText(m.analysis().stiffnessRefusal().map(no -> "no stiffness: " + no.reason()
-          + String.format(Locale.ROOT, "; closest band %.4g to %.4g N",
-              no.closestFromForce_N(), no.closestToForce_N())).orElse("no stiffness"));
+          + String.format(Locale.ROOT, "; closest band %s to %s %s",
+              num(unit.fromNewtons(no.closestFromForce_N())),
+              num(unit.fromNewtons(no.closestToForce_N())), unit.symbol()))
+          .orElse("no stiffness"));
       m.analysis().stiffnessRefusal().ifPresent(no -> {
-        from.setText(String.format(Locale.ROOT, "%.4g", no.closestFromForce_N()));
-        to.setText(String.format(Locale.ROOT, "%.4g", no.closestToForce_N()));
+        from.setText(num(unit.fromNewtons(no.closestFromForce_N())));
+        to.setText(num(unit.fromNewtons(no.closestToForce_N())));
       });
     }
-    plot.setDataset(data);
+    plot.setDataset(d.data());
+  }
+
+  /** @return the marks drawn: name ("peak", "break") → (displacement mm, force, display unit) */
+  Map<String, double[]> marks() {
+    return marks;
+  }
+
+  /** @return the force axis' label, e.g. {@code force (kN)} */
+  String yAxis() {
+    return chart.getXYPlot().getRangeAxis().getLabel();
+  }
+
+  /** A ring and its name at a point of the curve. */
+  private org.jfree.chart.annotations.XYAnnotation mark(String what, double[] at) {
+    Color c = what.equals("break") ? BREAK : ForceChart.PEAK;
+    return new org.jfree.chart.annotations.AbstractXYAnnotation() {
+      @Override
+      public void draw(java.awt.Graphics2D g2, XYPlot plot, java.awt.geom.Rectangle2D area,
+          org.jfree.chart.axis.ValueAxis domain, org.jfree.chart.axis.ValueAxis range, int index,
+          org.jfree.chart.plot.PlotRenderingInfo info) {
+        double sx = domain.valueToJava2D(at[0], area, plot.getDomainAxisEdge());
+        double sy = range.valueToJava2D(at[1], area, plot.getRangeAxisEdge());
+        g2.setPaint(c);
+        g2.setStroke(new BasicStroke(2.5f));
+        g2.draw(new java.awt.geom.Ellipse2D.Double(sx - 6, sy - 6, 12, 12));
+        g2.setFont(new java.awt.Font("DejaVu Sans", java.awt.Font.PLAIN, 12));
+        String text = what + " " + Readout.fmt(at[1]) + " " + unit.symbol();
+        // the peak's name to the left and up, the break's to the right, so they do not overlap
+        int w = g2.getFontMetrics().stringWidth(text);
+        float tx = (float) (what.equals("break") ? sx + 9 : sx - 9 - w);
+        g2.drawString(text, Math.max((float) area.getMinX() + 2, tx), (float) sy - 9);
+      }
+    };
   }
 
   /** Shows why a band was not fitted. */
@@ -139,13 +217,17 @@ final class StiffnessView {
     note.setText(why);
   }
 
-  private static double number(TextField field, String which) {
+  private static String num(double v) {
+    return String.format(Locale.ROOT, "%.4g", v);
+  }
+
+  private double number(TextField field, String which) {
     String t = field.getText().trim().replace(',', '.');
     try {
       return Double.parseDouble(t);
     } catch (NumberFormatException e) {
       throw new IllegalArgumentException("the band's " + which + " force '" + t
-          + "' is not a number: type it in N, e.g. 20");
+          + "' is not a number: type it in " + unit.symbol() + ", e.g. 20");
     }
   }
 }

@@ -94,4 +94,35 @@ class StiffnessViewTest {
     WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
         () -> text(robot, "#stiffness-note").startsWith("automatic"));
   }
+
+  @Test
+  void thePostRunChartMarksThePeakAndTheBreakInTheDisplayUnit(FxRobot robot) throws Exception {
+    robot.interact(() -> figures.analyse(run));
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
+        () -> robot.lookup("#stiffness-view").tryQuery().isPresent());
+    WaitForAsyncUtils.waitForFxEvents();
+    // TestRuns.bend(60, 460) by construction: a straight rise to 80 % of the peak at 0.01 mm a
+    // sample (613 samples), a rounding of 307 samples to 460 N at 9.20 mm, then 20 samples
+    // falling by 4 % of the peak each
+    double[] peak = figures.stiffnessView().marks().get("peak");
+    assertThat(peak[0]).isCloseTo(9.20, org.assertj.core.data.Offset.offset(1e-9));
+    assertThat(peak[1]).isEqualTo(460.0);
+    double[] brk = figures.stiffnessView().marks().get("break");
+    assertThat(brk).as("a break is marked").isNotNull();
+    int j = (int) Math.round((brk[0] - 9.20) / 0.01);
+    assertThat(j).isBetween(1, 20); // on the fall, after the peak
+    assertThat(brk[1]).isCloseTo(460 * (1 - 0.8 * j / 20.0),
+        org.assertj.core.data.Offset.offset(1e-9));
+    // the fitted line is drawn over its window (the window's series beside the curve)
+    assertThat(figures.stiffnessView().yAxis()).isEqualTo("force (N)");
+
+    // in kN the marks and the axis follow; the run stays as it was
+    robot.interact(() -> figures.setUnit(org.loadstone.units.ForceUnit.KN));
+    WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS,
+        () -> figures.stiffnessView().yAxis().equals("force (kN)"));
+    WaitForAsyncUtils.waitForFxEvents();
+    assertThat(figures.stiffnessView().marks().get("peak")[1]).isEqualTo(0.46);
+    assertThat(text(robot, "#figure-peak")).isEqualTo(RunFigures.fmt(0.46, "kN"));
+    assertThat(run.data().size()).isEqualTo(data.size());
+  }
 }
