@@ -117,8 +117,9 @@ final class ArchivePane {
         LivePane.label("metric-caption", "compare"), metric, report);
     bar.setAlignment(Pos.CENTER_LEFT);
     bar.getStyleClass().add("archive-bar");
-    HBox counts = new HBox(10, LivePane.label("include-caption",
-        "counted: runs ended by a break, force from a calibration; also count"));
+    javafx.scene.layout.FlowPane counts = new javafx.scene.layout.FlowPane(10, 4,
+        LivePane.label("include-caption",
+            "counted: runs ended by a break, force from a calibration; also count"));
     for (LeftOut.Kind k : LeftOut.Kind.admissibleOnes()) {
       CheckBox box = new CheckBox(k.word());
       box.setId("archive-include-" + k.word());
@@ -128,6 +129,7 @@ final class ArchivePane {
     }
     counts.setAlignment(Pos.CENTER_LEFT);
     counts.getStyleClass().add("archive-bar");
+    counts.setPrefWrapLength(900);
     root.setTop(new VBox(bar, counts, picker.node()));
 
     table.getSelectionModel().getSelectedItems().addListener(

@@ -37,11 +37,10 @@ final class ArchiveTable {
     TableView<RunMetrics> table = new TableView<>();
     table.setId("archive-runs");
     table.getSelectionModel().setSelectionMode(SelectionMode.MULTIPLE);
-    TableColumn<RunMetrics, String> curve = column("curve", m -> "");
+    TableColumn<RunMetrics, String> curve = column("", m -> ""); // the square says it all
     curve.setId("archive-curve-colour");
     curve.setCellFactory(c -> swatchCell(null, curveColour));
-    curve.setPrefWidth(54);
-    curve.setMaxWidth(60);
+    curve.setPrefWidth(34);
     table.getColumns().add(curve);
     table.getColumns().add(column("specimen", m -> m.metadata().specimen()));
     TableColumn<RunMetrics, String> group =
@@ -54,22 +53,23 @@ final class ArchiveTable {
         column("ended by", m -> m.metadata().cause().wireName().replace('-', ' '));
     cause.setId("archive-cause");
     table.getColumns().add(cause);
-    TableColumn<RunMetrics, String> started =
-        column("started", m -> WHEN.format(m.metadata().startedAt()));
-    started.setPrefWidth(140);
-    table.getColumns().add(started);
     table.getColumns().add(figure("mass g", "archive-mass", m -> m.metadata().mass_g() == null
         ? "—" : RunFigures.fmt(m.metadata().mass_g(), "").strip()));
-    table.getColumns().add(figure(Metric.PEAK, "archive-peak"));
-    table.getColumns().add(figure(Metric.SPECIFIC_PEAK, "archive-per-gram"));
-    table.getColumns().add(figure(Metric.STIFFNESS, "archive-stiffness"));
+    table.getColumns().add(figure("peak", Metric.PEAK, "archive-peak"));
+    table.getColumns().add(figure("per gram", Metric.SPECIFIC_PEAK, "archive-per-gram"));
+    table.getColumns().add(figure("stiffness", Metric.STIFFNESS, "archive-stiffness"));
+    TableColumn<RunMetrics, String> started =
+        column("started", m -> WHEN.format(m.metadata().startedAt()));
+    started.setPrefWidth(130);
+    table.getColumns().add(started);
     TableColumn<RunMetrics, String> amended = column("record", m -> m.metadata().amendments()
         .changes().stream().map(c -> c.field() + " " + c.now()).reduce((a, b) -> a + ", " + b)
         .map(t -> "amended: " + t).orElse(""));
     amended.setId("archive-amended");
     table.getColumns().add(amended);
     table.setPlaceholder(new Label("no runs here"));
-    table.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
+    // each column as wide as its heading and figures need; a narrow pane scrolls sideways
+    // rather than cutting every figure short
     return table;
   }
 
@@ -77,7 +77,7 @@ final class ArchiveTable {
   static TableView<LeftOut> leftOut() {
     TableView<LeftOut> t = new TableView<>();
     t.setId("archive-left-out");
-    TableColumn<LeftOut, String> run = new TableColumn<>("run left out");
+    TableColumn<LeftOut, String> run = new TableColumn<>("run");
     run.setCellValueFactory(f -> new ReadOnlyStringWrapper(f.getValue().runId()));
     TableColumn<LeftOut, String> specimen = new TableColumn<>("specimen");
     specimen.setCellValueFactory(f -> new ReadOnlyStringWrapper(f.getValue().specimen()));
@@ -96,8 +96,9 @@ final class ArchiveTable {
     return t;
   }
 
-  private static TableColumn<RunMetrics, String> figure(Metric m, String id) {
-    return figure(m.label() + " " + m.unit(), id, r -> m.format(m.of(r)));
+  /** A figure's column, headed by a short name and the figure's unit. */
+  private static TableColumn<RunMetrics, String> figure(String name, Metric m, String id) {
+    return figure(name + " " + m.unit(), id, r -> m.format(m.of(r)));
   }
 
   private static TableColumn<RunMetrics, String> figure(String name, String id,
@@ -105,6 +106,7 @@ final class ArchiveTable {
     TableColumn<RunMetrics, String> c = column(name, value);
     c.setId(id);
     c.setStyle("-fx-alignment: CENTER-RIGHT;");
+    c.setPrefWidth(Math.max(70, 8.5 * name.length()));
     return c;
   }
 

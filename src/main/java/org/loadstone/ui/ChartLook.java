@@ -7,7 +7,6 @@ import java.util.ArrayList;
 import java.util.IdentityHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.WeakHashMap;
 import javafx.scene.Node;
 import javafx.scene.Parent;
 import org.jfree.chart.JFreeChart;
@@ -36,17 +35,26 @@ final class ChartLook {
 
   /** What a chart was last drawn in, and the colours it was built with. */
   private static final class Styled {
+    final JFreeChart chart;
     String key = "";
     final Map<Object, Map<Integer, Paint>> series = new IdentityHashMap<>();
     final Map<Object, Paint> marks = new IdentityHashMap<>();
+
+    Styled(JFreeChart chart) {
+      this.chart = chart;
+    }
   }
 
-  private static final Map<JFreeChart, Styled> STYLED = new WeakHashMap<>();
+  /** Where a viewer keeps its chart's {@link Styled} (by identity: a chart's equals is deep). */
+  private static final String STYLED = "loadstone.chart-look";
 
   /** Applies the look to every chart under {@code node} not already in it. */
   static void applyAll(Node node, Theme theme, double scale) {
     if (node instanceof ChartViewer v && v.getChart() != null) {
-      apply(v.getChart(), theme, scale);
+      Styled s = v.getProperties().get(STYLED) instanceof Styled was && was.chart == v.getChart()
+          ? was : new Styled(v.getChart());
+      v.getProperties().put(STYLED, s);
+      apply(s, theme, scale);
     } else if (node instanceof Parent p && !heldInside(node)) {
       for (Node child : p.getChildrenUnmodifiable()) {
         applyAll(child, theme, scale);
@@ -63,17 +71,26 @@ final class ChartLook {
   }
 
   /**
-   * Draws one chart in the look (does nothing when it already is).
+   * Draws one chart in the look (does nothing when it already is), with one redraw at the end.
    *
    * @param scale the console's text size, 1 for 100 %
    */
-  static void apply(JFreeChart chart, Theme theme, double scale) {
-    Styled s = STYLED.computeIfAbsent(chart, c -> new Styled());
+  private static void apply(Styled s, Theme theme, double scale) {
     String key = theme.word() + "@" + scale;
     if (key.equals(s.key)) {
       return;
     }
     s.key = key;
+    JFreeChart chart = s.chart;
+    chart.setNotify(false); // each change below would redraw the whole chart
+    try {
+      restyle(s, chart, theme, scale);
+    } finally {
+      chart.setNotify(true); // one redraw
+    }
+  }
+
+  private static void restyle(Styled s, JFreeChart chart, Theme theme, double scale) {
     float size = (float) (13 * scale);
     Font text = new Font("DejaVu Sans", Font.PLAIN, Math.round(size));
     Font heading = new Font("DejaVu Sans", Font.BOLD, Math.round(size + 1));
@@ -113,7 +130,6 @@ final class ChartLook {
       rend.setDefaultItemLabelPaint(theme.ink());
     }
     marks(plot, s, theme, text);
-    chart.fireChartChanged();
   }
 
   private static void title(Title t, Theme theme, Font font) {
