@@ -225,7 +225,7 @@ public final class Charts {
       dashed(12f, 2.5f, 1.5f, 2.5f, 1.5f, 2.5f),
       dashed(2.5f, 5f));
 
-  private static BasicStroke dashed(float... pattern) {
+  static BasicStroke dashed(float... pattern) {
     return new BasicStroke(1.3f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_ROUND, 1f, pattern, 0f);
   }
 
@@ -248,7 +248,7 @@ public final class Charts {
     return new Color(c.getRed(), c.getGreen(), c.getBlue(), 150);
   }
 
-  private static boolean allPosition(List<RunMetrics> runs) {
+  static boolean allPosition(List<RunMetrics> runs) {
     if (runs.isEmpty()) {
       throw new LoadstoneException("An overlay chart needs at least one run; select runs first.");
     }
@@ -333,7 +333,7 @@ public final class Charts {
   }
 
   /** Displacement from the first sample, or time; read from the curve, never copied. */
-  private static IntToDoubleFunction xOf(Curve c, boolean displacement) {
+  static IntToDoubleFunction xOf(Curve c, boolean displacement) {
     if (!displacement) {
       return c::time_s;
     }
@@ -341,7 +341,7 @@ public final class Charts {
     return i -> c.position_mm(i) - p0;
   }
 
-  private static XYPlot plot(org.jfree.data.xy.XYDataset ds, XYLineAndShapeRenderer rend,
+  static XYPlot plot(org.jfree.data.xy.XYDataset ds, XYLineAndShapeRenderer rend,
       org.jfree.chart.axis.ValueAxis xAxis, String yLabel) {
     NumberAxis yAxis = new NumberAxis(yLabel);
     for (org.jfree.chart.axis.ValueAxis a : new org.jfree.chart.axis.ValueAxis[] {xAxis, yAxis}) {
@@ -366,7 +366,7 @@ public final class Charts {
     return plot;
   }
 
-  private static JFreeChart chart(String title, XYPlot plot, boolean legend) {
+  static JFreeChart chart(String title, XYPlot plot, boolean legend) {
     JFreeChart ch = new JFreeChart(ReportFonts.printable(title), TITLE, plot, legend);
     ch.setBackgroundPaint(Color.WHITE);
     ch.setAntiAlias(true);

@@ -45,6 +45,21 @@ public final class GroupColours {
     return new GroupColours(groups);
   }
 
+  /**
+   * The colours of an archive's groups, keyed by name: every group in the folder, counted or not,
+   * takes its colour in the order of the names, so a group keeps its colour whichever groups are
+   * shown or compared — in the console's views and in the group report alike.
+   *
+   * @param sel a selection of an archive's runs, not null
+   * @return the colours of the archive's groups
+   */
+  public static GroupColours of(org.loadstone.study.Selection sel) {
+    Precondition.notNull(sel, "selection");
+    java.util.List<String> names = new java.util.ArrayList<>(sel.groupsInArchive());
+    names.addAll(sel.groups().keySet()); // a selection made by hand may not list them
+    return new GroupColours(names);
+  }
+
   /** @return the group's colour; a group not given at first gets the next one */
   public Color colour(String group) {
     return PALETTE.get(slot(group) % PALETTE.size());

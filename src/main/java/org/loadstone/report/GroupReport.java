@@ -28,7 +28,7 @@ final class GroupReport {
   static void write(PdfLayout p, String title, GroupStudy.Report study, Instant made) {
     Selection sel = study.selection();
     Map<String, List<RunMetrics>> groups = sel.groups();
-    GroupColours colours = GroupColours.of(groups.keySet());
+    GroupColours colours = GroupColours.of(sel);
     List<RunMetadata> counted = sel.runs().stream().map(RunMetrics::metadata).toList();
     p.title(title, groups.size() + " groups, " + sel.counted() + " runs counted"
         + (sel.leftOut().isEmpty() ? "" : ", " + sel.leftOut().size() + " left out (listed at "

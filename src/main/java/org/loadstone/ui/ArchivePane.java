@@ -1,27 +1,26 @@
 package org.loadstone.ui;
 
+import java.awt.Color;
 import java.nio.file.Path;
-import java.time.ZoneId;
 import java.time.format.DateTimeFormatter;
 import java.util.ArrayList;
 import java.util.EnumMap;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.TreeMap;
 import javafx.application.Platform;
-import javafx.beans.property.ReadOnlyStringWrapper;
 import javafx.collections.FXCollections;
+import javafx.collections.ListChangeListener;
 import javafx.geometry.Insets;
+import javafx.geometry.Orientation;
 import javafx.geometry.Pos;
 import javafx.scene.Parent;
 import javafx.scene.control.Button;
 import javafx.scene.control.CheckBox;
 import javafx.scene.control.ComboBox;
 import javafx.scene.control.Label;
-import javafx.scene.control.SelectionMode;
 import javafx.scene.control.SplitPane;
-import javafx.scene.control.TableColumn;
 import javafx.scene.control.TableView;
 import javafx.scene.control.TextField;
 import javafx.scene.layout.BorderPane;
@@ -30,7 +29,10 @@ import javafx.scene.layout.Priority;
 import javafx.scene.layout.VBox;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.fx.ChartViewer;
-import org.loadstone.analysis.stats.GroupComparison;
+import org.loadstone.report.Charts;
+import org.loadstone.report.GroupColours;
+import org.loadstone.report.PdfReport;
+import org.loadstone.report.RunCurves;
 import org.loadstone.study.ArchiveRuns;
 import org.loadstone.study.GroupStudy;
 import org.loadstone.study.LeftOut;
@@ -38,39 +40,42 @@ import org.loadstone.study.Metric;
 import org.loadstone.study.RunMetrics;
 import org.loadstone.study.RunSelection;
 import org.loadstone.study.Selection;
-import org.loadstone.study.StudyResult;
-import org.loadstone.report.Charts;
-import org.loadstone.report.PdfReport;
 import org.loadstone.units.LoadstoneException;
 
 /**
  * Reviewing the archive after a day of testing: the runs of a folder, their curves overlaid (the
- * runs picked, or all shown), and the groups compared on a chosen figure — means with their
- * scatter, the test, the plain sentence and the sample-size advice, as {@code loadstone compare}
- * and the group report give them. Which runs count is the one rule of {@link RunSelection}: by
- * default broken, calibrated runs; check boxes let the other kinds in, and the runs left out are
- * listed with the reason. Thin: figures come from {@link GroupStudy}, charts from {@link Charts}.
+ * runs picked, or all shown), and the groups ticked compared on a chosen figure — means with
+ * their scatter, the test, the plain sentence and the sample-size advice, as {@code loadstone
+ * compare} and the group report give them. Which runs count is the one rule of
+ * {@link RunSelection}: by default broken, calibrated runs; check boxes let the other kinds in,
+ * and the runs left out are listed with the reason. A group keeps its colour in every view
+ * ({@link GroupColours#of(Selection)}); up to {@link RunCurves#MAX_RUNS} curves are drawn each in
+ * its own colour, shown beside its row. Thin: figures come from {@link GroupStudy}, charts from
+ * {@link Charts} and {@link RunCurves}.
  */
 final class ArchivePane {
-  /** The comparison's sample-size advice aims at this difference, as the command line's default. */
-  private static final double TARGET_DIFFERENCE = GroupComparison.DEFAULT_TARGET_DIFFERENCE;
-  private static final DateTimeFormatter WHEN =
-      DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm", Locale.ROOT).withZone(ZoneId.systemDefault());
-
   private final BorderPane root = new BorderPane();
   private final TextField folder = new TextField();
-  private final ComboBox<String> group = new ComboBox<>();
   private final ComboBox<Metric> metric = new ComboBox<>();
   private final Map<LeftOut.Kind, CheckBox> include = new EnumMap<>(LeftOut.Kind.class);
-  private final TableView<RunMetrics> table = new TableView<>();
+  private final GroupPicker picker = new GroupPicker(this::showRuns);
+  /** The colour of each run's curve in the chart shown, by run id. */
+  private final Map<String, Color> curveColours = new HashMap<>();
+  private GroupColours colours = GroupColours.of(List.of());
+  private final TableView<RunMetrics> table = ArchiveTable.runs(
+      m -> curveColours.get(m.metadata().runId()), g -> colours.colour(g));
+  private final TableView<LeftOut> leftOut = ArchiveTable.leftOut();
   private final BorderPane curves = new BorderPane();
-  private final BorderPane strip = new BorderPane();
-  private final VBox statistics = new VBox(6);
+  private final ArchiveStudyView study = new ArchiveStudyView();
   private final Label status = LivePane.label("archive-status", "");
   /** The folder's runs, analysed; null before the first load. */
   private ArchiveRuns archive;
-  /** The runs that count under the boxes ticked, by group, and those left out. */
+  /** Every run that counts under the boxes ticked, all groups; null before a folder is read. */
   private Selection selection;
+  /** The runs of the groups ticked, as last shown; null when none are. */
+  private Selection current;
+  /** Readings of the folder asked for, on the JavaFX thread: only the last one is shown. */
+  private long reloads;
 
   ArchivePane(Path archive) {
     folder.setText(archive.toString());
@@ -90,8 +95,6 @@ final class ArchivePane {
     Button load = new Button("Load");
     load.setId("archive-load");
     load.setOnAction(e -> reload());
-    group.setId("archive-group");
-    group.setOnAction(e -> showRuns());
     metric.setId("archive-metric");
     metric.setItems(FXCollections.observableArrayList(Metric.comparableOnes()));
     metric.setValue(Metric.PEAK);
@@ -111,12 +114,12 @@ final class ArchivePane {
     report.setId("archive-report");
     report.setOnAction(e -> writeReport());
     HBox bar = new HBox(10, LivePane.label("archive-caption", "ARCHIVE"), folder, load,
-        LivePane.label("group-caption", "group"), group, LivePane.label("metric-caption",
-            "compare"), metric, report);
+        LivePane.label("metric-caption", "compare"), metric, report);
     bar.setAlignment(Pos.CENTER_LEFT);
     bar.getStyleClass().add("archive-bar");
-    HBox counts = new HBox(10, LivePane.label("include-caption",
-        "counted: runs ended by a break, force from a calibration; also count"));
+    javafx.scene.layout.FlowPane counts = new javafx.scene.layout.FlowPane(10, 4,
+        LivePane.label("include-caption",
+            "counted: runs ended by a break, force from a calibration; also count"));
     for (LeftOut.Kind k : LeftOut.Kind.admissibleOnes()) {
       CheckBox box = new CheckBox(k.word());
       box.setId("archive-include-" + k.word());
@@ -126,60 +129,39 @@ final class ArchivePane {
     }
     counts.setAlignment(Pos.CENTER_LEFT);
     counts.getStyleClass().add("archive-bar");
-    root.setTop(new VBox(bar, counts));
+    counts.setPrefWrapLength(900);
+    root.setTop(new VBox(bar, counts, picker.node()));
 
-    table.setId("archive-runs");
-    table.getSelectionModel().setSelectionMode(SelectionMode.MULTIPLE);
     table.getSelectionModel().getSelectedItems().addListener(
-        (javafx.collections.ListChangeListener<RunMetrics>) c -> showCurves());
-    table.getColumns().add(column("specimen", m -> m.metadata().specimen()));
-    table.getColumns().add(column("group", m -> m.metadata().group()));
-    table.getColumns().add(column("cause", m -> m.metadata().cause().wireName()));
-    TableColumn<RunMetrics, String> started =
-        column("started", m -> WHEN.format(m.metadata().startedAt()));
-    started.setPrefWidth(150);
-    table.getColumns().add(started);
-    table.getColumns().add(column("peak N", m -> Metric.PEAK.format(Metric.PEAK.of(m))));
-    table.getColumns().add(column("mass g", m -> m.metadata().mass_g() == null ? "—"
-        : RunFigures.fmt(m.metadata().mass_g(), "").strip()));
-    TableColumn<RunMetrics, String> amended = column("record", m -> m.metadata().amendments()
-        .changes().stream().map(c -> c.field() + " " + c.now()).reduce((a, b) -> a + ", " + b)
-        .map(t -> "amended: " + t).orElse(""));
-    amended.setId("archive-amended");
-    table.getColumns().add(amended);
-    table.setPlaceholder(new Label("no runs here"));
-    table.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
-
-    statistics.setId("archive-statistics");
-    statistics.getStyleClass().add("archive-statistics");
-    statistics.setPrefWidth(420);
-    HBox comparison = new HBox(12, strip, statistics);
-    HBox.setHgrow(strip, Priority.ALWAYS);
-    comparison.setPrefHeight(300);
-    SplitPane right = new SplitPane(curves, comparison);
-    right.setOrientation(javafx.geometry.Orientation.VERTICAL);
+        (ListChangeListener<RunMetrics>) c -> showCurves());
+    leftOut.setPrefHeight(150);
+    SplitPane lists = new SplitPane(table, leftOut);
+    lists.setOrientation(Orientation.VERTICAL);
+    lists.setDividerPositions(0.72);
+    curves.getStyleClass().add("archive-curves");
+    SplitPane right = new SplitPane(curves, study.node());
+    right.setOrientation(Orientation.VERTICAL);
     right.setDividerPositions(0.55);
-    SplitPane split = new SplitPane(table, right);
-    split.setDividerPositions(0.36);
+    SplitPane split = new SplitPane(lists, right);
+    split.setDividerPositions(0.45);
     root.setCenter(split);
     status.setWrapText(true);
     HBox bottom = new HBox(status);
     bottom.getStyleClass().add("bottom-bar");
     root.setBottom(bottom);
     BorderPane.setMargin(split, new Insets(8));
+    // a change of look: the colour squares follow the charts
+    root.sceneProperty().addListener((o, was, now) -> {
+      if (now != null && now.getRoot() != null) {
+        now.getRoot().getStyleClass().addListener((ListChangeListener<String>) c -> {
+          table.refresh();
+          picker.repaint();
+        });
+      }
+    });
   }
 
-  private static TableColumn<RunMetrics, String> column(String name,
-      java.util.function.Function<RunMetrics, String> value) {
-    TableColumn<RunMetrics, String> c = new TableColumn<>(name);
-    c.setCellValueFactory(f -> new ReadOnlyStringWrapper(value.apply(f.getValue())));
-    return c;
-  }
-
-  /** Scans the folder and analyses every run not analysed before, off the JavaFX thread. */
-  /** Readings of the folder asked for, on the JavaFX thread: only the last one is shown. */
-  private long reloads;
-
+  /** Reads the folder and analyses every run not analysed before, off the JavaFX thread. */
   void reload() {
     Path dir = Path.of(folder.getText().trim());
     ArchiveRuns before = archive;
@@ -219,7 +201,7 @@ final class ArchivePane {
     t.start();
   }
 
-  /** @return the selection settings the boxes give */
+  /** @return the selection settings the boxes give (every group; the groups are picked after) */
   RunSelection settings() {
     List<LeftOut.Kind> kinds = new ArrayList<>();
     include.forEach((k, box) -> {
@@ -230,32 +212,97 @@ final class ArchivePane {
     return RunSelection.DEFAULT.admitting(kinds);
   }
 
-  /** Applies the boxes to the loaded runs and shows what counts. */
+  /** Applies the kind boxes to the loaded runs and lists the archive's groups. */
   private void select() {
     if (archive == null) {
-      show(null);
+      selection = null;
+      picker.show(List.of(), colours);
+      showRuns();
       return;
     }
-    Selection sel = archive.select(settings());
-    show(sel);
-    status.setText(sel.counted() + " runs counted in " + sel.folder()
-        + (sel.leftOut().isEmpty() ? "" : " · " + GroupStudy.leftOutSummary(sel.leftOut())
-            + ", listed beside the comparison"));
+    selection = archive.select(settings());
+    colours = GroupColours.of(selection);
+    picker.show(selection.groupsInArchive(), colours);
+    showRuns();
   }
 
-  private static final String ALL = "all groups";
-
-  private void show(Selection sel) {
-    selection = sel;
-    String was = group.getValue();
-    List<String> groups = new ArrayList<>();
-    groups.add(ALL);
-    if (sel != null) {
-      groups.addAll(sel.groups().keySet());
+  /**
+   * The runs the group boxes pick, as {@code compare} selects them for the same groups: every
+   * group when all are ticked, the groups ticked when two or more are, one group's runs alone
+   * when one is; null before a folder is read or when no group is ticked.
+   */
+  private Selection shown() {
+    if (selection == null) {
+      return null;
     }
-    group.setItems(FXCollections.observableArrayList(groups));
-    group.setValue(groups.contains(was) ? was : ALL);
-    showRuns();
+    List<String> ticked = picker.ticked();
+    if (picker.all()) {
+      return selection;
+    }
+    if (ticked.isEmpty()) {
+      return null;
+    }
+    if (ticked.size() == 1) {
+      return selection.onlyGroup(ticked.get(0));
+    }
+    return archive.select(settings().withGroups(ticked));
+  }
+
+  private void showRuns() {
+    Selection sel = shown();
+    current = sel;
+    table.setItems(FXCollections.observableArrayList(sel == null ? List.of() : sel.runs()));
+    showCurves();
+    compare();
+    if (sel == null) {
+      return;
+    }
+    status.setText(sel.counted() + " runs counted in " + sel.folder()
+        + (sel.leftOut().isEmpty() ? "" : " · " + GroupStudy.leftOutSummary(sel.leftOut())
+            + ", listed under the runs with the reason")
+        + (selection != null && picker.ticked().isEmpty() ? " · no group ticked" : ""));
+  }
+
+  /**
+   * The curves of the runs picked in the table, or of all shown when none is picked: each in its
+   * own colour up to {@link RunCurves#MAX_RUNS} runs, by group beyond.
+   */
+  private void showCurves() {
+    List<RunMetrics> picked = List.copyOf(table.getSelectionModel().getSelectedItems());
+    List<RunMetrics> drawn = picked.isEmpty() ? List.copyOf(table.getItems()) : picked;
+    curveColours.clear();
+    if (drawn.isEmpty()) {
+      curves.setCenter(new Label(selection != null && picker.ticked().isEmpty()
+          ? "tick a group above" : "no runs to draw"));
+      table.refresh();
+      return;
+    }
+    String title = picked.isEmpty() ? "all runs shown" : drawn.size() + " runs picked";
+    JFreeChart chart;
+    if (drawn.size() <= RunCurves.MAX_RUNS) {
+      chart = RunCurves.of(title, drawn);
+      for (int i = 0; i < drawn.size(); i++) {
+        curveColours.put(drawn.get(i).metadata().runId(), RunCurves.colour(i));
+      }
+    } else {
+      Map<String, List<RunMetrics>> byGroup = new java.util.TreeMap<>();
+      for (RunMetrics m : drawn) {
+        String g = ArchiveRuns.groupName(m.metadata().group());
+        byGroup.computeIfAbsent(g, k -> new ArrayList<>()).add(m);
+        curveColours.put(m.metadata().runId(), colours.colour(g));
+      }
+      chart = Charts.overlay(title, byGroup, colours);
+    }
+    ChartViewer v = new ChartViewer(chart);
+    v.setId("archive-curves");
+    curves.setCenter(v);
+    table.refresh();
+  }
+
+  /** Compares the groups shown on the chosen figure and lists the runs left out. */
+  private void compare() {
+    List<LeftOut> left = study.show(current, metric.getValue(), colours);
+    leftOut.setItems(FXCollections.observableArrayList(left));
   }
 
   /**
@@ -264,7 +311,7 @@ final class ArchivePane {
    */
   private void writeReport() {
     List<RunMetrics> picked = List.copyOf(table.getSelectionModel().getSelectedItems());
-    Selection groups = shown();
+    Selection groups = current;
     Path dir = Path.of(folder.getText().trim());
     Path file = dir.resolve("report-" + java.time.LocalDateTime.now().format(
         DateTimeFormatter.ofPattern("yyyyMMdd-HHmmss", Locale.ROOT)) + ".pdf");
@@ -275,10 +322,11 @@ final class ArchivePane {
         if (picked.size() == 1) {
           PdfReport.writeRun(picked.get(0), file);
         } else if (groups == null) {
-          throw new LoadstoneException("no runs loaded: press Load first");
+          throw new LoadstoneException("no runs to report: load a folder and tick a group");
         } else {
           PdfReport.writeGroups("Comparison of " + String.join(", ", groups.groups().keySet()),
-              GroupStudy.compareEach(groups, PdfReport.DEFAULT_METRICS, TARGET_DIFFERENCE), file);
+              GroupStudy.compareEach(groups, PdfReport.DEFAULT_METRICS,
+                  ArchiveStudyView.TARGET_DIFFERENCE), file);
         }
         done = "report written to " + file;
       } catch (LoadstoneException e) {
@@ -291,113 +339,30 @@ final class ArchivePane {
     t.start();
   }
 
-  /** The selection limited to the chosen group (or all); null before a folder is loaded. */
-  private Selection shown() {
-    String g = group.getValue();
-    if (selection == null || g == null || g.equals(ALL)) {
-      return selection;
-    }
-    return selection.onlyGroup(g);
-  }
-
-  private void showRuns() {
-    List<RunMetrics> rows = shown() == null ? List.of() : shown().runs();
-    table.setItems(FXCollections.observableArrayList(rows));
-    showCurves();
-    compare();
-  }
-
-  /** The curves of the runs picked in the table, or of all shown when none is picked. */
-  private void showCurves() {
-    List<RunMetrics> picked = table.getSelectionModel().getSelectedItems();
-    Map<String, List<RunMetrics>> byGroup = new TreeMap<>();
-    if (picked.isEmpty()) {
-      if (shown() != null) {
-        byGroup.putAll(shown().groups());
-      }
-    } else {
-      for (RunMetrics m : picked) {
-        byGroup.computeIfAbsent(ArchiveRuns.groupName(m.metadata().group()),
-            k -> new ArrayList<>()).add(m);
-      }
-    }
-    int n = byGroup.values().stream().mapToInt(List::size).sum();
-    if (n == 0) {
-      curves.setCenter(new Label("no runs to draw"));
-      return;
-    }
-    JFreeChart chart = byGroup.size() == 1
-        ? Charts.group(byGroup.keySet().iterator().next(), byGroup.values().iterator().next())
-        : Charts.overlay(picked.isEmpty() ? "all runs shown" : n + " runs picked", byGroup);
-    curves.setCenter(viewer("archive-curves", chart));
-  }
-
-  /** Compares the shown groups on the chosen figure. */
-  private void compare() {
-    statistics.getChildren().clear();
-    strip.setCenter(null);
-    Metric m = metric.getValue();
-    Selection sel = shown();
-    if (m == null || sel == null) {
-      return;
-    }
-    try {
-      StudyResult r = GroupStudy.compare(sel, m, TARGET_DIFFERENCE);
-      strip.setCenter(viewer("archive-strip",
-          Charts.strip(r.comparison(), r.plainValues(), m.heading())));
-      statistics.getChildren().add(StudyTable.of(r));
-      statistics.getChildren().add(LivePane.label("archive-test", r.test().words()
-          + (r.pValue().isPresent()
-          ? String.format(Locale.ROOT, ", p = %.3g", r.pValue().getAsDouble()) : "")));
-      Label sentence = LivePane.label("archive-sentence", r.sentence());
-      sentence.setWrapText(true);
-      statistics.getChildren().add(sentence);
-      r.advice().ifPresent(a -> {
-        Label advice = LivePane.label("archive-advice", a.sentence());
-        advice.setWrapText(true);
-        statistics.getChildren().add(advice);
-      });
-      for (StudyResult.Outlier o : r.outliers()) {
-        note("possible outlier in " + o.group() + ": run " + o.runId() + " (" + o.specimen()
-            + "), " + m.format(o.value()) + " " + m.unit() + " (Grubbs, α = 0.05)");
-      }
-      for (LeftOut left : r.leftOut()) {
-        note("left out: " + left.line());
-      }
-    } catch (LoadstoneException e) {
-      Label why = LivePane.label("archive-sentence", e.getMessage()
-          + (sel.leftOut().isEmpty() ? "" : " — tick a kind above to count it"));
-      why.setWrapText(true);
-      statistics.getChildren().add(why);
-      for (LeftOut left : sel.leftOut()) {
-        note("left out: " + left.line());
-      }
-    }
-  }
-
-  private void note(String text) {
-    Label l = new Label(text);
-    l.setWrapText(true);
-    l.getStyleClass().add("archive-note");
-    statistics.getChildren().add(l);
-  }
-
-  private static ChartViewer viewer(String id, JFreeChart chart) {
-    ChartViewer v = new ChartViewer(chart);
-    v.setId(id);
-    return v;
-  }
-
   TableView<RunMetrics> table() {
     return table;
   }
 
-  ComboBox<String> group() {
-    return group;
+  TableView<LeftOut> leftOut() {
+    return leftOut;
+  }
+
+  GroupPicker picker() {
+    return picker;
   }
 
   ComboBox<Metric> metric() {
     return metric;
+  }
+
+  /** @return the colours of the archive's groups as last read */
+  GroupColours colours() {
+    return colours;
+  }
+
+  /** @return the colour of a run's curve in the chart shown, or null when it is not drawn */
+  Color curveColour(RunMetrics m) {
+    return curveColours.get(m.metadata().runId());
   }
 
   /** @return the box that lets runs of this kind count */

@@ -49,9 +49,9 @@ public final class ConsoleApp extends Application {
         archive.reload(); // runs stored since it was last looked at
       }
     });
-    Scene scene = new Scene(tabs, 1280, 800);
-    scene.getStylesheets().add(
-        ConsoleApp.class.getResource("/org/loadstone/ui/console.css").toExternalForm());
+    Look look = new Look(c.home()); // dark or light and the text size, as last chosen
+    Scene scene = new Scene(look.withControls(tabs), 1280, 800);
+    look.install(scene);
     live.installKeys(scene, liveTab::isSelected);
     calibrate.installKeys(scene, calibrateTab::isSelected);
     stage.setTitle("Loadstone — live");

@@ -25,7 +25,8 @@ final class ConsoleHints {
           LOW_FORCE_TIME -> "Live tab, Run settings: the field marked";
       case PRETRIGGER, ARMING_LEVEL, DEBOUNCE, ABSOLUTE_STOP, OVERLOAD_WARNING, OVERLOAD_STOP ->
           "the console uses the default for this one; set it with 'loadstone record'";
-      case ARCHIVE_FOLDER -> "start the console with another folder (--archive)";
+      case ARCHIVE_FOLDER -> "type another folder in the Archive tab and press Load; runs are "
+          + "stored in the folder the console was started with";
       case PORT -> "start the console on another port (--port)";
       case SIM_SCENARIO -> "start the console with --scenario dead-weight";
       case SIM_SPEED -> "start the console with another --sim-speed";

@@ -24,7 +24,12 @@ final class FormMemory {
   private final Path file;
 
   FormMemory(Path home) {
-    file = home.resolve(FILE);
+    this(home, FILE);
+  }
+
+  /** A memory of other settings kept the same way, in {@code name} under the home folder. */
+  FormMemory(Path home, String name) {
+    file = home.resolve(name);
   }
 
   /** @return the form last remembered, field name to text; empty when none */

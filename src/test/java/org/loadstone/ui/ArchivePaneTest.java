@@ -98,7 +98,7 @@ class ArchivePaneTest {
     assertThat(picked).hasSize(2);
     assertThat(seriesIn("#archive-curves", robot)).isEqualTo(2);
 
-    robot.interact(() -> pane.group().setValue("balsa"));
+    robot.interact(() -> pane.picker().pick(List.of("balsa")));
     WaitForAsyncUtils.waitForFxEvents();
     assertThat(pane.table().getItems()).hasSize(5)
         .allSatisfy(m -> assertThat(m.metadata().group()).isEqualTo("balsa"));
@@ -178,10 +178,12 @@ class ArchivePaneTest {
     assertThat(groups.getItems().stream().filter(g -> g.name().equals("foam")).findFirst()
         .orElseThrow().mean()).isCloseTo(org.apache.commons.math3.stat.StatUtils.mean(
             foamPerGram), org.assertj.core.api.Assertions.within(1e-9));
-    List<String> notes = robot.lookup(".archive-note").queryAllAs(Label.class).stream()
-        .map(Label::getText).toList();
-    assertThat(notes).contains("left out: " + MixedArchive.RETIRED + " (balsa-4): retired: "
-        + MixedArchive.RETIRED_REASON);
+    // the retired run is listed under the runs, with its reason
+    assertThat(pane.leftOut().getItems()).anySatisfy(l -> {
+      assertThat(l.runId()).isEqualTo(MixedArchive.RETIRED);
+      assertThat(l.specimen()).isEqualTo("balsa-4");
+      assertThat(l.reason()).isEqualTo("retired: " + MixedArchive.RETIRED_REASON);
+    });
   }
 
   @Test
@@ -202,11 +204,10 @@ class ArchivePaneTest {
     TableView<GroupSummary> groups = robot.lookup("#archive-groups").queryAs(TableView.class);
     assertThat(groups.getItems()).containsExactlyElementsOf(expected.groups());
     assertThat(pane.table().getItems()).hasSize(13);
+    // every run left out, with its reason, in the list under the runs
+    assertThat(pane.leftOut().getItems()).containsExactlyElementsOf(expected.leftOut());
     List<String> notes = robot.lookup(".archive-note").queryAllAs(Label.class).stream()
         .map(Label::getText).toList();
-    for (LeftOut l : expected.leftOut()) {
-      assertThat(notes).contains("left out: " + l.line());
-    }
     assertThat(notes).anySatisfy(n -> assertThat(n).contains(MixedArchive.FOAM_OUTLIER));
     assertThat(robot.lookup("#archive-status").queryAs(Label.class).getText())
         .contains("13 runs counted")
@@ -240,12 +241,15 @@ class ArchivePaneTest {
     WaitForAsyncUtils.waitFor(HangGuard.S, TimeUnit.SECONDS, () -> robot.lookup("#archive-status")
         .queryAs(Label.class).getText().contains("counted in " + mixed));
     WaitForAsyncUtils.waitForFxEvents();
-    List<String> notes = robot.lookup(".archive-note").queryAllAs(Label.class).stream()
-        .map(Label::getText).toList();
-    assertThat(notes).anySatisfy(n -> assertThat(n).startsWith("left out: ")
-        .contains("garbled.json").contains("cannot be read"));
-    assertThat(notes).anySatisfy(n -> assertThat(n).startsWith("left out: " + damaged)
-        .contains("cannot be read"));
+    List<LeftOut> left = pane.leftOut().getItems();
+    assertThat(left).anySatisfy(l -> {
+      assertThat(l.runId()).contains("garbled.json");
+      assertThat(l.reason()).contains("cannot be read");
+    });
+    assertThat(left).anySatisfy(l -> {
+      assertThat(l.runId()).isEqualTo(damaged);
+      assertThat(l.reason()).contains("cannot be read");
+    });
     assertThat(robot.lookup("#archive-status").queryAs(Label.class).getText())
         .contains("12 runs counted").contains("2 unreadable");
   }
