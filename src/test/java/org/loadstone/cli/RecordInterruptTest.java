@@ -39,7 +39,10 @@ class RecordInterruptTest {
       RecordCommandTest.awaitJournalSamples(arc, 2000);
       Process kill = new ProcessBuilder("kill", "-INT", Long.toString(p.pid())).start();
       assertThat(kill.waitFor(HangGuard.S, TimeUnit.SECONDS)).isTrue();
-      assertThat(p.waitFor(HangGuard.S, TimeUnit.SECONDS)).isTrue();
+      if (!p.waitFor(HangGuard.S, TimeUnit.SECONDS)) {
+        throw new AssertionError("record did not end after Ctrl-C; its threads:\n"
+            + threadsOf(p) + "\nstderr:\n" + Files.readString(dir.resolve("err.txt")));
+      }
     } finally {
       p.destroyForcibly();
     }
@@ -51,5 +54,15 @@ class RecordInterruptTest {
     assertThat(runs.get(0).metadata().cause()).isEqualTo(FinishCause.MANUAL);
     assertThat(out).as(err).contains("run " + runs.get(0).metadata().runId() + ": manual",
         runs.get(0).csv().toString());
+  }
+
+  /** The thread dump of a live process (what it waits on), for a failure message. */
+  private static String threadsOf(Process p) throws Exception {
+    String jcmd = Path.of(System.getProperty("java.home"), "bin", "jcmd").toString();
+    Process dump = new ProcessBuilder(jcmd, Long.toString(p.pid()), "Thread.print")
+        .redirectErrorStream(true).start();
+    String text = new String(dump.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+    dump.waitFor(HangGuard.S, TimeUnit.SECONDS);
+    return text;
   }
 }
