@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import org.loadstone.archive.FinishCause;
+import org.loadstone.archive.JournalEnd;
 import org.loadstone.archive.JournalFormat;
 import org.loadstone.archive.JournalRecovery;
 import org.loadstone.archive.JournalStream;
@@ -176,6 +177,8 @@ public final class JournalRunStore implements RunStore {
     private RunMetadata meta;
     private String secondFailed;
     private boolean told;
+    /** whether how the run ended is kept beside the journal ({@link JournalEnd}) */
+    private boolean endKept;
 
     Finish(JournalWriter journal, RunMetadata start, RunMetadata meta, long firstIndex,
         long lastIndex, Waiting waiting) {
@@ -195,6 +198,9 @@ public final class JournalRunStore implements RunStore {
 
     Stored run() {
       long since = System.nanoTime();
+      // how the run ended goes beside the journal before any wait: a program killed while the
+      // run is stored (or waits for room) leaves a journal recovered with its cause and break
+      endKept = JournalEnd.write(journal.file(), meta, lastIndex);
       while (true) {
         boolean whole = journal.writeHeld();
         if (whole) {
@@ -307,8 +313,8 @@ public final class JournalRunStore implements RunStore {
       return whole
           ? "run " + meta.runId() + " was not stored: the disk holding the archive stayed full;"
               + " all " + samples + " samples are in its journal "
-              + journal.file() + ", which becomes a run at the next start (without its cause"
-              + " and break)"
+              + journal.file() + ", which becomes a run at the next start" + (endKept
+              ? ", with its cause and break" : " (without its cause and break)")
           : "run " + meta.runId() + " was not stored: the disk holding the archive stayed full;"
               + " its journal " + journal.file() + " holds the first "
               + journal.samplesWritten() + " samples, which become a run at the next start;"

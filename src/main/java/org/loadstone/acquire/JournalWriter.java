@@ -110,6 +110,8 @@ public final class JournalWriter implements AutoCloseable {
       SampleRing.Cursor cursor) {
     Precondition.notNull(cursor, "cursor");
     JournalFormat.Opened j = JournalFormat.open(archiveDir, startInfo);
+    // room for how the run ends, taken now while the disk has it (JournalRunStore fills it in)
+    org.loadstone.archive.JournalEnd.reserve(j.file());
     JournalWriter w = new JournalWriter(j.file(), JournalSink.of(j.channel()), cursor, System::nanoTime);
     w.runId = j.startInfo().runId();
     try {
@@ -367,6 +369,7 @@ public final class JournalWriter implements AutoCloseable {
     closeChannel();
     try {
       Files.deleteIfExists(file);
+      org.loadstone.archive.JournalEnd.delete(file);
     } catch (IOException e) {
       throw new LoadstoneException("journal " + file + " cannot be removed: " + e.getMessage()
           + ": delete it by hand, or it will be recovered as a second copy of the run", e);

@@ -10,6 +10,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Optional;
 import java.util.function.Consumer;
 import java.util.function.DoubleUnaryOperator;
 import org.loadstone.files.FileExistsException;
@@ -91,8 +92,10 @@ public final class JournalRecovery {
 
   private static StoredRun recoverOne(Path archiveDir, Path journal, Consumer<String> notices) {
     JournalContents c;
+    // how the run ended, when it was finished before the program died (kept beside the journal)
+    Optional<JournalEnd.Ended> end = JournalEnd.read(journal);
     try {
-      c = readJournal(journal);
+      c = readJournal(journal, end.map(JournalEnd.Ended::lastIndex).orElse(Long.MAX_VALUE));
     } catch (DamagedHeader e) {
       Path moved = moveAside(archiveDir, journal);
       notices.accept("journal " + journal + " has an unreadable header (" + e.getMessage()
@@ -113,12 +116,12 @@ public final class JournalRecovery {
     String newId;
     if (!Files.exists(csv) && !Files.exists(json)) {
       newId = id; // the journal holds it
-      s = RunWriter.write(archiveDir, recoveredMetadata(c, newId, journal), c.data());
+      s = RunWriter.write(archiveDir, recoveredMetadata(c, newId, journal, end), c.data());
     } else {
       // a part of the run is stored under `id`: another id, held while the files are made
       try (RunIdClaim claim = RunIdClaim.claim(archiveDir, id)) {
         newId = claim.id();
-        s = RunWriter.write(archiveDir, recoveredMetadata(c, newId, journal), c.data());
+        s = RunWriter.write(archiveDir, recoveredMetadata(c, newId, journal, end), c.data());
       }
     }
     if (c.complete()) {
@@ -142,12 +145,29 @@ public final class JournalRecovery {
     }
   }
 
-  private static RunMetadata recoveredMetadata(JournalContents c, String id, Path journal) {
+  private static RunMetadata recoveredMetadata(JournalContents c, String id, Path journal,
+      Optional<JournalEnd.Ended> end) {
     RunMetadata h = c.startInfo();
-    List<String> w = new ArrayList<>(h.warnings());
-    w.add("recovered from journal " + journal.getFileName() + ": the program ended before the"
-        + " run was stored; " + c.data().size() + " samples kept; why the run ended, and its"
-        + " break if it had one, were not kept");
+    Optional<RunMetadata> ended = end.flatMap(e -> e.applyTo(h));
+    RunMetadata e = ended.orElse(null);
+    List<String> w = new ArrayList<>(ended.orElse(h).warnings());
+    int n = c.data().size();
+    if (e == null) {
+      w.add("recovered from journal " + journal.getFileName() + ": the program ended before the"
+          + " run was stored; " + n + " samples kept; why the run ended, and its break if it"
+          + " had one, were not kept");
+    } else {
+      w.add("recovered from journal " + journal.getFileName() + ": the program ended while the"
+          + " run was being stored; " + n + " samples kept; why the run ended and its break"
+          + " were kept beside the journal");
+      if (e.breakIndex() != null && e.breakIndex() >= n) {
+        w.add("the run's break (sample " + e.breakIndex() + ") lies past the last sample the"
+            + " journal holds (" + (n - 1) + "): the samples after it were held in memory"
+            + " when the program ended and are lost, so the break was left out");
+        e = e.toBuilder().breakIndex(null).breakTime_s(null).peakBeforeBreak_N(null)
+            .dropAtBreak_pct(null).build();
+      }
+    }
     if (c.tornBytes() > 0) {
       w.add("the journal ended in " + c.tornBytes() + " bytes of an incomplete record (the last"
           + " write before the program ended); they were left out");
@@ -183,7 +203,12 @@ public final class JournalRecovery {
         .zeroOffset_counts(h.zeroOffset_counts())
         .dropped(h.dropped() + c.seqGaps())
         .checksumErrors(h.checksumErrors())
-        .cause(FinishCause.RECOVERED)
+        .cause(e == null ? FinishCause.RECOVERED : e.cause())
+        .breakIndex(e == null ? null : e.breakIndex())
+        .breakTime_s(e == null ? null : e.breakTime_s())
+        .peakBeforeBreak_N(e == null ? null : e.peakBeforeBreak_N())
+        .dropAtBreak_pct(e == null ? null : e.dropAtBreak_pct())
+        .returnToZero_N(e == null ? null : e.returnToZero_N())
         .pretrigger_s(h.pretrigger_s())
         .startThreshold_N(h.startThreshold_N())
         .checkWeight(h.checkWeight())
@@ -209,10 +234,15 @@ public final class JournalRecovery {
    * @throws LoadstoneException when the file cannot be read or its header is damaged
    */
   public static JournalContents readJournal(Path journal) {
+    return readJournal(journal, Long.MAX_VALUE);
+  }
+
+  /** As {@link #readJournal(Path)}, up to the record of ring index {@code lastIndex}. */
+  static JournalContents readJournal(Path journal, long lastIndex) {
     Precondition.notNull(journal, "journal");
     try (InputStream in = new java.io.BufferedInputStream(Files.newInputStream(journal), 1 << 16)) {
       RunMetadata header = readHeader(in, journal);
-      return readRecords(in, header, derive(header));
+      return readRecords(in, header, derive(header), lastIndex);
     } catch (IOException e) {
       throw new LoadstoneException("journal " + journal + " cannot be read: " + e.getMessage()
           + ": check the file's permissions", e);
@@ -281,13 +311,13 @@ public final class JournalRecovery {
   }
 
   private static JournalContents readRecords(InputStream in, RunMetadata header,
-      JournalScan.Derive d) throws IOException {
+      JournalScan.Derive d, long lastIndex) throws IOException {
     int[] cap = {4096};
     long[][] t = {new long[cap[0]]};
     int[][] k = {new int[cap[0]]};
     int[][] p = {new int[cap[0]]};
     int[][] s = {new int[cap[0]]};
-    JournalScan scan = JournalScan.run(in, Long.MAX_VALUE, (i, timeUs, counts, hp, pos, seq) -> {
+    JournalScan scan = JournalScan.run(in, lastIndex, (i, timeUs, counts, hp, pos, seq) -> {
       if (i == t[0].length) {
         int m = i * 2;
         t[0] = Arrays.copyOf(t[0], m);
@@ -327,6 +357,7 @@ public final class JournalRecovery {
       Path target = dir.resolve(n == 1 ? name : name + "." + n);
       try {
         FilePublisher.moveWithoutReplacing(journal, target, "journal");
+        JournalEnd.delete(journal); // what it said is in the recovered run, if one was made
         return target;
       } catch (FileExistsException e) {
         // an earlier damaged journal of that name: take the next number
@@ -340,6 +371,7 @@ public final class JournalRecovery {
   private static void delete(Path journal) {
     try {
       Files.delete(journal);
+      JournalEnd.delete(journal);
       Folders.sync(journal.getParent());
     } catch (IOException e) {
       throw new LoadstoneException("journal " + journal + " was recovered but cannot be removed: "

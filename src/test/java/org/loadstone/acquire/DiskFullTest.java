@@ -267,7 +267,9 @@ class DiskFullTest {
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
     double zero = Tare.counts(reader, 100, HangGuard.MS);
-    disk.bytesLeft(4096 + 2000L * JournalFormat.RECORD_BYTES);
+    // the journal's header, the room kept for how the run ends, then 2000 samples
+    disk.bytesLeft(4096 + org.loadstone.archive.JournalEnd.RESERVE_BYTES
+        + 2000L * JournalFormat.RECORD_BYTES);
     JournalRunStore store = new JournalRunStore(disk.path(real), second, JournalStream::store,
         RETRY_MS);
     CountDownLatch waiting = new CountDownLatch(1);

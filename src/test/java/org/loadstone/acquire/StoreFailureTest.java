@@ -66,8 +66,10 @@ class StoreFailureTest {
     // the kept journal becomes the run at the next start
     List<StoredRun> recovered = JournalRecovery.recoverAll(archive, m -> { });
     assertThat(recovered).hasSize(1);
+    // with the cause the run ended with (the cable pulled), kept beside the journal when the
+    // run was finished (archive.JournalEnd)
     assertThat(RunReader.read(recovered.get(0).csv()).metadata().cause())
-        .isEqualTo(FinishCause.RECOVERED);
+        .isEqualTo(FinishCause.DEVICE_LOST);
     assertThat(RunReader.read(recovered.get(0).csv()).data().size()).isGreaterThanOrEqualTo(2000);
     assertThat(Files.exists(journal)).isFalse();
   }

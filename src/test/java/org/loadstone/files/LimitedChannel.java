@@ -9,7 +9,10 @@ import java.nio.channels.ReadableByteChannel;
 import java.nio.channels.WritableByteChannel;
 import java.util.concurrent.atomic.AtomicLong;
 
-/** A real file channel whose writes fail as on a full disk once the shared budget is spent. */
+/**
+ * A real file channel whose writes fail as on a full disk once the shared budget is spent. Only
+ * bytes that make the file longer are counted: writing over bytes the file holds needs no room.
+ */
 final class LimitedChannel extends FileChannel {
   private final FileChannel ch;
   private final AtomicLong left;
@@ -17,6 +20,15 @@ final class LimitedChannel extends FileChannel {
   LimitedChannel(FileChannel ch, AtomicLong left) {
     this.ch = ch;
     this.left = left;
+  }
+
+  /** As {@link #allow}, but 0 rather than a failure when nothing is allowed. */
+  private int allowSome(ByteBuffer src) {
+    try {
+      return allow(src);
+    } catch (IOException e) {
+      return 0;
+    }
   }
 
   /** Cuts {@code src} to what the budget allows; throws when nothing is allowed. */
@@ -37,7 +49,17 @@ final class LimitedChannel extends FileChannel {
   }
 
   private int limited(ByteBuffer src, long position) throws IOException {
-    int n = allow(src);
+    // bytes written over what the file already holds take no new room, as on a real disk
+    long at = position < 0 ? ch.position() : position;
+    int inPlace = (int) Math.max(0, Math.min(src.remaining(), ch.size() - at));
+    int n;
+    if (inPlace == src.remaining()) {
+      n = inPlace;
+    } else {
+      ByteBuffer beyond = src.duplicate();
+      beyond.position(src.position() + inPlace);
+      n = inPlace == 0 ? allow(beyond) : inPlace + allowSome(beyond);
+    }
     ByteBuffer part = src.duplicate();
     part.limit(part.position() + n);
     int written = position < 0 ? ch.write(part) : ch.write(part, position);
