@@ -42,7 +42,7 @@ public final class AmendCommand implements Callable<Integer> {
   @Option(names = "--clear", split = ",", paramLabel = "FIELD", description = "Clear these values (unknown), by field name, e.g. mass_g,width_mm.")
   List<String> clear;
 
-  @Option(names = "--reason", required = true, description = "Why the record is corrected (kept with the amendment).")
+  @Option(names = "--reason", paramLabel = "TEXT", required = true, description = "Why the record is corrected (kept with the amendment).")
   String reason;
 
   @Option(names = "--by", paramLabel = "NAME", defaultValue = "", description = "Who makes the correction.")

@@ -25,7 +25,7 @@ public final class RetireCommand implements Callable<Integer> {
   @Parameters(paramLabel = "RUN", description = "A run id, the start of one, or a specimen id in the archive.")
   String run;
 
-  @Option(names = "--reason", required = true, description = "Why (kept with the run, shown where it is left out).")
+  @Option(names = "--reason", paramLabel = "TEXT", required = true, description = "Why (kept with the run, shown where it is left out).")
   String reason;
 
   @Option(names = "--undo", description = "Reinstate a retired run instead.")
