@@ -41,9 +41,9 @@ import picocli.CommandLine.Option;
     description = {
       "Record one hands-free run and store it in the archive.",
       "",
-      "Zero, wait for load, record with a pre-trigger history, stop by itself at",
-      "the load drop (or overload, time limit, Ctrl-C). A crush test (--test crush)",
-      "goes on through the load drops to its travel limit, low force, time limit or Ctrl-C."
+      "Zero, wait for load, record with a pre-trigger history, stop by itself at the load "
+          + "drop (or overload, time limit, Ctrl-C). A crush test (--test crush) goes on through "
+          + "the load drops to its travel limit, low force, time limit or Ctrl-C."
     },
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {

@@ -24,8 +24,8 @@ import picocli.CommandLine.Parameters;
     description = {
       "Write a PDF report of one run, or of a comparison of groups.",
       "",
-      "One run: metadata, force curve, results, cautions. With --group: overlays, strip",
-      "plots and statistics of archived groups."
+      "One run: metadata, force curve, results, cautions. With --group: overlays, strip "
+          + "plots and statistics of archived groups."
     })
 public final class ReportCommand implements Callable<Integer> {
   @picocli.CommandLine.Mixin ArchiveOption archive;

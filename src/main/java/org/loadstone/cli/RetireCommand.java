@@ -16,8 +16,8 @@ import picocli.CommandLine.Parameters;
     description = {
       "Retire a run: it stays in the archive but no study, comparison or report counts it.",
       "",
-      "Nothing is deleted: the retirement and its reason are appended to the run's amendment",
-      "log; --undo reinstates the run the same way."
+      "Nothing is deleted: the retirement and its reason are appended to the run's amendment "
+          + "log; --undo reinstates the run the same way."
     })
 public final class RetireCommand implements Callable<Integer> {
   @Mixin ArchiveOption archive;

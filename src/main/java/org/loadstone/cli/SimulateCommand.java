@@ -26,11 +26,11 @@ import picocli.CommandLine.Option;
     description = {
       "Write the simulated frame's wire bytes to a file, stdout or a serial device.",
       "",
-      "The bytes are exactly what the firmware sends. A device path can be one end of a",
-      "pseudo-terminal pair. Output is paced in real time at --rate-hz.",
+      "The bytes are exactly what the firmware sends. A device path can be one end of a "
+          + "pseudo-terminal pair. Output is paced in real time at --rate-hz.",
       "",
-      "Scenarios: brittle, four-point, ductile, crush, over-range, rigid-block, panel-foam, panel-balsa,",
-      "panel-board, dead-weight."
+      "Scenarios: brittle, four-point, ductile, crush, over-range, rigid-block, panel-foam, "
+          + "panel-balsa, panel-board, dead-weight."
     })
 public final class SimulateCommand implements Callable<Integer> {
   @Option(names = "--scenario", paramLabel = "NAME", defaultValue = "brittle", description = "What is on the simulated frame (default: ${DEFAULT-VALUE}).")

@@ -184,4 +184,27 @@ class OptionSchemeTest {
     }
     assertThat(wrong).isEmpty();
   }
+
+  @Test
+  void commandDescriptionsAreWholeParagraphsForPicocliToWrap() {
+    // a paragraph broken by hand at 80 columns breaks mid-list on a narrower or wider terminal:
+    // each line of a command's description must be a whole paragraph (ending as a sentence does)
+    List<String> broken = new ArrayList<>();
+    walkCommands(new CommandLine(new LoadstoneCommand()), "loadstone", broken);
+    assertThat(broken).isEmpty();
+  }
+
+  private static void walkCommands(CommandLine cl, String path, List<String> broken) {
+    for (String line : cl.getCommandSpec().usageMessage().description()) {
+      String l = line.strip();
+      if (!l.isEmpty() && !l.matches("(?s).*[.?!:)]")) {
+        broken.add(path + ": a description line that is not a whole paragraph: " + l);
+      }
+    }
+    for (Map.Entry<String, CommandLine> c : cl.getSubcommands().entrySet()) {
+      if (!c.getValue().getCommandSpec().helpCommand()) {
+        walkCommands(c.getValue(), path + " " + c.getKey(), broken);
+      }
+    }
+  }
 }
