@@ -5,10 +5,13 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Collections;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
+import java.util.SortedSet;
+import java.util.TreeSet;
 import java.util.stream.Stream;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
@@ -237,29 +240,77 @@ public final class ArchiveIndex {
   }
 
   /**
-   * What to look for; null fields match everything.
+   * What to look for; null fields (and an empty group list) match everything.
    *
    * @param from earliest start, inclusive
    * @param to latest start, exclusive
    * @param specimen text the specimen id contains (any case)
-   * @param group exact group name (any case)
+   * @param groups group names, each exact (any case); a run matches when it is in one of them
+   *     ({@link #groupName}: {@code (none)} for runs without a group); null or empty for all
    * @param tag a tag the run has (any case)
    * @param cause finish cause
    */
-  public record Query(Instant from, Instant to, String specimen, String group, String tag,
+  public record Query(Instant from, Instant to, String specimen, List<String> groups, String tag,
       FinishCause cause) {
     /** Matches every run. */
     public static final Query ALL = new Query(null, null, null, null, null, null);
+
+    /** Copies the group list. */
+    public Query {
+      groups = groups == null ? List.of() : List.copyOf(groups);
+    }
 
     boolean matches(RunMetadata m) {
       return (from == null || !m.startedAt().isBefore(from))
           && (to == null || m.startedAt().isBefore(to))
           && (specimen == null || m.specimen().toLowerCase(Locale.ROOT)
               .contains(specimen.toLowerCase(Locale.ROOT)))
-          && (group == null || m.group().equalsIgnoreCase(group))
+          && (groups.isEmpty() || groups.stream().anyMatch(g -> g.equalsIgnoreCase(groupName(m.group()))))
           && (tag == null || m.tags().stream().anyMatch(t -> t.equalsIgnoreCase(tag)))
           && (cause == null || m.cause() == cause);
     }
+  }
+
+  /**
+   * The group a run is listed and studied in.
+   *
+   * @param group the run's group, may be null or blank
+   * @return the group's name, {@code (none)} when it has none
+   */
+  public static String groupName(String group) {
+    return group == null || group.isBlank() ? "(none)" : group;
+  }
+
+  /** @return the groups of the runs here ({@link #groupName}), sorted, each once */
+  public SortedSet<String> groups() {
+    TreeSet<String> names = new TreeSet<>();
+    entries.forEach(e -> names.add(groupName(e.metadata().group())));
+    return Collections.unmodifiableSortedSet(names);
+  }
+
+  /**
+   * The groups asked for, each as it is spelt in the archive (names match in any case).
+   *
+   * @param wanted group names as typed, not null
+   * @return the groups found, in the order asked
+   * @throws LoadstoneException when a group asked for has no runs here, naming the groups there
+   *     are
+   */
+  public List<String> groupsNamed(List<String> wanted) {
+    Precondition.notNull(wanted, "wanted");
+    SortedSet<String> here = groups();
+    List<String> found = new ArrayList<>();
+    List<String> missing = new ArrayList<>();
+    for (String w : wanted) {
+      here.stream().filter(g -> g.equalsIgnoreCase(w.trim())).findFirst()
+          .ifPresentOrElse(found::add, () -> missing.add(org.loadstone.units.InputException.shown(w)));
+    }
+    if (!missing.isEmpty()) {
+      throw new LoadstoneException("no runs of group" + (missing.size() > 1 ? "s " : " ")
+          + String.join(", ", missing) + " in " + dir + ": the groups there are "
+          + (here.isEmpty() ? "none (no runs yet)" : String.join(", ", here)));
+    }
+    return found;
   }
 
   /** @return the runs matching {@code q}, oldest first */

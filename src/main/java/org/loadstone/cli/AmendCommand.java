@@ -24,9 +24,9 @@ import picocli.CommandLine.Parameters;
     description = {
       "Correct a stored run's specimen record (mass, group, geometry, ids, notes).",
       "",
-      "The run's files are not touched: the correction is appended, with its reason, to the",
-      "run's amendment log beside them, and every command, report and the console read the",
-      "run with it. Retire a run with 'loadstone retire'."
+      "The run's files are not touched: the correction is appended, with its reason, to the "
+          + "run's amendment log beside them, and every command, report and the console read "
+          + "the run with it. Retire a run with 'loadstone retire'."
     })
 public final class AmendCommand implements Callable<Integer> {
   @Mixin ArchiveOption archive;
@@ -42,7 +42,7 @@ public final class AmendCommand implements Callable<Integer> {
   @Option(names = "--clear", split = ",", paramLabel = "FIELD", description = "Clear these values (unknown), by field name, e.g. mass_g,width_mm.")
   List<String> clear;
 
-  @Option(names = "--reason", required = true, description = "Why the record is corrected (kept with the amendment).")
+  @Option(names = "--reason", paramLabel = "TEXT", required = true, description = "Why the record is corrected (kept with the amendment).")
   String reason;
 
   @Option(names = "--by", paramLabel = "NAME", defaultValue = "", description = "Who makes the correction.")

@@ -45,7 +45,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--accept-changed-calibration", description = "Use the --cal calibration even though its content changed since it was saved (refused otherwise).")
   boolean acceptChanged;
 
-  @Option(names = "--crosshead-rate-mm-per-min", paramLabel = "R", description = "Position from a constant crosshead rate, for runs without a position channel.")
+  @Option(names = "--crosshead-rate-mm-per-min", paramLabel = "MM-PER-MIN", description = "Position from a constant crosshead rate, for runs without a position channel.")
   Double crossheadRate;
 
   @Option(names = "--position-table", paramLabel = "FILE", description = "Position from a position-time CSV (video tracking, dial gauge), aligned by the break unless --table-offset-s is given.")
@@ -60,10 +60,10 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--table-map", paramLabel = "MAP", defaultValue = "time=1,position=2", description = "Columns of the position table by header or 1-based number (default: ${DEFAULT-VALUE}).")
   String tableMap;
 
-  @Option(names = "--table-time-unit", paramLabel = "UNIT", defaultValue = "s", description = "s, ms or min (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--table-time-unit", paramLabel = "UNIT", defaultValue = "s", description = "Time unit of the position table: s, ms or min (default: ${DEFAULT-VALUE}).")
   String tableTimeUnit;
 
-  @Option(names = "--table-length-unit", paramLabel = "UNIT", defaultValue = "mm", description = "mm, um, cm, m or in (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--table-length-unit", paramLabel = "UNIT", defaultValue = "mm", description = "Length unit of the position table: mm, um, cm, m or in (default: ${DEFAULT-VALUE}).")
   String tableLengthUnit;
 
   @Option(names = "--table-decimal", defaultValue = ".", paramLabel = "MARK", description = "Decimal mark of the position table: '.' or ',' (default: ${DEFAULT-VALUE}).")
@@ -80,7 +80,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
   @Option(names = "--frame", paramLabel = "FILE", description = "Remove the load frame's deflection F/k with this frame profile (see 'loadstone frame').")
   Path frame;
 
-  @Option(names = "--frame-stiffness-n-per-mm", paramLabel = "K", description = "Remove the load frame's deflection F/K.")
+  @Option(names = "--frame-stiffness-n-per-mm", paramLabel = "N-PER-MM", description = "The load frame's stiffness: its deflection, F/K, is taken off the position.")
   Double frameK;
 
   @Option(names = "--json", description = "Write the results as one JSON document on standard output (schema loadstone-analyze); the text goes to standard error.")

@@ -50,7 +50,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
   /** Same rule as the calibration document's ids. */
   private static final String ID_PATTERN = "[A-Za-z0-9][A-Za-z0-9._-]{0,79}";
 
-  @Option(names = "--points", paramLabel = "POINTS_CSV",
+  @Option(names = "--points", paramLabel = "FILE.csv",
       description = "Fit the points in this CSV file (mass_g or force_N, counts, direction, "
           + "series, counts_sd, samples) instead of capturing them live.")
   Path from;
@@ -86,7 +86,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
       description = "Who calibrated (default: the login name).")
   String operator;
 
-  @Option(names = "--valid-days", paramLabel = "N", defaultValue = "365",
+  @Option(names = "--valid-days", paramLabel = "DAYS", defaultValue = "365",
       description = "Days the calibration stays valid (default: ${DEFAULT-VALUE}).")
   int validDays;
 
@@ -107,7 +107,7 @@ public final class CalibrateCommand implements Callable<Integer>, CommandInput.R
   @Option(names = "--descending", description = "Live: read on the way down too (hysteresis, zero return).")
   boolean descending;
 
-  @Option(names = "--series", paramLabel = "N", defaultValue = "1",
+  @Option(names = "--series", paramLabel = "COUNT", defaultValue = "1",
       description = "Live: number of series, 1 to 10 (default: ${DEFAULT-VALUE}; ISO 7500-1 asks for 3).")
   int series;
 

@@ -22,9 +22,9 @@ import picocli.CommandLine.Option;
     description = {
       "Compare groups of archived runs on one metric: real difference or scatter?",
       "",
-      "Per group n, mean, SD, CV and 95 %% CI; Welch's t-test (two groups) or one-way",
-      "ANOVA (more); outliers; how many specimens would resolve a given difference;",
-      "the runs left out and why."
+      "Per group n, mean, SD, CV and 95 %% CI; Welch's t-test (two groups) or one-way ANOVA "
+          + "(more); outliers; how many specimens would resolve a given difference; the runs "
+          + "left out and why."
     })
 public final class CompareCommand implements Callable<Integer> {
   @Mixin ArchiveOption archive;

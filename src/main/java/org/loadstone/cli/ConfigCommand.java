@@ -18,12 +18,12 @@ import picocli.CommandLine.Option;
     description = {
       "Show the defaults in effect and where each comes from.",
       "",
-      "Archive, port, calibration, operator, and the force and length units of imported",
-      "files whose header states none: an option typed wins, then the environment",
-      "(LOADSTONE_ARCHIVE, _PORT, _CALIBRATION, _OPERATOR, _FORCE_UNIT, _LENGTH_UNIT),",
-      "then the config file",
-      "($LOADSTONE_CONFIG, else $XDG_CONFIG_HOME/loadstone/config.properties, else",
-      "~/.config/loadstone/config.properties: 'key = value' lines), then what is built in."
+      "Archive, port, calibration, operator, and the force and length units of imported "
+          + "files whose header states none: an option typed wins, then the environment "
+          + "(LOADSTONE_ARCHIVE, _PORT, _CALIBRATION, _OPERATOR, _FORCE_UNIT, _LENGTH_UNIT), "
+          + "then the config file ($LOADSTONE_CONFIG, else "
+          + "$XDG_CONFIG_HOME/loadstone/config.properties, else "
+          + "~/.config/loadstone/config.properties: 'key = value' lines), then what is built in."
     })
 public final class ConfigCommand implements Callable<Integer> {
   @Option(names = "--json", description = "Write the settings as one JSON document on standard output (schema loadstone-config); the text goes to standard error.")

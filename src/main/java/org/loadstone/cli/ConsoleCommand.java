@@ -31,7 +31,7 @@ public final class ConsoleCommand implements Callable<Integer> {
   Double capacity;
 
   @Option(
-      names = "--counts-per-n",
+      names = "--counts-per-n", paramLabel = "COUNTS-PER-N",
       description = "For a serial device without a calibration yet: nominal sensitivity in "
           + "counts per N, for a rough, uncalibrated force (without it or --cal the live view "
           + "shows counts and runs are refused).")

@@ -6,12 +6,12 @@ import picocli.CommandLine.Option;
 
 /** The stroke the crush figures are taken over, shared by {@code analyze} and {@code record}. */
 final class CrushOptions {
-  @Option(names = "--crush-from-mm", paramLabel = "A",
+  @Option(names = "--crush-from-mm", paramLabel = "MM",
       description = "Mean crush force, crush-force efficiency and crush energy from this "
           + "displacement (default: 0; a crush run takes the whole stroke).")
   Double fromMm;
 
-  @Option(names = "--crush-to-mm", paramLabel = "B",
+  @Option(names = "--crush-to-mm", paramLabel = "MM",
       description = "Crush figures up to this displacement (default: the end of the stroke).")
   Double toMm;
 

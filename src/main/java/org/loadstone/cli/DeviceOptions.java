@@ -24,23 +24,23 @@ public final class DeviceOptions {
   int baud;
 
   @Option(
-      names = "--reset-wait-ms",
+      names = "--reset-wait-ms", paramLabel = "MS",
       defaultValue = "0",
       description = "Wait this long after opening, for boards that reset on open (try "
           + "2000; default: ${DEFAULT-VALUE}).")
   int resetWaitMs;
 
   @Option(
-      names = "--scenario",
+      names = "--scenario", paramLabel = "NAME",
       description = "Simulator: what is on the simulated frame (default: " + DEFAULT_SCENARIO
           + "; dead-weight for calibrate and verify); 'loadstone simulate --help' lists them.")
   String scenario;
 
-  @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "Simulator: random seed (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--seed", paramLabel = "SEED", defaultValue = "1", description = "Simulator: random seed (default: ${DEFAULT-VALUE}).")
   long seed;
 
   @Option(
-      names = "--rate-hz",
+      names = "--rate-hz", paramLabel = "HZ",
       defaultValue = "80",
       description = "Simulator: samples per second: 10 or 80 (bridge amplifier) or 100…50000 "
           + "(fast converter) (default: ${DEFAULT-VALUE}).")
@@ -50,13 +50,13 @@ public final class DeviceOptions {
   boolean hand;
 
   @Option(
-      names = "--sim-speed",
+      names = "--sim-speed", paramLabel = "FACTOR",
       defaultValue = "1",
       description = "Simulator: run the simulated clock this many times faster than real time (default: ${DEFAULT-VALUE}).")
   double simSpeed;
 
   @Option(
-      names = "--sim-start-delay-s",
+      names = "--sim-start-delay-s", paramLabel = "S",
       defaultValue = "1",
       description = "Simulator: the press waits for the run to be armed, then starts loading "
           + "this many simulated seconds later (default: ${DEFAULT-VALUE}).")

@@ -7,7 +7,7 @@ import picocli.CommandLine.Option;
 
 /** How masses become forces: local gravity and air buoyancy, for the calibrate command. */
 final class ForceModelOptions {
-  @Option(names = "--gravity-m-per-s2", paramLabel = "M_PER_S2",
+  @Option(names = "--gravity-m-per-s2", paramLabel = "M-PER-S2",
       description = "Local acceleration due to gravity in m/s² (default: standard 9.80665, or "
           + "from --latitude-deg and --elevation-m).")
   Double g;
@@ -20,13 +20,13 @@ final class ForceModelOptions {
       description = "Site elevation above sea level in m (with --latitude-deg).")
   Double elevation_m;
 
-  @Option(names = "--air-density-kg-per-m3", paramLabel = "KG_M3",
+  @Option(names = "--air-density-kg-per-m3", paramLabel = "KG-PER-M3",
       description = "Air density in kg/m³ for the buoyancy correction; 0 turns it off "
           + "(default: ${DEFAULT-VALUE}, the conventional value).",
       defaultValue = "1.2")
   double airDensity_kg_per_m3;
 
-  @Option(names = "--weight-density-kg-per-m3", paramLabel = "KG_M3",
+  @Option(names = "--weight-density-kg-per-m3", paramLabel = "KG-PER-M3",
       description = "Actual density of the weights in kg/m³ (default: ${DEFAULT-VALUE}, steel). Masses are "
           + "conventional masses (OIML R 111), so this matters only when --air-density-kg-per-m3 is not "
           + "1.2.",

@@ -20,8 +20,8 @@ import picocli.CommandLine.Parameters;
     description = {
       "Measure the load frame's own stiffness from a run against a rigid block.",
       "",
-      "The slope of force against crosshead travel on a block far stiffer than the frame is",
-      "the frame's stiffness; it is saved as a frame profile for 'analyze --frame FILE'."
+      "The slope of force against crosshead travel on a block far stiffer than the frame is "
+          + "the frame's stiffness; it is saved as a frame profile for 'analyze --frame FILE'."
     })
 public final class FrameCommand implements Callable<Integer> {
   @Mixin ArchiveOption archive;

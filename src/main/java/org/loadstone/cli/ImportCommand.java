@@ -38,16 +38,16 @@ public final class ImportCommand implements Callable<Integer> {
   Path file;
 
   @Option(names = "--map", required = true, paramLabel = "MAP",
-      description = "Columns by header name or 1-based number, e.g. time=Time [s],force=Load,position=3")
+      description = "Columns by header name or 1-based number: time, force and, if there is one, position (e.g. time=Time [s],force=Load,position=3).")
   String map;
 
-  @Option(names = "--force-unit", paramLabel = "UNIT", description = "N, kN, lbf or kgf (default: from the header, else the config's force-unit, else N).")
+  @Option(names = "--force-unit", paramLabel = "UNIT", description = "Force unit of the file: N, kN, lbf or kgf (default: from the header, else the config's force-unit, else N).")
   String forceUnit;
 
-  @Option(names = "--length-unit", paramLabel = "UNIT", description = "mm, um, cm, m or in (default: from the header, else the config's length-unit, else mm).")
+  @Option(names = "--length-unit", paramLabel = "UNIT", description = "Length unit of the file: mm, um, cm, m or in (default: from the header, else the config's length-unit, else mm).")
   String lengthUnit;
 
-  @Option(names = "--time-unit", paramLabel = "UNIT", description = "s, ms or min (default: from the header, else s).")
+  @Option(names = "--time-unit", paramLabel = "UNIT", description = "Time unit of the file: s, ms or min (default: from the header, else s).")
   String timeUnit;
 
   @Option(names = "--decimal", defaultValue = ".", paramLabel = "MARK", description = "Decimal mark of the numbers: '.' or ',' (default: ${DEFAULT-VALUE}).")
@@ -56,7 +56,7 @@ public final class ImportCommand implements Callable<Integer> {
   @Option(names = "--delimiter", paramLabel = "MARK", description = "Field delimiter: ',', ';' or tab (default: detect).")
   String delimiter;
 
-  @Option(names = "--skip-lines", paramLabel = "N", defaultValue = "0", description = "Lines before the header row (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--skip-lines", paramLabel = "COUNT", defaultValue = "0", description = "Lines before the header row (default: ${DEFAULT-VALUE}).")
   int skipLines;
 
   @picocli.CommandLine.Mixin SpecimenOptions specimen;

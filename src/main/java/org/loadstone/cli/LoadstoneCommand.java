@@ -19,11 +19,14 @@ import picocli.CommandLine.Command;
     },
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {
-      " 0:done",
-      " 1:verify: the check failed; calibrate, verify: stopped by the operator, nothing saved",
-      " 2:bad usage or input: the message names the fault and the fix",
-      " 3:the device was lost or restarted (record stores the run recorded until then)",
-      "70:internal error (a bug; please report it)"
+      "  0:done",
+      "  1:verify: the check failed; calibrate, verify: stopped by the operator, nothing saved",
+      "  2:bad usage or input: the message names the fault and the fix",
+      "  3:the device was lost or restarted (record stores the run recorded until then)",
+      "  4:monitor: no samples came (a silent port, or bytes that are not samples)",
+      "  5:record: the archive's disk filled during the run (the run is stored up to then)",
+      " 70:internal error (a bug; please report it)",
+      "130:record: stopped by Ctrl-C (the run recorded until then is stored and printed)"
     },
     subcommands = {
       PortsCommand.class,

@@ -41,9 +41,9 @@ import picocli.CommandLine.Option;
     description = {
       "Record one hands-free run and store it in the archive.",
       "",
-      "Zero, wait for load, record with a pre-trigger history, stop by itself at",
-      "the load drop (or overload, time limit, Ctrl-C). A crush test (--test crush)",
-      "goes on through the load drops to its travel limit, low force, time limit or Ctrl-C."
+      "Zero, wait for load, record with a pre-trigger history, stop by itself at the load "
+          + "drop (or overload, time limit, Ctrl-C). A crush test (--test crush) goes on through "
+          + "the load drops to its travel limit, low force, time limit or Ctrl-C."
     },
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {
@@ -67,13 +67,13 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--accept-changed-calibration", description = "Use the --cal calibration even though its content changed since it was saved (refused otherwise; the run stores the warning).")
   boolean acceptChanged;
 
-  @Option(names = "--counts-per-n", paramLabel = "K", description = "Without a calibration: a nominal sensitivity (counts per N); the run is marked uncalibrated.")
+  @Option(names = "--counts-per-n", paramLabel = "COUNTS-PER-N", description = "Without a calibration: a nominal sensitivity (counts per N); the run is marked uncalibrated.")
   Double countsPerN;
 
   @Option(names = "--specimen", paramLabel = "ID", required = true, description = "Specimen id.")
   String specimen;
 
-  @Option(names = "--group", paramLabel = "NAME", defaultValue = "", description = "Group for comparisons, e.g. balsa.")
+  @Option(names = "--group", paramLabel = "GROUP", defaultValue = "", description = "Group for comparisons, e.g. balsa.")
   String group;
 
   @Option(names = "--tag", paramLabel = "TAG", description = "A tag (repeatable).")
@@ -86,7 +86,7 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--mass-g", paramLabel = "G", description = "Specimen mass in g (for strength per weight).")
   Double mass_g;
 
-  @Option(names = "--test", paramLabel = "KIND", defaultValue = "three-point", description = "three-point, four-point, compression, tension or crush (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--test", paramLabel = "KIND", defaultValue = "three-point", description = "Test kind: three-point, four-point, compression, tension or crush (default: ${DEFAULT-VALUE}).")
   String test;
 
   @Option(names = "--span-mm", paramLabel = "MM", description = "Support span L (bend tests).") Double span;
@@ -133,7 +133,7 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--travel-limit-mm", paramLabel = "MM", description = "Crush test: end the run at this crosshead travel from the start (default: no travel limit).")
   Double travelLimit;
 
-  @Option(names = "--low-force-pct", paramLabel = "P", description = "Crush test: end the run when force stays below P %% of the peak for --low-force-s (default: 5; 0 = off).")
+  @Option(names = "--low-force-pct", paramLabel = "PCT", description = "Crush test: end the run when force stays below this per cent of the peak for --low-force-s (default: 5; 0 = off).")
   Double lowForcePct;
 
   @Option(names = "--low-force-s", paramLabel = "S", description = "Crush test: how long force must stay low (default: 1).")
@@ -142,7 +142,7 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--manual-start", description = "Start recording at once instead of waiting for load.")
   boolean manualStart;
 
-  @Option(names = "--zero-samples", paramLabel = "N", description = "Samples averaged for the zero (default: half a second).")
+  @Option(names = "--zero-samples", paramLabel = "COUNT", description = "Samples averaged for the zero (default: half a second).")
   Integer zeroSamples;
 
   @Option(names = "--zero-drift-n", paramLabel = "N", description = "Warn before the run when the zero moved more than this since the last tare (default: 0.1 %% of rated capacity).")

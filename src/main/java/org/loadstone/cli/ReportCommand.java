@@ -24,8 +24,8 @@ import picocli.CommandLine.Parameters;
     description = {
       "Write a PDF report of one run, or of a comparison of groups.",
       "",
-      "One run: metadata, force curve, results, cautions. With --group: overlays, strip",
-      "plots and statistics of archived groups."
+      "One run: metadata, force curve, results, cautions. With --group: overlays, strip "
+          + "plots and statistics of archived groups."
     })
 public final class ReportCommand implements Callable<Integer> {
   @picocli.CommandLine.Mixin ArchiveOption archive;
@@ -41,7 +41,7 @@ public final class ReportCommand implements Callable<Integer> {
   @Option(names = "--png", paramLabel = "FILE.png", description = "Also (or only) write the main chart as a PNG: the force curve of a run, or the overlay of the groups.")
   Path png;
 
-  @Option(names = "--png-size", defaultValue = "1200x800", paramLabel = "WxH", description = "PNG size in pixels (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--png-size", defaultValue = "1200x800", paramLabel = "SIZE", description = "PNG size, width x height in pixels (default: ${DEFAULT-VALUE}).")
   String pngSize;
 
   @Option(names = "--json", description = "Write what was written as one JSON document on standard output (schema loadstone-report); the text goes to standard error.")

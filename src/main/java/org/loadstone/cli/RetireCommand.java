@@ -16,8 +16,8 @@ import picocli.CommandLine.Parameters;
     description = {
       "Retire a run: it stays in the archive but no study, comparison or report counts it.",
       "",
-      "Nothing is deleted: the retirement and its reason are appended to the run's amendment",
-      "log; --undo reinstates the run the same way."
+      "Nothing is deleted: the retirement and its reason are appended to the run's amendment "
+          + "log; --undo reinstates the run the same way."
     })
 public final class RetireCommand implements Callable<Integer> {
   @Mixin ArchiveOption archive;
@@ -25,7 +25,7 @@ public final class RetireCommand implements Callable<Integer> {
   @Parameters(paramLabel = "RUN", description = "A run id, the start of one, or a specimen id in the archive.")
   String run;
 
-  @Option(names = "--reason", required = true, description = "Why (kept with the run, shown where it is left out).")
+  @Option(names = "--reason", paramLabel = "TEXT", required = true, description = "Why (kept with the run, shown where it is left out).")
   String reason;
 
   @Option(names = "--undo", description = "Reinstate a retired run instead.")

@@ -37,8 +37,9 @@ public final class RunsCommand implements Callable<Integer> {
   @Option(names = "--specimen", paramLabel = "ID", description = "Specimen id contains this text.")
   String specimen;
 
-  @Option(names = "--group", paramLabel = "NAME", description = "Exactly this group.")
-  String group;
+  @Option(names = "--group", split = ",", paramLabel = "GROUP",
+      description = "In one of these groups (comma separated or repeated; exact names, any case).")
+  List<String> groups;
 
   @Option(names = "--tag", paramLabel = "TAG", description = "Has this tag.")
   String tag;
@@ -58,7 +59,7 @@ public final class RunsCommand implements Callable<Integer> {
     ArchiveIndex idx = ArchiveIndex.load(archive.folder());
     idx.notes().forEach(n -> err.println("note: " + n)); // the index rebuilt, busy or unusable
     ArchiveIndex.Query q = new ArchiveIndex.Query(day(from, "--from", 0), day(to, "--to", 1),
-        specimen, group, tag, cause == null ? null : FinishCause.parse(cause));
+        specimen, groups == null ? List.of() : idx.groupsNamed(groups), tag, cause == null ? null : FinishCause.parse(cause));
     List<ArchiveIndex.Entry> found = idx.search(q);
     out.printf("%-40s %-14s %-10s %-12s %-20s %s%n", "run", "specimen", "group", "cause",
         "started (UTC)", "amendments");

@@ -10,9 +10,9 @@ import picocli.CommandLine.Option;
 
 /** Which runs a group study counts: {@code --group} and {@code --include}, shared by commands. */
 public final class SelectionOptions {
-  @Option(names = "--group", split = ",", paramLabel = "G",
+  @Option(names = "--group", split = ",", paramLabel = "GROUP",
       description = "Groups to compare (comma separated or repeated); one group is compared "
-          + "with each of the others. Default: every group.")
+          + "with each of the others (default: every group).")
   List<String> groups;
 
   @Option(names = "--include", split = ",", paramLabel = "KIND",

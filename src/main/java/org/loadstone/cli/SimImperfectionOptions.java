@@ -9,12 +9,12 @@ import picocli.CommandLine.Option;
  * each figure comes from).
  */
 public final class SimImperfectionOptions {
-  @Option(names = "--sim-noise-counts", paramLabel = "RMS",
+  @Option(names = "--sim-noise-counts", paramLabel = "COUNTS",
       description = "Simulator: converter noise, counts RMS (default: the converter's at the "
           + "rate, 21 at 10/s, 39 at 80/s, growing as the square root of faster rates).")
   Double noise_counts;
 
-  @Option(names = "--sim-warmup-pct-fs", defaultValue = "0.02", paramLabel = "PCT",
+  @Option(names = "--sim-warmup-pct-fs", defaultValue = "0.02", paramLabel = "PCT-FS",
       description = "Simulator: zero shift at power-on that settles away, %% of full scale "
           + "(default: ${DEFAULT-VALUE}).")
   double warmup_pctFS;
@@ -23,7 +23,7 @@ public final class SimImperfectionOptions {
       description = "Simulator: time constant of that warm-up, s (default: ${DEFAULT-VALUE}).")
   double warmup_s;
 
-  @Option(names = "--sim-drift-pct-fs", defaultValue = "0.002", paramLabel = "PCT",
+  @Option(names = "--sim-drift-pct-fs", defaultValue = "0.002", paramLabel = "PCT-FS",
       description = "Simulator: slow, temperature-like wander of the zero, standard deviation, "
           + "%% of full scale (default: ${DEFAULT-VALUE}).")
   double drift_pctFS;
@@ -41,12 +41,12 @@ public final class SimImperfectionOptions {
       description = "Simulator: time constant of the creep, s (default: ${DEFAULT-VALUE}).")
   double creep_s;
 
-  @Option(names = "--sim-spikes-per-min", defaultValue = "0", paramLabel = "N",
+  @Option(names = "--sim-spikes-per-min", defaultValue = "0", paramLabel = "SPIKES-PER-MIN",
       description = "Simulator: mean number of single-sample spikes per minute, drawn from the "
           + "seed (default: ${DEFAULT-VALUE}).")
   double spikesPerMin;
 
-  @Option(names = "--sim-spike-pct-fs", defaultValue = "5", paramLabel = "PCT",
+  @Option(names = "--sim-spike-pct-fs", defaultValue = "5", paramLabel = "PCT-FS",
       description = "Simulator: typical size of a spike, %% of full scale; each is 0.5 to 1.5 "
           + "times it, up or down (default: ${DEFAULT-VALUE}).")
   double spike_pctFS;

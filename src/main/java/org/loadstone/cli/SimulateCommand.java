@@ -26,11 +26,11 @@ import picocli.CommandLine.Option;
     description = {
       "Write the simulated frame's wire bytes to a file, stdout or a serial device.",
       "",
-      "The bytes are exactly what the firmware sends. A device path can be one end of a",
-      "pseudo-terminal pair. Output is paced in real time at --rate-hz.",
+      "The bytes are exactly what the firmware sends. A device path can be one end of a "
+          + "pseudo-terminal pair. Output is paced in real time at --rate-hz.",
       "",
-      "Scenarios: brittle, four-point, ductile, crush, over-range, rigid-block, panel-foam, panel-balsa,",
-      "panel-board, dead-weight."
+      "Scenarios: brittle, four-point, ductile, crush, over-range, rigid-block, panel-foam, "
+          + "panel-balsa, panel-board, dead-weight."
     })
 public final class SimulateCommand implements Callable<Integer> {
   @Option(names = "--scenario", paramLabel = "NAME", defaultValue = "brittle", description = "What is on the simulated frame (default: ${DEFAULT-VALUE}).")
@@ -42,7 +42,7 @@ public final class SimulateCommand implements Callable<Integer> {
   @Option(names = "--duration-s", paramLabel = "S", defaultValue = "10", description = "Simulated duration (default: ${DEFAULT-VALUE}).")
   double seconds;
 
-  @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "Random seed; the same seed gives the same bytes (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--seed", paramLabel = "SEED", defaultValue = "1", description = "Random seed; the same seed gives the same bytes (default: ${DEFAULT-VALUE}).")
   long seed;
 
   @Option(names = "--binary", description = "Use the binary encoding instead of text.")
@@ -54,7 +54,7 @@ public final class SimulateCommand implements Callable<Integer> {
   @Option(names = "--unpaced", description = "Write as fast as possible instead of in real time.")
   boolean unpaced;
 
-  @Option(names = "--out", required = true, paramLabel = "FILE|-|DEVICE", description = "Where the bytes go: a new file, - for standard output, or a device path.")
+  @Option(names = "--out", required = true, paramLabel = "TARGET", description = "Where the bytes go: a new file, - for standard output, or a device path.")
   String out;
 
   @Option(names = "--json", description = "Write what was written as one JSON document on standard output (schema loadstone-simulate); not with --out -.")

@@ -10,25 +10,25 @@ import picocli.CommandLine.Option;
  * correct it on a run that exists ({@code amend}) or arrives ({@code import}).
  */
 public final class SpecimenOptions {
-  @Option(names = "--specimen", description = "Specimen id.")
+  @Option(names = "--specimen", paramLabel = "ID", description = "Specimen id.")
   String specimen;
 
-  @Option(names = "--group", description = "Group for comparisons, e.g. balsa.")
+  @Option(names = "--group", paramLabel = "GROUP", description = "Group for comparisons, e.g. balsa.")
   String group;
 
   @Option(names = "--tag", paramLabel = "TAG", description = "A tag (repeatable; replaces the run's tags).")
   List<String> tags;
 
-  @Option(names = "--operator", description = "Who ran the test.")
+  @Option(names = "--operator", paramLabel = "NAME", description = "Who ran the test.")
   String operator;
 
-  @Option(names = "--notes", description = "Free notes kept with the run.")
+  @Option(names = "--notes", paramLabel = "TEXT", description = "Free notes kept with the run.")
   String notes;
 
   @Option(names = "--mass-g", paramLabel = "G", description = "Specimen mass in g (for strength per weight).")
   Double mass_g;
 
-  @Option(names = "--test", paramLabel = "TYPE", description = "three-point, four-point, compression or tension.")
+  @Option(names = "--test", paramLabel = "KIND", description = "Test kind: three-point, four-point, compression or tension.")
   String test;
 
   @Option(names = "--span-mm", paramLabel = "MM", description = "Support span L (bend tests).")

@@ -15,7 +15,7 @@ final class StabilityOptions {
           + "(default: ${DEFAULT-VALUE}).")
   double maxSd_counts;
 
-  @Option(names = "--max-drift-counts-per-s", paramLabel = "COUNTS_PER_S", defaultValue = "50",
+  @Option(names = "--max-drift-counts-per-s", paramLabel = "COUNTS-PER-S", defaultValue = "50",
       description = "Largest drift in counts per second accepted as settled "
           + "(default: ${DEFAULT-VALUE}).")
   double maxDrift_counts_per_s;

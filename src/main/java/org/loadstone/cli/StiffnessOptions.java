@@ -7,29 +7,29 @@ import picocli.CommandLine.Option;
 
 /** How the stiffness is taken, shared by {@code analyze} and {@code record}. */
 final class StiffnessOptions {
-  @Option(names = "--stiffness-from-n", paramLabel = "A",
+  @Option(names = "--stiffness-from-n", paramLabel = "N",
       description = "Fit the stiffness over every sample between this force and --stiffness-to-n "
           + "instead of searching.")
   Double fromN;
 
-  @Option(names = "--stiffness-to-n", paramLabel = "B", description = "Upper force of the band.")
+  @Option(names = "--stiffness-to-n", paramLabel = "N", description = "Upper force of the band.")
   Double toN;
 
-  @Option(names = "--stiffness-band-pct", paramLabel = "LO,HI", split = ",",
+  @Option(names = "--stiffness-band-pct", paramLabel = "LOW-PCT,HIGH-PCT", split = ",",
       description = "Fit the stiffness between two percentages of the peak force, e.g. 10,40.")
   double[] bandPct;
 
-  @Option(names = "--stiffness-from-mm", paramLabel = "A",
+  @Option(names = "--stiffness-from-mm", paramLabel = "MM",
       description = "Fit the stiffness between two displacements from the first sample (with "
           + "--stiffness-to-mm).")
   Double fromMm;
 
-  @Option(names = "--stiffness-to-mm", paramLabel = "B",
+  @Option(names = "--stiffness-to-mm", paramLabel = "MM",
       description = "Upper displacement of the band, mm.")
   Double toMm;
 
-  @Option(names = "--stiffness-precision-pct", paramLabel = "P", defaultValue = "3",
-      description = "The automatic stiffness must be known to ±P %% (95 %% interval), else it is "
+  @Option(names = "--stiffness-precision-pct", paramLabel = "PCT", defaultValue = "3",
+      description = "The automatic stiffness must be known to within this many per cent (95 %% interval), else it is "
           + "refused with the reason (default: ${DEFAULT-VALUE}).")
   double precisionPct;
 

@@ -46,13 +46,13 @@ public final class TrackCommand implements Callable<Integer> {
   @Option(names = "--reference", paramLabel = "X,Y", description = "A fixed point in the first frame whose motion (camera shake) is taken off.")
   String reference;
 
-  @Option(names = "--scale", required = true, paramLabel = "\"X1,Y1 X2,Y2 = L UNIT\"", description = "Two points a known distance apart, for example \"12,40 148,40 = 50 mm\".")
+  @Option(names = "--scale", required = true, paramLabel = "SCALE", description = "Two points a known distance apart and that distance, X1,Y1 X2,Y2 = L UNIT, e.g. \"12,40 148,40 = 50 mm\".")
   String scale;
 
-  @Option(names = "--direction", defaultValue = "down", description = "Way the loading part moves in the image: down, up, left or right (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--direction", paramLabel = "WAY", defaultValue = "down", description = "Way the loading part moves in the image: down, up, left or right (default: ${DEFAULT-VALUE}).")
   String direction;
 
-  @Option(names = "--sync", arity = "1..2", paramLabel = "HOW", description = "With --run: break, change [X,Y,W,H] (the image's sudden change at the break, over the whole frame or a region), light X,Y,W,H (the light's region) or offset S (clip time minus run time). Default: break.")
+  @Option(names = "--sync", arity = "1..2", paramLabel = "HOW", description = "With --run: break, change [X,Y,W,H] (the image's sudden change at the break, over the whole frame or a region), light X,Y,W,H (the light's region) or offset S (clip time minus run time). (default: break).")
   String[] sync;
 
   @Option(names = "--run", paramLabel = "RUN", description = "The run the clip belongs to (id, id prefix or run file); the table is stored beside it.")
@@ -61,13 +61,13 @@ public final class TrackCommand implements Callable<Integer> {
   @Option(names = "--out", paramLabel = "FILE", description = "Write the table here (NAME.csv, with NAME.json beside it) instead of beside the run.")
   Path out;
 
-  @Option(names = "--frame-rate-hz", paramLabel = "RATE", description = "Capture rate, frames/s: required for an image folder; for a slow-motion clip that does not state it.")
+  @Option(names = "--frame-rate-hz", paramLabel = "HZ", description = "Capture rate, frames/s: required for an image folder; for a slow-motion clip that does not state it.")
   Double frameRate;
 
-  @Option(names = "--template-px", defaultValue = "25", description = "Side of the tracked template, pixels (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--template-px", paramLabel = "PX", defaultValue = "25", description = "Side of the tracked template, pixels (default: ${DEFAULT-VALUE}).")
   int templatePx;
 
-  @Option(names = "--search-px", defaultValue = "16", description = "Search reach around the predicted place, pixels (default: ${DEFAULT-VALUE}).")
+  @Option(names = "--search-px", paramLabel = "PX", defaultValue = "16", description = "Search reach around the predicted place, pixels (default: ${DEFAULT-VALUE}).")
   int searchPx;
 
   @Option(names = "--json", description = "Write the stored table and its summary as one JSON document on standard output (schema loadstone-track); the text goes to standard error.")

@@ -57,7 +57,7 @@ public final class VerifyCommand implements Callable<Integer>, CommandInput.Read
       description = "Conventional mass of the check weight in g.")
   double mass_g;
 
-  @Option(names = "--tolerance-pct", paramLabel = "P",
+  @Option(names = "--tolerance-pct", paramLabel = "PCT",
       description = "Accepted error in %% of reading (default: ${DEFAULT-VALUE}).",
       defaultValue = "" + CheckWeights.DEFAULT_TOLERANCE_PCT)
   double tolerance_pct;

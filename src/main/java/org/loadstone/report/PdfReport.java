@@ -118,10 +118,12 @@ public final class PdfReport {
     }
   }
 
-  /** @return the program and version that made the report, e.g. "Loadstone 0.1.0" */
+  /**
+   * @return the program and version that made the report, e.g. "Loadstone 0.1.0": the version
+   *     of {@link org.loadstone.units.SoftwareVersion}, as in every JSON document and run file
+   */
   static String producer() {
-    String v = PdfReport.class.getPackage().getImplementationVersion();
-    return "Loadstone " + (v == null ? "dev" : v);
+    return "Loadstone " + org.loadstone.units.SoftwareVersion.get();
   }
 
   private static String operators(Selection sel) {

@@ -7,7 +7,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.TreeMap;
-import java.util.TreeSet;
 import java.util.concurrent.ConcurrentHashMap;
 import org.loadstone.analysis.AnalysisSettings;
 import org.loadstone.archive.ArchiveIndex;
@@ -162,9 +161,7 @@ public final class ArchiveRuns {
   public Selection select(RunSelection sel, Progress progress) {
     Precondition.notNull(sel, "selection");
     Precondition.notNull(progress, "progress");
-    TreeSet<String> inArchive = new TreeSet<>();
-    index.entries().forEach(e -> inArchive.add(groupName(e.metadata().group())));
-    List<String> asked = matchGroups(sel.groups(), inArchive, folder());
+    List<String> asked = index.groupsNamed(sel.groups());
     List<LeftOut> leftOut = new ArrayList<>();
     for (ArchiveIndex.Unreadable u : index.unreadable()) {
       leftOut.add(new LeftOut(u.json().getFileName().toString(), "", "", Kind.UNREADABLE,
@@ -206,28 +203,12 @@ public final class ArchiveRuns {
     }
     ordered.putAll(counted);
     keep();
-    return new Selection(folder(), sel, ordered, leftOut, List.copyOf(inArchive));
+    return new Selection(folder(), sel, ordered, leftOut, List.copyOf(index.groups()));
   }
 
   /** @return the group a run is studied in: its group name, {@code (none)} when it has none */
   public static String groupName(String group) {
-    return group == null || group.isBlank() ? "(none)" : group;
-  }
-
-  private static List<String> matchGroups(List<String> wanted, TreeSet<String> inArchive,
-      Path folder) {
-    List<String> found = new ArrayList<>();
-    List<String> missing = new ArrayList<>();
-    for (String w : wanted) {
-      inArchive.stream().filter(g -> g.equalsIgnoreCase(w)).findFirst()
-          .ifPresentOrElse(found::add, () -> missing.add(org.loadstone.units.InputException.shown(w)));
-    }
-    if (!missing.isEmpty()) {
-      throw new LoadstoneException("no runs of group" + (missing.size() > 1 ? "s " : " ")
-          + String.join(", ", missing) + " in " + folder + ": the groups there are "
-          + (inArchive.isEmpty() ? "none (no runs yet)" : String.join(", ", inArchive)));
-    }
-    return found;
+    return ArchiveIndex.groupName(group);
   }
 
   private Analysed analysis(ArchiveIndex.Entry e) {

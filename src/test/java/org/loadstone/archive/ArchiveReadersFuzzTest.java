@@ -25,7 +25,7 @@ import org.loadstone.units.Fuzz;
  * recovered journal to the samples written, the archive index to a full scan of the files.
  */
 class ArchiveReadersFuzzTest {
-  private static final String RUN = "20261203T220807.832Z-foam-01";
+  private static final String RUN = "20261204T181011.533Z-foam-01";
   private static final int JOURNAL_RECORDS = 200;
 
   private static Path dir;
@@ -56,8 +56,8 @@ class ArchiveReadersFuzzTest {
     }
     journal = Files.readAllBytes(JournalFormat.journalFile(jarc, "fz"));
     archive = Files.createDirectories(dir.resolve("archive"));
-    for (String name : List.of("20261203T220807.832Z-foam-01", "20261203T220811.628Z-foam-02",
-        "20261203T220824.466Z-balsa-01")) {
+    for (String name : List.of("20261204T181011.533Z-foam-01", "20261204T181024.715Z-foam-02",
+        "20261204T181107.589Z-balsa-01")) {
       for (String ext : List.of(".csv", ".json")) {
         Files.copy(Path.of("sample-runs", name + ext), archive.resolve(name + ext));
       }

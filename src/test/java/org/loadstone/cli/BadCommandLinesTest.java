@@ -28,7 +28,7 @@ import picocli.CommandLine;
 class BadCommandLinesTest {
   private static final Path CALIBRATION = Path.of("calibration/shelf-rig-1kN-2026-12-03.json");
   private static final Path POINTS = Path.of("calibration/shelf-rig-1kN-2026-12-03.points.csv");
-  private static final String RUN = "20261203T220807.832Z-foam-01";
+  private static final String RUN = "20261204T181011.533Z-foam-01";
 
   @TempDir static Path dir;
   static Path arc;

@@ -146,7 +146,7 @@ class JsonEveryCommandTest {
     assertThat(runs.get("run_count").asLong()).isEqualTo(sidecars);
     assertThat(runs.get("runs").findValuesAsText("run_id")).contains(rec.get("run_id").asText());
 
-    String foam1 = "20261203T220807.832Z-foam-01";
+    String foam1 = "20261204T181011.533Z-foam-01";
     JsonNode an = document("analyze", "", foam1, "--archive", archive.toString());
     assertThat(an.get("run_id").asText()).isEqualTo(foam1);
     assertThat(an.get("sample_count").asLong())
@@ -179,7 +179,7 @@ class JsonEveryCommandTest {
 
   @Test
   void amendRetireAndConfig() throws Exception {
-    String board5 = "20261203T220857.693Z-board-05";
+    String board5 = "20261204T181239.452Z-board-05";
     JsonNode am = document("amend", "", board5, "--archive", archive.toString(), "--mass-g",
         "30.5", "--reason", "weighed again");
     assertThat(am.get("amendment_count").asInt()).isEqualTo(1);
@@ -262,7 +262,7 @@ class JsonEveryCommandTest {
 
   @Test
   void humanTextGoesToStandardErrorWithJson() throws Exception {
-    CliRun r = run("analyze", "", "20261203T220807.832Z-foam-01", "--archive",
+    CliRun r = run("analyze", "", "20261204T181011.533Z-foam-01", "--archive",
         archive.toString());
     assertThat(r.err()).contains("peak force", "stiffness");
     assertThat(WHOLE.<JsonNode>readValue(r.out()).isObject()).isTrue();

@@ -87,7 +87,7 @@ class OptionNamesTest {
   void theTopLevelHelpListsTheExitCodes() {
     CliRun r = CliRun.run("", "--help");
     assertThat(r.exit()).isZero();
-    assertThat(r.out()).contains("Exit codes:", " 0 ", " 1 ", " 2 ", " 3 ", "70 ");
+    assertThat(r.out()).contains("Exit codes:", " 0 ", " 1 ", " 2 ", " 3 ", " 4 ", " 5 ", "70 ", "130 ");
   }
 
   @Test

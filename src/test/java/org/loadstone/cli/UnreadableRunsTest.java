@@ -129,7 +129,7 @@ class UnreadableRunsTest {
   @Test
   void analyzeRefusesACalibrationChangedSinceItWasSavedUnlessAccepted() throws Exception {
     Path arc = Files.createDirectories(dir.resolve("demo"));
-    String run = "20261203T220807.832Z-foam-01";
+    String run = "20261204T181011.533Z-foam-01";
     for (String ext : List.of(".csv", ".json")) {
       Files.copy(Path.of("sample-runs", run + ext), arc.resolve(run + ext));
     }

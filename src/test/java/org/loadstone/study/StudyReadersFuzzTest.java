@@ -21,9 +21,9 @@ import org.loadstone.units.Fuzz;
  * {@code compare} for the whole archive).
  */
 class StudyReadersFuzzTest {
-  private static final List<String> RUNS = List.of("20261203T220807.832Z-foam-01",
-      "20261203T220811.628Z-foam-02", "20261203T220824.466Z-balsa-01",
-      "20261203T220828.260Z-balsa-02");
+  private static final List<String> RUNS = List.of("20261204T181011.533Z-foam-01",
+      "20261204T181024.715Z-foam-02", "20261204T181107.589Z-balsa-01",
+      "20261204T181117.470Z-balsa-02");
 
   private static Path dir;
   private static byte[] profile;
