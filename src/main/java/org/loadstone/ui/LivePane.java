@@ -165,7 +165,16 @@ final class LivePane {
     useUnit(run.form().rememberedUnit());
 
     BorderPane chartBox = new BorderPane(chart.node());
-    chartBox.setBottom(run.figures());
+    // the post-run figures under the live chart, scrolled when they would squeeze it away
+    javafx.scene.control.ScrollPane figures = new javafx.scene.control.ScrollPane(run.figures());
+    figures.setFitToWidth(true);
+    figures.setHbarPolicy(javafx.scene.control.ScrollPane.ScrollBarPolicy.NEVER);
+    figures.getStyleClass().add("figures-scroll");
+    figures.maxHeightProperty().bind(chartBox.heightProperty().multiply(0.62));
+    figures.visibleProperty().bind(run.figures().visibleProperty());
+    figures.managedProperty().bind(run.figures().managedProperty());
+    chart.node().setMinHeight(150);
+    chartBox.setBottom(figures);
     chartBox.getStyleClass().add("chart-box");
     BorderPane.setMargin(chartBox, new Insets(12, 12, 0, 0));
     root.setCenter(chartBox);
