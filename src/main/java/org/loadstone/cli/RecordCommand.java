@@ -16,6 +16,7 @@ import org.loadstone.acquire.DeviceReader;
 import org.loadstone.acquire.JournalRunStore;
 import org.loadstone.acquire.Recorder;
 import org.loadstone.acquire.RunControl;
+import org.loadstone.acquire.RunPreset;
 import org.loadstone.acquire.RunSettings;
 import org.loadstone.acquire.RunTemplate;
 import org.loadstone.acquire.SampleRing;
@@ -139,6 +140,9 @@ public final class RecordCommand implements Callable<Integer> {
   @Option(names = "--low-force-s", paramLabel = "S", description = "Crush test: how long force must stay low (default: 1).")
   Double lowForceS;
 
+  @Option(names = "--preset", description = "Start from the test type's run preset (start force, break drop, tail, time limit and a crush's end, as the console's Run settings) instead of the defaults shown; options given still win.")
+  boolean preset;
+
   @Option(names = "--manual-start", description = "Start recording at once instead of waiting for load.")
   boolean manualStart;
 
@@ -156,6 +160,45 @@ public final class RecordCommand implements Callable<Integer> {
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
+  /**
+   * The run's start and stop rules from the options: the defaults shown, or with {@code --preset}
+   * the test type's {@link RunPreset}, and over either every option given.
+   */
+  RunSettings.Builder settings(TestType type) {
+    CommandLine.ParseResult given = spec.commandLine().getParseResult();
+    RunSettings.Builder b = RunSettings.builder();
+    if (preset) {
+      RunPreset.of(type).applyTo(b);
+    }
+    java.util.function.Predicate<String> take = name -> !preset || given.hasMatchedOption(name);
+    if (take.test("--start-at-n")) {
+      b.startThreshold_N(startAt);
+    }
+    if (take.test("--stop-drop-pct")) {
+      b.breakDropPct(dropPct);
+    }
+    if (take.test("--tail-s")) {
+      b.postBreak_s(tail);
+    }
+    if (take.test("--max-duration-s")) {
+      b.maxSeconds(maxSeconds);
+    }
+    b.absoluteStop_N(stopBelow).debounce_s(debounce).pretrigger_s(pretrigger)
+        .overloadWarnPct(warnPct).overloadStopPct(overloadPct);
+    if (armAt != null) {
+      b.armingLevel_N(armAt);
+    }
+    if (travelLimit != null || lowForcePct != null || lowForceS != null) {
+      org.loadstone.acquire.CrushEnd d = b.crushEnd() != null ? b.crushEnd()
+          : org.loadstone.acquire.CrushEnd.DEFAULTS;
+      b.crushEnd(new org.loadstone.acquire.CrushEnd(
+          travelLimit != null ? travelLimit : d.travelLimit_mm(),
+          lowForcePct != null ? lowForcePct / 100 : d.lowForceFraction(),
+          lowForceS != null ? lowForceS : d.lowForce_s()));
+    }
+    return b;
+  }
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
@@ -172,21 +215,9 @@ public final class RecordCommand implements Callable<Integer> {
 
     ScaleChoice scale = ScalePolicy.choose(cal, countsPerN,
         device.simulated() ? device.simSetup() : null, LocalDate.now(), acceptChanged);
-    RunSettings.Builder b = RunSettings.builder().startThreshold_N(startAt).breakDropPct(dropPct)
-        .absoluteStop_N(stopBelow).debounce_s(debounce).postBreak_s(tail).pretrigger_s(pretrigger)
-        .overloadWarnPct(warnPct).overloadStopPct(overloadPct).maxSeconds(maxSeconds);
-    if (armAt != null) {
-      b.armingLevel_N(armAt);
-    }
-    if (travelLimit != null || lowForcePct != null || lowForceS != null) {
-      org.loadstone.acquire.CrushEnd d = org.loadstone.acquire.CrushEnd.DEFAULTS;
-      b.crushEnd(new org.loadstone.acquire.CrushEnd(
-          travelLimit != null ? travelLimit : d.travelLimit_mm(),
-          lowForcePct != null ? lowForcePct / 100 : d.lowForceFraction(),
-          lowForceS != null ? lowForceS : d.lowForce_s()));
-    }
     Geometry geometry = new Geometry(span, loadSpan, width, depth, facing, core, area);
     TestType type = TestType.parse(test);
+    RunSettings.Builder b = settings(type);
     RunSetup.Request request = new RunSetup.Request(new RunTemplate(specimen, group, tags,
         operator, notes, mass_g, geometry, type), scale, capacity, b, zeroDriftLimit, zeroSamples,
         manualStart, LoadstoneCommand.softwareVersion());
@@ -225,11 +256,11 @@ public final class RecordCommand implements Callable<Integer> {
         rec.startNow();
       } else {
         say(err, String.format(Locale.ROOT, "armed: recording starts at %.4g N; %s (Ctrl-C stops "
-            + "it by hand)", startAt, run.settings().crushEnd() != null
+            + "it by hand)", run.settings().startThreshold_N(), run.settings().crushEnd() != null
                 ? "the crush goes on through the load drops and ends "
                     + run.settings().crushEnd().words()
                 : String.format(Locale.ROOT, "the run stops by itself at a %.0f %% drop from the "
-                    + "peak", dropPct)));
+                    + "peak", run.settings().breakDropPct())));
         rec.arm(run.decideFrom());
       }
       boolean tty = Terminal.statusLines();

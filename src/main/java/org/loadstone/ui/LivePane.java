@@ -2,7 +2,6 @@ package org.loadstone.ui;
 
 import java.util.Locale;
 import java.util.concurrent.CompletableFuture;
-import javafx.application.Platform;
 import javafx.animation.AnimationTimer;
 import javafx.geometry.Insets;
 import javafx.geometry.Pos;
@@ -20,11 +19,9 @@ import org.loadstone.acquire.DeviceReader;
 import org.loadstone.acquire.ForceScale;
 import org.loadstone.acquire.RunSetup;
 import org.loadstone.acquire.LiveFeed;
-import org.loadstone.acquire.SampleRing;
 import org.loadstone.acquire.ScaleChoice;
 import org.loadstone.acquire.CapacityGauge;
 import org.loadstone.acquire.StationStatus;
-import org.loadstone.device.Transport;
 import org.loadstone.protocol.DecoderCounters;
 import org.loadstone.units.LoadstoneException;
 
@@ -34,7 +31,6 @@ import org.loadstone.units.LoadstoneException;
  * LiveFeed}.
  */
 final class LivePane {
-  private static final double WINDOW_S = 30;
 
   private final ConsoleConfig config;
   private final BorderPane root = new BorderPane();
@@ -55,33 +51,22 @@ final class LivePane {
   private volatile ScaleChoice scale;
   /** Whether the chart shows force against crosshead travel (otherwise against time). */
   private boolean againstTravel;
-  private volatile DeviceReader reader;
-  private volatile LiveFeed feed;
-  private volatile RunSetup setup;
+  private final DeviceLink deviceLink;
   private AnimationTimer timer;
   private long lastChartNanos;
-  /** Opening and closing the device, in order, off the JavaFX thread. */
-  private static final java.util.concurrent.Executor LINK = java.util.concurrent.Executors
-      .newSingleThreadExecutor(r -> {
-        Thread t = new Thread(r, "device link");
-        t.setDaemon(true);
-        return t;
-      });
-  /** The last open or close asked for: the next one runs after it. */
-  private volatile CompletableFuture<Void> linkWork = CompletableFuture.completedFuture(null);
-
   LivePane(ConsoleConfig config) {
     this.config = config;
     this.scale = config.scale();
+    this.deviceLink = new DeviceLink(config);
     this.run = new RunPanel(config, new RunPanel.Device() {
       @Override
       public DeviceReader reader() {
-        return reader;
+        return deviceLink.reader();
       }
 
       @Override
       public LiveFeed feed() {
-        return feed;
+        return deviceLink.feed();
       }
 
       @Override
@@ -91,7 +76,7 @@ final class LivePane {
 
       @Override
       public RunSetup setup() {
-        return setup;
+        return deviceLink.setup();
       }
     }, this::newSpecimen);
     build();
@@ -171,7 +156,7 @@ final class LivePane {
     root.setLeft(left);
     readout.onUnit(this::useUnit);
     chart.onWindow(s -> {
-      LiveFeed f = feed;
+      LiveFeed f = deviceLink.feed();
       if (f != null) {
         f.setTraceWindow(s); // keeps what the chart shows, not more
       }
@@ -180,7 +165,16 @@ final class LivePane {
     useUnit(run.form().rememberedUnit());
 
     BorderPane chartBox = new BorderPane(chart.node());
-    chartBox.setBottom(run.figures());
+    // the post-run figures under the live chart, scrolled when they would squeeze it away
+    javafx.scene.control.ScrollPane figures = new javafx.scene.control.ScrollPane(run.figures());
+    figures.setFitToWidth(true);
+    figures.setHbarPolicy(javafx.scene.control.ScrollPane.ScrollBarPolicy.NEVER);
+    figures.getStyleClass().add("figures-scroll");
+    figures.maxHeightProperty().bind(chartBox.heightProperty().multiply(0.62));
+    figures.visibleProperty().bind(run.figures().visibleProperty());
+    figures.managedProperty().bind(run.figures().managedProperty());
+    chart.node().setMinHeight(150);
+    chartBox.setBottom(figures);
     chartBox.getStyleClass().add("chart-box");
     BorderPane.setMargin(chartBox, new Insets(12, 12, 0, 0));
     root.setCenter(chartBox);
@@ -226,6 +220,7 @@ final class LivePane {
       run.refuse("zero");
       return;
     }
+    LiveFeed feed = deviceLink.feed();
     if (feed != null) {
       feed.tare(20);
       feed.restartCurve();
@@ -242,6 +237,7 @@ final class LivePane {
 
   /** A new specimen: its own peak and its own force–crosshead curve. */
   private void newSpecimen() {
+    LiveFeed feed = deviceLink.feed();
     if (feed != null) {
       feed.resetPeak();
       feed.restartCurve();
@@ -267,45 +263,7 @@ final class LivePane {
   CompletableFuture<Void> connect() {
     stopTimer();
     link = StationStatus.Link.CONNECTING;
-    linkWork = linkWork.thenRunAsync(() -> {
-      close();
-      open();
-    }, LINK);
-    return linkWork;
-  }
-
-  /** On the link thread: opens the transport and the reader, then shows it live. */
-  private void open() {
-    Transport t;
-    try {
-      t = config.connect().get();
-    } catch (LoadstoneException e) {
-      String why = ConsoleHints.withHow(e);
-      Platform.runLater(() -> showLost(why));
-      return;
-    }
-    DeviceReader r = new DeviceReader(t, new SampleRing(1 << 20));
-    LiveFeed f = new LiveFeed(r, displayScale(), WINDOW_S);
-    f.setTraceWindow(chart.window_s());
-    r.addListener(new DeviceReader.Listener() {
-      @Override
-      public void onMessage(org.loadstone.protocol.DeviceMessage m) {
-        if (m instanceof org.loadstone.protocol.DeviceMessage.Identity id) {
-          f.setCountsPerMm(id.countsPerMm());
-        }
-      }
-    });
-    f.tare(20); // zero on connect, as the specimen is not yet loaded
-    RunSetup s = new RunSetup(r, config.archive(), config.simulated(), config.deviceFields(),
-        java.time.Clock.systemUTC());
-    r.start();
-    feed = f;
-    setup = s;
-    reader = r;
-    Platform.runLater(() -> {
-      if (reader != r) {
-        return; // disconnected meanwhile
-      }
+    return deviceLink.connect(this::displayScale, chart.window_s(), run::close, o -> {
       reconnect.setVisible(false);
       reconnect.setManaged(false);
       link = StationStatus.Link.LIVE;
@@ -317,7 +275,7 @@ final class LivePane {
         }
       };
       timer.start();
-    });
+    }, this::showLost);
   }
 
   private void stopTimer() {
@@ -335,18 +293,7 @@ final class LivePane {
    */
   CompletableFuture<Void> disconnect() {
     stopTimer();
-    linkWork = linkWork.thenRunAsync(this::close, LINK);
-    return linkWork;
-  }
-
-  /** On the link thread: stores a run in progress and closes the device, if any. */
-  private void close() {
-    DeviceReader r = reader;
-    reader = null;
-    run.close();
-    if (r != null) {
-      r.close();
-    }
+    return deviceLink.disconnect(run::close);
   }
 
   /** The scale of the live readout: the chosen one, or counts while none is chosen. */
@@ -357,8 +304,8 @@ final class LivePane {
 
   /** One display frame at {@code now} (System.nanoTime clock; tests pass their own). */
   void refresh(long now) {
-    LiveFeed.Snapshot s = feed.poll();
-    DeviceReader r = reader;
+    LiveFeed.Snapshot s = deviceLink.feed().poll();
+    DeviceReader r = deviceLink.reader();
     StationStatus.View view = StationStatus.of(new StationStatus.Stream(link, lostReason,
         s.samples(), r == null ? -1 : r.lastArrivalNanos(), now, s.rateHz()), run.status());
     band.show(view);
@@ -426,7 +373,7 @@ final class LivePane {
 
   /** The connected device, or null. */
   DeviceReader reader() {
-    return reader;
+    return deviceLink.reader();
   }
 
   /**
@@ -437,6 +384,7 @@ final class LivePane {
   void useCalibration(java.nio.file.Path file) {
     ScaleChoice c = ScaleChoice.fromCalibration(file, java.time.LocalDate.now());
     scale = c;
+    LiveFeed feed = deviceLink.feed();
     if (feed != null) {
       feed.setScale(c.scale());
     }
@@ -452,6 +400,6 @@ final class LivePane {
   }
 
   LiveFeed feed() {
-    return feed;
+    return deviceLink.feed();
   }
 }

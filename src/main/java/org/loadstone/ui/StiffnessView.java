@@ -204,10 +204,16 @@ final class StiffnessView {
         g2.draw(new java.awt.geom.Ellipse2D.Double(sx - 6, sy - 6, 12, 12));
         g2.setFont(new java.awt.Font("DejaVu Sans", java.awt.Font.PLAIN, 12));
         String text = what + " " + Readout.fmt(at[1]) + " " + unit.symbol();
-        // the peak's name to the left and up, the break's to the right, so they do not overlap
+        // the peak's name to its left, the break's to its right, both held inside the plot
         int w = g2.getFontMetrics().stringWidth(text);
-        float tx = (float) (what.equals("break") ? sx + 9 : sx - 9 - w);
-        g2.drawString(text, Math.max((float) area.getMinX() + 2, tx), (float) sy - 9);
+        int h = g2.getFontMetrics().getAscent();
+        double tx = what.equals("break") ? sx + 10 : sx - 10 - w;
+        tx = Math.max(area.getMinX() + 2, Math.min(tx, area.getMaxX() - w - 2));
+        double ty = Math.max(area.getMinY() + h + 2, Math.min(sy + h / 2.0, area.getMaxY() - 4));
+        if (what.equals("break") && tx < sx + 6 && tx + w > sx - 6) {
+          ty = Math.min(sy + 8 + h, area.getMaxY() - 4); // no room beside it: under the ring
+        }
+        g2.drawString(text, (float) tx, (float) ty);
       }
     };
   }
