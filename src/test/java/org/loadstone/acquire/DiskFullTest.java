@@ -267,9 +267,10 @@ class DiskFullTest {
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
     double zero = Tare.counts(reader, 100, HangGuard.MS);
-    // the journal's header, the room kept for how the run ends, then 2000 samples
-    disk.bytesLeft(4096 + org.loadstone.archive.JournalEnd.RESERVE_BYTES
-        + 2000L * JournalFormat.RECORD_BYTES);
+    // the room kept at the arming (given back uncounted: this disk frees nothing), then the
+    // journal's header, the room kept for how the run ends, and 2000 samples
+    disk.bytesLeft(KeptRoom.BYTES + 4096
+        + org.loadstone.archive.JournalEnd.RESERVE_BYTES + 2000L * JournalFormat.RECORD_BYTES);
     JournalRunStore store = new JournalRunStore(disk.path(real), second, JournalStream::store,
         RETRY_MS);
     CountDownLatch waiting = new CountDownLatch(1);
