@@ -111,19 +111,8 @@ class ArmedDiskFullTest {
         + " memory").matcher(note);
     assertThat(held.find()).as(note).isTrue();
     assertThat(Long.parseLong(held.group(1))).isPositive().isLessThan(n);
-    SampleRing.Cursor c = a.reader().ring().cursorAt(a.first().get());
-    int[] k = {0};
-    int[] mismatches = {0};
-    c.drain((i, seq, dev, tUs, counts, hp, pos) -> {
-      if (k[0] < n) {
-        if (run.data().seq()[k[0]] != seq || run.data().rawCounts()[k[0]] != counts) {
-          mismatches[0]++;
-        }
-        k[0]++;
-      }
-    }, n);
-    assertThat(k[0]).isEqualTo(n);
-    assertThat(mismatches[0]).as("every sample, bit for bit").isZero();
+    // every sample the device sent from the run's first to its last, bit for bit
+    DiskFullTest.assertEveryRingSample(a.reader().ring(), a.first().get(), run);
     return run;
   }
 

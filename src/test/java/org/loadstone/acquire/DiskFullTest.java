@@ -297,7 +297,7 @@ class DiskFullTest {
   }
 
   /** Every sample the device sent from the run's first on is in the run, in order, bit for bit. */
-  private static void assertEveryRingSample(SampleRing ring, long first, Run run) {
+  static void assertEveryRingSample(SampleRing ring, long first, Run run) {
     int n = run.data().size();
     assertThat(n).isGreaterThan(2000); // more than the journal took before the disk filled
     SampleRing.Cursor c = ring.cursorAt(first);
