@@ -36,9 +36,10 @@ public final class JournalRunStore implements RunStore {
   }
 
   private final Path archiveDir;
-  private final Path second;
+  private volatile Path second;
   private final RunFiles files;
   private final long retry_ms;
+  private final KeptRoom room;
 
   /** @param archiveDir the archive folder */
   public JournalRunStore(Path archiveDir) {
@@ -60,8 +61,26 @@ public final class JournalRunStore implements RunStore {
   JournalRunStore(Path archiveDir, Path second, RunFiles files, long retry_ms) {
     this.archiveDir = Precondition.notNull(archiveDir, "archiveDir");
     this.second = second;
+    this.room = new KeptRoom(archiveDir);
     this.files = files;
     this.retry_ms = retry_ms;
+  }
+
+  /**
+   * Sets where runs go when the archive's disk is full, also while a run waits for room to be
+   * stored: the waiting run is then stored there at the next try, every sample the journal and
+   * memory hold, and runs that begin later record there when the archive cannot take their
+   * journal.
+   *
+   * @param where a folder on another disk, or null for none
+   */
+  public void useSecondLocation(Path where) {
+    second = where;
+  }
+
+  /** @return where runs go when the archive's disk is full, or null */
+  public Path secondLocation() {
+    return second;
   }
 
   /**
@@ -83,20 +102,41 @@ public final class JournalRunStore implements RunStore {
     }
   }
 
+  /**
+   * Keeps {@value KeptRoom#BYTES} bytes on the archive's disk from the arming ({@link KeptRoom}),
+   * given back just before the run's journal is made: a disk that fills between the arming and
+   * the load still takes the journal, and the run's samples are then held in memory until room
+   * returns, as when the disk fills during a run.
+   *
+   * @throws LoadstoneException when the disk has no room for it and no second location is set:
+   *     the arming is refused, before the specimen is loaded
+   */
+  @Override
+  public void keepRoom() {
+    room.keep(second != null);
+  }
+
+  @Override
+  public void releaseRoom() {
+    room.release();
+  }
+
   @Override
   public Recording begin(RunMetadata start, SampleRing ring, long firstIndex) {
+    releaseRoom(); // the room kept from the arming is the journal's now
     JournalWriter journal;
     try {
       journal = JournalWriter.start(archiveDir, start, ring.cursorAt(firstIndex));
     } catch (LoadstoneException e) {
-      if (second == null) {
+      Path there = second;
+      if (there == null) {
         throw e;
       }
       // the archive's disk filled before the run began: the whole run goes to the second location
       String why = "the run's journal could not be made in the archive " + archiveDir + " ("
           + (e.getCause() != null ? e.getCause().getMessage() : e.getMessage()) + "), so the"
-          + " run was recorded and stored in the second location " + second;
-      return elsewhere(new JournalRunStore(second, null, files, retry_ms)
+          + " run was recorded and stored in the second location " + there;
+      return elsewhere(new JournalRunStore(there, null, files, retry_ms)
           .begin(start, ring, firstIndex), why);
     }
     return new Recording() {
@@ -176,6 +216,7 @@ public final class JournalRunStore implements RunStore {
     private final long held;
     private RunMetadata meta;
     private String secondFailed;
+    private Path failedAt;
     private boolean told;
     /** whether how the run ended is kept beside the journal ({@link JournalEnd}) */
     private boolean endKept;
@@ -209,11 +250,13 @@ public final class JournalRunStore implements RunStore {
             return s;
           }
         }
-        if (second != null && secondFailed == null) {
+        Path there = second; // may be chosen while the run waits (useSecondLocation)
+        if (there != null && !there.equals(failedAt)) {
           try {
-            return inSecond(whole);
+            return inSecond(there);
           } catch (LoadstoneException e) {
             secondFailed = e.getMessage();
+            failedAt = there;
           }
         }
         if (!told) {
@@ -252,7 +295,7 @@ public final class JournalRunStore implements RunStore {
     }
 
     /** Copies the journal and the held samples to the second location and stores it there. */
-    private Stored inSecond(boolean whole) {
+    private Stored inSecond(Path second) {
       JournalFormat.Opened o = JournalFormat.open(second, start);
       try (FileChannel ch = o.channel()) {
         journal.copyTo(ch);

@@ -147,6 +147,7 @@ public final class Recorder implements AutoCloseable {
     if (thread.getState() != Thread.State.NEW) {
       throw new IllegalStateException("arm() once, before the run starts");
     }
+    store.keepRoom(); // refused here, before the load, when the disk has no room left
     control.arm(); // before the thread starts: the run control is the thread's from then on
     decideFrom = fromIndex;
     thread.start();
@@ -158,6 +159,9 @@ public final class Recorder implements AutoCloseable {
    * if it is not running. Any thread; the request is carried out on the recorder's thread.
    */
   public synchronized void startNow() {
+    if (thread.getState() == Thread.State.NEW) {
+      store.keepRoom();
+    }
     startRequested = true;
     if (thread.getState() == Thread.State.NEW) {
       decideFrom = reader.ring().written();
@@ -301,6 +305,7 @@ public final class Recorder implements AutoCloseable {
           + " kept in its journal, which becomes a run at the next start");
       listener.onFailed(failure);
     } finally {
+      store.releaseRoom(); // kept for a run that did not begin
       if (result == null && failure == null && started != null && !closing) {
         failure = "the run ended without being stored; its journal, if written, becomes a run at"
             + " the next start";

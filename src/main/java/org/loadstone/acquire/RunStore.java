@@ -18,6 +18,19 @@ public interface RunStore {
    */
   Recording begin(RunMetadata start, SampleRing ring, long firstIndex);
 
+  /**
+   * Called when a run is armed, before the operator loads the specimen: a store on a disk may
+   * keep room there for the run's start, so that a disk that fills between the arming and the
+   * load still takes the run's journal ({@link #begin} uses the room). Nothing by default.
+   *
+   * @throws org.loadstone.units.LoadstoneException when no room can be kept and the run would
+   *     have nowhere to go (the message names the disk and the fix)
+   */
+  default void keepRoom() {}
+
+  /** Gives back the room kept by {@link #keepRoom} when no run began. Nothing by default. */
+  default void releaseRoom() {}
+
   /** A run being recorded. */
   interface Recording {
     /** @return samples that have reached durable storage so far */

@@ -27,6 +27,9 @@ public final class ConsoleCommand implements Callable<Integer> {
   @Option(names = "--accept-changed-calibration", description = "Use the --cal calibration even though its content changed since it was saved (refused otherwise; each run stores the warning).")
   boolean acceptChanged;
 
+  @Option(names = "--second-archive", paramLabel = "DIR", description = "Where runs go when the archive's disk is full (best on another disk), as for record; without it a run waits in memory for space.")
+  java.nio.file.Path secondArchive;
+
   @Option(names = "--capacity-n", paramLabel = "N", description = "The load cell's rated capacity (default: from the calibration's cell profile).")
   Double capacity;
 
@@ -62,9 +65,9 @@ public final class ConsoleCommand implements Callable<Integer> {
     ScaleChoice scale = ScalePolicy.choose(cal, countsPerN, sim, today, acceptChanged);
     if (sim != null) {
       return DefaultDevice.simulated(sim, scale, capacity, archive.folder(),
-          SafetyNotice.defaultHome(), zeroDriftLimit);
+          SafetyNotice.defaultHome(), zeroDriftLimit).withSecondArchive(secondArchive);
     }
     return new ConsoleConfig(device.port, device::open, scale, capacity, zeroDriftLimit, null,
-        archive.folder(), Map.of(), SafetyNotice.defaultHome());
+        archive.folder(), Map.of(), SafetyNotice.defaultHome()).withSecondArchive(secondArchive);
   }
 }

@@ -22,10 +22,25 @@ import org.loadstone.units.Precondition;
  * @param archive where runs are stored
  * @param deviceFields extra device fields stored with runs (e.g. the simulator's scenario)
  * @param home Loadstone's settings folder
+ * @param secondArchive where runs go when the archive's disk is full (another disk), or null
  */
 public record ConsoleConfig(String deviceLabel, Supplier<Transport> connect, ScaleChoice scale,
     Double ratedCapacity_N, Double zeroDriftLimit_N, SimSetup simulated, Path archive,
-    Map<String, String> deviceFields, Path home) {
+    Map<String, String> deviceFields, Path home, Path secondArchive) {
+  /** Without a second location. */
+  public ConsoleConfig(String deviceLabel, Supplier<Transport> connect, ScaleChoice scale,
+      Double ratedCapacity_N, Double zeroDriftLimit_N, SimSetup simulated, Path archive,
+      Map<String, String> deviceFields, Path home) {
+    this(deviceLabel, connect, scale, ratedCapacity_N, zeroDriftLimit_N, simulated, archive,
+        deviceFields, home, null);
+  }
+
+  /** @return this set-up with runs going to {@code where} when the archive's disk is full */
+  public ConsoleConfig withSecondArchive(Path where) {
+    return new ConsoleConfig(deviceLabel, connect, scale, ratedCapacity_N, zeroDriftLimit_N,
+        simulated, archive, deviceFields, home, where);
+  }
+
   public ConsoleConfig {
     Precondition.notNull(deviceLabel, "deviceLabel");
     Precondition.notNull(connect, "connect");

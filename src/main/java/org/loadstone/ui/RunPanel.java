@@ -182,7 +182,7 @@ final class RunPanel {
           config.zeroDriftLimit_N(), null, false,
           org.loadstone.units.SoftwareVersion.get());
       RunSetup.check(request, config.deviceLabel());
-      store = new JournalRunStore(config.archive());
+      store = new JournalRunStore(config.archive(), config.secondArchive());
       store.checkWritable();
       form.remember();
       armedSpecimen = template.specimen();

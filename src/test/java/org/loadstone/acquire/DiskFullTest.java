@@ -267,9 +267,10 @@ class DiskFullTest {
     DeviceReader reader = new DeviceReader(setup.openTransport(), new SampleRing(1 << 20));
     reader.start();
     double zero = Tare.counts(reader, 100, HangGuard.MS);
-    // the journal's header, the room kept for how the run ends, then 2000 samples
-    disk.bytesLeft(4096 + org.loadstone.archive.JournalEnd.RESERVE_BYTES
-        + 2000L * JournalFormat.RECORD_BYTES);
+    // the room kept at the arming (given back uncounted: this disk frees nothing), then the
+    // journal's header, the room kept for how the run ends, and 2000 samples
+    disk.bytesLeft(KeptRoom.BYTES + 4096
+        + org.loadstone.archive.JournalEnd.RESERVE_BYTES + 2000L * JournalFormat.RECORD_BYTES);
     JournalRunStore store = new JournalRunStore(disk.path(real), second, JournalStream::store,
         RETRY_MS);
     CountDownLatch waiting = new CountDownLatch(1);
@@ -296,7 +297,7 @@ class DiskFullTest {
   }
 
   /** Every sample the device sent from the run's first on is in the run, in order, bit for bit. */
-  private static void assertEveryRingSample(SampleRing ring, long first, Run run) {
+  static void assertEveryRingSample(SampleRing ring, long first, Run run) {
     int n = run.data().size();
     assertThat(n).isGreaterThan(2000); // more than the journal took before the disk filled
     SampleRing.Cursor c = ring.cursorAt(first);

@@ -38,6 +38,16 @@ class ConsoleAndSimOptionsTest {
   }
 
   @Test
+  void theConsolesSecondLocationIsTheOneItsRunsGoToWhenTheDiskIsFull(@TempDir Path archive) {
+    Path second = archive.resolveSibling(archive.getFileName() + "-second");
+    ConsoleConfig config = parse("--port", "sim", "--archive", archive.toString(),
+        "--second-archive", second.toString()).config(LocalDate.of(2026, 12, 4));
+    assertEquals(second, config.secondArchive(), "the same option as record's");
+    assertNull(parse("--port", "sim", "--archive", archive.toString())
+        .config(LocalDate.of(2026, 12, 4)).secondArchive());
+  }
+
+  @Test
   void withoutACalibrationTheSimulatedFrameUsesItsCellsNominalScale(@TempDir Path archive) {
     ConsoleConfig config = parse("--port", "sim", "--archive", archive.toString())
         .config(LocalDate.of(2026, 12, 4));

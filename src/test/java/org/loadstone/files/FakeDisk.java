@@ -15,7 +15,8 @@ import java.util.concurrent.atomic.AtomicLong;
 /**
  * A file system for tests that lies over a real folder and behaves like a disk Loadstone meets
  * in the field: without hard links (a FAT or exFAT stick: {@code link} fails as EPERM does) and
- * with a fixed number of bytes left, after which writes fail as on a full disk. Paths come from
+ * with a fixed number of bytes left, after which writes fail as on a full disk (and, when asked,
+ * deleting a file gives its bytes back). Paths come from
  * {@link #path}; everything else is passed to the real file system.
  */
 public final class FakeDisk extends FileSystem {
@@ -23,6 +24,8 @@ public final class FakeDisk extends FileSystem {
   private final FakeProvider provider;
   final AtomicLong bytesLeft = new AtomicLong(Long.MAX_VALUE);
   volatile boolean links = true;
+  /** Whether deleting a file's last name gives its bytes back to {@link #bytesLeft}. */
+  volatile boolean freesOnDelete;
   /** How many times a hard link was refused. */
   final AtomicLong linksRefused = new AtomicLong();
 
@@ -39,6 +42,12 @@ public final class FakeDisk extends FileSystem {
   /** Makes every hard link fail as on FAT or exFAT ({@code FileSystemException}, EPERM). */
   public FakeDisk withoutLinks() {
     links = false;
+    return this;
+  }
+
+  /** Makes deleting a file's last name give its bytes back, as on a real disk. */
+  public FakeDisk freeingOnDelete() {
+    freesOnDelete = true;
     return this;
   }
 

@@ -98,7 +98,20 @@ final class FakeProvider extends FileSystemProvider {
   }
 
   @Override public void delete(Path path) throws IOException {
+    long freed = 0;
+    if (disk.freesOnDelete) {
+      try {
+        Map<String, Object> a = real.readAttributes(r(path), "unix:nlink,size");
+        // a file with another name (a hard link) keeps its bytes on the disk
+        freed = ((Number) a.get("nlink")).intValue() == 1 ? ((Number) a.get("size")).longValue()
+            : 0;
+      } catch (IOException | UnsupportedOperationException e) {
+        freed = 0;
+      }
+    }
     real.delete(r(path));
+    long f = freed;
+    disk.bytesLeft.getAndUpdate(l -> l > Long.MAX_VALUE / 2 ? l : l + f);
   }
 
   @Override public void copy(Path source, Path target, CopyOption... options) throws IOException {
