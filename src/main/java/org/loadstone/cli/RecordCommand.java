@@ -222,11 +222,7 @@ public final class RecordCommand implements Callable<Integer> {
         rec.startNow();
       } else {
         say(err, String.format(Locale.ROOT, "armed: recording starts at %.4g N; %s (Ctrl-C stops "
-            + "it by hand)", startAt, run.settings().crushEnd() != null
-                ? "the crush goes on through the load drops and ends "
-                    + run.settings().crushEnd().words()
-                : String.format(Locale.ROOT, "the run stops by itself at a %.0f %% drop from the "
-                    + "peak", dropPct)));
+            + "it by hand)", startAt, run.settings().endWords()));
         rec.arm(run.decideFrom());
       }
       boolean tty = Terminal.statusLines();
