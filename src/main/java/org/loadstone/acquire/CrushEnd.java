@@ -40,6 +40,25 @@ public record CrushEnd(double travelLimit_mm, double lowForceFraction, double lo
     }
   }
 
+  /**
+   * @param mm the travel that ends the run, mm; 0 for none
+   * @return this rule with another travel limit
+   * @throws LoadstoneException when the travel is negative or not finite
+   */
+  public CrushEnd withTravelLimit_mm(double mm) {
+    return new CrushEnd(mm, lowForceFraction, lowForce_s);
+  }
+
+  /**
+   * @param fraction share of the peak below which force counts as low, in [0, 1); 0 = off
+   * @param seconds how long it must stay low, s
+   * @return this rule with another low-force end
+   * @throws LoadstoneException when either is out of range
+   */
+  public CrushEnd withLowForce(double fraction, double seconds) {
+    return new CrushEnd(travelLimit_mm, fraction, seconds);
+  }
+
   /** @return the rule in words, e.g. "at 12 mm of travel, or below 5 % of the peak for 1 s" */
   public String words() {
     String travel = travelLimit_mm > 0 ? "at " + num(travelLimit_mm) + " mm of travel" : null;

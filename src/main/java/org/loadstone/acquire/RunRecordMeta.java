@@ -123,7 +123,7 @@ final class RunRecordMeta {
     java.util.Map<String, Object> m = new java.util.LinkedHashMap<>(t.extra());
     if (settings.crushEnd() != null) {
       String words = settings.crushEnd().words();
-      m.put("crush_end", words.startsWith("by hand") ? words
+      m.put(RunMetadata.CRUSH_END_KEY, words.startsWith("by hand") ? words
           : words + ", at the time limit or by hand");
     }
     if (lightAt_s != null) {

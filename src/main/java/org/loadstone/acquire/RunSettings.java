@@ -31,6 +31,14 @@ public record RunSettings(double startThreshold_N, double pretrigger_s, double b
   public static final RunSettings DEFAULTS =
       new RunSettings(5, 1.0, 40, 10, 0.01, 0, 0.5, 500, 80, 100, 0, null);
 
+  /**
+   * A crush run's preset: {@link #DEFAULTS} with {@link CrushEnd#DEFAULTS} (no break; force below
+   * 5 % of the peak for 1 s ends it). Set its travel limit with {@code
+   * CRUSH.toBuilder().crushEnd(CrushEnd.DEFAULTS.withTravelLimit_mm(12))}.
+   */
+  public static final RunSettings CRUSH = new RunSettings(5, 1.0, 40, 10, 0.01, 0, 0.5, 500, 80,
+      100, 0, CrushEnd.DEFAULTS);
+
   public RunSettings {
     positive(startThreshold_N, Setting.START_THRESHOLD);
     nonNegative(pretrigger_s, Setting.PRETRIGGER);
@@ -83,6 +91,26 @@ public record RunSettings(double startThreshold_N, double pretrigger_s, double b
       throw new LoadstoneException("the " + what.label() + " must be 0 or more, was " + num(v)
           + ": give 0 or a positive value", what);
     }
+  }
+
+  /**
+   * How this run ends by itself, in words for the operator: the one sentence the console's state
+   * band shows while recording and {@code record} prints when it arms, so both say the same.
+   * A run with a break ends at its drop from the peak (or below its absolute stop level); a
+   * crush run ({@link #crushEnd()}) goes on through the load drops and ends by its own rule
+   * ({@link CrushEnd#words()}); either also at the time limit when one is set.
+   *
+   * @return e.g. "the run stops by itself at a 40 % drop from the peak" or "the crush goes on through
+   *     the load drops and ends at 12 mm of travel, or after 60 s"
+   */
+  public String endWords() {
+    String limit = maxSeconds > 0 ? ", or after " + num(maxSeconds) + " s" : "";
+    if (crushEnd != null) {
+      return "the crush goes on through the load drops and ends " + crushEnd.words() + limit;
+    }
+    String below = absoluteStop_N > 0
+        ? " or when force falls back below " + num(absoluteStop_N) + " N" : "";
+    return "the run stops by itself at a " + num(breakDropPct) + " % drop from the peak" + below + limit;
   }
 
   /** @return force at which an overload warning is given, N */

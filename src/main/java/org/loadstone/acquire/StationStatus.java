@@ -88,10 +88,18 @@ public final class StationStatus {
    * @param cause the stored run's finish cause (phase {@code STORED}), else null
    * @param note a word from the run's set-up or its failure (e.g. {@code zeroing…}), or null
    * @param startThreshold_N the force at which an armed run starts
+   * @param endWords how the run ends by itself ({@link RunSettings#endWords()}), or null before
+   *     its settings are known
    */
-  public record Run(Phase phase, FinishCause cause, String note, double startThreshold_N) {
+  public record Run(Phase phase, FinishCause cause, String note, double startThreshold_N,
+      String endWords) {
     /** No run. */
-    public static final Run NONE = new Run(Phase.NONE, null, null, 0);
+    public static final Run NONE = new Run(Phase.NONE, null, null, 0, null);
+
+    /** A run whose end rule is not known yet (before its settings are made). */
+    public Run(Phase phase, FinishCause cause, String note, double startThreshold_N) {
+      this(phase, cause, note, startThreshold_N, null);
+    }
   }
 
   /**
@@ -131,9 +139,9 @@ public final class StationStatus {
       case ARMING -> new View("ARMING…", or(run.note(), "arming once the zero is done"),
           Tone.WAITING, "◆", false, 0);
       case ARMED -> new View("ARMED", String.format(Locale.ROOT,
-          "waiting for load: the run starts at %s N", num(run.startThreshold_N())),
-          Tone.WAITING, "◆", false, 0);
-      case RECORDING -> running("RECORDING", "stops by itself at the break");
+          "waiting for load: the run starts at %s N%s", num(run.startThreshold_N()),
+          run.endWords() == null ? "" : "; " + run.endWords()), Tone.WAITING, "◆", false, 0);
+      case RECORDING -> running("RECORDING", or(run.endWords(), "the run stops by itself at its end"));
       case TAIL -> running("BREAK", "recording the tail after the break");
       case STORING -> running("STORING…", "writing the run to the archive");
       case NOT_STORED -> fault("NOT STORED", or(run.note(),

@@ -16,17 +16,20 @@ import org.loadstone.units.LoadstoneException;
  *     displacement or position), or {@code null} for the automatic search
  * @param crushWindow stroke window for the mean crush force, or {@code null} for none (a
  *     crush run's figures then take the whole stroke, see {@code study.RunMetrics})
+ * @param noBreak why the run has no break to find, in words (a crush run goes on through its
+ *     load drops and ends by its own rule), or {@code null} to find the break by the drop rule
  */
 public record AnalysisSettings(
     double breakDropFraction,
     Integer breakIndex,
     double stiffnessPrecision,
     StiffnessBounds stiffnessBounds,
-    CrushWindow crushWindow) {
+    CrushWindow crushWindow,
+    String noBreak) {
 
   /** 40 % drop for the break, automatic stiffness known to ±3 % (95 %), no crush window. */
   public static final AnalysisSettings DEFAULTS =
-      new AnalysisSettings(0.40, null, 0.03, null, null);
+      new AnalysisSettings(0.40, null, 0.03, null, null, null);
 
   /** Checks the ranges. */
   public AnalysisSettings {
@@ -34,6 +37,10 @@ public record AnalysisSettings(
       throw new LoadstoneException(
           "Analysis setting breakDropFraction is " + breakDropFraction
               + "; it must lie between 0 and 1 (0.40 means a 40 % drop from the peak).");
+    }
+    if (noBreak != null && (noBreak.isBlank() || breakIndex != null)) {
+      throw new IllegalArgumentException("A run without a break needs the reason in words and "
+          + "no break index.");
     }
     if (breakIndex != null && breakIndex < 0) {
       throw new LoadstoneException(
@@ -47,39 +54,49 @@ public record AnalysisSettings(
     }
   }
 
-  /** @return these settings with the break at a given sample index */
+  /** @return these settings with the break at a given sample index (a run without one gets it) */
   public AnalysisSettings withBreakIndex(int index) {
     return new AnalysisSettings(
-        breakDropFraction, index, stiffnessPrecision, stiffnessBounds, crushWindow);
+        breakDropFraction, index, stiffnessPrecision, stiffnessBounds, crushWindow, null);
   }
 
   /** @return these settings with another break drop fraction, in (0, 1) */
   public AnalysisSettings withBreakDropFraction(double fraction) {
     return new AnalysisSettings(
-        fraction, breakIndex, stiffnessPrecision, stiffnessBounds, crushWindow);
+        fraction, breakIndex, stiffnessPrecision, stiffnessBounds, crushWindow, noBreak);
   }
 
   /** @return these settings with another required stiffness precision, in (0, 0.5] */
   public AnalysisSettings withStiffnessPrecision(double halfWidth95) {
     return new AnalysisSettings(
-        breakDropFraction, breakIndex, halfWidth95, stiffnessBounds, crushWindow);
+        breakDropFraction, breakIndex, halfWidth95, stiffnessBounds, crushWindow, noBreak);
   }
 
   /** @return these settings with a manual stiffness window; {@code null} restores the search */
   public AnalysisSettings withStiffnessBounds(StiffnessBounds bounds) {
     return new AnalysisSettings(
-        breakDropFraction, breakIndex, stiffnessPrecision, bounds, crushWindow);
+        breakDropFraction, breakIndex, stiffnessPrecision, bounds, crushWindow, noBreak);
   }
 
   /** @return these settings with a crush stroke window; {@code null} for none */
   public AnalysisSettings withCrushWindow(CrushWindow window) {
     return new AnalysisSettings(
-        breakDropFraction, breakIndex, stiffnessPrecision, stiffnessBounds, window);
+        breakDropFraction, breakIndex, stiffnessPrecision, stiffnessBounds, window, noBreak);
+  }
+
+  /**
+   * @param why why the run has no break, in words, e.g. "a crush run ends by its own rule"
+   * @return these settings finding no break: break figures are absent and a note gives {@code
+   *     why}; any break index is dropped
+   */
+  public AnalysisSettings withoutBreak(String why) {
+    return new AnalysisSettings(
+        breakDropFraction, null, stiffnessPrecision, stiffnessBounds, crushWindow, why);
   }
 
   /**
    * The settings as plain values with units in the keys, for a run's analysis record: {@code
-   * break_drop_fraction, break_index, stiffness_method, stiffness_band_basis,
+   * break_drop_fraction, break_index, no_break, stiffness_method, stiffness_band_basis,
    * stiffness_band_low, stiffness_band_high, stiffness_precision_95, crush_from_mm,
    * crush_to_mm, crush_stroke}; absent values (and an end at the end of the stroke) are {@code
    * null}. Key order is fixed.
@@ -88,6 +105,7 @@ public record AnalysisSettings(
     java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
     m.put("break_drop_fraction", breakDropFraction);
     m.put("break_index", breakIndex);
+    m.put("no_break", noBreak);
     m.put("stiffness_method", stiffnessBounds == null ? "automatic" : "band");
     m.put("stiffness_band", stiffnessBounds == null ? null : stiffnessBounds.words());
     m.put("stiffness_band_basis", stiffnessBounds == null ? null

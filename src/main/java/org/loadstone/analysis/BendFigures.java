@@ -81,8 +81,9 @@ public record BendFigures(
         if (four) {
           notes.add("The mid-span deflection at peak is " + share + " % of the span, beyond "
               + "the tenth where the small-deflection stress no longer holds; ASTM D6272 has a "
-              + "large-deflection correction for this (not applied here). Treat the flexural "
-              + "stress as approximate.");
+              + "large-deflection correction for this (not applied here: it is stated for a "
+              + "load span of a third and the measured mid-span deflection, and its clause is "
+              + "not checked). Treat the flexural stress as approximate.");
         } else {
           corrected = OptionalDouble.of(Flexure.threePointStressLargeDeflection_MPa(
               peak_N, span_mm, width_mm, depth_mm, mid));

@@ -18,7 +18,8 @@ public final class RunAnalyzer {
    *
    * <ul>
    *   <li>Peak: the first sample of highest force.
-   *   <li>Break: {@link AnalysisSettings#breakIndex()} when given, else the first sample after the
+   *   <li>Break: {@link AnalysisSettings#breakIndex()} when given, else none when {@link
+   *       AnalysisSettings#noBreak()} says why (a crush run), else the first sample after the
    *       peak whose force is at most {@code peak − breakDropFraction·|peak|}.
    *   <li>Stiffness: slope of force against displacement over the initial straight region, found
    *       automatically ({@link StiffnessSearch}: windows in force span, before the first yield,
@@ -27,6 +28,9 @@ public final class RunAnalyzer {
    *       travels). When the search refuses, {@link RunResult#stiffnessRefusal()} says why.
    *   <li>Toe compensation: the fitted line meets zero force at the toe offset; corrected
    *       displacement = displacement − toe offset (ASTM D790 annex A1, ISO 178).
+   *   <li>Jumps: a jump in the position column up to the break ({@link PositionJumps}: a break,
+   *       slip or lost count) is a break in the record, not travel: the path goes on across it
+   *       at the speed before it, and a note names it.
    *   <li>Energy: trapezoidal area under force–displacement, N·mm / 1000 = J; to the peak and to
    *       the break both as measured and toe-compensated ({@link #toeCompensatedArea_Nmm}).
    *   <li>Crush ({@link CrushFigures}): energy over the forward stroke in the window, mean crush
@@ -83,8 +87,9 @@ public final class RunAnalyzer {
     }
 
     double[] x = scratch;
+    double[] path = withoutJumps(t, pos, brk.map(BreakPoint::index).orElse(n - 1), notes);
     for (int i = 0; i < n; i++) {
-      x[i] = pos[i] - pos[0];
+      x[i] = path[i] - path[0];
     }
     RiseProfile rise = new RiseProfile(x, f, peak);
     StiffnessFit fit;
@@ -158,6 +163,26 @@ public final class RunAnalyzer {
     return line_Nmm + after;
   }
 
+  /**
+   * The position column with its jumps up to the last sample the figures use ({@link
+   * PositionJumps}) taken out, each with a note: a jump is a break or a slip in the record, so
+   * no travel and no energy is counted across it. The column itself when it has none.
+   */
+  private static double[] withoutJumps(double[] t, double[] pos, int last, List<String> notes) {
+    boolean[] jump = PositionJumps.of(t, pos);
+    boolean any = false;
+    for (int j = 0; j < last && j < jump.length; j++) {
+      if (jump[j]) {
+        any = true;
+        notes.add(String.format(java.util.Locale.ROOT, "The position jumps by %.4g mm between "
+            + "samples %d and %d (%.4g s): a break or slip in the position record, not travel; "
+            + "displacement, stiffness and energy leave it out (the path goes on across it at "
+            + "the speed before it).", pos[j + 1] - pos[j], j, j + 1, t[j + 1]));
+      }
+    }
+    return any ? PositionJumps.mended(t, pos, jump, last) : pos;
+  }
+
   /** Analyses with {@link AnalysisSettings#DEFAULTS}. */
   public static RunResult analyze(Curve curve) {
     return analyze(curve, AnalysisSettings.DEFAULTS);
@@ -195,6 +220,10 @@ public final class RunAnalyzer {
                 + (f.length - 1) + ", or leave it empty to detect the break.");
       }
       return Optional.of(new BreakPoint(b, t[b], f[b], false));
+    }
+    if (s.noBreak() != null) {
+      notes.add("No break: " + s.noBreak() + "; break values are absent.");
+      return Optional.empty();
     }
     double threshold = f[peak] - s.breakDropFraction() * Math.abs(f[peak]);
     for (int i = peak + 1; i < f.length; i++) {

@@ -90,6 +90,9 @@ public record RunMetadata(
    */
   public static final String SYNC_LIGHT_KEY = "sync_light_s";
 
+  /** The extra field holding a crush run's end rule in words, as it was set for the run. */
+  public static final String CRUSH_END_KEY = "crush_end";
+
   public RunMetadata {
     Precondition.notNull(runId, "runId");
     Precondition.notNull(startedAt, "startedAt");

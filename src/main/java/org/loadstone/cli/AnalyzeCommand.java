@@ -9,6 +9,7 @@ import org.loadstone.analysis.position.PositionTable;
 import org.loadstone.study.FrameProfile;
 import org.loadstone.intake.PositionTableCsv;
 import org.loadstone.study.RunAdjust;
+import org.loadstone.study.RunEnd;
 import org.loadstone.units.DurationUnit;
 import org.loadstone.units.LengthUnit;
 import java.util.concurrent.Callable;
@@ -172,6 +173,7 @@ public final class AnalyzeCommand implements Callable<Integer> {
     PrintWriter out = JsonDocument.human(spec, json);
     out.printf(Locale.ROOT, "run %s, specimen %s, %d samples (%s)%n", m.metadata().runId(),
         m.metadata().specimen(), m.analysis().sampleCount(), r.source());
+    out.printf(Locale.ROOT, "  %-28s %s%n", "how it ended", RunEnd.words(m.metadata()));
     for (Metric metric : Metric.values()) {
       java.util.OptionalDouble v = metric.of(m);
       out.printf(Locale.ROOT, "  %-28s %14s %s%n", metric.label(), metric.format(v),
@@ -201,6 +203,8 @@ public final class AnalyzeCommand implements Callable<Integer> {
         derived.add(usedVideo);
       }
       derived.addAll(adj.notes());
+      j.put("cause", m.metadata().cause().wireName());
+      j.put("how_it_ended", RunEnd.words(m.metadata()));
       j.put("derived", derived);
       j.put("calibration_id", adj.metadata().calibrationId());
       j.put("calibration_sha256", adj.metadata().calibrationSha256());

@@ -256,11 +256,8 @@ public final class RecordCommand implements Callable<Integer> {
         rec.startNow();
       } else {
         say(err, String.format(Locale.ROOT, "armed: recording starts at %.4g N; %s (Ctrl-C stops "
-            + "it by hand)", run.settings().startThreshold_N(), run.settings().crushEnd() != null
-                ? "the crush goes on through the load drops and ends "
-                    + run.settings().crushEnd().words()
-                : String.format(Locale.ROOT, "the run stops by itself at a %.0f %% drop from the "
-                    + "peak", run.settings().breakDropPct())));
+            + "it by hand)", run.settings().startThreshold_N(),
+                run.settings().endWords()));
         rec.arm(run.decideFrom());
       }
       boolean tty = Terminal.statusLines();

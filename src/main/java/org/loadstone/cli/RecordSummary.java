@@ -34,10 +34,12 @@ final class RecordSummary {
     BreakDetector.Break b = r.breakDetail();
     RunMetrics metrics = null;
     String notAnalysed = null;
+    String ended = r.cause().wireName();
     java.util.List<String> warnings = java.util.List.of();
     try {
       Run run = RunReader.read(r.stored().csv());
       warnings = run.metadata().warnings();
+      ended = org.loadstone.study.RunEnd.words(run.metadata());
       metrics = RunMetrics.of(run.metadata(), run.data(), settings);
     } catch (LoadstoneException e) {
       notAnalysed = e.getMessage();
@@ -51,7 +53,7 @@ final class RecordSummary {
     }
     PrintWriter h = json ? err : out;
     h.printf(Locale.ROOT, "run %s: %s, peak %.2f N, %d samples, %d dropped%n",
-        r.stored().runId(), r.cause().wireName(), r.peak_N(), r.samples(), r.dropped());
+        r.stored().runId(), ended, r.peak_N(), r.samples(), r.dropped());
     h.println(r.returnToZero_N() != null
         ? String.format(Locale.ROOT, "return to zero %+.3g N after the load came off",
             r.returnToZero_N())
@@ -60,14 +62,14 @@ final class RecordSummary {
     h.println("  " + r.stored().json());
     if (metrics != null) {
       var a = metrics.analysis();
-      h.printf(Locale.ROOT, "stiffness %s, energy %s to break, %s to peak (toe-compensated "
-          + "%s and %s)%s%n",
+      h.printf(Locale.ROOT, "stiffness %s, energy %s to peak (toe-compensated %s)%s%s%n",
           a.stiffness().map(s -> String.format(Locale.ROOT, "%.4g N/mm (95 %% %.4g to %.4g, "
               + "%s, %.4g to %.4g N)", s.slope_N_per_mm(), s.ci95Low_N_per_mm(),
               s.ci95High_N_per_mm(), s.method().words(), s.fromForce_N(), s.toForce_N()))
               .orElse("-"),
-          joules(a.energyToBreak_J()), joules(a.energyToPeak_J()),
-          joules(a.energyToBreakToeCompensated_J()), joules(a.energyToPeakToeCompensated_J()),
+          joules(a.energyToPeak_J()), joules(a.energyToPeakToeCompensated_J()),
+          a.breakPoint().isEmpty() ? "" : ", " + joules(a.energyToBreak_J()) + " to break "
+              + "(toe-compensated " + joules(a.energyToBreakToeCompensated_J()) + ")",
           metrics.specificPeak_N_per_g().isPresent() ? String.format(Locale.ROOT,
               ", peak %.4g N/g", metrics.specificPeak_N_per_g().getAsDouble()) : "");
       a.stiffnessRefusal().ifPresent(no -> h.println("no stiffness: " + no.reason()));

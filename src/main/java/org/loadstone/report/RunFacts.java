@@ -47,7 +47,7 @@ final class RunFacts {
     add(rows, "zero (tare)", String.format(Locale.ROOT, "%d counts",
         Math.round(md.zeroOffset_counts())));
     add(rows, "samples lost / checksum errors", md.dropped() + " / " + md.checksumErrors());
-    add(rows, "how it ended", md.cause().wireName());
+    add(rows, "how it ended", org.loadstone.study.RunEnd.words(md));
     add(rows, "break as recorded", md.breakIndex() == null ? null : "sample " + md.breakIndex()
         + (md.breakTime_s() == null ? "" : " at " + fact(md.breakTime_s()) + " s")
         + (md.peakBeforeBreak_N() == null ? "" : ", peak before " + fact(md.peakBeforeBreak_N())

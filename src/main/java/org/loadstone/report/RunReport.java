@@ -16,10 +16,6 @@ import org.loadstone.study.RunMetrics;
 final class RunReport {
   private RunReport() {}
 
-  /** The figures shown large at the top, when the run has them. */
-  static final List<Metric> KEY_FIGURES = List.of(Metric.PEAK, Metric.STIFFNESS, Metric.ENERGY,
-      Metric.SPECIFIC_PEAK);
-
   static void write(PdfLayout p, RunMetrics m, String source, Instant made) {
     RunMetadata md = m.metadata();
     p.title("Run report: " + md.specimen(), "run " + md.runId() + "  ·  "
@@ -28,7 +24,7 @@ final class RunReport {
     ReportParts.banner(p, md);
     p.heading("Key figures", 40);
     List<String[]> key = new ArrayList<>();
-    for (Metric f : KEY_FIGURES) {
+    for (Metric f : Metric.keyFigures(md.testType())) { // shown large at the top
       key.add(new String[] {f.label(), f.format(f.of(m)), f.unit()});
     }
     p.table(new String[] {"figure", "value", "unit"}, key, new float[] {0.5f, 0.3f, 0.2f}, 10);

@@ -194,6 +194,21 @@ public enum Metric {
     return String.format(Locale.ROOT, "%." + decimals + "f", v);
   }
 
+  /**
+   * The figures that matter first for a run of this type (the run report's key figures): a crush
+   * run is read by its peak, mean crush force, crush-force efficiency, energy over the stroke and
+   * that energy per gram (crashworthiness practice, from memory); any other run by its peak,
+   * stiffness, energy to peak and peak per gram.
+   *
+   * @param type the run's test type, not null
+   * @return the figures, in the order to show them
+   */
+  public static List<Metric> keyFigures(org.loadstone.archive.TestType type) {
+    return type == org.loadstone.archive.TestType.CRUSH
+        ? List.of(PEAK, CRUSH_MEAN, CRUSH_EFFICIENCY, CRUSH_ENERGY, SPECIFIC_CRUSH_ENERGY)
+        : List.of(PEAK, STIFFNESS, ENERGY, SPECIFIC_PEAK);
+  }
+
   /** @return the figures groups can be compared on, in catalogue order */
   public static List<Metric> comparableOnes() {
     return Arrays.stream(values()).filter(Metric::comparable).toList();

@@ -91,9 +91,11 @@ public record RunMetrics(
   }
 
   /**
-   * Analyses a run. The curve uses the run's position channel when present. When the metadata
-   * records a break index and the settings give none, the recorded break is used; if it lies
-   * outside the run or before the peak, the break is detected instead and a note says so.
+   * Analyses a run. The curve uses the run's position channel when present. A crush run has no
+   * break (it ends by its own rule, {@link RunEnd}) unless the settings give a break index. When
+   * the metadata records a break index and the settings give none, the recorded break is used;
+   * if it lies outside the run or before the peak, the break is detected instead and a note says
+   * so.
    *
    * @param metadata the run's metadata (geometry, mass, test type, break), not null
    * @param data the samples, not null
@@ -117,7 +119,10 @@ public record RunMetrics(
           + "collapse or the densification.");
     }
     Integer recorded = metadata.breakIndex();
-    if (settings.breakIndex() == null && recorded != null) {
+    String noBreak = RunEnd.noBreak(metadata);
+    if (settings.breakIndex() == null && noBreak != null) {
+      used = used.withoutBreak(noBreak);
+    } else if (settings.breakIndex() == null && recorded != null) {
       int peak = firstPeak(data.force_N());
       if (recorded >= peak && recorded < data.size()) {
         used = used.withBreakIndex(recorded);

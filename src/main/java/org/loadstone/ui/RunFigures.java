@@ -179,8 +179,13 @@ final class RunFigures {
     tile("stiffness", r.stiffness().map(s -> fmt(u.fromNewtons(s.slope_N_per_mm()),
         u.symbol() + "/mm")).orElse("—"),
         r.stiffness().map(s -> String.format(Locale.ROOT, "R² %.4f", s.rSquared())).orElse(""));
-    tile("energy", opt(r.energyToBreak_J(), "J"), "to break · " + opt(r.energyToPeak_J(), "J")
-        + " to peak");
+    if (r.breakPoint().isPresent()) {
+      tile("energy", opt(r.energyToBreak_J(), "J"), "to break · " + opt(r.energyToPeak_J(), "J")
+          + " to peak");
+    } else { // a crush run (no break: it ends by its own rule) or a run that did not break
+      tile("energy", opt(r.energyToPeak_J(), "J"), "to peak · no break, ended "
+          + m.metadata().cause().wireName());
+    }
     if (m.flexuralStressAtPeak_MPa().isPresent()) {
       tile("flexural stress", opt(m.flexuralStressAtPeak_MPa(), "MPa"), "at peak · modulus "
           + opt(m.flexuralModulus_MPa(), "MPa"));
@@ -199,8 +204,9 @@ final class RunFigures {
                 ? " · " + opt(m.specificCrushEnergy_J_per_g(), "J/g") : "")));
     if (m.specificPeak_N_per_g().isPresent()) {
       tile("per gram", fmt(u.fromNewtons(m.specificPeak_N_per_g().getAsDouble()),
-          u.symbol() + "/g"),
-          opt(m.specificEnergyToBreak_J_per_g(), "J/g") + " to break");
+          u.symbol() + "/g"), r.breakPoint().isPresent()
+          ? opt(m.specificEnergyToBreak_J_per_g(), "J/g") + " to break"
+          : opt(m.specificEnergyToPeak_J_per_g(), "J/g") + " to peak");
     }
     figures.getChildren().add(stiffness.node());
     stiffness.show(d);

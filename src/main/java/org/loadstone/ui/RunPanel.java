@@ -79,6 +79,7 @@ final class RunPanel {
   private volatile org.loadstone.archive.FinishCause lastCause;
   /** The force at which the armed run starts. */
   private volatile double startThreshold_N = RunSettings.DEFAULTS.startThreshold_N();
+  private volatile String endWords; // how the prepared run ends by itself, from its settings
   /** A was pressed while connecting or zeroing: arm as soon as the zero is done. */
   private boolean armQueued;
   /** Journals left by a run that never finished are being stored: no new run until then. */
@@ -217,6 +218,7 @@ final class RunPanel {
       RunSetup.Prepared p = setup.prepare(request,
           text -> note = text);
       startThreshold_N = p.settings().startThreshold_N();
+      endWords = p.settings().endWords();
       feed.useZero(p.zero_counts());
       List<String> before = SpecimenIds.runsOf(config.archive(),
           request.template().specimen());
@@ -320,7 +322,7 @@ final class RunPanel {
         case FINISHED -> StationStatus.Phase.STORING;
       };
     }
-    return new StationStatus.Run(phase, lastCause, note, startThreshold_N);
+    return new StationStatus.Run(phase, lastCause, note, startThreshold_N, endWords);
   }
 
   /**

@@ -72,6 +72,27 @@ class StationStatusTest {
   }
 
   @Test
+  void aRecordingRunSaysHowItEndsInTheWordsOfItsOwnSettings() {
+    // one sentence from the run's settings for the band and for record's arming line: a crush run
+    // goes on through its load drops (its rule, not the break's drop from the peak)
+    RunSettings crush = RunSettings.CRUSH.toBuilder()
+        .crushEnd(CrushEnd.DEFAULTS.withTravelLimit_mm(12)).maxSeconds(60).build();
+    StationStatus.View v = at(10 * S, new StationStatus.Run(StationStatus.Phase.RECORDING, null,
+        null, 5, crush.endWords()));
+    assertThat(v.detail()).isEqualTo("the crush goes on through the load drops and ends at 12 mm "
+        + "of travel, or when force stays below 5 % of the peak for 1 s, or after 60 s")
+        .doesNotContain("break");
+    StationStatus.View armed = at(10 * S, new StationStatus.Run(StationStatus.Phase.ARMED, null,
+        null, 5, crush.endWords()));
+    assertThat(armed.detail()).isEqualTo("waiting for load: the run starts at 5 N; "
+        + crush.endWords());
+    RunSettings bend = RunSettings.builder().breakDropPct(30).absoluteStop_N(2).build();
+    assertThat(at(10 * S, new StationStatus.Run(StationStatus.Phase.RECORDING, null, null, 5,
+        bend.endWords())).detail()).isEqualTo("the run stops by itself at a 30 % drop from the "
+            + "peak or when force falls back below 2 N");
+  }
+
+  @Test
   void theCapacityGaugeWarnsAndFlagsOverRangeAndSaturation() {
     RunSettings s = RunSettings.DEFAULTS; // warn 80 %, stop 100 %
     assertThat(CapacityGauge.of(500, 0, 1000, s).level()).isEqualTo(CapacityGauge.Level.NORMAL);

@@ -101,6 +101,14 @@ class CrushRecordTest {
     // lies well below the peak, and well above the floor of the teeth
     assertThat(mean / f[peak]).isBetween(0.45, 0.95);
     assertThat(r.out()).doesNotContain("not analysed");
+    // no break on a crush run, though its teeth fall past the 40 % drop rule: the figures say it
+    // ended by its own rule, in record's summary and in analyze's document and text
+    assertThat(an.get("break_index").isNull()).isTrue();
+    // the simulated crosshead's encoder counts along the whole stroke: no jump in it
+    assertThat(an.get("notes").toString()).doesNotContain("The position jumps");
+    assertThat(an.get("energy_to_break_J").isNull()).isTrue();
+    assertThat(r.err()).contains(": travel-limit: the crush ended by its own rule, at its travel "
+        + "limit (at 4 mm of travel").doesNotContain("to break");
 
     // analyze reads the same run over a chosen stroke, and refuses a stroke longer than the run
     String id = j.get("run_id").asText();
@@ -108,6 +116,15 @@ class CrushRecordTest {
         "--crush-from-mm", "1", "--json");
     assertThat(a.exit()).as(a.err()).isZero();
     assertThat(a.json().get("crush_from_mm").asDouble()).isEqualTo(1.0);
+    assertThat(a.json().get("cause").asText()).isEqualTo("travel-limit");
+    assertThat(a.json().get("how_it_ended").asText())
+        .startsWith("travel-limit: the crush ended by its own rule");
+    assertThat(a.json().get("mean_crush_force_N").isNumber()).isTrue();
+    assertThat(a.json().get("crush_force_efficiency").isNumber()).isTrue();
+    Outcome text = RecordCommandTest.run("analyze", id, "--archive", tmp.toString());
+    assertThat(text.out()).containsPattern("how it ended +travel-limit: the crush ended by its "
+        + "own rule").containsPattern("mean crush force +[0-9.]+ N")
+        .containsPattern("crush-force efficiency +0\\.[0-9]+").containsPattern("break sample +- ");
     assertThat(a.json().get("analysis_settings").get("crush_stroke").asText())
         .isEqualTo("1.000 mm to the end of the stroke");
     Outcome tooLong = RecordCommandTest.run("analyze", id, "--archive", tmp.toString(),

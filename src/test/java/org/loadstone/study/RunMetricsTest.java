@@ -83,6 +83,57 @@ class RunMetricsTest {
   }
 
   @Test
+  void aCrushRunHasNoBreakAndSaysItEndedByItsOwnRule() {
+    // A saw-tooth whose teeth fall from 400 N to 150 N (a 62 % drop, past the 40 % break rule)
+    // every 1 mm over 8 mm of stroke, 0.002 mm a sample. Read as a bend test, the drop rule
+    // finds a break at the first tooth; read as a crush run, no break: the crush ends by its own
+    // rule (its travel limit here) and every break figure is absent, with the reason in a note.
+    int n = 4001;
+    double[] t = new double[n];
+    double[] f = new double[n];
+    double[] x = new double[n];
+    for (int i = 0; i < n; i++) {
+      x[i] = i * 0.002;
+      t[i] = i * 0.01;
+      double phase = x[i] % 1.0; // rise 0.8 mm at 312.5 N/mm from 150 N, fall in 0.2 mm
+      f[i] = x[i] < 0.8 ? 500 * x[i] : phase < 0.8 ? 150 + 312.5 * phase
+          : 400 - 1250 * (phase - 0.8);
+    }
+    int[] zeros = new int[n];
+    RunData data = new RunData(t, f, x, zeros, zeros, zeros);
+    RunMetadata bendMd = TestRuns.meta("T-01", "tubes", new Geometry(null, null, null, null,
+        null, null, 80.0), 9.0);
+    RunMetrics asBend = RunMetrics.of(bendMd, data);
+    assertThat(asBend.analysis().breakPoint()).isPresent(); // the first tooth: x just over 0.8 mm
+    assertThat(asBend.analysis().displacementAtBreak_mm().getAsDouble()).isLessThan(1.0);
+    Map<String, Object> extra = Map.of(RunMetadata.CRUSH_END_KEY, "at 8 mm of travel, or when "
+        + "force stays below 5 % of the peak for 1 s, at the time limit or by hand");
+    RunMetadata crushMd = bendMd.toBuilder().testType(TestType.CRUSH)
+        .cause(FinishCause.TRAVEL_LIMIT).extra(extra).build();
+    RunMetrics crush = RunMetrics.of(crushMd, data);
+    assertThat(crush.analysis().breakPoint()).isEmpty();
+    for (Metric m : new Metric[] {Metric.BREAK_SAMPLE, Metric.BREAK_TIME, Metric.BREAK_FORCE,
+        Metric.DISPLACEMENT_AT_BREAK, Metric.ENERGY_TO_BREAK, Metric.SPECIFIC_ENERGY_TO_BREAK}) {
+      assertThat(m.of(crush)).as(m.label()).isEmpty();
+    }
+    assertThat(crush.notes()).anyMatch(s -> s.startsWith("No break: a crush run goes on through "
+        + "its load drops and has no break; it ended by its own rule (travel-limit)"));
+    assertThat(crush.toJsonMap().get("break_detected")).isNull();
+    assertThat(RunEnd.words(crushMd)).isEqualTo("travel-limit: the crush ended by its own rule, "
+        + "at its travel limit (at 8 mm of travel, or when force stays below 5 % of the peak for "
+        + "1 s, at the time limit or by hand)");
+    assertThat(RunEnd.words(bendMd)).isEqualTo("break");
+    // its key figures are the crush's own
+    assertThat(Metric.keyFigures(TestType.CRUSH)).contains(Metric.CRUSH_MEAN,
+        Metric.CRUSH_EFFICIENCY).doesNotContain(Metric.STIFFNESS);
+    assertThat(Metric.CRUSH_MEAN.of(crush)).isPresent();
+    // a break index given by hand is still honoured
+    RunMetrics given = RunMetrics.of(crushMd, data,
+        org.loadstone.analysis.AnalysisSettings.DEFAULTS.withBreakIndex(n - 1));
+    assertThat(given.analysis().breakPoint().orElseThrow().index()).isEqualTo(n - 1);
+  }
+
+  @Test
   void sandwichCoreShearAndFacingStressAsAstmC393() {
     // ASTM C393: τ = P/((d + c)b), σ_f = PL/(2t(d + c)b). Hand-computed for P = 460 N,
     // d = 26, c = 20, t = 3, b = 50, L = 400 mm: τ = 460/(46·50) = 0.2 MPa,

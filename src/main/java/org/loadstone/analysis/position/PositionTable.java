@@ -1,6 +1,7 @@
 package org.loadstone.analysis.position;
 
 import java.util.Arrays;
+import org.loadstone.analysis.PositionJumps;
 import org.loadstone.units.LoadstoneException;
 import org.loadstone.units.Precondition;
 
@@ -61,8 +62,8 @@ public record PositionTable(double[] time_s, double[] position_mm) {
    * Linearly interpolates the table at the force record's time stamps, except across a jump.
    *
    * <p>A jump (a break or a slip moving the tracked point at once) is a step between two rows
-   * larger than ten times the median step plus ten times the noise (the noise from the median
-   * absolute second difference of the rows, 1.4826·median/√6). The instant of a jump between two
+   * far larger than the table's motion and noise allow ({@link PositionJumps#of}: ten times the
+   * typical travel in that time, the noise and the resolution). The instant of a jump between two
    * rows is unknown, so force samples that fall between those rows are not drawn towards the far
    * side: they continue the path before the jump at its rate (or hold the last position before
    * it). A straight line across a 2 mm jump would otherwise add up to 2 mm of travel, and the
@@ -112,30 +113,12 @@ public record PositionTable(double[] time_s, double[] position_mm) {
     return out;
   }
 
-  /** @return for each row j, whether the step from row j to j + 1 is a jump (see resampleOnto) */
+  /**
+   * @return for each row j, whether the step from row j to j + 1 is a jump ({@link
+   *     PositionJumps#of}, the rule the run's own position column is read by)
+   */
   boolean[] jumps() {
-    int m = position_mm.length - 1;
-    boolean[] jump = new boolean[m];
-    if (m < 4) {
-      return jump;
-    }
-    double[] steps = new double[m];
-    for (int j = 0; j < m; j++) {
-      steps[j] = Math.abs(position_mm[j + 1] - position_mm[j]);
-    }
-    double[] second = new double[m - 1];
-    for (int j = 0; j < m - 1; j++) {
-      second[j] = Math.abs(position_mm[j + 2] - 2 * position_mm[j + 1] + position_mm[j]);
-    }
-    double[] sortedSteps = steps.clone();
-    Arrays.sort(sortedSteps);
-    Arrays.sort(second);
-    double noise = 1.4826 * second[second.length / 2] / Math.sqrt(6);
-    double limit = 10 * sortedSteps[m / 2] + 10 * noise;
-    for (int j = 0; j < m; j++) {
-      jump[j] = steps[j] > limit && limit > 0;
-    }
-    return jump;
+    return PositionJumps.of(time_s, position_mm);
   }
 
   @Override
