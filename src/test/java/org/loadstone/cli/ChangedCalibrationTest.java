@@ -105,7 +105,7 @@ class ChangedCalibrationTest {
   @Test
   void analyzeRefusesItWithTheSameWords() throws Exception {
     Path arc = Files.createDirectories(tmp.resolve("demo"));
-    String run = "20261203T220807.832Z-foam-01";
+    String run = "20261204T181011.533Z-foam-01";
     for (String ext : new String[] {".csv", ".json"}) {
       Files.copy(Path.of("sample-runs", run + ext), arc.resolve(run + ext));
     }
